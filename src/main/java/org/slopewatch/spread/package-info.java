@@ -1,0 +1,8 @@
+/**
+ * Spreads: definitions (two legs of one curve, or the near-term forward spread read off a
+ * fitted curve) and their computation in basis points from a curve snapshot.
+ *
+ * <p>A spread that cannot be computed on a date (a leg missing, a fit impossible) is NaN,
+ * never a guess; the caller skips that date.
+ */
+package org.slopewatch.spread;
