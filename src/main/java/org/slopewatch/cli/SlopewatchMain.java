@@ -1,6 +1,7 @@
 package org.slopewatch.cli;
 
 import io.quarkus.runtime.annotations.QuarkusMain;
+import java.io.PrintWriter;
 import picocli.CommandLine;
 
 /**
@@ -22,8 +23,18 @@ public final class SlopewatchMain {
 
     /** Runs one command line and returns its exit code (0 ok, 1 failure, 2 bad input or usage). */
     public static int execute(String... args) {
-        return new CommandLine(new SlopewatchCommand())
+        return execute(new PrintWriter(System.out, true), new PrintWriter(System.err, true), args);
+    }
+
+    /** As {@link #execute(String...)}, writing to the given streams (tests read them). */
+    public static int execute(PrintWriter out, PrintWriter err, String... args) {
+        CommandLine cli = new CommandLine(new SlopewatchCommand())
                 .setCaseInsensitiveEnumValuesAllowed(true)
-                .execute(args);
+                .setOut(out)
+                .setErr(err);
+        int code = cli.execute(args);
+        out.flush();
+        err.flush();
+        return code;
     }
 }

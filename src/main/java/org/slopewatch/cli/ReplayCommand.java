@@ -1,0 +1,190 @@
+package org.slopewatch.cli;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.PrintWriter;
+import java.io.Reader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Set;
+import java.util.concurrent.Callable;
+import org.slopewatch.curve.YieldBounds;
+import org.slopewatch.curve.YieldUnit;
+import org.slopewatch.ingest.HistoryCsvReader;
+import org.slopewatch.ingest.HistoryFormatException;
+import org.slopewatch.monitor.DaysInverted;
+import org.slopewatch.monitor.MonitorDefinition;
+import org.slopewatch.monitor.PersistenceTest;
+import org.slopewatch.monitor.QuarterAverage;
+import org.slopewatch.monitor.RollingAverage;
+import org.slopewatch.monitor.ShareInverted;
+import org.slopewatch.monitor.Watch;
+import org.slopewatch.probability.LeadTimeAnalysis;
+import org.slopewatch.replay.RecessionDatesCsv;
+import org.slopewatch.replay.Replay;
+import org.slopewatch.replay.ReplayReport;
+import org.slopewatch.rules.PolicyException;
+import org.slopewatch.rules.PolicyParser;
+import org.slopewatch.spread.SpreadDefinition;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code slopewatch replay FILE}: history through the engine, a report out. */
+@Command(name = "replay", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {"Replays yield history (CSV) through the inversion monitor and reports quarters, "
+                + "transitions, spells and, with --recessions, lead times.",
+                "Spreads and persistence tests come from --policy, or from --spread/--persistence."},
+        exitCodeListHeading = "%nExit codes:%n",
+        exitCodeList = {"0:report written", "1:could not read a file", "2:bad input or options (file:line: what is wrong)"})
+final class ReplayCommand implements Callable<Integer> {
+
+    @Parameters(index = "0", paramLabel = "FILE", description = "History CSV: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield'.")
+    Path file;
+
+    @Option(names = "--curve", paramLabel = "NAME", description = "Curve name for a wide file (default: the file name without extension).")
+    String curve;
+
+    @Option(names = "--unit", paramLabel = "UNIT", defaultValue = "percent", description = "Unit of the yields: percent, bp or decimal (default: ${DEFAULT-VALUE}).")
+    String unit;
+
+    @Option(names = "--policy", paramLabel = "FILE", description = "Policy file whose 'watch' part names the spreads and tests (see alert-rules/README.md).")
+    Path policy;
+
+    @Option(names = "--spread", paramLabel = "SPREAD", description = "Spread to watch, e.g. 10Y-3M, 10Y-2Y~ (interpolated legs) or near-term-forward. Repeatable.")
+    List<String> spreads = new ArrayList<>();
+
+    @Option(names = "--persistence", paramLabel = "TEST", description = "Persistence test: quarter-average, days-inverted:DAYS, rolling-average:DAYS, "
+            + "share-inverted:DAYS:SHARE. Repeatable; the first that holds confirms. Default: quarter-average.")
+    List<String> persistence = new ArrayList<>();
+
+    @Option(names = "--entry-bp", paramLabel = "BP", defaultValue = "0", description = "A spell starts below this (default: ${DEFAULT-VALUE}).")
+    double entryBp;
+
+    @Option(names = "--exit-bp", paramLabel = "BP", description = "A spell ends at or above this (default: the entry threshold).")
+    Double exitBp;
+
+    @Option(names = "--exit-observations", paramLabel = "N", defaultValue = "1", description = "Observations at or above the exit threshold that end a spell (default: ${DEFAULT-VALUE}).")
+    int exitObservations;
+
+    @Option(names = "--hold-days", paramLabel = "DAYS", defaultValue = "365", description = "Days a re-steepened spread stays RESTEEPENING (default: ${DEFAULT-VALUE}).")
+    int holdDays;
+
+    @Option(names = "--recessions", paramLabel = "FILE", description = "Business-cycle dates, CSV 'peak,trough' (YYYY-MM): adds lead times, false alarms, late signals, missed recessions.")
+    Path recessions;
+
+    @Option(names = "--false-alarm-months", paramLabel = "N", defaultValue = "24", description = "A confirmation with no peak within N months is a false alarm (default: ${DEFAULT-VALUE}).")
+    int falseAlarmMonths;
+
+    @Option(names = "--json", description = "Write the report as JSON.")
+    boolean json;
+
+    @Option(names = "--transitions", description = "List every transition in the text report.")
+    boolean listTransitions;
+
+    @Spec
+    CommandSpec spec;
+
+    @Override
+    public Integer call() {
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        try {
+            List<Watch> watches = watches();
+            LeadTimeAnalysis leads = null;
+            if (recessions != null) {
+                try (Reader r = Files.newBufferedReader(recessions, StandardCharsets.UTF_8)) {
+                    leads = new LeadTimeAnalysis(RecessionDatesCsv.read(recessions.toString(), r), falseAlarmMonths);
+                }
+            }
+            HistoryCsvReader.Options options = new HistoryCsvReader.Options(curveName(), YieldUnit.parse(unit), YieldBounds.DEFAULT);
+            long size = Files.size(file);
+            ReplayReport report;
+            try (InputStream raw = Files.newInputStream(file); CountingInputStream in = new CountingInputStream(raw);
+                 ProgressBar bar = ProgressBar.forStderr("replay", size)) {
+                report = new Replay(watches).run(file.toString(), in, options, leads, () -> bar.update(in.count()));
+            }
+            if (report.spreads().isEmpty()) {
+                err.println(file + ": none of the watched spreads (" + String.join(", ", watches.stream()
+                        .map(w -> w.spread().name()).distinct().toList()) + ") could be computed from "
+                        + report.snapshots() + " snapshots: are their tenors among the file's columns?");
+                return 2;
+            }
+            if (json) {
+                ReportJson.write(report, out);
+            } else {
+                new ReplayText(out, listTransitions).print(report);
+            }
+            return 0;
+        } catch (HistoryFormatException | PolicyException e) {
+            err.println(e.getMessage());
+            return 2;
+        } catch (IllegalArgumentException e) {
+            err.println("slopewatch replay: " + e.getMessage());
+            return 2;
+        } catch (NoSuchFileException e) {
+            err.println("slopewatch replay: no such file: " + e.getFile());
+            return 1;
+        } catch (IOException e) {
+            err.println("slopewatch replay: cannot read: " + e.getMessage());
+            return 1;
+        }
+    }
+
+    private String curveName() {
+        if (curve != null) {
+            return curve;
+        }
+        String name = file.getFileName().toString();
+        int dot = name.lastIndexOf('.');
+        return dot > 0 ? name.substring(0, dot) : name;
+    }
+
+    private List<Watch> watches() throws IOException, PolicyException {
+        if (policy != null) {
+            if (!spreads.isEmpty() || !persistence.isEmpty()) {
+                throw new IllegalArgumentException("give either --policy or --spread/--persistence, not both");
+            }
+            return PolicyParser.parse(policy.toString(), Files.readString(policy)).watches();
+        }
+        if (spreads.isEmpty()) {
+            throw new IllegalArgumentException("nothing to watch: give --spread (e.g. --spread 10Y-3M) or --policy FILE");
+        }
+        List<PersistenceTest> tests = new ArrayList<>();
+        for (String p : persistence.isEmpty() ? List.of(QuarterAverage.NAME) : persistence) {
+            tests.add(test(p));
+        }
+        MonitorDefinition rules = new MonitorDefinition(entryBp, exitBp == null ? entryBp : exitBp, exitObservations, holdDays, tests);
+        List<Watch> out = new ArrayList<>();
+        for (String s : spreads) {
+            out.add(new Watch(SpreadDefinition.parse(s), rules, Set.of()));
+        }
+        return out;
+    }
+
+    private PersistenceTest test(String text) {
+        String[] p = text.strip().split(":");
+        try {
+            return switch (p[0]) {
+                case QuarterAverage.NAME -> p.length == 1 ? new QuarterAverage(entryBp) : bad(text);
+                case DaysInverted.NAME -> p.length == 2 ? new DaysInverted(Integer.parseInt(p[1])) : bad(text);
+                case RollingAverage.NAME -> p.length == 2 ? new RollingAverage(Integer.parseInt(p[1]), entryBp) : bad(text);
+                case ShareInverted.NAME -> p.length == 3 ? new ShareInverted(Integer.parseInt(p[1]), Double.parseDouble(p[2])) : bad(text);
+                default -> bad(text);
+            };
+        } catch (NumberFormatException e) {
+            return bad(text);
+        }
+    }
+
+    private static PersistenceTest bad(String text) {
+        throw new IllegalArgumentException("unknown persistence test '" + text + "' (expected quarter-average, days-inverted:DAYS, "
+                + "rolling-average:DAYS or share-inverted:DAYS:SHARE)");
+    }
+}

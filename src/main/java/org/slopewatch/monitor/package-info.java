@@ -1,0 +1,11 @@
+/**
+ * The inversion monitor: one state machine per spread (NORMAL, INVERTED, CONFIRMED,
+ * RESTEEPENING), the four persistence tests, spells, transitions with their evidence, and
+ * revisions of past values.
+ *
+ * <p>Invariants: time comes in with the observations (market dates), never from a clock; a
+ * monitor sees strictly increasing dates, and replacements and revisions go through
+ * {@link org.slopewatch.monitor.SpreadTrack}, which reports any changed outcome as a
+ * {@link org.slopewatch.monitor.Revision}. Plain Java only.
+ */
+package org.slopewatch.monitor;

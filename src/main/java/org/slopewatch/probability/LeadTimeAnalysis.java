@@ -1,0 +1,100 @@
+package org.slopewatch.probability;
+
+import java.time.LocalDate;
+import java.time.YearMonth;
+import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Set;
+
+/**
+ * Measures confirmations against recession dates: the lead from each confirmation to the next
+ * peak, false alarms (no peak within the window), late signals (confirmed after a peak, by its
+ * trough) and missed recessions (a peak with no confirmation in the window before it).
+ *
+ * <p>Months are counted between calendar months, so a confirmation on 1959-10-01 leads a
+ * 1960-04 peak by 6 months.
+ */
+public final class LeadTimeAnalysis {
+
+    /** The usual window: a confirmation with no peak within two years is a false alarm. */
+    public static final int DEFAULT_WINDOW_MONTHS = 24;
+
+    private final List<Recession> recessions;
+    private final int windowMonths;
+
+    public LeadTimeAnalysis(List<Recession> recessions, int windowMonths) {
+        if (windowMonths < 1) {
+            throw new IllegalArgumentException("the false-alarm window must be at least 1 month, got " + windowMonths);
+        }
+        this.recessions = recessions.stream().sorted(Comparator.comparing(Recession::peak)).toList();
+        this.windowMonths = windowMonths;
+    }
+
+    public int windowMonths() {
+        return windowMonths;
+    }
+
+    /**
+     * @param confirmations confirmation dates in any order
+     * @param dataStart     the first date of the data the confirmations came from
+     * @param dataEnd       the last date of that data
+     */
+    public LeadTimeReport analyse(List<LocalDate> confirmations, LocalDate dataStart, LocalDate dataEnd) {
+        List<LeadTime> leads = new ArrayList<>();
+        Set<YearMonth> signalled = new HashSet<>();
+        for (LocalDate confirmed : confirmations.stream().sorted().toList()) {
+            LeadTime lead = lead(confirmed, YearMonth.from(dataEnd));
+            leads.add(lead);
+            if (lead.peak() != null) {
+                signalled.add(lead.peak());
+            }
+        }
+        YearMonth start = YearMonth.from(dataStart);
+        YearMonth end = YearMonth.from(dataEnd);
+        List<YearMonth> missed = new ArrayList<>();
+        List<YearMonth> unassessed = new ArrayList<>();
+        for (Recession r : recessions) {
+            YearMonth peak = r.peak();
+            if (peak.isBefore(start) || peak.isAfter(end) || signalled.contains(peak)) {
+                continue;
+            }
+            if (peak.minusMonths(windowMonths).isBefore(start)) {
+                unassessed.add(peak);
+            } else {
+                missed.add(peak);
+            }
+        }
+        return new LeadTimeReport(windowMonths, leads, missed, unassessed);
+    }
+
+    private static YearMonth max(YearMonth a, YearMonth b) {
+        return a.isAfter(b) ? a : b;
+    }
+
+    private LeadTime lead(LocalDate confirmed, YearMonth lastMonth) {
+        YearMonth month = YearMonth.from(confirmed);
+        for (Recession r : recessions) {
+            if (r.contains(month)) {
+                int months = (int) ChronoUnit.MONTHS.between(r.peak(), month);
+                return new LeadTime(confirmed, r.peak(), -months, false, true, false);
+            }
+        }
+        for (Recession r : recessions) {
+            if (!r.peak().isBefore(month)) {
+                int months = (int) ChronoUnit.MONTHS.between(month, r.peak());
+                if (months <= windowMonths) {
+                    return new LeadTime(confirmed, r.peak(), months, false, false, false);
+                }
+                break;
+            }
+        }
+        // the chronology is known through its last trough; past that and past the data, nobody knows yet
+        YearMonth knownUntil = recessions.isEmpty() ? lastMonth
+                : max(lastMonth, recessions.get(recessions.size() - 1).trough());
+        boolean pending = month.plusMonths(windowMonths).isAfter(knownUntil);
+        return new LeadTime(confirmed, null, null, !pending, false, pending);
+    }
+}

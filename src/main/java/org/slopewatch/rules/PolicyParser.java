@@ -1,0 +1,235 @@
+package org.slopewatch.rules;
+
+import java.util.ArrayList;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import org.slopewatch.monitor.DaysInverted;
+import org.slopewatch.monitor.MonitorDefinition;
+import org.slopewatch.monitor.PersistenceTest;
+import org.slopewatch.monitor.QuarterAverage;
+import org.slopewatch.monitor.RollingAverage;
+import org.slopewatch.monitor.ShareInverted;
+import org.slopewatch.monitor.Watch;
+import org.slopewatch.spread.SpreadDefinition;
+import org.snakeyaml.engine.v2.api.LoadSettings;
+import org.snakeyaml.engine.v2.api.lowlevel.Compose;
+import org.snakeyaml.engine.v2.exceptions.Mark;
+import org.snakeyaml.engine.v2.exceptions.MarkedYamlEngineException;
+import org.snakeyaml.engine.v2.exceptions.YamlEngineException;
+import org.snakeyaml.engine.v2.nodes.Node;
+
+/**
+ * Reads a policy file: YAML with keys of our own (documented in {@code alert-rules/README.md}).
+ * Every problem is reported with {@code file:line:column}, all of them in one go.
+ */
+public final class PolicyParser {
+
+    static final Set<String> TOP_KEYS = ordered("watch");
+    static final Set<String> WATCH_KEYS = ordered("spread", "curves", "enter-below-bp", "exit-at-or-above-bp",
+            "exit-after-observations", "hold-days", "confirm");
+    static final Set<String> TEST_KEYS = ordered(QuarterAverage.NAME, DaysInverted.NAME, RollingAverage.NAME, ShareInverted.NAME);
+
+    private static final int DEFAULT_HOLD_DAYS = 365;
+
+    private PolicyParser() {
+    }
+
+    /** Parses one policy file's text; {@code file} names it in messages. */
+    public static Policy parse(String file, String text) throws PolicyException {
+        List<PolicyProblem> problems = new ArrayList<>();
+        Optional<Node> root;
+        try {
+            root = new Compose(LoadSettings.builder().setLabel(file).build()).composeString(text);
+        } catch (MarkedYamlEngineException e) {
+            Optional<Mark> m = e.getProblemMark().or(e::getContextMark);
+            throw new PolicyException(List.of(new PolicyProblem(file, m.map(x -> x.getLine() + 1).orElse(1),
+                    m.map(x -> x.getColumn() + 1).orElse(1), "not valid YAML: " + e.getProblem())));
+        } catch (YamlEngineException e) {
+            throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "not valid YAML: " + e.getMessage())));
+        }
+        if (root.isEmpty()) {
+            throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "empty policy: expected a 'watch' list")));
+        }
+        Map<String, YamlNode> top = new YamlNode(file, root.get(), problems).mapping("the policy", TOP_KEYS);
+        List<Watch> watches = new ArrayList<>();
+        YamlNode watchNode = top.get("watch");
+        if (watchNode == null) {
+            if (problems.isEmpty()) {
+                problems.add(new PolicyProblem(file, 1, 1, "missing 'watch': the list of spreads to watch"));
+            }
+        } else {
+            for (YamlNode item : watchNode.sequence("'watch'")) {
+                Watch w = watch(item);
+                if (w != null) {
+                    watches.add(w);
+                }
+            }
+            if (watches.isEmpty() && problems.isEmpty()) {
+                watchNode.problem("'watch' lists no spread");
+            }
+        }
+        if (!problems.isEmpty()) {
+            throw new PolicyException(problems);
+        }
+        return new Policy(file, watches);
+    }
+
+    private static Watch watch(YamlNode item) {
+        Map<String, YamlNode> keys = item.mapping("a watch entry", WATCH_KEYS);
+        if (!item.isMapping()) {
+            return null;
+        }
+        SpreadDefinition spread = null;
+        YamlNode spreadNode = keys.get("spread");
+        if (spreadNode == null) {
+            item.problem("a watch entry needs 'spread' (for example 10Y-3M)");
+        } else {
+            String name = spreadNode.string("'spread'");
+            if (name != null) {
+                try {
+                    spread = SpreadDefinition.parse(name);
+                } catch (IllegalArgumentException e) {
+                    spreadNode.problem(e.getMessage());
+                }
+            }
+        }
+        Set<String> curves = new LinkedHashSet<>();
+        if (keys.containsKey("curves")) {
+            for (YamlNode c : keys.get("curves").sequence("'curves'")) {
+                String name = c.string("a curve name");
+                if (name != null) {
+                    curves.add(name);
+                }
+            }
+        }
+        double entry = keys.containsKey("enter-below-bp") ? keys.get("enter-below-bp").number("'enter-below-bp'") : 0;
+        double exit = keys.containsKey("exit-at-or-above-bp") ? keys.get("exit-at-or-above-bp").number("'exit-at-or-above-bp'") : entry;
+        int exitAfter = keys.containsKey("exit-after-observations")
+                ? keys.get("exit-after-observations").integer("'exit-after-observations'") : 1;
+        int hold = keys.containsKey("hold-days") ? keys.get("hold-days").integer("'hold-days'") : DEFAULT_HOLD_DAYS;
+        if (exit < entry) {
+            keys.get("exit-at-or-above-bp").problem("impossible thresholds: exit-at-or-above-bp (" + exit
+                    + ") is below enter-below-bp (" + entry + "); a spell could never end");
+        }
+        if (exitAfter != Integer.MIN_VALUE && exitAfter < 1) {
+            keys.get("exit-after-observations").problem("'exit-after-observations' must be at least 1, got " + exitAfter);
+        }
+        if (hold != Integer.MIN_VALUE && hold < 0) {
+            keys.get("hold-days").problem("'hold-days' must not be negative, got " + hold);
+        }
+        List<PersistenceTest> tests = new ArrayList<>();
+        YamlNode confirm = keys.get("confirm");
+        if (confirm == null) {
+            item.problem("a watch entry needs 'confirm': at least one persistence test ("
+                    + String.join(", ", TEST_KEYS) + ")");
+        } else {
+            for (YamlNode t : confirm.sequence("'confirm'")) {
+                PersistenceTest test = test(t, entry);
+                if (test != null) {
+                    tests.add(test);
+                }
+            }
+        }
+        try {
+            if (spread == null || tests.isEmpty()) {
+                return null;
+            }
+            return new Watch(spread, new MonitorDefinition(entry, exit, exitAfter, hold, tests), curves);
+        } catch (IllegalArgumentException e) {
+            // any remaining inconsistency was already reported at its key, or is reported here
+            item.problem(e.getMessage());
+            return null;
+        }
+    }
+
+    /** One confirm item: a test name alone (defaults) or a one-key mapping of name to parameters. */
+    private static PersistenceTest test(YamlNode t, double entry) {
+        String name;
+        YamlNode params = null;
+        if (t.isMapping()) {
+            Map<String, YamlNode> one = t.mapping("a confirm item", TEST_KEYS);
+            if (one.size() != 1) {
+                if (one.size() > 1) {
+                    t.problem("a confirm item names one test; write one item per test");
+                }
+                return null;
+            }
+            name = one.keySet().iterator().next();
+            params = one.get(name);
+        } else {
+            name = t.string("a confirm item");
+            if (name == null) {
+                return null;
+            }
+            if (!TEST_KEYS.contains(name)) {
+                t.problem("unknown persistence test '" + name + "' (known: " + String.join(", ", TEST_KEYS) + ")");
+                return null;
+            }
+        }
+        return switch (name) {
+            case QuarterAverage.NAME -> {
+                Map<String, YamlNode> p = params(params, name, "below-bp");
+                double below = p.containsKey("below-bp") ? p.get("below-bp").number("'below-bp'") : entry;
+                yield Double.isNaN(below) ? null : new QuarterAverage(below);
+            }
+            case DaysInverted.NAME -> {
+                Map<String, YamlNode> p = params(params, name, "days");
+                int days = required(p, "days", t, name);
+                if (days != Integer.MIN_VALUE && days < 1) {
+                    p.get("days").problem("'days' must be at least 1, got " + days);
+                    yield null;
+                }
+                yield days == Integer.MIN_VALUE ? null : new DaysInverted(days);
+            }
+            case RollingAverage.NAME -> {
+                Map<String, YamlNode> p = params(params, name, "days", "below-bp");
+                int days = required(p, "days", t, name);
+                double below = p.containsKey("below-bp") ? p.get("below-bp").number("'below-bp'") : entry;
+                if (days != Integer.MIN_VALUE && days < 1) {
+                    p.get("days").problem("'days' must be at least 1, got " + days);
+                    yield null;
+                }
+                yield days == Integer.MIN_VALUE || Double.isNaN(below) ? null : new RollingAverage(days, below);
+            }
+            default -> {
+                Map<String, YamlNode> p = params(params, name, "days", "share");
+                int days = required(p, "days", t, name);
+                double share = p.containsKey("share") ? p.get("share").number("'share'") : Double.NaN;
+                if (!p.containsKey("share")) {
+                    t.problem("'" + name + "' needs 'share' (a fraction such as 0.8)");
+                } else if (!Double.isNaN(share) && !(share > 0 && share <= 1)) {
+                    p.get("share").problem("impossible threshold: 'share' must be above 0 and at most 1, got " + share);
+                    yield null;
+                }
+                if (days != Integer.MIN_VALUE && days < 1) {
+                    p.get("days").problem("'days' must be at least 1, got " + days);
+                    yield null;
+                }
+                yield days == Integer.MIN_VALUE || Double.isNaN(share) ? null : new ShareInverted(days, share);
+            }
+        };
+    }
+
+    private static Map<String, YamlNode> params(YamlNode params, String test, String... keys) {
+        if (params == null || params.isNull()) {
+            return Map.of();
+        }
+        return params.mapping("'" + test + "'", ordered(keys));
+    }
+
+    private static int required(Map<String, YamlNode> p, String key, YamlNode item, String test) {
+        YamlNode n = p.get(key);
+        if (n == null) {
+            item.problem("'" + test + "' needs '" + key + "'");
+            return Integer.MIN_VALUE;
+        }
+        return n.integer("'" + key + "'");
+    }
+
+    private static Set<String> ordered(String... keys) {
+        return new LinkedHashSet<>(List.of(keys));
+    }
+}

@@ -1,0 +1,142 @@
+package org.slopewatch.rules;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import org.snakeyaml.engine.v2.exceptions.Mark;
+import org.snakeyaml.engine.v2.nodes.MappingNode;
+import org.snakeyaml.engine.v2.nodes.Node;
+import org.snakeyaml.engine.v2.nodes.NodeTuple;
+import org.snakeyaml.engine.v2.nodes.ScalarNode;
+import org.snakeyaml.engine.v2.nodes.SequenceNode;
+import org.snakeyaml.engine.v2.nodes.Tag;
+
+/**
+ * Typed, position-aware reading of a composed YAML tree. Every failed expectation is recorded
+ * as a {@link PolicyProblem} at the node's position and reading goes on, so that one run reports
+ * every mistake in a file.
+ */
+final class YamlNode {
+
+    private final String file;
+    private final Node node;
+    private final List<PolicyProblem> problems;
+
+    YamlNode(String file, Node node, List<PolicyProblem> problems) {
+        this.file = file;
+        this.node = node;
+        this.problems = problems;
+    }
+
+    void problem(String message) {
+        problems.add(at(node, message));
+    }
+
+    PolicyProblem at(Node n, String message) {
+        Optional<Mark> mark = n.getStartMark();
+        return new PolicyProblem(file, mark.map(m -> m.getLine() + 1).orElse(0), mark.map(m -> m.getColumn() + 1).orElse(0), message);
+    }
+
+    /** An empty value ({@code key:} with nothing after it). */
+    boolean isNull() {
+        return node instanceof ScalarNode s && (Tag.NULL.equals(s.getTag()) || s.getValue().isEmpty());
+    }
+
+    boolean isMapping() {
+        return node instanceof MappingNode;
+    }
+
+    boolean isSequence() {
+        return node instanceof SequenceNode;
+    }
+
+    /**
+     * The entries of a mapping in file order, reporting keys outside {@code allowed} as unknown
+     * and duplicate keys. Empty (with a problem recorded) if this is not a mapping.
+     */
+    Map<String, YamlNode> mapping(String what, Set<String> allowed) {
+        Map<String, YamlNode> out = new LinkedHashMap<>();
+        if (!(node instanceof MappingNode m)) {
+            problem(what + " must be a mapping of keys to values");
+            return out;
+        }
+        for (NodeTuple t : m.getValue()) {
+            if (!(t.getKeyNode() instanceof ScalarNode k)) {
+                problems.add(at(t.getKeyNode(), "keys in " + what + " must be plain words"));
+                continue;
+            }
+            String key = k.getValue();
+            if (!allowed.contains(key)) {
+                problems.add(at(k, "unknown key '" + key + "' in " + what + " (known: " + String.join(", ", allowed) + ")"));
+                continue;
+            }
+            if (out.containsKey(key)) {
+                problems.add(at(k, "key '" + key + "' appears twice in " + what));
+                continue;
+            }
+            out.put(key, new YamlNode(file, t.getValueNode(), problems));
+        }
+        return out;
+    }
+
+    /** The items of a sequence; a problem (and no items) if this is not a sequence. */
+    List<YamlNode> sequence(String what) {
+        List<YamlNode> out = new ArrayList<>();
+        if (!(node instanceof SequenceNode s)) {
+            problem(what + " must be a list");
+            return out;
+        }
+        for (Node item : s.getValue()) {
+            out.add(new YamlNode(file, item, problems));
+        }
+        return out;
+    }
+
+    /** A plain string; null (with a problem) for anything else. */
+    String string(String what) {
+        if (node instanceof ScalarNode s && !Tag.NULL.equals(s.getTag()) && !s.getValue().isBlank()) {
+            return s.getValue();
+        }
+        problem(what + " must be a non-empty text value");
+        return null;
+    }
+
+    /** A number; NaN (with a problem) for anything else. */
+    double number(String what) {
+        if (node instanceof ScalarNode s && (Tag.INT.equals(s.getTag()) || Tag.FLOAT.equals(s.getTag()))) {
+            try {
+                double v = Double.parseDouble(s.getValue());
+                if (Double.isFinite(v)) {
+                    return v;
+                }
+            } catch (NumberFormatException ignored) {
+                // reported below
+            }
+        }
+        problem(what + " must be a number, got " + describe());
+        return Double.NaN;
+    }
+
+    /** A whole number; {@code Integer.MIN_VALUE} (with a problem) for anything else. */
+    int integer(String what) {
+        if (node instanceof ScalarNode s && Tag.INT.equals(s.getTag())) {
+            try {
+                return Integer.parseInt(s.getValue());
+            } catch (NumberFormatException ignored) {
+                // reported below
+            }
+        }
+        problem(what + " must be a whole number, got " + describe());
+        return Integer.MIN_VALUE;
+    }
+
+    private String describe() {
+        if (node instanceof ScalarNode s) {
+            return "'" + s.getValue() + "'";
+        }
+        return node instanceof SequenceNode ? "a list" : "a mapping";
+    }
+}

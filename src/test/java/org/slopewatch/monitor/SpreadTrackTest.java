@@ -1,0 +1,82 @@
+package org.slopewatch.monitor;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.time.LocalDate;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.slopewatch.spread.SpreadKey;
+
+/** Replacing the latest value and revising earlier ones: re-run, and report any changed outcome. */
+class SpreadTrackTest {
+
+    private static final SpreadKey KEY = new SpreadKey("GOVT-A", "10Y-2Y");
+
+    private final SpreadTrack track = new SpreadTrack(
+            new InversionMonitor(new MonitorDefinition(0, 0, 1, 365, List.of(new DaysInverted(2)))), KEY);
+    private long seq;
+
+    private List<MonitorEvent> record(String date, double bp) {
+        return track.record(new Observation(LocalDate.parse(date), bp, ++seq));
+    }
+
+    @Test
+    void aLaterValueForTheLatestDateReplacesTheProvisionalOne() {
+        record("2026-03-02", 5);
+        assertThat(record("2026-03-03", -4)).hasAtLeastOneElementOfType(Transition.class);
+        List<MonitorEvent> replaced = record("2026-03-03", 2);
+        // the inversion reported on 03-03 is withdrawn: that is a changed outcome, reported as a revision
+        assertThat(replaced).singleElement().isInstanceOfSatisfying(Revision.class, r -> {
+            assertThat(r.before()).extracting(Transition::to).containsExactly(SpreadState.INVERTED);
+            assertThat(r.after()).isEmpty();
+        });
+        assertThat(track.state().state()).isEqualTo(SpreadState.NORMAL);
+        assertThat(track.transitions()).isEmpty();
+        assertThat(track.size()).isEqualTo(2);
+    }
+
+    @Test
+    void theSameValueAgainChangesNothing() {
+        record("2026-03-02", -5);
+        assertThat(record("2026-03-02", -5)).isEmpty();
+        assertThat(track.transitions()).hasSize(1);
+    }
+
+    @Test
+    void aRevisionOfAnEarlierDateReRunsAndReportsTheChangedConfirmation() {
+        record("2026-03-02", -1);
+        record("2026-03-03", -1);
+        List<MonitorEvent> confirmed = record("2026-03-04", -1);
+        assertThat(confirmed).extracting(e -> ((Transition) e).to()).containsExactly(SpreadState.CONFIRMED);
+        record("2026-03-05", -1);
+
+        // the 03-03 value is revised to positive: the spell restarts on 03-04 and confirms on 03-06 at the earliest
+        List<MonitorEvent> revised = record("2026-03-03", 3);
+        assertThat(revised).singleElement().isInstanceOfSatisfying(Revision.class, r -> {
+            assertThat(r.from()).isEqualTo("2026-03-03");
+            assertThat(r.before()).extracting(t -> t.date() + " " + t.to()).containsExactly("2026-03-04 CONFIRMED");
+            assertThat(r.after()).extracting(t -> t.date() + " " + t.to())
+                    .containsExactly("2026-03-03 NORMAL", "2026-03-04 INVERTED");
+        });
+        assertThat(track.state().state()).isEqualTo(SpreadState.INVERTED);
+        assertThat(record("2026-03-06", -1)).extracting(e -> ((Transition) e).to()).containsExactly(SpreadState.CONFIRMED);
+    }
+
+    @Test
+    void aRevisionThatChangesNoOutcomeIsQuiet() {
+        record("2026-03-02", -1);
+        record("2026-03-03", -1);
+        record("2026-03-04", -1);
+        assertThat(record("2026-03-03", -7)).isEmpty();
+        assertThat(track.valueBp(1)).isEqualTo(-7);
+    }
+
+    @Test
+    void aMissingEarlierDateIsInsertedInOrder() {
+        record("2026-03-02", 4);
+        record("2026-03-05", 4);
+        record("2026-03-04", 4);
+        assertThat(track.size()).isEqualTo(3);
+        assertThat(track.date(1)).isEqualTo("2026-03-04");
+    }
+}
