@@ -24,7 +24,7 @@ import org.slopewatch.monitor.RollingAverage;
 import org.slopewatch.monitor.ShareInverted;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.probability.LeadTimeAnalysis;
-import org.slopewatch.replay.RecessionDatesCsv;
+import org.slopewatch.probability.RecessionCalendarCsv;
 import org.slopewatch.replay.Replay;
 import org.slopewatch.replay.ReplayReport;
 import org.slopewatch.rules.PolicyException;
@@ -100,7 +100,7 @@ final class ReplayCommand implements Callable<Integer> {
             LeadTimeAnalysis leads = null;
             if (recessions != null) {
                 try (Reader r = Files.newBufferedReader(recessions, StandardCharsets.UTF_8)) {
-                    leads = new LeadTimeAnalysis(RecessionDatesCsv.read(recessions.toString(), r), falseAlarmMonths);
+                    leads = new LeadTimeAnalysis(RecessionCalendarCsv.read(r, recessions.toString()).recessions(), falseAlarmMonths);
                 }
             }
             HistoryCsvReader.Options options = new HistoryCsvReader.Options(curveName(), YieldUnit.parse(unit), YieldBounds.DEFAULT);
@@ -126,7 +126,9 @@ final class ReplayCommand implements Callable<Integer> {
             err.println(e.getMessage());
             return 2;
         } catch (IllegalArgumentException e) {
-            err.println("slopewatch replay: " + e.getMessage());
+            // messages of file readers already start with file:line
+            String m = e.getMessage();
+            err.println(m.matches("(?s)\\S+:\\d+: .*") ? m : "slopewatch replay: " + m);
             return 2;
         } catch (NoSuchFileException e) {
             err.println("slopewatch replay: no such file: " + e.getFile());

@@ -1,11 +1,13 @@
 package org.slopewatch.probability;
 
 import java.time.YearMonth;
+import java.time.temporal.ChronoUnit;
 import java.util.Objects;
 
 /**
- * A recession between business-cycle turning points. By the usual convention it occupies the
- * months after the peak through the trough, inclusive.
+ * One business-cycle contraction, dated by its peak and trough months. The recession occupies
+ * the months after the peak through the trough, inclusive (the convention of the dating
+ * committee's chronology and of the probit literature), so it lasts trough − peak months.
  */
 public record Recession(YearMonth peak, YearMonth trough) {
 
@@ -17,8 +19,13 @@ public record Recession(YearMonth peak, YearMonth trough) {
         }
     }
 
-    /** True for the months after the peak through the trough. */
+    /** True for the months after the peak through the trough, inclusive. */
     public boolean contains(YearMonth month) {
         return month.isAfter(peak) && !month.isAfter(trough);
+    }
+
+    /** Number of recession months, trough − peak. */
+    public int months() {
+        return (int) ChronoUnit.MONTHS.between(peak, trough);
     }
 }

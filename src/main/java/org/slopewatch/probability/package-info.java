@@ -1,8 +1,12 @@
 /**
- * Recession probability and evidence: the probit model, its fitting, and lead-time analysis of
- * confirmations against business-cycle dates.
+ * Recession probability: the probit model P = Φ(α + β·s) on a term spread s in percentage
+ * points, calendar-month averaging, recession calendars, and the maximum-likelihood fit with
+ * model-based and Newey–West standard errors, and lead-time analysis of confirmations against
+ * business-cycle peaks.
  *
- * <p>Invariants: spreads enter in percentage points for the probit (the literature's unit);
- * months are calendar months. Plain Java and Commons Math only.
+ * <p>Invariants: plain Java and Commons Math only (no container, no clock); spreads here are in
+ * percentage points, not basis points; a recession occupies the months after a peak through its
+ * trough, inclusive. Failures of a fit are {@link org.slopewatch.probability.ProbitFitException}s
+ * with a reason and a message a person can act on, never NaN coefficients.
  */
 package org.slopewatch.probability;

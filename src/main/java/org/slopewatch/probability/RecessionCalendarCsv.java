@@ -1,0 +1,107 @@
+package org.slopewatch.probability;
+
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.Reader;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.YearMonth;
+import java.time.format.DateTimeParseException;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Reads a recession calendar from CSV: a header line {@code peak,trough}, then one recession a
+ * line with both months as {@code YYYY-MM}. Blank lines are ignored. Every error names the
+ * source and the line, because these files are kept by hand.
+ */
+public final class RecessionCalendarCsv {
+
+    private static final String HEADER = "peak,trough";
+
+    private RecessionCalendarCsv() {
+    }
+
+    public static RecessionCalendar read(Path file) {
+        try (BufferedReader in = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+            return read(in, file.toString());
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot read recession calendar " + file + ": " + e.getMessage(), e);
+        }
+    }
+
+    /**
+     * @param source the name used in error messages, usually the file path
+     * @throws IllegalArgumentException with {@code source:line: problem} for a bad file
+     */
+    public static RecessionCalendar read(Reader reader, String source) throws IOException {
+        BufferedReader in = reader instanceof BufferedReader b ? b : new BufferedReader(reader);
+        List<Recession> recessions = new ArrayList<>();
+        String line;
+        int lineNo = 0;
+        boolean headerSeen = false;
+        while ((line = in.readLine()) != null) {
+            lineNo++;
+            String text = stripBom(line, lineNo).strip();
+            if (text.isEmpty()) {
+                continue;
+            }
+            if (!headerSeen) {
+                if (!text.replace(" ", "").equalsIgnoreCase(HEADER)) {
+                    throw error(source, lineNo, "expected the header '" + HEADER + "', found '" + text + "'");
+                }
+                headerSeen = true;
+                continue;
+            }
+            Recession r = parseRow(text, source, lineNo);
+            if (!recessions.isEmpty() && r.peak().isBefore(recessions.get(recessions.size() - 1).trough())) {
+                throw error(source, lineNo, "peak " + r.peak() + " comes before the previous trough "
+                        + recessions.get(recessions.size() - 1).trough()
+                        + " (rows must be in time order without overlap)");
+            }
+            recessions.add(r);
+        }
+        if (!headerSeen) {
+            throw new IllegalArgumentException(source + ": empty file, expected the header '" + HEADER + "'");
+        }
+        return new RecessionCalendar(recessions);
+    }
+
+    private static Recession parseRow(String text, String source, int lineNo) {
+        String[] cells = text.split(",", -1);
+        if (cells.length != 2) {
+            throw error(source, lineNo, "expected 2 columns 'peak,trough', found " + cells.length + ": '" + text + "'");
+        }
+        YearMonth peak = parseMonth(cells[0].strip(), "peak", source, lineNo);
+        YearMonth trough = parseMonth(cells[1].strip(), "trough", source, lineNo);
+        if (!trough.isAfter(peak)) {
+            throw error(source, lineNo, "trough " + trough + " must come after peak " + peak);
+        }
+        return new Recession(peak, trough);
+    }
+
+    private static YearMonth parseMonth(String cell, String column, String source, int lineNo) {
+        if (cell.isEmpty()) {
+            throw error(source, lineNo, column + " is empty (a recession without a dated trough is not supported)");
+        }
+        // YearMonth.parse also accepts signed and five-digit years; insist on the plain form.
+        if (!cell.matches("\\d{4}-\\d{2}")) {
+            throw error(source, lineNo, column + " '" + cell + "' is not a month in the form YYYY-MM");
+        }
+        try {
+            return YearMonth.parse(cell);
+        } catch (DateTimeParseException e) {
+            throw error(source, lineNo, column + " '" + cell + "' is not a valid month");
+        }
+    }
+
+    private static String stripBom(String line, int lineNo) {
+        return lineNo == 1 && line.startsWith("\uFEFF") ? line.substring(1) : line;
+    }
+
+    private static IllegalArgumentException error(String source, int lineNo, String message) {
+        return new IllegalArgumentException(source + ":" + lineNo + ": " + message);
+    }
+}
