@@ -1,0 +1,61 @@
+package org.slopewatch;
+
+import static com.tngtech.archunit.lang.syntax.ArchRuleDefinition.noClasses;
+
+import com.tngtech.archunit.core.domain.JavaClasses;
+import com.tngtech.archunit.core.importer.ClassFileImporter;
+import com.tngtech.archunit.core.importer.ImportOption;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+
+/** The layers of DESIGN.md: the engine stays plain Java and depends only downwards. */
+class ArchitectureTest {
+
+    private static final String[] ENGINE = {"org.slopewatch.curve..", "org.slopewatch.spread..", "org.slopewatch.monitor..",
+            "org.slopewatch.probability..", "org.slopewatch.rules.."};
+
+    private static JavaClasses classes;
+
+    @BeforeAll
+    static void importClasses() {
+        classes = new ClassFileImporter().withImportOption(ImportOption.Predefined.DO_NOT_INCLUDE_TESTS).importPackages("org.slopewatch");
+    }
+
+    @Test
+    void theEngineUsesNoFrameworkNoJdbcAndNoWallClock() {
+        noClasses().that().resideInAnyPackage(ENGINE)
+                .should().dependOnClassesThat().resideInAnyPackage("io.quarkus..", "jakarta..", "javax.inject..", "io.smallrye..",
+                        "io.vertx..", "java.sql..", "javax.sql..", "org.eclipse.microprofile..")
+                .because("the engine is plain Java, driven the same way by the replay, the daemon and the tests")
+                .check(classes);
+        noClasses().that().resideInAnyPackage(ENGINE)
+                .should().callMethod(java.time.LocalDate.class, "now")
+                .orShould().callMethod(java.time.Instant.class, "now")
+                .orShould().callMethod(System.class, "currentTimeMillis")
+                .because("time comes in with the data or through an injected clock")
+                .check(classes);
+    }
+
+    @Test
+    void layersDependOnlyDownwards() {
+        noClasses().that().resideInAPackage("org.slopewatch.curve..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.slopewatch.spread..", "org.slopewatch.monitor..",
+                        "org.slopewatch.probability..", "org.slopewatch.rules..")
+                .check(classes);
+        noClasses().that().resideInAPackage("org.slopewatch.spread..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.slopewatch.monitor..", "org.slopewatch.probability..",
+                        "org.slopewatch.rules..")
+                .check(classes);
+        noClasses().that().resideInAPackage("org.slopewatch.monitor..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.slopewatch.probability..", "org.slopewatch.rules..")
+                .check(classes);
+        noClasses().that().resideInAPackage("org.slopewatch.probability..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.slopewatch.monitor..", "org.slopewatch.rules..")
+                .check(classes);
+        noClasses().that().resideInAnyPackage(ENGINE)
+                .should().dependOnClassesThat().resideInAnyPackage("org.slopewatch.ingest..", "org.slopewatch.replay..",
+                        "org.slopewatch.cli..", "org.slopewatch.journal..", "org.slopewatch.delivery..", "org.slopewatch.web..",
+                        "org.slopewatch.ops..")
+                .check(classes);
+    }
+}
