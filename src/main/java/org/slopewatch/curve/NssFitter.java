@@ -15,9 +15,10 @@ import org.apache.commons.math3.linear.RealVector;
  * equal weight per point, residuals in basis points.
  *
  * <p>The quoted yields are treated as continuously compounded zero rates at maturity
- * {@link Tenor#years()}. They are in fact par or bond-equivalent yields; for a monitor that reads
- * a 3-month forward off a smooth curve the difference is small next to the fit error, and
- * bootstrapping zeros would need coupon conventions the quotes do not carry.
+ * {@link Tenor#years()}. They are in fact par or bond-equivalent yields: the two differ little at
+ * the short maturities the near-term forward spread reads and more at the long end, so the long
+ * end of a fitted curve is an approximation of the zero curve. Bootstrapping true zero rates would
+ * need coupon conventions the quotes do not carry.
  *
  * <p>Six or more points get the six-parameter Svensson form; four or five get plain Nelson–Siegel
  * ({@code beta3 = 0}, {@code tau2 = tau1}), since a second hump cannot be identified from so few;

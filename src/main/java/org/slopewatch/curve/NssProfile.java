@@ -18,9 +18,14 @@ import org.apache.commons.math3.util.Pair;
  * a handful, and the valley is gone.
  *
  * <p>Parameters seen by the optimizer: {@code [ln τ1, ln τ2]} (Svensson) or {@code [ln τ1]}
- * (Nelson–Siegel). Logarithms keep the taus positive whatever step is taken; the validator also
- * holds them to [0.05, 50] years, beyond which the loadings are indistinguishable on a
- * 1-month-to-30-year curve. Model values are the fitted yields; the Jacobian is the exact one of
+ * (Nelson–Siegel). Logarithms keep the taus positive whatever step is taken. The validator also
+ * holds each τ between a lower bound and 50 years. The lower bound is 0.05 years, raised so that
+ * the hump loading g − e, which peaks at x ≈ 1.7933, peaks no earlier than the shortest quoted
+ * maturity: with a smaller τ every quoted point sits on the hump's tail, where slope and hump
+ * loadings both fall off like τ/t, the two betas become huge and opposite, and the curve short of
+ * the first quote is nonsense. (A very large τ is harmless: the loadings tend to a polynomial in t
+ * and the curve stays sensible, though the betas grow.) Model values are the fitted yields; the
+ * Jacobian is the exact one of
  * Golub and Pereyra (1973) (from memory):
  * <pre>
  * ∂(Aβ)/∂u = P⊥·(∂A/∂u)·β + Q·R⁻ᵀ·(∂A/∂u)ᵀ·r,   A = QR, P⊥ = I − QQᵀ, r = y − Aβ
@@ -32,8 +37,10 @@ import org.apache.commons.math3.util.Pair;
  */
 final class NssProfile implements MultivariateJacobianFunction, ParameterValidator {
 
-    static final double MIN_LOG_TAU = Math.log(0.05);
-    static final double MAX_LOG_TAU = Math.log(50.0);
+    static final double MIN_TAU = 0.05;
+    static final double MAX_TAU = 50.0;
+    /** Where the hump loading (1 − e^(−x))/x − e^(−x) peaks: the root of e^(−x)·(1 + x + x²) = 1. */
+    static final double HUMP_PEAK_X = 1.7933;
     // A column whose part orthogonal to the others is this small against its length adds nothing
     // they cannot express (as when τ2 = τ1); its beta is held at zero instead of blowing up.
     private static final double DEPENDENT = 1e-10;
@@ -43,6 +50,8 @@ final class NssProfile implements MultivariateJacobianFunction, ParameterValidat
     private final boolean svensson;
     private final int n;
     private final int p;
+    private final double minLogTau;
+    private final double maxLogTau = Math.log(MAX_TAU);
 
     private final double[][] q;
     private final double[][] r;
@@ -62,6 +71,11 @@ final class NssProfile implements MultivariateJacobianFunction, ParameterValidat
         this.svensson = svensson;
         this.n = years.length;
         this.p = svensson ? 4 : 3;
+        double shortest = Double.POSITIVE_INFINITY;
+        for (double t : years) {
+            shortest = Math.min(shortest, t);
+        }
+        this.minLogTau = Math.log(Math.max(MIN_TAU, shortest / HUMP_PEAK_X));
         this.q = new double[p][n];
         this.r = new double[p][p];
         this.active = new boolean[p];
@@ -105,18 +119,23 @@ final class NssProfile implements MultivariateJacobianFunction, ParameterValidat
         return new Pair<>(new ArrayRealVector(fitted, false), new Array2DRowRealMatrix(jacobian, false));
     }
 
-    /** Holds each log decay parameter inside [ln 0.05, ln 50]; NaN goes to the lower bound. */
+    /** Holds each log decay parameter inside its bounds (see the class comment); NaN goes to the lower one. */
     @Override
     public RealVector validate(RealVector params) {
         for (int k = 0; k < params.getDimension(); k++) {
             double u = params.getEntry(k);
-            if (!(u >= MIN_LOG_TAU)) {
-                params.setEntry(k, MIN_LOG_TAU);
-            } else if (u > MAX_LOG_TAU) {
-                params.setEntry(k, MAX_LOG_TAU);
+            if (!(u >= minLogTau)) {
+                params.setEntry(k, minLogTau);
+            } else if (u > maxLogTau) {
+                params.setEntry(k, maxLogTau);
             }
         }
         return params;
+    }
+
+    /** The smallest τ the fit may use for these maturities, in years. */
+    double minTau() {
+        return Math.exp(minLogTau);
     }
 
     /**

@@ -70,8 +70,32 @@ class NssProfileTest {
     void validatorKeepsDecayInRange() {
         NssProfile profile = new NssProfile(YEARS, new double[YEARS.length], true);
         RealVector clamped = profile.validate(new ArrayRealVector(new double[] {Double.NaN, 40.0}));
-        assertThat(Math.exp(clamped.getEntry(0))).isCloseTo(0.05, within(1e-12));
+        assertThat(Math.exp(clamped.getEntry(0))).as("1M/1.7933 = 0.046 < 0.05: floor applies").isCloseTo(0.05, within(1e-12));
         assertThat(Math.exp(clamped.getEntry(1))).isCloseTo(50.0, within(1e-9));
+    }
+
+    @Test
+    void decayFloorRisesWithTheShortestMaturity() {
+        NssProfile fromOneYear = new NssProfile(new double[] {1, 3, 5, 10}, new double[4], false);
+        assertThat(fromOneYear.minTau()).as("1Y / 1.7933").isCloseTo(0.55763, within(1e-5));
+        RealVector clamped = fromOneYear.validate(new ArrayRealVector(new double[] {Math.log(0.1)}));
+        assertThat(Math.exp(clamped.getEntry(0))).isCloseTo(0.55763, within(1e-5));
+    }
+
+    /*
+     * The hump loading h(x) = (1 − e^(−x))/x − e^(−x) has h'(x) = 0 where e^(−x)·(1 + x + x²) = 1
+     * (differentiate and multiply by x²); at x = 1.7933, by hand: e^(−1.7933) = 0.16641,
+     * 1 + 1.7933 + 3.21593 = 6.00923, product 1.00000.
+     */
+    @Test
+    void humpPeakConstantIsWhereTheHumpPeaks() {
+        double x = NssProfile.HUMP_PEAK_X;
+        assertThat(Math.exp(-x) * (1 + x + x * x)).isCloseTo(1.0, within(1e-4));
+        assertThat(hump(x)).isGreaterThan(hump(x - 0.01)).isGreaterThan(hump(x + 0.01));
+    }
+
+    private static double hump(double x) {
+        return (1 - Math.exp(-x)) / x - Math.exp(-x);
     }
 
     private static double[] sample(SvenssonFormula truth) {
