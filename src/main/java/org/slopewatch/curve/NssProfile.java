@@ -24,9 +24,10 @@ import org.apache.commons.math3.util.Pair;
  * maturity: with a smaller τ every quoted point sits on the hump's tail, where slope and hump
  * loadings both fall off like τ/t, the two betas become huge and opposite, and the curve short of
  * the first quote is nonsense. (A very large τ is harmless: the loadings tend to a polynomial in t
- * and the curve stays sensible, though the betas grow.) Model values are the fitted yields; the
- * Jacobian is the exact one of
- * Golub and Pereyra (1973) (from memory):
+ * and the curve stays sensible, though the betas grow.)
+ *
+ * <p>Model values are the fitted yields; the Jacobian is the exact one of Golub and Pereyra
+ * (1973) (from memory):
  * <pre>
  * ∂(Aβ)/∂u = P⊥·(∂A/∂u)·β + Q·R⁻ᵀ·(∂A/∂u)ᵀ·r,   A = QR, P⊥ = I − QQᵀ, r = y − Aβ
  * </pre>
