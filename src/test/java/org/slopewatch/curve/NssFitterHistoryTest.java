@@ -18,7 +18,7 @@ import org.junit.jupiter.api.Test;
  * Fits every month of real U.S. Treasury curves, 1953–1999, inverted ones included.
  *
  * <p>Source: Federal Reserve H.15 constant-maturity yields, 1Y/3Y/5Y/10Y monthly averages
- * (src/test/resources/reference/us-cmt-monthly-1953-1999.md for provenance). Four points per
+ * (src/test/resources/reference/README.md for provenance). Four points per
  * month, so each fit is plain Nelson–Siegel. The check is the least-squares property: for any
  * fixed τ the betas are an ordinary linear regression on the loadings (Nelson and Siegel 1987,
  * from memory), computed here with Commons Math's OLS, independently of the fitter; the fitter's
