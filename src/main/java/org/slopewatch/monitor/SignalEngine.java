@@ -44,6 +44,19 @@ public final class SignalEngine {
      * @param sequence the input sequence number carried into transitions
      */
     public List<MonitorEvent> onSnapshot(CurveSnapshot snapshot, long sequence) {
+        return onSnapshot(snapshot, sequence, NO_LISTENER);
+    }
+
+    /** Hears every spread value computed, e.g. to journal it. */
+    @FunctionalInterface
+    public interface ObservationListener {
+        void observed(SpreadKey spread, Observation observation);
+    }
+
+    private static final ObservationListener NO_LISTENER = (spread, observation) -> { };
+
+    /** As {@link #onSnapshot(CurveSnapshot, long)}, telling {@code listener} each spread value computed. */
+    public List<MonitorEvent> onSnapshot(CurveSnapshot snapshot, long sequence, ObservationListener listener) {
         List<MonitorEvent> events = List.of();
         SpreadTrack[] curveTracks = tracksByCurve.computeIfAbsent(snapshot.curve(), c -> new SpreadTrack[watches.size()]);
         for (int i = 0; i < watches.size(); i++) {
@@ -61,7 +74,9 @@ public final class SignalEngine {
                 curveTracks[i] = track;
                 tracks.add(track);
             }
-            List<MonitorEvent> step = track.record(new Observation(snapshot.date(), value, sequence));
+            Observation observation = new Observation(snapshot.date(), value, sequence);
+            listener.observed(track.spread(), observation);
+            List<MonitorEvent> step = track.record(observation);
             if (!step.isEmpty()) {
                 if (events.isEmpty()) {
                     events = new ArrayList<>(step);
@@ -71,6 +86,19 @@ public final class SignalEngine {
             }
         }
         return events;
+    }
+
+    /** The track of a spread, or null before its first value. */
+    public SpreadTrack track(SpreadKey key) {
+        SpreadTrack[] curveTracks = tracksByCurve.get(key.curve());
+        if (curveTracks != null) {
+            for (SpreadTrack t : curveTracks) {
+                if (t != null && t.spread().equals(key)) {
+                    return t;
+                }
+            }
+        }
+        return null;
     }
 
     /** Tracks in the order their spreads were first seen. */

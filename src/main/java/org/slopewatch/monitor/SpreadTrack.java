@@ -26,6 +26,7 @@ public final class SpreadTrack {
     private long[] sequences = new long[64];
     private int size;
     private final List<Transition> transitions = new ArrayList<>();
+    private final List<Spell> spells = new ArrayList<>();
 
     public SpreadTrack(InversionMonitor monitor, SpreadKey spread) {
         this.monitor = monitor;
@@ -51,6 +52,11 @@ public final class SpreadTrack {
     /** Every transition so far, as things stand after any revisions. */
     public List<Transition> transitions() {
         return List.copyOf(transitions);
+    }
+
+    /** Every ended spell so far, as things stand after any revisions. */
+    public List<Spell> endedSpells() {
+        return List.copyOf(spells);
     }
 
     /** Observations held, oldest first. */
@@ -87,6 +93,7 @@ public final class SpreadTrack {
     private List<MonitorEvent> replaceLatest(Observation o) {
         List<Transition> before = transitionsFrom(o.date());
         transitions.removeAll(before);
+        spells.removeIf(s -> !s.end().isBefore(o.date()));
         state.copyFrom(checkpoint);
         values[size - 1] = o.valueBp();
         sequences[size - 1] = o.sequence();
@@ -104,6 +111,7 @@ public final class SpreadTrack {
         }
         List<Transition> before = transitionsFrom(o.date());
         transitions.clear();
+        spells.clear();
         state = monitor.newState(spread);
         for (int i = 0; i < size; i++) {
             if (i == size - 1) {
@@ -151,6 +159,8 @@ public final class SpreadTrack {
         for (MonitorEvent e : events) {
             if (e instanceof Transition t) {
                 transitions.add(t);
+            } else if (e instanceof Spell s) {
+                spells.add(s);
             }
         }
         return events;

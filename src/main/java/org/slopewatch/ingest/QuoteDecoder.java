@@ -1,0 +1,221 @@
+package org.slopewatch.ingest;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.json.JsonReadFeature;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.json.JsonMapper;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.format.DateTimeParseException;
+import java.util.ArrayList;
+import java.util.Iterator;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.SortedMap;
+import java.util.TreeMap;
+import org.slopewatch.curve.BillConversion;
+import org.slopewatch.curve.Tenor;
+import org.slopewatch.curve.YieldUnit;
+
+/**
+ * Decodes and validates quote messages in JSON: a single quote
+ * {@code {"curve":"GOVT-A","tenor":"10Y","date":"2026-03-02","yield":4.215}}, a snapshot
+ * {@code {"curve":"GOVT-A","date":"…","yields":{"3M":5.10,"10Y":4.20}}}, or an array of either.
+ * Optional fields: {@code unit} (percent, bp, decimal), {@code basis} (bond-equivalent,
+ * discount), {@code source}, {@code id}, {@code time}.
+ *
+ * <p>Each item is accepted or rejected whole, with a reason; one bad item never spoils the rest.
+ * Unknown fields are rejected rather than ignored, because a misspelt {@code yeild} silently
+ * dropped would lose a quote.
+ */
+public final class QuoteDecoder {
+
+    private static final Set<String> SINGLE_FIELDS = Set.of("curve", "tenor", "date", "yield", "unit", "basis", "source", "id", "time");
+    private static final Set<String> SNAPSHOT_FIELDS = Set.of("curve", "date", "yields", "unit", "basis", "source", "id", "time");
+
+    // NaN and Infinity tokens are read so that they can be rejected as non-finite, with that reason
+    private static final ObjectMapper JSON = JsonMapper.builder().enable(JsonReadFeature.ALLOW_NON_NUMERIC_NUMBERS).build();
+
+    private final IngestRules rules;
+
+    public QuoteDecoder(IngestRules rules) {
+        this.rules = rules;
+    }
+
+    /** Decodes a request or record body; a body that is not JSON at all is one malformed reject. */
+    public QuoteBatch decode(String origin, String body) {
+        JsonNode root;
+        try {
+            root = JSON.readTree(body);
+        } catch (JsonProcessingException e) {
+            return new QuoteBatch(origin, List.of(), List.of(new Reject(RejectReason.MALFORMED,
+                    "not valid JSON: " + e.getOriginalMessage(), -1, body)));
+        }
+        if (root == null || root.isMissingNode()) {
+            return new QuoteBatch(origin, List.of(), List.of(new Reject(RejectReason.MALFORMED, "empty body", -1, body)));
+        }
+        List<QuoteMessage> accepted = new ArrayList<>();
+        List<Reject> rejects = new ArrayList<>();
+        if (root.isArray()) {
+            for (int i = 0; i < root.size(); i++) {
+                item(root.get(i), i, accepted, rejects);
+            }
+        } else {
+            item(root, -1, accepted, rejects);
+        }
+        return new QuoteBatch(origin, accepted, rejects);
+    }
+
+    private void item(JsonNode node, int index, List<QuoteMessage> accepted, List<Reject> rejects) {
+        try {
+            accepted.add(message(node));
+        } catch (Rejection r) {
+            rejects.add(new Reject(r.reason, r.getMessage(), index, node.toString()));
+        }
+    }
+
+    /** Validation outcome for one item, thrown to leave it at the first problem. */
+    private static final class Rejection extends Exception {
+        final RejectReason reason;
+
+        Rejection(RejectReason reason, String message) {
+            super(message, null, false, false);
+            this.reason = reason;
+        }
+    }
+
+    private QuoteMessage message(JsonNode node) throws Rejection {
+        if (!node.isObject()) {
+            throw new Rejection(RejectReason.MALFORMED, "a quote must be a JSON object, got " + node.getNodeType().name().toLowerCase());
+        }
+        boolean snapshot = node.has("yields");
+        Set<String> allowed = snapshot ? SNAPSHOT_FIELDS : SINGLE_FIELDS;
+        for (Iterator<String> it = node.fieldNames(); it.hasNext(); ) {
+            String f = it.next();
+            if (!allowed.contains(f)) {
+                throw new Rejection(RejectReason.MALFORMED, "unknown field '" + f + "'" + (snapshot && (f.equals("tenor") || f.equals("yield"))
+                        ? " (a snapshot carries its tenors in 'yields')" : ""));
+            }
+        }
+        String curve = text(node, "curve", true);
+        if (!rules.knowsCurve(curve)) {
+            throw new Rejection(RejectReason.UNKNOWN_CURVE, "unknown curve '" + curve + "'");
+        }
+        LocalDate date = date(text(node, "date", true));
+        YieldUnit unit;
+        try {
+            String u = text(node, "unit", false);
+            unit = u == null ? YieldUnit.PERCENT : YieldUnit.parse(u);
+        } catch (IllegalArgumentException e) {
+            throw new Rejection(RejectReason.UNKNOWN_UNIT, e.getMessage());
+        }
+        boolean discount = discountBasis(text(node, "basis", false));
+        SortedMap<Tenor, Double> yields = new TreeMap<>();
+        if (snapshot) {
+            JsonNode ys = node.get("yields");
+            if (!ys.isObject() || ys.isEmpty()) {
+                throw new Rejection(RejectReason.MALFORMED, "'yields' must be an object of tenor to yield, e.g. {\"3M\":5.10}");
+            }
+            for (Iterator<Map.Entry<String, JsonNode>> it = ys.fields(); it.hasNext(); ) {
+                Map.Entry<String, JsonNode> e = it.next();
+                Tenor tenor = tenor(e.getKey());
+                yields.put(tenor, yieldBp(e.getValue(), tenor, unit, discount));
+            }
+        } else {
+            Tenor tenor = tenor(text(node, "tenor", true));
+            JsonNode y = node.get("yield");
+            if (y == null || y.isNull()) {
+                throw new Rejection(RejectReason.MISSING_FIELD, "missing field 'yield'");
+            }
+            yields.put(tenor, yieldBp(y, tenor, unit, discount));
+        }
+        return new QuoteMessage(text(node, "id", false), text(node, "source", false), time(text(node, "time", false)),
+                curve, date, yields);
+    }
+
+    private static String text(JsonNode node, String field, boolean required) throws Rejection {
+        JsonNode v = node.get(field);
+        if (v == null || v.isNull()) {
+            if (required) {
+                throw new Rejection(RejectReason.MISSING_FIELD, "missing field '" + field + "'");
+            }
+            return null;
+        }
+        if (!v.isTextual() || v.asText().isBlank()) {
+            throw new Rejection(RejectReason.MALFORMED, "'" + field + "' must be a non-empty string, got " + v);
+        }
+        return v.asText().strip();
+    }
+
+    private LocalDate date(String text) throws Rejection {
+        LocalDate date;
+        try {
+            date = LocalDate.parse(text);
+        } catch (DateTimeParseException e) {
+            throw new Rejection(RejectReason.BAD_DATE, "unparsable date '" + text + "' (expected YYYY-MM-DD)");
+        }
+        if (date.isAfter(rules.latestAcceptedDate())) {
+            throw new Rejection(RejectReason.FUTURE_DATE, "market date " + date + " is more than " + rules.maxDaysAhead()
+                    + " days ahead");
+        }
+        return date;
+    }
+
+    private static Tenor tenor(String text) throws Rejection {
+        try {
+            return Tenor.parse(text);
+        } catch (IllegalArgumentException e) {
+            throw new Rejection(RejectReason.UNKNOWN_TENOR, e.getMessage());
+        }
+    }
+
+    private static boolean discountBasis(String basis) throws Rejection {
+        if (basis == null || basis.equals("bond-equivalent")) {
+            return false;
+        }
+        if (basis.equals("discount")) {
+            return true;
+        }
+        throw new Rejection(RejectReason.BAD_BASIS, "unknown basis '" + basis + "' (accepted: bond-equivalent, discount)");
+    }
+
+    private double yieldBp(JsonNode value, Tenor tenor, YieldUnit unit, boolean discount) throws Rejection {
+        if (!value.isNumber()) {
+            throw new Rejection(RejectReason.MALFORMED, "yield for " + tenor + " must be a number, got " + value);
+        }
+        double raw = value.asDouble();
+        if (!Double.isFinite(raw)) {
+            throw new Rejection(RejectReason.NOT_FINITE, "yield for " + tenor + " is not a finite number: " + value);
+        }
+        double bp;
+        try {
+            bp = rules.bounds().toBasisPoints(raw, unit);
+        } catch (IllegalArgumentException e) {
+            throw new Rejection(RejectReason.IMPLAUSIBLE, tenor + ": " + e.getMessage());
+        }
+        if (!discount) {
+            return bp;
+        }
+        if (tenor.days() > 364) {
+            throw new Rejection(RejectReason.BAD_BASIS, "discount basis applies to bills up to 52W, not " + tenor);
+        }
+        try {
+            return BillConversion.bondEquivalentBp(bp, tenor.days());
+        } catch (IllegalArgumentException e) {
+            throw new Rejection(RejectReason.BAD_BASIS, tenor + ": " + e.getMessage());
+        }
+    }
+
+    private static Instant time(String text) throws Rejection {
+        if (text == null) {
+            return null;
+        }
+        try {
+            return Instant.parse(text);
+        } catch (DateTimeParseException e) {
+            throw new Rejection(RejectReason.MALFORMED, "unparsable time '" + text + "' (expected e.g. 2026-03-02T16:00:00Z)");
+        }
+    }
+}

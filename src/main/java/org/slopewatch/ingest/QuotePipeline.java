@@ -1,0 +1,212 @@
+package org.slopewatch.ingest;
+
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.Collection;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import org.jboss.logging.Logger;
+import org.jboss.logging.MDC;
+import org.slopewatch.curve.CurveBook;
+import org.slopewatch.curve.CurveSnapshot;
+import org.slopewatch.journal.JournalEntries;
+import org.slopewatch.journal.JournalReader;
+import org.slopewatch.journal.JournalWriter;
+import org.slopewatch.monitor.MonitorEvent;
+import org.slopewatch.monitor.Revision;
+import org.slopewatch.monitor.SignalEngine;
+import org.slopewatch.monitor.Spell;
+import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.monitor.SpreadTrack;
+import org.slopewatch.monitor.Transition;
+import org.slopewatch.monitor.Watch;
+import org.slopewatch.spread.SpreadKey;
+
+/**
+ * The daemon's path for accepted quotes: drop duplicates, merge into the curve book, run the
+ * spreads and monitors, journal everything of the step in one transaction, then tell the
+ * listeners. One writer: calls are serialised.
+ *
+ * <p>If the journal write fails, the in-memory state is rebuilt from the journal before the
+ * failure is passed on, so memory never runs ahead of what was recorded.
+ */
+public final class QuotePipeline {
+
+    private static final Logger LOG = Logger.getLogger("org.slopewatch.transitions");
+
+    private final List<Watch> watches;
+    private final JournalWriter writer;
+    private final JournalReader reader;
+    private final PipelineListener listener;
+    private final Clock clock;
+
+    private SignalEngine engine;
+    private CurveBook book;
+    private Set<String> seenIds;
+    private long sequence;
+    private final Map<String, Instant> lastReceived = new HashMap<>();
+
+    public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, Clock clock) {
+        this.watches = List.copyOf(watches);
+        this.writer = writer;
+        this.reader = reader;
+        this.listener = listener;
+        this.clock = clock;
+        reset();
+    }
+
+    private void reset() {
+        engine = new SignalEngine(watches);
+        book = new CurveBook();
+        seenIds = new HashSet<>();
+        sequence = 0;
+    }
+
+    /**
+     * Rebuilds curves, monitors and seen ids by replaying the journal's quotes in recorded order,
+     * so that a restart continues exactly where an uninterrupted run would be.
+     *
+     * @return the number of quote messages replayed
+     */
+    public synchronized long recover() {
+        reset();
+        long[] count = {0};
+        reader.replayQuotes(q -> {
+            count[0]++;
+            sequence = Math.max(sequence, q.seq());
+            if (q.messageId() != null) {
+                seenIds.add(q.messageId());
+            }
+            engine.onSnapshot(book.apply(q.curve(), q.date(), q.yieldsBp()), q.seq());
+        });
+        for (SpreadTrack t : engine.tracks()) {
+            listener.spreadChanged(SpreadStatus.of(t));
+        }
+        return count[0];
+    }
+
+    /** Processes batches in order and journals the step; returns what happened. */
+    public synchronized BatchOutcome process(Collection<QuoteBatch> batches) {
+        long started = System.nanoTime();
+        JournalEntries journal = new JournalEntries();
+        List<Reject> rejects = new ArrayList<>();
+        List<Transition> transitions = new ArrayList<>();
+        Map<SpreadKey, SpreadTrack> touched = new LinkedHashMap<>();
+        int accepted = 0;
+        int duplicates = 0;
+        Map<String, int[]> acceptedByOrigin = new HashMap<>();
+        Map<String, int[]> duplicatesByOrigin = new HashMap<>();
+        for (QuoteBatch batch : batches) {
+            for (Reject r : batch.rejects()) {
+                journal.reject(new JournalEntries.RejectedQuote(batch.origin(), r.reason().code(), r.detail(), r.item(), r.raw()));
+                rejects.add(r);
+            }
+            for (QuoteMessage m : batch.messages()) {
+                if (m.id() != null && !seenIds.add(m.id())) {
+                    duplicates++;
+                    duplicatesByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
+                    continue;
+                }
+                long seq = ++sequence;
+                accepted++;
+                acceptedByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
+                lastReceived.put(m.curve(), Instant.now(clock));
+                journal.quote(new JournalEntries.AcceptedQuote(seq, batch.origin(), m.id(), m.source(), m.time(), m.curve(),
+                        m.date(), m.yieldsBp()));
+                CurveSnapshot snapshot = book.apply(m.curve(), m.date(), m.yieldsBp());
+                List<MonitorEvent> events = engine.onSnapshot(snapshot, seq, (key, observation) -> {
+                    journal.observation(key, observation);
+                    touched.computeIfAbsent(key, engine::track);
+                });
+                for (MonitorEvent e : events) {
+                    record(e, journal, transitions);
+                }
+            }
+        }
+        long beforeWrite = System.nanoTime();
+        try {
+            writer.write(journal);
+        } catch (RuntimeException e) {
+            recover();
+            throw e;
+        }
+        long written = System.nanoTime();
+        acceptedByOrigin.forEach((origin, n) -> listener.accepted(origin, n[0]));
+        duplicatesByOrigin.forEach((origin, n) -> listener.duplicates(origin, n[0]));
+        for (QuoteBatch batch : batches) {
+            batch.rejects().forEach(r -> listener.rejected(batch.origin(), r.reason()));
+        }
+        for (Transition t : transitions) {
+            log(t);
+            listener.transition(t);
+        }
+        for (SpreadTrack t : touched.values()) {
+            if (t != null) {
+                listener.spreadChanged(SpreadStatus.of(t));
+            }
+        }
+        listener.processed(Duration.ofNanos(beforeWrite - started), Duration.ofNanos(written - beforeWrite));
+        return new BatchOutcome(accepted, duplicates, rejects.size(), transitions.size(), rejects);
+    }
+
+    private void record(MonitorEvent e, JournalEntries journal, List<Transition> transitions) {
+        if (e instanceof Transition t) {
+            journal.transition(t);
+            transitions.add(t);
+        } else if (e instanceof Spell s) {
+            journal.spell(s);
+        } else if (e instanceof Revision r) {
+            journal.revision(r, engine.track(r.spread()).endedSpells());
+            transitions.addAll(r.after());
+            LOG.warnf("revision spread=%s from=%s: %d transition(s) replaced by %d: %s", r.spread().id(), r.from(),
+                    r.before().size(), r.after().size(), r.after());
+        }
+    }
+
+    /** One structured line per transition; with JSON logs the fields also travel as MDC keys. */
+    private static void log(Transition t) {
+        MDC.put("spread", t.spread().id());
+        MDC.put("market_date", t.date().toString());
+        MDC.put("from", t.from().name());
+        MDC.put("to", t.to().name());
+        MDC.put("test", t.evidence().test());
+        try {
+            LOG.infof("transition spread=%s date=%s from=%s to=%s test=%s reason=\"%s\"", t.spread().id(), t.date(), t.from(),
+                    t.to(), t.evidence().test(), t.reason());
+        } finally {
+            MDC.remove("spread");
+            MDC.remove("market_date");
+            MDC.remove("from");
+            MDC.remove("to");
+            MDC.remove("test");
+        }
+    }
+
+    public synchronized List<CurveSnapshot> latestCurves() {
+        return List.copyOf(book.latest());
+    }
+
+    public synchronized List<SpreadStatus> spreads() {
+        return engine.tracks().stream().map(SpreadStatus::of).toList();
+    }
+
+    public synchronized SpreadStatus spread(SpreadKey key) {
+        SpreadTrack t = engine.track(key);
+        return t == null ? null : SpreadStatus.of(t);
+    }
+
+    /** When a quote for each curve was last accepted (since this process started). */
+    public synchronized Map<String, Instant> lastReceived() {
+        return Map.copyOf(lastReceived);
+    }
+
+    public List<Watch> watches() {
+        return watches;
+    }
+}

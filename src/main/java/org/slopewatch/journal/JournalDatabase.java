@@ -1,0 +1,69 @@
+package org.slopewatch.journal;
+
+import io.agroal.api.AgroalDataSource;
+import io.agroal.api.configuration.supplier.AgroalDataSourceConfigurationSupplier;
+import io.agroal.api.security.NamePrincipal;
+import io.agroal.api.security.SimplePassword;
+import java.sql.SQLException;
+import java.time.Duration;
+import org.flywaydb.core.Flyway;
+
+/**
+ * Opens the journal database (H2 embedded or PostgreSQL shared, told apart by the JDBC URL) and
+ * brings its schema up to date with the Flyway migrations in {@code db/journal}.
+ */
+public final class JournalDatabase {
+
+    private JournalDatabase() {
+    }
+
+    /** A pooled data source on a migrated journal. The URL is never logged with its credentials. */
+    public static AgroalDataSource open(String jdbcUrl, String username, String password, int maxConnections) {
+        AgroalDataSource ds;
+        try {
+            ds = AgroalDataSource.from(new AgroalDataSourceConfigurationSupplier()
+                    .connectionPoolConfiguration(pool -> pool
+                            .minSize(1)
+                            .maxSize(maxConnections)
+                            .acquisitionTimeout(Duration.ofSeconds(10))
+                            .connectionFactoryConfiguration(cf -> {
+                                cf.jdbcUrl(jdbcUrl);
+                                if (username != null && !username.isBlank()) {
+                                    cf.principal(new NamePrincipal(username));
+                                }
+                                if (password != null && !password.isEmpty()) {
+                                    cf.credential(new SimplePassword(password));
+                                }
+                                return cf;
+                            })));
+        } catch (SQLException e) {
+            throw new JournalException("cannot open the journal at " + withoutCredentials(jdbcUrl), e);
+        }
+        migrate(ds, jdbcUrl);
+        return ds;
+    }
+
+    static void migrate(javax.sql.DataSource ds, String jdbcUrl) {
+        try {
+            Flyway.configure(JournalDatabase.class.getClassLoader())
+                    .dataSource(ds)
+                    .locations("classpath:db/journal")
+                    .load()
+                    .migrate();
+        } catch (RuntimeException e) {
+            throw new JournalException("cannot bring the journal schema at " + withoutCredentials(jdbcUrl) + " up to date", e);
+        }
+    }
+
+    /** The URL without anything after {@code ?} or {@code ;} where drivers accept passwords. */
+    static String withoutCredentials(String jdbcUrl) {
+        int cut = jdbcUrl.length();
+        for (char c : new char[] {'?', ';'}) {
+            int at = jdbcUrl.indexOf(c);
+            if (at >= 0) {
+                cut = Math.min(cut, at);
+            }
+        }
+        return jdbcUrl.substring(0, cut);
+    }
+}

@@ -1,0 +1,73 @@
+package org.slopewatch.journal;
+
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.SortedMap;
+import org.slopewatch.curve.Tenor;
+import org.slopewatch.monitor.Observation;
+import org.slopewatch.monitor.Revision;
+import org.slopewatch.monitor.Spell;
+import org.slopewatch.monitor.Transition;
+import org.slopewatch.spread.SpreadKey;
+
+/**
+ * Everything one processing step wants journalled, written in one transaction so that the
+ * journal never holds a transition without the quote that caused it.
+ */
+public final class JournalEntries {
+
+    /** An accepted quote message (one or more tenors of a curve on a date) with its input sequence number. */
+    public record AcceptedQuote(long seq, String origin, String messageId, String source, Instant sentAt, String curve,
+                                LocalDate date, SortedMap<Tenor, Double> yieldsBp) {
+    }
+
+    /** A rejected item and where it came from; {@code reason} is the reason's code. */
+    public record RejectedQuote(String origin, String reason, String detail, int item, String raw) {
+    }
+
+    /** A computed spread value. */
+    public record SpreadValue(SpreadKey spread, Observation observation) {
+    }
+
+    /** A revision with the spells of its spread as they stand after it. */
+    public record RevisionEntry(Revision revision, List<Spell> endedSpells) {
+    }
+
+    final List<AcceptedQuote> quotes = new ArrayList<>();
+    final List<RejectedQuote> rejects = new ArrayList<>();
+    final List<SpreadValue> observations = new ArrayList<>();
+    final List<Transition> transitions = new ArrayList<>();
+    final List<Spell> spells = new ArrayList<>();
+    final List<RevisionEntry> revisions = new ArrayList<>();
+
+    public void quote(AcceptedQuote quote) {
+        quotes.add(quote);
+    }
+
+    public void reject(RejectedQuote reject) {
+        rejects.add(reject);
+    }
+
+    public void observation(SpreadKey spread, Observation observation) {
+        observations.add(new SpreadValue(spread, observation));
+    }
+
+    public void transition(Transition t) {
+        transitions.add(t);
+    }
+
+    public void spell(Spell s) {
+        spells.add(s);
+    }
+
+    public void revision(Revision r, List<Spell> endedSpellsAfter) {
+        revisions.add(new RevisionEntry(r, List.copyOf(endedSpellsAfter)));
+    }
+
+    public boolean isEmpty() {
+        return quotes.isEmpty() && rejects.isEmpty() && observations.isEmpty() && transitions.isEmpty()
+                && spells.isEmpty() && revisions.isEmpty();
+    }
+}

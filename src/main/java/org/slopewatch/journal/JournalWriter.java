@@ -1,0 +1,234 @@
+package org.slopewatch.journal;
+
+import java.sql.Connection;
+import java.sql.Date;
+import java.sql.PreparedStatement;
+import java.sql.SQLException;
+import java.sql.Timestamp;
+import java.sql.Types;
+import java.time.Clock;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.List;
+import java.util.Map;
+import java.util.stream.Collectors;
+import javax.sql.DataSource;
+import org.slopewatch.curve.Tenor;
+import org.slopewatch.monitor.Spell;
+import org.slopewatch.monitor.Transition;
+
+/**
+ * Writes {@link JournalEntries} in one transaction with batched statements. Every row carries
+ * the time it was recorded, read from the injected clock.
+ */
+public final class JournalWriter {
+
+    private final DataSource dataSource;
+    private final Clock clock;
+
+    public JournalWriter(DataSource dataSource, Clock clock) {
+        this.dataSource = dataSource;
+        this.clock = clock;
+    }
+
+    public void write(JournalEntries e) {
+        if (e.isEmpty()) {
+            return;
+        }
+        Timestamp now = Timestamp.from(Instant.now(clock));
+        try (Connection c = dataSource.getConnection()) {
+            c.setAutoCommit(false);
+            try {
+                quotes(c, e, now);
+                rejects(c, e, now);
+                observations(c, e, now);
+                revisions(c, e, now);
+                transitions(c, e.transitions, now);
+                spells(c, e.spells, now);
+                c.commit();
+            } catch (SQLException | RuntimeException ex) {
+                c.rollback();
+                throw ex;
+            }
+        } catch (SQLException ex) {
+            throw new JournalException("cannot write " + e.quotes.size() + " quotes and " + e.transitions.size()
+                    + " transitions to the journal", ex);
+        }
+    }
+
+    private static void quotes(Connection c, JournalEntries e, Timestamp now) throws SQLException {
+        if (e.quotes.isEmpty()) {
+            return;
+        }
+        try (PreparedStatement q = c.prepareStatement("INSERT INTO quote (seq, message_id, origin, source, sent_at, curve, "
+                + "market_date, tenor, yield_bp, recorded_at) VALUES (?,?,?,?,?,?,?,?,?,?)");
+             PreparedStatement seen = c.prepareStatement("INSERT INTO seen_message (message_id, seq, recorded_at) VALUES (?,?,?)")) {
+            boolean anySeen = false;
+            for (JournalEntries.AcceptedQuote a : e.quotes) {
+                Date date = Date.valueOf(a.date());
+                Timestamp sent = a.sentAt() == null ? null : Timestamp.from(a.sentAt());
+                for (Map.Entry<Tenor, Double> y : a.yieldsBp().entrySet()) {
+                    q.setLong(1, a.seq());
+                    q.setString(2, a.messageId());
+                    q.setString(3, a.origin());
+                    q.setString(4, a.source());
+                    q.setTimestamp(5, sent);
+                    q.setString(6, a.curve());
+                    q.setDate(7, date);
+                    q.setString(8, y.getKey().toString());
+                    q.setDouble(9, y.getValue());
+                    q.setTimestamp(10, now);
+                    q.addBatch();
+                }
+                if (a.messageId() != null) {
+                    seen.setString(1, a.messageId());
+                    seen.setLong(2, a.seq());
+                    seen.setTimestamp(3, now);
+                    seen.addBatch();
+                    anySeen = true;
+                }
+            }
+            q.executeBatch();
+            if (anySeen) {
+                seen.executeBatch();
+            }
+        }
+    }
+
+    private static void rejects(Connection c, JournalEntries e, Timestamp now) throws SQLException {
+        if (e.rejects.isEmpty()) {
+            return;
+        }
+        try (PreparedStatement s = c.prepareStatement("INSERT INTO reject (origin, reason, detail, item, raw, recorded_at) VALUES (?,?,?,?,?,?)")) {
+            for (JournalEntries.RejectedQuote r : e.rejects) {
+                s.setString(1, r.origin());
+                s.setString(2, r.reason());
+                s.setString(3, truncate(r.detail(), 1000));
+                s.setInt(4, r.item());
+                s.setString(5, r.raw());
+                s.setTimestamp(6, now);
+                s.addBatch();
+            }
+            s.executeBatch();
+        }
+    }
+
+    private static void observations(Connection c, JournalEntries e, Timestamp now) throws SQLException {
+        if (e.observations.isEmpty()) {
+            return;
+        }
+        try (PreparedStatement s = c.prepareStatement("INSERT INTO observation (spread_id, market_date, value_bp, seq, recorded_at) VALUES (?,?,?,?,?)")) {
+            for (JournalEntries.SpreadValue v : e.observations) {
+                s.setString(1, v.spread().id());
+                s.setDate(2, Date.valueOf(v.observation().date()));
+                s.setDouble(3, v.observation().valueBp());
+                s.setLong(4, v.observation().sequence());
+                s.setTimestamp(5, now);
+                s.addBatch();
+            }
+            s.executeBatch();
+        }
+    }
+
+    private static void revisions(Connection c, JournalEntries e, Timestamp now) throws SQLException {
+        for (JournalEntries.RevisionEntry entry : e.revisions) {
+            var r = entry.revision();
+            long revisionId;
+            try (PreparedStatement s = c.prepareStatement("INSERT INTO revision (spread_id, from_date, before_text, after_text, seq, recorded_at) "
+                    + "VALUES (?,?,?,?,?,?)", new String[] {"id"})) {
+                s.setString(1, r.spread().id());
+                s.setDate(2, Date.valueOf(r.from()));
+                s.setString(3, truncate(lines(r.before()), 4000));
+                s.setString(4, truncate(lines(r.after()), 4000));
+                s.setLong(5, r.sequence());
+                s.setTimestamp(6, now);
+                s.executeUpdate();
+                try (var keys = s.getGeneratedKeys()) {
+                    keys.next();
+                    revisionId = keys.getLong(1);
+                }
+            }
+            try (PreparedStatement s = c.prepareStatement("UPDATE transition SET superseded_by = ? "
+                    + "WHERE spread_id = ? AND market_date >= ? AND superseded_by IS NULL")) {
+                s.setLong(1, revisionId);
+                s.setString(2, r.spread().id());
+                s.setDate(3, Date.valueOf(r.from()));
+                s.executeUpdate();
+            }
+            transitions(c, r.after(), now);
+            try (PreparedStatement s = c.prepareStatement("DELETE FROM spell WHERE spread_id = ?")) {
+                s.setString(1, r.spread().id());
+                s.executeUpdate();
+            }
+            spells(c, entry.endedSpells(), now);
+        }
+    }
+
+    private static void transitions(Connection c, List<Transition> transitions, Timestamp now) throws SQLException {
+        if (transitions.isEmpty()) {
+            return;
+        }
+        try (PreparedStatement s = c.prepareStatement("INSERT INTO transition (spread_id, market_date, from_state, to_state, reason, test, "
+                + "window_label, measured, limit_value, value_bp, days_inverted, spell_id, seq, recorded_at) VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?)")) {
+            for (Transition t : transitions) {
+                s.setString(1, t.spread().id());
+                s.setDate(2, Date.valueOf(t.date()));
+                s.setString(3, t.from().name());
+                s.setString(4, t.to().name());
+                s.setString(5, truncate(t.reason(), 400));
+                s.setString(6, t.evidence().test());
+                s.setString(7, t.evidence().window());
+                s.setDouble(8, t.evidence().measured());
+                s.setDouble(9, t.evidence().limit());
+                s.setDouble(10, t.evidence().valueBp());
+                s.setLong(11, t.evidence().daysInverted());
+                s.setLong(12, t.spellId());
+                s.setLong(13, t.sequence());
+                s.setTimestamp(14, now);
+                s.addBatch();
+            }
+            s.executeBatch();
+        }
+    }
+
+    private static void spells(Connection c, List<Spell> spells, Timestamp now) throws SQLException {
+        if (spells.isEmpty()) {
+            return;
+        }
+        try (PreparedStatement s = c.prepareStatement("INSERT INTO spell (spread_id, spell_id, start_date, confirmed_date, confirmed_by, "
+                + "end_date, duration_days, observations, deepest_bp, deepest_date, area_bp_days, recorded_at) VALUES (?,?,?,?,?,?,?,?,?,?,?,?)")) {
+            for (Spell sp : spells) {
+                s.setString(1, sp.spread().id());
+                s.setLong(2, sp.id());
+                s.setDate(3, Date.valueOf(sp.start()));
+                setDate(s, 4, sp.confirmed());
+                s.setString(5, sp.confirmedBy());
+                s.setDate(6, Date.valueOf(sp.end()));
+                s.setLong(7, sp.durationDays());
+                s.setInt(8, sp.observations());
+                s.setDouble(9, sp.deepestBp());
+                s.setDate(10, Date.valueOf(sp.deepestDate()));
+                s.setDouble(11, sp.invertedAreaBpDays());
+                s.setTimestamp(12, now);
+                s.addBatch();
+            }
+            s.executeBatch();
+        }
+    }
+
+    private static void setDate(PreparedStatement s, int index, LocalDate date) throws SQLException {
+        if (date == null) {
+            s.setNull(index, Types.DATE);
+        } else {
+            s.setDate(index, Date.valueOf(date));
+        }
+    }
+
+    private static String lines(List<Transition> transitions) {
+        return transitions.stream().map(Transition::toString).collect(Collectors.joining("\n"));
+    }
+
+    private static String truncate(String s, int max) {
+        return s == null || s.length() <= max ? s : s.substring(0, max - 1) + "…";
+    }
+}

@@ -1,0 +1,10 @@
+/**
+ * The journal: accepted quotes, rejects, spread observations, transitions, spells and revisions
+ * in one schema (Flyway migrations in {@code db/journal}) for H2 and PostgreSQL, written with
+ * plain batched JDBC.
+ *
+ * <p>Invariants: one processing step is one transaction; rows are stamped with the time they
+ * were recorded; transitions are never deleted (a revision marks them superseded); the
+ * in-memory state can always be rebuilt by replaying the quotes in recorded order.
+ */
+package org.slopewatch.journal;
