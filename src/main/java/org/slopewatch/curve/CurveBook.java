@@ -38,6 +38,12 @@ public final class CurveBook {
         return curves.values().stream().map(m -> m.lastEntry().getValue()).toList();
     }
 
+    /** The snapshot of a curve on a date, or null. */
+    public CurveSnapshot snapshot(String curve, LocalDate date) {
+        NavigableMap<LocalDate, CurveSnapshot> byDate = curves.get(curve);
+        return byDate == null ? null : byDate.get(date);
+    }
+
     /** The latest date of a curve, or null if it has none. */
     public LocalDate latestDate(String curve) {
         NavigableMap<LocalDate, CurveSnapshot> byDate = curves.get(curve);

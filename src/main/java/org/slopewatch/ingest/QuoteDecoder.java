@@ -68,6 +68,21 @@ public final class QuoteDecoder {
         return new QuoteBatch(origin, accepted, rejects);
     }
 
+    /**
+     * Checks a message built elsewhere (from CSV, whose reader already checked tenors and yields)
+     * against the curve and date rules; null when it passes.
+     */
+    public Reject check(QuoteMessage m, int item) {
+        if (!rules.knowsCurve(m.curve())) {
+            return new Reject(RejectReason.UNKNOWN_CURVE, "unknown curve '" + m.curve() + "'", item, m.curve() + " " + m.date());
+        }
+        if (m.date().isAfter(rules.latestAcceptedDate())) {
+            return new Reject(RejectReason.FUTURE_DATE, "market date " + m.date() + " is more than " + rules.maxDaysAhead()
+                    + " days ahead", item, m.curve() + " " + m.date());
+        }
+        return null;
+    }
+
     private void item(JsonNode node, int index, List<QuoteMessage> accepted, List<Reject> rejects) {
         try {
             accepted.add(message(node));

@@ -192,6 +192,11 @@ public final class QuotePipeline {
         return List.copyOf(book.latest());
     }
 
+    /** A curve's snapshot on a market date, or null. */
+    public synchronized CurveSnapshot curve(String curve, java.time.LocalDate date) {
+        return book.snapshot(curve, date);
+    }
+
     public synchronized List<SpreadStatus> spreads() {
         return engine.tracks().stream().map(SpreadStatus::of).toList();
     }

@@ -1,0 +1,10 @@
+package org.slopewatch.ingest;
+
+import java.util.concurrent.CompletableFuture;
+
+/**
+ * Message metadata by which a sender in the same process (the HTTP endpoint on the embedded
+ * channel) learns what processing did with its batch.
+ */
+public record OutcomeReply(CompletableFuture<BatchOutcome> outcome) {
+}

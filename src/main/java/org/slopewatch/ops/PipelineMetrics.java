@@ -1,0 +1,119 @@
+package org.slopewatch.ops;
+
+import io.micrometer.core.instrument.Counter;
+import io.micrometer.core.instrument.Gauge;
+import io.micrometer.core.instrument.MeterRegistry;
+import io.micrometer.core.instrument.Timer;
+import jakarta.enterprise.context.ApplicationScoped;
+import java.time.Duration;
+import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
+import org.slopewatch.ingest.PipelineListener;
+import org.slopewatch.ingest.RejectReason;
+import org.slopewatch.monitor.SpreadState;
+import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.monitor.Transition;
+
+/**
+ * The pipeline's metrics, under {@code slopewatch.}: quotes accepted, rejected by reason and
+ * duplicated (by origin); per spread the latest value, the state as a number
+ * ({@link SpreadState#code()}: 0 normal, 1 inverted, 2 confirmed, 3 re-steepening), days
+ * inverted and the quarter-to-date average; transitions; processing and journal-write timers.
+ * Tag values are bounded: origins, reasons, spread ids and states.
+ */
+@ApplicationScoped
+public class PipelineMetrics implements PipelineListener {
+
+    static final String[] ORIGINS = {"http", "kafka", "demo", "csv"};
+
+    private final MeterRegistry registry;
+    private final Timer processing;
+    private final Timer journalWrite;
+    private final Map<String, SpreadGauges> spreads = new ConcurrentHashMap<>();
+
+    /** The latest figures of one spread, read by its gauges at scrape time. */
+    static final class SpreadGauges {
+        volatile double valueBp = Double.NaN;
+        volatile double state;
+        volatile double daysInverted;
+        volatile double quarterToDateBp = Double.NaN;
+    }
+
+    PipelineMetrics(MeterRegistry registry) {
+        this.registry = registry;
+        this.processing = Timer.builder("slopewatch.processing").description("Time to run a step through curves, spreads and monitors")
+                .register(registry);
+        this.journalWrite = Timer.builder("slopewatch.journal.write").description("Time to write a step to the journal").register(registry);
+        // counters exist at zero from the start, so that a rate over them is defined before the first event
+        for (String origin : ORIGINS) {
+            accepted(origin).increment(0);
+            duplicates(origin).increment(0);
+            for (RejectReason reason : RejectReason.values()) {
+                rejectedCounter(origin, reason).increment(0);
+            }
+        }
+    }
+
+    private Counter accepted(String origin) {
+        return Counter.builder("slopewatch.quotes.accepted").description("Quote messages accepted").tag("origin", origin).register(registry);
+    }
+
+    private Counter duplicates(String origin) {
+        return Counter.builder("slopewatch.quotes.duplicates").description("Quote messages ignored because their id was seen before")
+                .tag("origin", origin).register(registry);
+    }
+
+    private Counter rejectedCounter(String origin, RejectReason reason) {
+        return Counter.builder("slopewatch.quotes.rejected").description("Quote messages rejected, by reason")
+                .tag("origin", origin).tag("reason", reason.code()).register(registry);
+    }
+
+    @Override
+    public void accepted(String origin, int messages) {
+        accepted(origin).increment(messages);
+    }
+
+    @Override
+    public void rejected(String origin, RejectReason reason) {
+        rejectedCounter(origin, reason).increment();
+    }
+
+    @Override
+    public void duplicates(String origin, int messages) {
+        duplicates(origin).increment(messages);
+    }
+
+    @Override
+    public void transition(Transition t) {
+        Counter.builder("slopewatch.transitions").description("State transitions of the monitored spreads")
+                .tag("spread", t.spread().id()).tag("to", t.to().name()).register(registry).increment();
+    }
+
+    @Override
+    public void spreadChanged(SpreadStatus s) {
+        SpreadGauges g = spreads.computeIfAbsent(s.id(), this::register);
+        g.valueBp = s.valueBp();
+        g.state = s.state().code();
+        g.daysInverted = s.daysInverted();
+        g.quarterToDateBp = s.quarterToDateAverageBp();
+    }
+
+    private SpreadGauges register(String spreadId) {
+        SpreadGauges g = new SpreadGauges();
+        Gauge.builder("slopewatch.spread.value", g, x -> x.valueBp).baseUnit("bp").description("Latest spread value")
+                .tag("spread", spreadId).register(registry);
+        Gauge.builder("slopewatch.spread.state", g, x -> x.state)
+                .description("Monitor state: 0 NORMAL, 1 INVERTED, 2 CONFIRMED, 3 RESTEEPENING").tag("spread", spreadId).register(registry);
+        Gauge.builder("slopewatch.spread.inverted", g, x -> x.daysInverted).baseUnit("days")
+                .description("Calendar days continuously below the entry threshold").tag("spread", spreadId).register(registry);
+        Gauge.builder("slopewatch.spread.quarter.average", g, x -> x.quarterToDateBp).baseUnit("bp")
+                .description("Average of the current calendar quarter so far").tag("spread", spreadId).register(registry);
+        return g;
+    }
+
+    @Override
+    public void processed(Duration processingTime, Duration journalWriteTime) {
+        processing.record(processingTime);
+        journalWrite.record(journalWriteTime);
+    }
+}

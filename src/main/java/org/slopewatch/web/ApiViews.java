@@ -1,0 +1,50 @@
+package org.slopewatch.web;
+
+import java.time.LocalDate;
+import java.util.LinkedHashMap;
+import java.util.Map;
+import org.slopewatch.curve.CurveSnapshot;
+import org.slopewatch.monitor.Spell;
+import org.slopewatch.monitor.SpreadStatus;
+
+/** The shapes the read API returns (snake-case JSON). NaN never reaches JSON: it becomes null. */
+final class ApiViews {
+
+    private ApiViews() {
+    }
+
+    /** The latest snapshot of a curve. */
+    record CurveView(String curve, LocalDate date, Map<String, Double> yieldsBp) {
+        static CurveView of(CurveSnapshot s) {
+            Map<String, Double> yields = new LinkedHashMap<>();
+            for (int i = 0; i < s.size(); i++) {
+                yields.put(s.tenor(i).toString(), s.yieldBp(i));
+            }
+            return new CurveView(s.curve(), s.date(), yields);
+        }
+    }
+
+    /** A spell in progress or ended. */
+    record SpellView(long id, LocalDate start, LocalDate confirmed, String confirmedBy, LocalDate end, long durationDays,
+                     int observations, double deepestBp, LocalDate deepestDate, double invertedAreaBpDays) {
+        static SpellView of(Spell s) {
+            return s == null ? null : new SpellView(s.id(), s.start(), s.confirmed(), s.confirmedBy(), s.end(), s.durationDays(),
+                    s.observations(), s.deepestBp(), s.deepestDate(), s.invertedAreaBpDays());
+        }
+    }
+
+    /** Where a spread stands. {@code state_code}: 0 NORMAL, 1 INVERTED, 2 CONFIRMED, 3 RESTEEPENING. */
+    record SpreadView(String id, String curve, String spread, LocalDate date, Double valueBp, String state, int stateCode,
+                      long daysInverted, Double quarterToDateAverageBp, int quarterToDateObservations, long observations,
+                      SpellView spell) {
+        static SpreadView of(SpreadStatus s) {
+            return new SpreadView(s.id(), s.curve(), s.spread(), s.date(), finite(s.valueBp()), s.state().name(), s.state().code(),
+                    s.daysInverted(), finite(s.quarterToDateAverageBp()), s.quarterToDateObservations(), s.observations(),
+                    SpellView.of(s.openSpell()));
+        }
+    }
+
+    static Double finite(double v) {
+        return Double.isFinite(v) ? v : null;
+    }
+}
