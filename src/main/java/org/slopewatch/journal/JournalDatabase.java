@@ -27,7 +27,7 @@ public final class JournalDatabase {
                             .maxSize(maxConnections)
                             .acquisitionTimeout(Duration.ofSeconds(10))
                             .connectionFactoryConfiguration(cf -> {
-                                cf.jdbcUrl(jdbcUrl);
+                                cf.jdbcUrl(jdbcUrl).connectionProviderClass(driverFor(jdbcUrl));
                                 if (username != null && !username.isBlank()) {
                                     cf.principal(new NamePrincipal(username));
                                 }
@@ -41,6 +41,21 @@ public final class JournalDatabase {
         }
         migrate(ds, jdbcUrl);
         return ds;
+    }
+
+    /**
+     * The driver named explicitly: looking it up through {@code DriverManager} depends on which
+     * class loader registered it, which differs between the launcher, Quarkus and the tests.
+     */
+    static Class<?> driverFor(String jdbcUrl) {
+        if (jdbcUrl.startsWith("jdbc:h2:")) {
+            return org.h2.Driver.class;
+        }
+        if (jdbcUrl.startsWith("jdbc:postgresql:")) {
+            return org.postgresql.Driver.class;
+        }
+        throw new IllegalArgumentException("unsupported journal URL " + withoutCredentials(jdbcUrl)
+                + " (supported: jdbc:h2:… for the embedded journal, jdbc:postgresql:… for a shared one)");
     }
 
     static void migrate(javax.sql.DataSource ds, String jdbcUrl) {
