@@ -1,0 +1,6 @@
+package org.slopewatch.rules;
+
+/** How loud an alert is. */
+public enum Severity {
+    INFO, WARNING, CRITICAL
+}
