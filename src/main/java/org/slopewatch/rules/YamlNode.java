@@ -70,7 +70,7 @@ final class YamlNode {
             }
             String key = k.getValue();
             if (!allowed.contains(key)) {
-                problems.add(at(k, "unknown key '" + key + "' in " + what + " (known: " + String.join(", ", allowed) + ")"));
+                problems.add(at(k, "unknown key '" + key + "' in " + what + (allowed.isEmpty() ? "" : " (known: " + String.join(", ", allowed) + ")")));
                 continue;
             }
             if (out.containsKey(key)) {
@@ -118,6 +118,20 @@ final class YamlNode {
         }
         problem(what + " must be a number, got " + describe());
         return Double.NaN;
+    }
+
+    /** True for a scalar written as a whole number. */
+    boolean isScalarInteger() {
+        return node instanceof ScalarNode s && Tag.INT.equals(s.getTag());
+    }
+
+    /** true or false; null (with a problem) for anything else. */
+    Boolean bool(String what) {
+        if (node instanceof ScalarNode s && Tag.BOOL.equals(s.getTag())) {
+            return Boolean.parseBoolean(s.getValue());
+        }
+        problem(what + " must be true or false, got " + describe());
+        return null;
     }
 
     /** A whole number; {@code Integer.MIN_VALUE} (with a problem) for anything else. */
