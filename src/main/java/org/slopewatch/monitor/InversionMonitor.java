@@ -235,6 +235,7 @@ public final class InversionMonitor {
     private static Transition transition(MonitorState s, Observation o, SpreadState to, String reason, Evidence e, long spellId) {
         Transition t = new Transition(s.spread, o.date(), s.state, to, reason, e, spellId, o.sequence());
         s.state = to;
+        s.stateSinceDay = (int) o.date().toEpochDay();
         return t;
     }
 

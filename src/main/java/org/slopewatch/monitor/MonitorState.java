@@ -19,6 +19,7 @@ public final class MonitorState {
 
     final SpreadKey spread;
     SpreadState state = SpreadState.NORMAL;
+    int stateSinceDay = NONE;
     int firstDay = NONE;
     int lastDay = NONE;
     double lastValueBp = Double.NaN;
@@ -61,6 +62,11 @@ public final class MonitorState {
 
     public SpreadState state() {
         return state;
+    }
+
+    /** The market date of the transition into the current state, or null if it never changed. */
+    public LocalDate stateSince() {
+        return stateSinceDay == NONE ? null : LocalDate.ofEpochDay(stateSinceDay);
     }
 
     /** The date of the last observation, or null before the first. */
@@ -126,6 +132,7 @@ public final class MonitorState {
             throw new IllegalArgumentException("cannot copy the state of " + o.spread + " into " + spread);
         }
         state = o.state;
+        stateSinceDay = o.stateSinceDay;
         firstDay = o.firstDay;
         lastDay = o.lastDay;
         lastValueBp = o.lastValueBp;

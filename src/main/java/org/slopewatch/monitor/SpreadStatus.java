@@ -8,12 +8,12 @@ import java.time.LocalDate;
  * @param openSpell the spell in progress, or null
  */
 public record SpreadStatus(String id, String curve, String spread, LocalDate date, double valueBp, SpreadState state,
-                           Spell openSpell, long daysInverted, double quarterToDateAverageBp, int quarterToDateObservations,
+                           LocalDate stateSince, Spell openSpell, long daysInverted, double quarterToDateAverageBp, int quarterToDateObservations,
                            long observations) {
 
     public static SpreadStatus of(SpreadTrack track) {
         MonitorState s = track.state();
         return new SpreadStatus(track.spread().id(), track.spread().curve(), track.spread().spread(), s.lastDate(), s.lastValueBp(),
-                s.state(), s.openSpell(), s.daysInverted(), s.quarterToDateAverageBp(), s.quarterToDateObservations(), track.size());
+                s.state(), s.stateSince(), s.openSpell(), s.daysInverted(), s.quarterToDateAverageBp(), s.quarterToDateObservations(), track.size());
     }
 }

@@ -1,0 +1,97 @@
+package org.slopewatch.rules;
+
+import java.time.Duration;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+/**
+ * Turns conditions into notices: a first notice when a condition starts to hold, repeats at the
+ * rule's interval while it holds, and a resolve notice when it stops (if the rule asks for one).
+ * The decision is a pure function of the conditions, the time passed in and the state kept here,
+ * which is small and can be rebuilt from the journal's alerts.
+ */
+public final class AlertEngine {
+
+    /** What the engine remembers of one rule and subject while its condition holds. */
+    public record Episode(LocalDate since, Instant lastNotice, int notices) {
+    }
+
+    private static final Pattern PLACEHOLDER = Pattern.compile("\\{([a-z]+)}");
+
+    private final Map<String, AlertRule> rules = new HashMap<>();
+    private final Map<String, Episode> open = new HashMap<>();
+
+    public AlertEngine(List<AlertRule> rules) {
+        rules.forEach(r -> this.rules.put(r.name(), r));
+    }
+
+    /** The open episodes by rule and subject ({@code rule|subject}), for inspection and tests. */
+    public Map<String, Episode> openEpisodes() {
+        return Map.copyOf(open);
+    }
+
+    /**
+     * Decides, for each condition, whether a notice is due now.
+     *
+     * @param now the wall-clock time the decision is made at (repeat intervals are wall-clock time)
+     */
+    public List<AlertDecision> decide(List<AlertCondition> conditions, Instant now) {
+        List<AlertDecision> out = new ArrayList<>();
+        for (AlertCondition c : conditions) {
+            AlertRule rule = rules.get(c.rule());
+            if (rule == null) {
+                continue;
+            }
+            String key = c.rule() + "|" + c.subject();
+            Episode episode = open.get(key);
+            if (c.holds() && episode == null) {
+                open.put(key, new Episode(c.since(), now, 1));
+                out.add(decision(rule, c, c.since(), AlertDecision.Notice.FIRING, 1, "first notice"));
+            } else if (c.holds() && !rule.repeatEvery().isZero()
+                    && Duration.between(episode.lastNotice(), now).compareTo(rule.repeatEvery()) >= 0) {
+                int n = episode.notices() + 1;
+                open.put(key, new Episode(episode.since(), now, n));
+                out.add(decision(rule, c, episode.since(), AlertDecision.Notice.REPEAT, n, "repeat interval of " + rule.repeatEvery() + " elapsed"));
+            } else if (!c.holds() && episode != null) {
+                open.remove(key);
+                if (rule.resolveNotice()) {
+                    out.add(decision(rule, c, episode.since(), AlertDecision.Notice.RESOLVED, episode.notices() + 1, "condition cleared"));
+                }
+            }
+        }
+        return out;
+    }
+
+    /** Forgets an episode's repeat schedule, e.g. after an acknowledgement: no more repeats, still a resolve notice. */
+    public void silence(String rule, String subject) {
+        open.computeIfPresent(rule + "|" + subject, (k, e) -> new Episode(e.since(), Instant.MAX, e.notices()));
+    }
+
+    private static AlertDecision decision(AlertRule rule, AlertCondition c, LocalDate since, AlertDecision.Notice notice, int n,
+                                          String why) {
+        String id = rule.name() + "/" + c.subject() + "/" + since + "/" + n;
+        return new AlertDecision(id, rule, c.subject(), notice, why, fill(rule.message(), rule, c), c);
+    }
+
+    static String fill(String template, AlertRule rule, AlertCondition c) {
+        Matcher m = PLACEHOLDER.matcher(template);
+        StringBuilder b = new StringBuilder();
+        while (m.find()) {
+            String key = m.group(1);
+            String value = switch (key) {
+                case "rule" -> rule.name();
+                case "severity" -> rule.severity().name();
+                default -> c.values().getOrDefault(key, "?");
+            };
+            m.appendReplacement(b, Matcher.quoteReplacement(value));
+        }
+        m.appendTail(b);
+        return b.toString();
+    }
+}
