@@ -12,11 +12,8 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.SortedMap;
-import java.util.TreeMap;
 import java.util.function.Consumer;
 import javax.sql.DataSource;
-import org.slopewatch.curve.Tenor;
 
 /** Reads the journal: recovery on start, and the history the read API serves. */
 public final class JournalReader {
@@ -56,28 +53,15 @@ public final class JournalReader {
      * in-memory state on start.
      */
     public void replayQuotes(Consumer<JournalEntries.AcceptedQuote> sink) {
-        String sql = "SELECT seq, message_id, origin, source, sent_at, curve, market_date, tenor, yield_bp FROM quote ORDER BY id";
+        String sql = "SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote ORDER BY id";
         try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
             s.setFetchSize(5_000);
             try (ResultSet rs = s.executeQuery()) {
-                JournalEntries.AcceptedQuote pending = null;
-                SortedMap<Tenor, Double> yields = new TreeMap<>();
                 while (rs.next()) {
-                    long seq = rs.getLong(1);
-                    if (pending != null && pending.seq() != seq) {
-                        sink.accept(pending);
-                        pending = null;
-                    }
-                    if (pending == null) {
-                        yields = new TreeMap<>();
-                        Timestamp sent = rs.getTimestamp(5);
-                        pending = new JournalEntries.AcceptedQuote(seq, rs.getString(3), rs.getString(2), rs.getString(4),
-                                sent == null ? null : sent.toInstant(), rs.getString(6), rs.getDate(7).toLocalDate(), yields);
-                    }
-                    yields.put(Tenor.parse(rs.getString(8)), rs.getDouble(9));
-                }
-                if (pending != null) {
-                    sink.accept(pending);
+                    Timestamp sent = rs.getTimestamp(5);
+                    sink.accept(new JournalEntries.AcceptedQuote(rs.getLong(1), rs.getString(3), rs.getString(2), rs.getString(4),
+                            sent == null ? null : sent.toInstant(), rs.getString(6), rs.getDate(7).toLocalDate(),
+                            YieldsText.read(rs.getString(8))));
                 }
             }
         } catch (SQLException e) {

@@ -10,10 +10,8 @@ import java.time.Clock;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.util.List;
-import java.util.Map;
 import java.util.stream.Collectors;
 import javax.sql.DataSource;
-import org.slopewatch.curve.Tenor;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.Transition;
 
@@ -61,25 +59,20 @@ public final class JournalWriter {
             return;
         }
         try (PreparedStatement q = c.prepareStatement("INSERT INTO quote (seq, message_id, origin, source, sent_at, curve, "
-                + "market_date, tenor, yield_bp, recorded_at) VALUES (?,?,?,?,?,?,?,?,?,?)");
+                + "market_date, yields, recorded_at) VALUES (?,?,?,?,?,?,?,?,?)");
              PreparedStatement seen = c.prepareStatement("INSERT INTO seen_message (message_id, seq, recorded_at) VALUES (?,?,?)")) {
             boolean anySeen = false;
             for (JournalEntries.AcceptedQuote a : e.quotes) {
-                Date date = Date.valueOf(a.date());
-                Timestamp sent = a.sentAt() == null ? null : Timestamp.from(a.sentAt());
-                for (Map.Entry<Tenor, Double> y : a.yieldsBp().entrySet()) {
-                    q.setLong(1, a.seq());
-                    q.setString(2, a.messageId());
-                    q.setString(3, a.origin());
-                    q.setString(4, a.source());
-                    q.setTimestamp(5, sent);
-                    q.setString(6, a.curve());
-                    q.setDate(7, date);
-                    q.setString(8, y.getKey().toString());
-                    q.setDouble(9, y.getValue());
-                    q.setTimestamp(10, now);
-                    q.addBatch();
-                }
+                q.setLong(1, a.seq());
+                q.setString(2, a.messageId());
+                q.setString(3, a.origin());
+                q.setString(4, a.source());
+                q.setTimestamp(5, a.sentAt() == null ? null : Timestamp.from(a.sentAt()));
+                q.setString(6, a.curve());
+                q.setDate(7, Date.valueOf(a.date()));
+                q.setString(8, YieldsText.write(a.yieldsBp()));
+                q.setTimestamp(9, now);
+                q.addBatch();
                 if (a.messageId() != null) {
                     seen.setString(1, a.messageId());
                     seen.setLong(2, a.seq());
