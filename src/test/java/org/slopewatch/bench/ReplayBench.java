@@ -46,8 +46,8 @@ public final class ReplayBench {
         }
         Path file = Path.of(args[0]);
         Path results = Path.of(args[1]);
-        int warmups = args.length > 2 ? Integer.parseInt(args[2]) : 3;
-        int rounds = args.length > 3 ? Integer.parseInt(args[3]) : 7;
+        int warmups = args.length > 2 ? Integer.parseInt(args[2]) : 5;
+        int rounds = args.length > 3 ? Integer.parseInt(args[3]) : 10;
         String curve = curveName(file);
         HistoryCsvReader.Options options = new HistoryCsvReader.Options(curve, YieldUnit.PERCENT, YieldBounds.DEFAULT);
         List<Watch> watches = List.of(new Watch(SpreadDefinition.parse("10Y-3M"), MonitorDefinition.quarterAverageAtZero(), Set.of()));
