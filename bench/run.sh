@@ -1,0 +1,208 @@
+#!/usr/bin/env bash
+# Runs the speed benchmarks and writes docs/benchmarks.md with what this run measured.
+#   bench/run.sh            (a few minutes on two cores)
+# Steps: build (package compiles the tests too, and with them the JMH benchmark list), take the test
+# classpath from Maven, generate the replay input if absent, run the monitor benchmark (JMH), the
+# replay benchmark (one JVM, warm-up rounds, then measured rounds) and the real launcher three times
+# under /usr/bin/time -v, then write the report. Raw outputs stay in bench/out/ (git-ignored).
+set -euo pipefail
+root="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+cd "$root"
+out=bench/out
+file="$out/wide-daily-500000.csv"
+report=docs/benchmarks.md
+mkdir -p "$out" docs
+
+say() { echo "bench: $*" >&2; }
+
+say "building (./mvnw -B -q -DskipTests package; this compiles the tests and the JMH benchmark list too)"
+./mvnw -B -q -DskipTests package   # the package phase includes test-compile
+grep -q 'org.slopewatch.bench.MonitorBench' target/test-classes/META-INF/BenchmarkList \
+  || { say "target/test-classes/META-INF/BenchmarkList has no MonitorBench: did the JMH annotation processor run?"; exit 1; }
+./mvnw -B -q dependency:build-classpath -Dmdep.includeScope=test -Dmdep.outputFile="$out/classpath.txt"
+cp="target/test-classes:target/classes:$(cat "$out/classpath.txt")"
+
+if [ ! -f "$file" ]; then
+  say "generating $file"
+  java -cp "$cp" org.slopewatch.bench.HistoryFileGenerator "$file"
+fi
+
+# the machine, recorded before anything runs
+cpu_model="$(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2- | sed 's/^ *//')"
+cores="$(nproc)"
+jdk="$(java -version 2>&1 | sed -n 2p)"
+mem_gib="$(awk '/MemTotal/ {printf "%.1f", $2 / 1048576}' /proc/meminfo)"
+kernel="$(uname -sr)"
+when="$(date -u '+%Y-%m-%d %H:%M UTC')"
+commit="$(git rev-parse --short HEAD)$(git diff --quiet HEAD -- src pom.xml bench || echo ' (with uncommitted changes)')"
+load() { cut -d' ' -f1-3 /proc/loadavg; }
+load_before="$(load)"
+
+say "monitor benchmark (JMH, 1 fork, 5 warm-up and 5 measured iterations of 2 s per benchmark)"
+java -cp "$cp" org.slopewatch.bench.MonitorBench "$out/monitor.txt" -rf json -rff "$out/monitor-jmh.json" ${BENCH_JMH_ARGS:-} \
+  | tee "$out/monitor-jmh.log"
+load_after_monitor="$(load)"
+
+say "replay benchmark (one JVM: 5 warm-up rounds, 10 measured rounds, parse-only and replay alternating)"
+java -cp "$cp" org.slopewatch.bench.ReplayBench "$file" "$out/replay.txt" 5 10 | tee "$out/replay.log"
+load_after_replay="$(load)"
+
+say "the real launcher, three times: ./slopewatch replay $file --spread 10Y-3M --json > /dev/null"
+launcher_rows=""
+for i in 1 2 3; do
+  /usr/bin/time -v ./slopewatch replay "$file" --spread 10Y-3M --json > /dev/null 2> "$out/launcher-$i.time"
+  elapsed="$(sed -n 's/.*Elapsed (wall clock) time (h:mm:ss or m:ss): //p' "$out/launcher-$i.time" \
+    | awk -F: '{ s = 0; for (k = 1; k <= NF; k++) s = s * 60 + $k; printf "%.2f", s }')"
+  rss_kb="$(sed -n 's/.*Maximum resident set size (kbytes): //p' "$out/launcher-$i.time")"
+  user="$(sed -n 's/.*User time (seconds): //p' "$out/launcher-$i.time")"
+  sys="$(sed -n 's/.*System time (seconds): //p' "$out/launcher-$i.time")"
+  echo "$i $elapsed $rss_kb $user $sys" >> "$out/launcher.txt.part"
+  say "run $i: ${elapsed} s, max RSS ${rss_kb} kB"
+done
+mv "$out/launcher.txt.part" "$out/launcher.txt"
+load_after_launcher="$(load)"
+
+# ---- the report ---------------------------------------------------------------------------------
+kv() { sed -n "s/^$2=//p" "$1"; }
+m() { kv "$out/monitor.txt" "$1"; }
+r() { kv "$out/replay.txt" "$1"; }
+# whole numbers with thousands separators, as measured (no rounding beyond the integer part)
+n() { awk -v x="$1" 'BEGIN { s = sprintf("%.0f", x); neg = s ~ /^-/; if (neg) s = substr(s, 2);
+  o = ""; while (length(s) > 3) { o = "," substr(s, length(s) - 2) o; s = substr(s, 1, length(s) - 3) } ; printf "%s%s%s", neg ? "-" : "", s, o }'; }
+div() { awk -v a="$1" -v b="$2" 'BEGIN { printf "%.3f", a / b }'; }
+ge() { awk -v a="$1" -v b="$2" 'BEGIN { exit !(a >= b) }'; }
+gt() { awk -v a="$1" -v b="$2" 'BEGIN { exit !(a > b) }'; }
+
+mon="$(m observe.score)"; mon_err="$(m observe.error)"
+base="$(m quarterAveragesPlainLoop.score)"; base_err="$(m quarterAveragesPlainLoop.error)"
+mon_low="$(awk -v a="$mon" -v e="$mon_err" 'BEGIN { printf "%.1f", a - e }')"
+if gt "$mon" 10000000; then
+  if gt "$mon_low" 10000000; then mon_target="**met** (the lower end of JMH's 99.9 % interval, $(n "$mon_low") observations/s, is above it too)"
+  else mon_target="**met** by the mean, though the lower end of JMH's 99.9 % interval ($(n "$mon_low") observations/s) is not above it"; fi
+else
+  mon_target="**not met** in this run"
+fi
+parse_med="$(r parse.median)"; replay_med="$(r replay.median)"; ratio="$(r ratio.median_of_medians)"
+if ge "$ratio" 0.5; then replay_target="**met** (replay at $ratio of parse-only)"; else replay_target="**not met** in this run (replay at $ratio of parse-only)"; fi
+quotes="$(r replay.quotes)"
+
+launcher_table="$(while read -r i elapsed rss user sys; do
+  echo "| $i | $elapsed | $(n "$(awk -v q="$quotes" -v s="$elapsed" 'BEGIN { print q / s }')") | $user | $sys | $(n "$rss") kB ($(awk -v k="$rss" 'BEGIN { printf "%.0f", k / 1024 }') MiB) |"
+done < "$out/launcher.txt")"
+launcher_median="$(sort -k2,2n "$out/launcher.txt" | sed -n 2p | awk '{ print $2 }')"
+
+cat > "$report" <<EOF
+# Benchmarks
+
+Speed targets of the engine, measured as benchmarks (never as timed tests: surefire excludes
+\`**/bench/**\`). Every figure below was measured by one run of \`bench/run.sh\` on the machine
+described here; nothing is carried over from other runs or other machines.
+
+## Reproduce
+
+\`\`\`sh
+bench/run.sh
+\`\`\`
+
+It builds (\`./mvnw -B -q -DskipTests package\`, which compiles the tests and the JMH benchmark list),
+takes the test classpath from \`./mvnw -q dependency:build-classpath -Dmdep.includeScope=test\`,
+generates \`$file\` if it is absent, runs both benchmarks and the launcher, and rewrites this
+file. Raw outputs (JMH log and JSON, per-round figures, \`/usr/bin/time -v\` output) are in
+\`bench/out/\`, which git ignores.
+
+## Machine and run
+
+| | |
+|---|---|
+| date | $when |
+| commit | $commit |
+| CPU | $cpu_model |
+| cores (\`nproc\`) | $cores |
+| memory | $mem_gib GiB |
+| JDK | $jdk |
+| OS | $kernel |
+| load average (1, 5, 15 min) before / after monitor / after replay / after launcher | $load_before / $load_after_monitor / $load_after_replay / $load_after_launcher |
+
+This is a virtual machine with **2 cores** that other work shares, so it **may be noisy**: the load
+averages above show how busy it was. Throughput on a quiet machine with more cores would differ;
+compare the ratios (each against a baseline measured in the same run) rather than the absolute
+figures across machines.
+
+## Results
+
+| benchmark | what | figure | against its baseline | target |
+|---|---|---|---|---|
+| monitor | \`InversionMonitor.observe\`, one thread | $(n "$mon") ± $(n "$mon_err") observations/s | $(div "$mon" "$base") of the plain loop | > 10,000,000 observations/s: $mon_target |
+| monitor baseline | plain loop, same quarter averages | $(n "$base") ± $(n "$base_err") observations/s | 1 | |
+| replay | \`Replay.run\`, 10Y-3M, quarter average | $(n "$replay_med") quotes/s (median of $(r replay.rounds)) | $ratio of parse-only | ≥ 0.5 of parse-only: $replay_target |
+| replay baseline | \`HistoryCsvReader.read\`, sink does nothing | $(n "$parse_med") quotes/s (median of $(r replay.rounds)) | 1 | |
+| launcher | \`./slopewatch replay … --spread 10Y-3M --json\`, whole process | median $launcher_median s for $(n "$quotes") quotes | | |
+
+### Monitor (JMH)
+
+\`org.slopewatch.bench.MonitorBench\`: JMH 1.37, throughput mode, 1 fork, 5 warm-up and 5
+measured iterations of 2 s per benchmark, \`@OperationsPerInvocation\` set to the series length so
+that one operation is one observation. The ± is JMH's 99.9 % confidence half-width over the 5
+measured iterations (it assumes a normal distribution; with 5 iterations on a shared machine it
+is wide); min and max are the slowest and fastest iteration.
+
+| benchmark | observations/s | ± (99.9 %) | min iteration | max iteration | allocated per observation (\`-prof gc\`) |
+|---|---|---|---|---|---|
+| \`observe\` (the monitor) | $(n "$mon") | $(n "$mon_err") | $(n "$(m observe.min)") | $(n "$(m observe.max)") | $(m observe.alloc) B |
+| \`quarterAveragesPlainLoop\` (baseline) | $(n "$base") | $(n "$base_err") | $(n "$(m quarterAveragesPlainLoop.min)") | $(n "$(m quarterAveragesPlainLoop.max)") | $(m quarterAveragesPlainLoop.alloc) B |
+
+Input: $(n "$(m series.observations)") daily observations (business days $(m series.first) to
+$(m series.last): one series that long needs the far future, which no date arithmetic in the monitor
+minds), a mean-reverting random walk in bp (\`SpreadWalk\`: mean 120 bp, daily step 5 bp, fixed
+seed) that is below 0 bp on $(awk -v s="$(m series.inverted_share)" 'BEGIN { printf "%.2f", 100 * s }') % of the days. Rules: those of the first entry of
+\`alert-rules/default.yaml\` (enter below 0 bp, exit at or above 5 bp after 5 observations, hold
+365 days, confirm by quarter average below 0 bp or 90 days inverted). One pass over the series,
+in date order into a fresh state, is one invocation; it yields $(n "$(m series.quarters)") quarter summaries,
+$(n "$(m series.spells)") spells, $(n "$(m series.confirmations)") confirmations and $(n "$(m series.transitions)") transitions, each with its reason text.
+The baseline walks the same observations computing the same quarter averages (sum and count per
+calendar quarter, no state machine); the benchmark's set-up checks that both give exactly the
+same averages. The allocation of \`observe\` is the events it reports (quarter summaries,
+transitions with their formatted reasons, spells); a step without news allocates nothing.
+
+### Replay (one JVM)
+
+\`org.slopewatch.bench.ReplayBench\`: one JVM, $(r replay.warmups) warm-up rounds, then $(r replay.rounds) measured rounds; each round runs
+parse-only and the full replay once each, in alternating order, so that a busy neighbour slows
+both rather than one. Both read the file through \`Files.newInputStream\` as the launcher does
+(after the first round it is in the page cache).
+
+| | median quotes/s | min | max | mean | standard deviation |
+|---|---|---|---|---|---|
+| replay (\`Replay.run\`) | $(n "$replay_med") | $(n "$(r replay.min)") | $(n "$(r replay.max)") | $(n "$(r replay.mean)") | $(n "$(r replay.sd)") |
+| parse-only (\`HistoryCsvReader.read\`) | $(n "$parse_med") | $(n "$(r parse.min)") | $(n "$(r parse.max)") | $(n "$(r parse.mean)") | $(n "$(r parse.sd)") |
+
+Ratio of the medians, replay ÷ parse-only: **$ratio**; per round it ranged from
+$(r ratio.per_round_min) to $(r ratio.per_round_max). Per-round figures are in \`bench/out/replay.log\`.
+
+Input: \`$file\`, generated by \`HistoryFileGenerator\` (fixed seed): a wide CSV of one curve,
+\`date,1M,3M,6M,1Y,2Y,3Y,5Y,7Y,10Y,30Y\`, one row per business day from $(r replay.first) to $(r replay.last), yields
+in percent with two decimals: $(n "$(r replay.rows)") rows, $(n "$quotes") quotes, $(n "$(r replay.bytes)") bytes. The replay watches
+10Y-3M with the quarter-average test at 0 bp (the rules \`--spread 10Y-3M\` gives) and finds
+$(n "$(r replay.quarters)") complete quarters, $(n "$(r replay.transitions)") transitions and $(n "$(r replay.spells)") spells.
+
+### The real launcher
+
+\`/usr/bin/time -v ./slopewatch replay $file --spread 10Y-3M --json > /dev/null\`, three times
+(the application already built). This is the whole process: JVM start, class loading, a cold JIT,
+the replay and writing the JSON report.
+
+| run | elapsed (s) | quotes/s over the whole process | user CPU (s) | system CPU (s) | peak RSS |
+|---|---|---|---|---|---|
+$launcher_table
+
+## Reading the figures
+
+- Each target is judged against the figure measured in this run: the monitor's JMH mean for
+  observations per second, and the ratio of the replay's median to parse-only's median.
+- On this shared two-core machine the JIT compiler, the garbage collector and other processes
+  compete with the benchmark thread; the spread between the min and max columns shows how much.
+- The launcher figure includes start-up and a cold JIT, so it is below the warmed-up replay
+  figure; its user CPU time can exceed the elapsed time because compilation and GC run on the
+  second core.
+EOF
+say "wrote $report"
