@@ -30,7 +30,7 @@ fi
 # the machine, recorded before anything runs
 cpu_model="$(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2- | sed 's/^ *//')"
 cores="$(nproc)"
-jdk="$(java -version 2>&1 | sed -n 2p)"
+jdk="$(java -version 2>&1 | sed -n '1p;3p' | paste -sd ';' - | sed 's/;/; /')"
 mem_gib="$(awk '/MemTotal/ {printf "%.1f", $2 / 1048576}' /proc/meminfo)"
 kernel="$(uname -sr)"
 when="$(date -u '+%Y-%m-%d %H:%M UTC')"
@@ -48,7 +48,7 @@ java -cp "$cp" org.slopewatch.bench.ReplayBench "$file" "$out/replay.txt" 5 10 |
 load_after_replay="$(load)"
 
 say "the real launcher, three times: ./slopewatch replay $file --spread 10Y-3M --json > /dev/null"
-launcher_rows=""
+rm -f "$out/launcher.txt.part"
 for i in 1 2 3; do
   /usr/bin/time -v ./slopewatch replay "$file" --spread 10Y-3M --json > /dev/null 2> "$out/launcher-$i.time"
   elapsed="$(sed -n 's/.*Elapsed (wall clock) time (h:mm:ss or m:ss): //p' "$out/launcher-$i.time" \
@@ -56,7 +56,8 @@ for i in 1 2 3; do
   rss_kb="$(sed -n 's/.*Maximum resident set size (kbytes): //p' "$out/launcher-$i.time")"
   user="$(sed -n 's/.*User time (seconds): //p' "$out/launcher-$i.time")"
   sys="$(sed -n 's/.*System time (seconds): //p' "$out/launcher-$i.time")"
-  echo "$i $elapsed $rss_kb $user $sys" >> "$out/launcher.txt.part"
+  share="$(sed -n 's/.*Percent of CPU this job got: //p' "$out/launcher-$i.time")"
+  echo "$i $elapsed $rss_kb $user $sys $share" >> "$out/launcher.txt.part"
   say "run $i: ${elapsed} s, max RSS ${rss_kb} kB"
 done
 mv "$out/launcher.txt.part" "$out/launcher.txt"
@@ -86,10 +87,11 @@ parse_med="$(r parse.median)"; replay_med="$(r replay.median)"; ratio="$(r ratio
 if ge "$ratio" 0.5; then replay_target="**met** (replay at $ratio of parse-only)"; else replay_target="**not met** in this run (replay at $ratio of parse-only)"; fi
 quotes="$(r replay.quotes)"
 
-launcher_table="$(while read -r i elapsed rss user sys; do
-  echo "| $i | $elapsed | $(n "$(awk -v q="$quotes" -v s="$elapsed" 'BEGIN { print q / s }')") | $user | $sys | $(n "$rss") kB ($(awk -v k="$rss" 'BEGIN { printf "%.0f", k / 1024 }') MiB) |"
+launcher_table="$(while read -r i elapsed rss user sys share; do
+  echo "| $i | $elapsed | $(n "$(awk -v q="$quotes" -v s="$elapsed" 'BEGIN { print q / s }')") | $user | $sys | $share | $(n "$rss") kB ($(awk -v k="$rss" 'BEGIN { printf "%.0f", k / 1024 }') MiB) |"
 done < "$out/launcher.txt")"
 launcher_median="$(sort -k2,2n "$out/launcher.txt" | sed -n 2p | awk '{ print $2 }')"
+launcher_rate="$(n "$(awk -v q="$quotes" -v s="$launcher_median" 'BEGIN { print q / s }')")"
 
 cat > "$report" <<EOF
 # Benchmarks
@@ -136,7 +138,7 @@ figures across machines.
 | monitor baseline | plain loop, same quarter averages | $(n "$base") ± $(n "$base_err") observations/s | 1 | |
 | replay | \`Replay.run\`, 10Y-3M, quarter average | $(n "$replay_med") quotes/s (median of $(r replay.rounds)) | $ratio of parse-only | ≥ 0.5 of parse-only: $replay_target |
 | replay baseline | \`HistoryCsvReader.read\`, sink does nothing | $(n "$parse_med") quotes/s (median of $(r replay.rounds)) | 1 | |
-| launcher | \`./slopewatch replay … --spread 10Y-3M --json\`, whole process | median $launcher_median s for $(n "$quotes") quotes | | |
+| launcher | \`./slopewatch replay … --spread 10Y-3M --json\`, whole process | median of 3: $launcher_median s for $(n "$quotes") quotes ($launcher_rate quotes/s), peak RSS in the table below | | |
 
 ### Monitor (JMH)
 
@@ -191,8 +193,8 @@ $(n "$(r replay.quarters)") complete quarters, $(n "$(r replay.transitions)") tr
 (the application already built). This is the whole process: JVM start, class loading, a cold JIT,
 the replay and writing the JSON report.
 
-| run | elapsed (s) | quotes/s over the whole process | user CPU (s) | system CPU (s) | peak RSS |
-|---|---|---|---|---|---|
+| run | elapsed (s) | quotes/s over the whole process | user CPU (s) | system CPU (s) | CPU share (\`time -v\`) | peak RSS |
+|---|---|---|---|---|---|---|
 $launcher_table
 
 ## Reading the figures
@@ -202,7 +204,7 @@ $launcher_table
 - On this shared two-core machine the JIT compiler, the garbage collector and other processes
   compete with the benchmark thread; the spread between the min and max columns shows how much.
 - The launcher figure includes start-up and a cold JIT, so it is below the warmed-up replay
-  figure; its user CPU time can exceed the elapsed time because compilation and GC run on the
-  second core.
+  figure. Its user CPU time includes the JIT compiler and GC threads; a CPU share well below
+  100 % means the process was waiting for a core that other work held.
 EOF
 say "wrote $report"
