@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # Runs the speed benchmarks and writes docs/benchmarks.md with what this run measured.
-#   bench/run.sh            (a few minutes on two cores)
+#   bench/run.sh                 measure and write the report (a few minutes on two cores)
+#   bench/run.sh --report-only   rewrite the report from the last run's raw outputs in bench/out/
 # Steps: build (package compiles the tests too, and with them the JMH benchmark list), take the test
 # classpath from Maven, generate the replay input if absent, run the monitor benchmark (JMH), the
 # replay benchmark (one JVM, warm-up rounds, then measured rounds) and the real launcher three times
@@ -14,57 +15,72 @@ report=docs/benchmarks.md
 mkdir -p "$out" docs
 
 say() { echo "bench: $*" >&2; }
+load() { cut -d' ' -f1-3 /proc/loadavg; }
+note() { echo "$1=$2" >> "$out/run.txt.part"; }
 
-say "building (./mvnw -B -q -DskipTests package; this compiles the tests and the JMH benchmark list too)"
-./mvnw -B -q -DskipTests package   # the package phase includes test-compile
-grep -q 'org.slopewatch.bench.MonitorBench' target/test-classes/META-INF/BenchmarkList \
-  || { say "target/test-classes/META-INF/BenchmarkList has no MonitorBench: did the JMH annotation processor run?"; exit 1; }
-./mvnw -B -q dependency:build-classpath -Dmdep.includeScope=test -Dmdep.outputFile="$out/classpath.txt"
-cp="target/test-classes:target/classes:$(cat "$out/classpath.txt")"
+case "${1:-}" in
+  "") measure=true ;;
+  --report-only) measure=false ;;
+  *) say "usage: bench/run.sh [--report-only]"; exit 2 ;;
+esac
 
-if [ ! -f "$file" ]; then
-  say "generating $file"
-  java -cp "$cp" org.slopewatch.bench.HistoryFileGenerator "$file"
+if $measure; then
+  say "building (./mvnw -B -q -DskipTests package; this compiles the tests and the JMH benchmark list too)"
+  ./mvnw -B -q -DskipTests package   # the package phase includes test-compile
+  grep -q 'org.slopewatch.bench.MonitorBench' target/test-classes/META-INF/BenchmarkList \
+    || { say "target/test-classes/META-INF/BenchmarkList has no MonitorBench: did the JMH annotation processor run?"; exit 1; }
+  ./mvnw -B -q dependency:build-classpath -Dmdep.includeScope=test -Dmdep.outputFile="$out/classpath.txt"
+  cp="target/test-classes:target/classes:$(cat "$out/classpath.txt")"
+
+  if [ ! -f "$file" ]; then
+    say "generating $file"
+    java -cp "$cp" org.slopewatch.bench.HistoryFileGenerator "$file"
+  fi
+
+  # the machine and the run, recorded before anything is measured
+  rm -f "$out/run.txt.part" "$out/launcher.txt.part"
+  note cpu_model "$(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2- | sed 's/^ *//')"
+  note cores "$(nproc)"
+  note jdk "$(java -version 2>&1 | sed -n '1p;3p' | paste -sd ';' - | sed 's/;/; /')"
+  note mem_gib "$(awk '/MemTotal/ {printf "%.1f", $2 / 1048576}' /proc/meminfo)"
+  note kernel "$(uname -sr)"
+  note when "$(date -u '+%Y-%m-%d %H:%M UTC')"
+  note commit "$(git rev-parse --short HEAD)$(git diff --quiet HEAD -- src pom.xml bench || echo ' (with uncommitted changes)')"
+  note load_before "$(load)"
+
+  say "monitor benchmark (JMH, 1 fork, 5 warm-up and 5 measured iterations of 2 s per benchmark)"
+  java -cp "$cp" org.slopewatch.bench.MonitorBench "$out/monitor.txt" -rf json -rff "$out/monitor-jmh.json" ${BENCH_JMH_ARGS:-} \
+    | tee "$out/monitor-jmh.log"
+  note load_after_monitor "$(load)"
+
+  say "replay benchmark (one JVM: 5 warm-up rounds, 10 measured rounds, parse-only and replay alternating)"
+  java -cp "$cp" org.slopewatch.bench.ReplayBench "$file" "$out/replay.txt" 5 10 | tee "$out/replay.log"
+  note load_after_replay "$(load)"
+
+  say "the real launcher, three times: ./slopewatch replay $file --spread 10Y-3M --json > /dev/null"
+  for i in 1 2 3; do
+    /usr/bin/time -v ./slopewatch replay "$file" --spread 10Y-3M --json > /dev/null 2> "$out/launcher-$i.time"
+    elapsed="$(sed -n 's/.*Elapsed (wall clock) time (h:mm:ss or m:ss): //p' "$out/launcher-$i.time" \
+      | awk -F: '{ s = 0; for (k = 1; k <= NF; k++) s = s * 60 + $k; printf "%.2f", s }')"
+    rss_kb="$(sed -n 's/.*Maximum resident set size (kbytes): //p' "$out/launcher-$i.time")"
+    user="$(sed -n 's/.*User time (seconds): //p' "$out/launcher-$i.time")"
+    sys="$(sed -n 's/.*System time (seconds): //p' "$out/launcher-$i.time")"
+    share="$(sed -n 's/.*Percent of CPU this job got: //p' "$out/launcher-$i.time")"
+    echo "$i $elapsed $rss_kb $user $sys $share" >> "$out/launcher.txt.part"
+    say "run $i: ${elapsed} s, max RSS ${rss_kb} kB"
+  done
+  mv "$out/launcher.txt.part" "$out/launcher.txt"
+  note load_after_launcher "$(load)"
+  mv "$out/run.txt.part" "$out/run.txt"
 fi
 
-# the machine, recorded before anything runs
-cpu_model="$(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2- | sed 's/^ *//')"
-cores="$(nproc)"
-jdk="$(java -version 2>&1 | sed -n '1p;3p' | paste -sd ';' - | sed 's/;/; /')"
-mem_gib="$(awk '/MemTotal/ {printf "%.1f", $2 / 1048576}' /proc/meminfo)"
-kernel="$(uname -sr)"
-when="$(date -u '+%Y-%m-%d %H:%M UTC')"
-commit="$(git rev-parse --short HEAD)$(git diff --quiet HEAD -- src pom.xml bench || echo ' (with uncommitted changes)')"
-load() { cut -d' ' -f1-3 /proc/loadavg; }
-load_before="$(load)"
-
-say "monitor benchmark (JMH, 1 fork, 5 warm-up and 5 measured iterations of 2 s per benchmark)"
-java -cp "$cp" org.slopewatch.bench.MonitorBench "$out/monitor.txt" -rf json -rff "$out/monitor-jmh.json" ${BENCH_JMH_ARGS:-} \
-  | tee "$out/monitor-jmh.log"
-load_after_monitor="$(load)"
-
-say "replay benchmark (one JVM: 5 warm-up rounds, 10 measured rounds, parse-only and replay alternating)"
-java -cp "$cp" org.slopewatch.bench.ReplayBench "$file" "$out/replay.txt" 5 10 | tee "$out/replay.log"
-load_after_replay="$(load)"
-
-say "the real launcher, three times: ./slopewatch replay $file --spread 10Y-3M --json > /dev/null"
-rm -f "$out/launcher.txt.part"
-for i in 1 2 3; do
-  /usr/bin/time -v ./slopewatch replay "$file" --spread 10Y-3M --json > /dev/null 2> "$out/launcher-$i.time"
-  elapsed="$(sed -n 's/.*Elapsed (wall clock) time (h:mm:ss or m:ss): //p' "$out/launcher-$i.time" \
-    | awk -F: '{ s = 0; for (k = 1; k <= NF; k++) s = s * 60 + $k; printf "%.2f", s }')"
-  rss_kb="$(sed -n 's/.*Maximum resident set size (kbytes): //p' "$out/launcher-$i.time")"
-  user="$(sed -n 's/.*User time (seconds): //p' "$out/launcher-$i.time")"
-  sys="$(sed -n 's/.*System time (seconds): //p' "$out/launcher-$i.time")"
-  share="$(sed -n 's/.*Percent of CPU this job got: //p' "$out/launcher-$i.time")"
-  echo "$i $elapsed $rss_kb $user $sys $share" >> "$out/launcher.txt.part"
-  say "run $i: ${elapsed} s, max RSS ${rss_kb} kB"
+for f in run.txt monitor.txt replay.txt launcher.txt; do
+  [ -f "$out/$f" ] || { say "no $out/$f: run bench/run.sh without --report-only first"; exit 1; }
 done
-mv "$out/launcher.txt.part" "$out/launcher.txt"
-load_after_launcher="$(load)"
 
 # ---- the report ---------------------------------------------------------------------------------
 kv() { sed -n "s/^$2=//p" "$1"; }
+run() { kv "$out/run.txt" "$1"; }
 m() { kv "$out/monitor.txt" "$1"; }
 r() { kv "$out/replay.txt" "$1"; }
 # whole numbers with thousands separators, as measured (no rounding beyond the integer part)
@@ -109,21 +125,21 @@ bench/run.sh
 It builds (\`./mvnw -B -q -DskipTests package\`, which compiles the tests and the JMH benchmark list),
 takes the test classpath from \`./mvnw -q dependency:build-classpath -Dmdep.includeScope=test\`,
 generates \`$file\` if it is absent, runs both benchmarks and the launcher, and rewrites this
-file. Raw outputs (JMH log and JSON, per-round figures, \`/usr/bin/time -v\` output) are in
+file (\`bench/run.sh --report-only\` rewrites it from the last run's raw outputs without measuring). Raw outputs (JMH log and JSON, per-round figures, \`/usr/bin/time -v\` output) are in
 \`bench/out/\`, which git ignores.
 
 ## Machine and run
 
 | | |
 |---|---|
-| date | $when |
-| commit | $commit |
-| CPU | $cpu_model |
-| cores (\`nproc\`) | $cores |
-| memory | $mem_gib GiB |
-| JDK | $jdk |
-| OS | $kernel |
-| load average (1, 5, 15 min) before / after monitor / after replay / after launcher | $load_before / $load_after_monitor / $load_after_replay / $load_after_launcher |
+| date | $(run when) |
+| commit | $(run commit) |
+| CPU | $(run cpu_model) |
+| cores (\`nproc\`) | $(run cores) |
+| memory | $(run mem_gib) GiB |
+| JDK | $(run jdk) |
+| OS | $(run kernel) |
+| load average (1, 5, 15 min) before / after monitor / after replay / after launcher | $(run load_before) / $(run load_after_monitor) / $(run load_after_replay) / $(run load_after_launcher) |
 
 This is a virtual machine with **2 cores** that other work shares, so it **may be noisy**: the load
 averages above show how busy it was. Throughput on a quiet machine with more cores would differ;
@@ -179,7 +195,9 @@ both rather than one. Both read the file through \`Files.newInputStream\` as the
 | parse-only (\`HistoryCsvReader.read\`) | $(n "$parse_med") | $(n "$(r parse.min)") | $(n "$(r parse.max)") | $(n "$(r parse.mean)") | $(n "$(r parse.sd)") |
 
 Ratio of the medians, replay ÷ parse-only: **$ratio**; per round it ranged from
-$(r ratio.per_round_min) to $(r ratio.per_round_max). Per-round figures are in \`bench/out/replay.log\`.
+$(r ratio.per_round_min) to $(r ratio.per_round_max). Per-round figures are in \`bench/out/replay.log\`.$(gt "$(r ratio.per_round_max)" 1 && printf '\n%s\n%s' \
+  'A round with a ratio above 1 is noise: the replay does all of the parse-only work and more, so it' \
+  'cannot be faster; such rounds show how much a busy neighbour moved single rounds.')
 
 Input: \`$file\`, generated by \`HistoryFileGenerator\` (fixed seed): a wide CSV of one curve,
 \`date,1M,3M,6M,1Y,2Y,3Y,5Y,7Y,10Y,30Y\`, one row per business day from $(r replay.first) to $(r replay.last), yields
