@@ -53,6 +53,10 @@ if $measure; then
     | tee "$out/monitor-jmh.log"
   note load_after_monitor "$(load)"
 
+  say "monitor in thread CPU time (context for the JMH figure: 30 warm-up and 20 measured passes)"
+  java -cp "$cp" org.slopewatch.bench.MonitorCpuTime "$out/monitor-cpu.txt" 30 20
+  note load_after_cpu "$(load)"
+
   say "replay benchmark (one JVM: 5 warm-up rounds, 10 measured rounds, parse-only and replay alternating)"
   java -cp "$cp" org.slopewatch.bench.ReplayBench "$file" "$out/replay.txt" 5 10 | tee "$out/replay.log"
   note load_after_replay "$(load)"
@@ -74,7 +78,7 @@ if $measure; then
   mv "$out/run.txt.part" "$out/run.txt"
 fi
 
-for f in run.txt monitor.txt replay.txt launcher.txt; do
+for f in run.txt monitor.txt monitor-cpu.txt replay.txt launcher.txt; do
   [ -f "$out/$f" ] || { say "no $out/$f: run bench/run.sh without --report-only first"; exit 1; }
 done
 
@@ -82,6 +86,7 @@ done
 kv() { sed -n "s/^$2=//p" "$1"; }
 run() { kv "$out/run.txt" "$1"; }
 m() { kv "$out/monitor.txt" "$1"; }
+c() { kv "$out/monitor-cpu.txt" "$1"; }
 r() { kv "$out/replay.txt" "$1"; }
 # whole numbers with thousands separators, as measured (no rounding beyond the integer part)
 n() { awk -v x="$1" 'BEGIN { s = sprintf("%.0f", x); neg = s ~ /^-/; if (neg) s = substr(s, 2);
@@ -97,10 +102,19 @@ if gt "$mon" 10000000; then
   if gt "$mon_min" 10000000; then mon_target="**met** (the slowest measured iteration, $(n "$mon_min") observations/s, is above it too)"
   else mon_target="**met** by the mean, but not by every iteration (the slowest measured one: $(n "$mon_min") observations/s)"; fi
 else
-  mon_target="**not met** in this run"
+  mon_target="**not met** in this run (see *Reading the figures*)"
 fi
 parse_med="$(r parse.median)"; replay_med="$(r replay.median)"; ratio="$(r ratio.median_of_medians)"
-if ge "$ratio" 0.5; then replay_target="**met** (replay at $ratio of parse-only)"; else replay_target="**not met** in this run (replay at $ratio of parse-only)"; fi
+if ge "$ratio" 0.5; then replay_target="**met** (replay at $ratio of parse-only)"; else replay_target="**not met** in this run (replay at $ratio of parse-only; see *Reading the figures*)"; fi
+cores="$(run cores)"
+peak_load="$(for k in load_before load_after_monitor load_after_cpu load_after_replay load_after_launcher; do run "$k" | cut -d' ' -f1; done | sort -g | tail -1)"
+if gt "$peak_load" "$cores"; then
+  busy="During this run the 1-minute load average, sampled between steps, was as high as $peak_load on $cores cores: other work wanted more
+  CPU than the machine has, so each wall-clock figure reflects the share of a core its benchmark got.
+  The thread-CPU-time figures of the monitor are less affected by that."
+else
+  busy="During this run the 1-minute load average, sampled between steps, stayed at or below the $cores cores (highest $peak_load)."
+fi
 quotes="$(r replay.quotes)"
 
 launcher_table="$(while read -r i elapsed rss user sys share; do
@@ -139,7 +153,7 @@ file (\`bench/run.sh --report-only\` rewrites it from the last run's raw outputs
 | memory | $(run mem_gib) GiB |
 | JDK | $(run jdk) |
 | OS | $(run kernel) |
-| load average (1, 5, 15 min) before / after monitor / after replay / after launcher | $(run load_before) / $(run load_after_monitor) / $(run load_after_replay) / $(run load_after_launcher) |
+| load average (1, 5, 15 min) before / after monitor (JMH) / after monitor (CPU time) / after replay / after launcher | $(run load_before) / $(run load_after_monitor) / $(run load_after_cpu) / $(run load_after_replay) / $(run load_after_launcher) |
 
 This is a virtual machine with **2 cores** that other work shares, so it **may be noisy**: the load
 averages above show how busy it was. Throughput on a quiet machine with more cores would differ;
@@ -168,6 +182,18 @@ is wide); min and max are the slowest and fastest iteration.
 |---|---|---|---|---|---|
 | \`observe\` (the monitor) | $(n "$mon") | $(n "$mon_err") | $(n "$(m observe.min)") | $(n "$(m observe.max)") | $(m observe.alloc) B |
 | \`quarterAveragesPlainLoop\` (baseline) | $(n "$base") | $(n "$base_err") | $(n "$(m quarterAveragesPlainLoop.min)") | $(n "$(m quarterAveragesPlainLoop.max)") | $(m quarterAveragesPlainLoop.alloc) B |
+
+Context, in the benchmark thread's CPU time rather than wall time (\`MonitorCpuTime\`: same series,
+rules and baseline, one JVM, $(c cpu.warmups) warm-up passes, then $(c cpu.passes) measured passes each, alternating).
+A thread waiting for a core loses wall time but not CPU time, so these move less with the
+neighbours' load; the target is still judged by the JMH figure above.
+
+| | observations per CPU-second, median | min | max |
+|---|---|---|---|
+| monitor | $(n "$(c cpu.observe.median)") | $(n "$(c cpu.observe.min)") | $(n "$(c cpu.observe.max)") |
+| baseline | $(n "$(c cpu.quarterAveragesPlainLoop.median)") | $(n "$(c cpu.quarterAveragesPlainLoop.min)") | $(n "$(c cpu.quarterAveragesPlainLoop.max)") |
+
+Monitor ÷ baseline in CPU time: $(div "$(c cpu.observe.median)" "$(c cpu.quarterAveragesPlainLoop.median)") (medians).
 
 Input: $(n "$(m series.observations)") daily observations (business days $(m series.first) to
 $(m series.last): one series that long needs the far future, which no date arithmetic in the monitor
@@ -225,6 +251,7 @@ $launcher_table
   JIT took to settle.
 - On this shared two-core machine the JIT compiler, the garbage collector and other processes
   compete with the benchmark thread; the spread between the min and max columns shows how much.
+  $busy
 - The launcher figure includes start-up and a cold JIT, so it is below the warmed-up replay
   figure. Its user CPU time includes the JIT compiler and GC threads; a CPU share well below
   100 % means the process was waiting for a core that other work held.
