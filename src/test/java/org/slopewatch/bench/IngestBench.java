@@ -102,8 +102,13 @@ public final class IngestBench {
 
     /** Consecutive business days, alternating curves, a snapshot of every tenor per message. */
     public static List<String> bodies(int requests, int perRequest) {
+        return bodies(requests, perRequest, LocalDate.of(2030, 1, 1));
+    }
+
+    /** As {@link #bodies(int, int)}, from a given first date. */
+    public static List<String> bodies(int requests, int perRequest, LocalDate first) {
         List<String> out = new ArrayList<>(requests);
-        LocalDate date = LocalDate.of(2030, 1, 1);
+        LocalDate date = first;
         double level = 400;
         java.util.Random random = new java.util.Random(42);
         for (int r = 0; r < requests; r++) {
