@@ -1,0 +1,350 @@
+// slopewatch dashboard: polls the read API and lays out what it finds (the charts are in charts.js).
+// Plain DOM, no framework: the page must work on a machine with no internet and stay small enough to read.
+'use strict';
+
+(function () {
+  const POLL_MS = 5000;
+  const FULL_HISTORY_EVERY = 12;   // polls; between them only the newest dates are fetched
+  const RECENT_CHANGES = 15;
+  const { historyChart, curveChart, signed, bp, slug, lastOf, setAttrs } = window.slopewatchCharts;
+
+  // Each state has its own colour (in the CSS) and always its name in words.
+  const STATES = {
+    NORMAL: { label: 'Normal', note: 'Not inverted.' },
+    INVERTED: { label: 'Inverted', note: 'Below the entry threshold; no persistence test has held yet.' },
+    CONFIRMED: { label: 'Confirmed', note: 'The inversion has persisted: a persistence test held.' },
+    RESTEEPENING: { label: 'Re-steepening', note: 'Back above the exit threshold after a confirmed inversion.' }
+  };
+
+  const histories = new Map();   // spread id -> [{date, value_bp}]
+  let last = null;               // what the last successful poll read, for redrawing on resize
+  let lastGood = null;           // when that was
+  let polls = 0;
+  let timer = null;
+  let busy = false;
+
+  // ---- small helpers ----
+
+  function el(tag, attrs, ...children) {
+    const node = document.createElement(tag);
+    setAttrs(node, attrs);
+    node.append(...children.filter(c => c !== null && c !== undefined));
+    return node;
+  }
+
+  function percent(yieldBp) {
+    return yieldBp === null || yieldBp === undefined ? '\u2014' : (yieldBp / 100).toFixed(2);
+  }
+
+  function clock(d) {
+    return d.toLocaleTimeString([], { hour: '2-digit', minute: '2-digit', second: '2-digit', hour12: false });
+  }
+
+  function stateTag(state) {
+    const s = STATES[state] || { label: state };
+    return el('span', { class: 'state state-' + state, 'data-state': state }, s.label);
+  }
+
+  async function fetchJson(url) {
+    const abort = new AbortController();
+    const t = setTimeout(() => abort.abort(), 8000);
+    let response;
+    try {
+      response = await fetch(url, { cache: 'no-store', headers: { Accept: 'application/json' }, signal: abort.signal });
+    } catch (e) {
+      throw new Error('GET ' + url + ': ' + (e.name === 'AbortError' ? 'no answer within 8 s' : 'the server cannot be reached'));
+    } finally {
+      clearTimeout(t);
+    }
+    if (!response.ok) {
+      throw new Error('GET ' + url + ' answered ' + response.status + (response.statusText ? ' ' + response.statusText : ''));
+    }
+    return response.json();
+  }
+
+  // ---- reading the API ----
+
+  async function loadHistory(s) {
+    const base = '/api/spreads/' + encodeURIComponent(s.id) + '/history';
+    const have = histories.get(s.id);
+    const full = !have || have.length === 0 || polls % FULL_HISTORY_EVERY === 0;
+    if (!full && have.length === s.observations && have[have.length - 1].date === s.date) {
+      return;
+    }
+    let points;
+    if (full) {
+      points = await fetchJson(base);
+    } else {
+      // the newest date may have been replaced by a later quote, so it is read again
+      const from = have[have.length - 1].date;
+      const fresh = await fetchJson(base + '?from=' + from);
+      points = have.filter(p => p.date < from).concat(fresh);
+      if (points.length !== s.observations) {
+        points = await fetchJson(base);   // an earlier date arrived late: start over
+      }
+    }
+    histories.set(s.id, points);
+  }
+
+  // Spells are read off the transitions: entering INVERTED starts one, CONFIRMED confirms it,
+  // leaving INVERTED or CONFIRMED for NORMAL or RESTEEPENING ends it. The end of a hold period
+  // (RESTEEPENING -> NORMAL) belongs to no spell.
+  function spellsBySpread(transitions) {
+    const inSpell = st => st === 'INVERTED' || st === 'CONFIRMED';
+    const out = new Map();
+    for (const t of transitions) {
+      if (!inSpell(t.from) && !inSpell(t.to)) {
+        continue;
+      }
+      let spells = out.get(t.spread_id);
+      if (!spells) {
+        spells = new Map();
+        out.set(t.spread_id, spells);
+      }
+      let spell = spells.get(t.spell_id);
+      if (!spell) {
+        spell = { id: t.spell_id, start: null, confirmed: null, end: null };
+        spells.set(t.spell_id, spell);
+      }
+      if (t.to === 'INVERTED') {
+        spell.start = t.date;
+      } else if (t.to === 'CONFIRMED') {
+        spell.confirmed = t.date;
+      }
+      if (inSpell(t.from) && !inSpell(t.to)) {
+        spell.end = t.date;
+      }
+    }
+    const result = new Map();
+    for (const [id, spells] of out) {
+      result.set(id, [...spells.values()]);
+    }
+    return result;
+  }
+
+  async function refresh() {
+    if (busy) {
+      return;
+    }
+    busy = true;
+    const problems = [];
+    try {
+      const [spreads, curves, transitions] = await Promise.all(
+        [fetchJson('/api/spreads'), fetchJson('/api/curves'), fetchJson('/api/transitions')]);
+      const results = await Promise.allSettled(spreads.map(loadHistory));
+      results.filter(r => r.status === 'rejected')
+        .forEach(r => problems.push('Could not read from the slopewatch API (' + r.reason.message + ').'));
+      last = { spreads, curves, transitions, spells: spellsBySpread(transitions) };
+      lastGood = new Date();
+    } catch (e) {
+      problems.push('Could not read from the slopewatch API (' + e.message + ').');
+    }
+    try {
+      if (last) {
+        render();
+      }
+    } catch (e) {
+      problems.push('The page could not draw what it read (' + e.message + ').');
+    } finally {
+      polls++;
+      busy = false;
+      showStatus(problems);
+      schedule(POLL_MS);
+    }
+  }
+
+  function schedule(ms) {
+    clearTimeout(timer);
+    timer = setTimeout(() => {
+      if (document.hidden) {
+        schedule(POLL_MS);      // nobody is looking: check again later, read nothing
+      } else {
+        refresh();
+      }
+    }, ms);
+  }
+
+  function showStatus(problems) {
+    const status = document.getElementById('status');
+    const problem = document.getElementById('problem');
+    const every = 'refreshes every ' + POLL_MS / 1000 + ' s';
+    if (problems.length === 0) {
+      problem.hidden = true;
+      problem.textContent = '';
+      status.classList.remove('stale');
+      const newest = last.spreads.map(s => s.date).filter(Boolean).sort().pop();
+      status.textContent = 'Updated ' + clock(lastGood) + (newest ? ' \u00b7 newest market date ' + newest : '') + ' \u00b7 ' + every;
+      return;
+    }
+    problem.hidden = false;
+    problem.replaceChildren(
+      el('strong', null, lastGood ? 'The figures may be out of date. ' : 'No figures to show. '),
+      problems[0] + ' ',
+      lastGood ? 'Showing what was read at ' + clock(lastGood) + '; ' : 'Nothing has been read yet; ',
+      'trying again every ' + POLL_MS / 1000 + ' s.');
+    status.classList.add('stale');
+    status.textContent = lastGood ? 'Last updated ' + clock(lastGood) + ' \u00b7 not current' : 'Not connected';
+  }
+
+  // ---- drawing ----
+
+  function render() {
+    renderSpreads();
+    renderCurves();
+    renderChanges();
+  }
+
+  function renderSpreads() {
+    const box = document.getElementById('spread-cards');
+    document.getElementById('spreads-empty').hidden = last.spreads.length > 0;
+    const keep = new Set();
+    // by curve; within a curve, in the order the API gives them (the sort is stable)
+    const spreads = [...last.spreads].sort((a, b) => a.curve.localeCompare(b.curve));
+    spreads.forEach((s, place) => {
+      const id = 'spread-' + slug(s.id);
+      keep.add(id);
+      let card = document.getElementById(id);
+      if (!card) {
+        card = el('article', { class: 'card', id, 'aria-labelledby': id + '-title' },
+          el('div', { class: 'card-head' }, el('h3', { id: id + '-title' },
+            el('span', { class: 'curve' }, s.curve), ' ', s.spread), el('span', { class: 'slot-state' })),
+          el('div', { class: 'reading' }), el('p', { class: 'state-note' }), el('dl', { class: 'facts' }),
+          el('figure', { class: 'history' }));
+      }
+      if (box.children[place] !== card) {
+        box.insertBefore(card, box.children[place] || null);
+      }
+      fillSpread(card, s);
+    });
+    for (const card of [...box.children]) {
+      if (!keep.has(card.id)) {
+        card.remove();
+      }
+    }
+  }
+
+  function fillSpread(card, s) {
+    card.className = 'card is-' + s.state;
+    card.dataset.spread = s.id;
+    card.dataset.state = s.state;
+    card.querySelector('.slot-state').replaceChildren(stateTag(s.state));
+    card.querySelector('.reading').replaceChildren(
+      el('span', { class: 'value', 'data-value-bp': s.value_bp }, s.value_bp === null ? '\u2014' : signed(s.value_bp, 1),
+        el('span', { class: 'unit' }, 'bp')),
+      el('span', { class: 'asof' }, s.date ? 'on ' + s.date : 'no value yet'));
+    card.querySelector('.state-note').textContent = (STATES[s.state] || { note: '' }).note;
+
+    const facts = [
+      ['Days inverted', String(s.days_inverted)],
+      ['Quarter to date', s.quarter_to_date_average_bp === null ? 'no observations yet'
+        : 'average ' + bp(s.quarter_to_date_average_bp) + ' over ' + s.quarter_to_date_observations
+          + (s.quarter_to_date_observations === 1 ? ' observation' : ' observations')],
+      ['Open spell', openSpell(s.spell, last.spells.get(s.id) || [])]
+    ];
+    if (s.spell) {
+      facts.push(['Deepest so far', bp(s.spell.deepest_bp) + ' on ' + s.spell.deepest_date]);
+    }
+    card.querySelector('.facts').replaceChildren(...facts.flatMap(([k, v]) => [el('dt', null, k), el('dd', null, v)]));
+
+    const figure = card.querySelector('.history');
+    // the chart ends where the figures above it end, even if a newer date arrived in between
+    const points = (histories.get(s.id) || []).filter(p => !s.date || p.date <= s.date);
+    const spells = mergeOpenSpell((last.spells.get(s.id) || []), s.spell);
+    const width = Math.max(260, Math.round(figure.clientWidth || 520));
+    figure.replaceChildren(historyChart(s, points, spells, width), historyCaption(points, spells));
+  }
+
+  function openSpell(spell, known) {
+    if (!spell) {
+      const ended = known.filter(x => x.end).map(x => x.end).sort();
+      return ended.length ? 'none; the last one ended ' + lastOf(ended) : 'none';
+    }
+    return 'since ' + spell.start + (spell.confirmed
+      ? ', confirmed ' + spell.confirmed + (spell.confirmed_by ? ' (' + spell.confirmed_by + ')' : '')
+      : ', not confirmed yet');
+  }
+
+  // the status's open spell is authoritative for the spell still running
+  function mergeOpenSpell(spells, open) {
+    if (!open) {
+      return spells;
+    }
+    const others = spells.filter(x => x.id !== open.id);
+    return others.concat([{ id: open.id, start: open.start, confirmed: open.confirmed, end: null }]);
+  }
+
+  function historyCaption(points, spells) {
+    if (points.length === 0) {
+      return el('figcaption', null, 'No history yet.');
+    }
+    return el('figcaption', null,
+      points[0].date + ' to ' + points[points.length - 1].date + ' \u00b7 dashed line: 0 bp',
+      spells.length ? el('span', { class: 'keyed' }, el('span', { class: 'key key-open', 'aria-hidden': 'true' }), 'inverted') : null,
+      spells.some(x => x.confirmed) ? el('span', { class: 'keyed' }, el('span', { class: 'key key-confirmed', 'aria-hidden': 'true' }), 'confirmed')
+        : null);
+  }
+
+  function renderCurves() {
+    const box = document.getElementById('curve-cards');
+    const curves = [...last.curves].sort((a, b) => a.curve.localeCompare(b.curve));
+    document.getElementById('curves-empty').hidden = curves.length > 0;
+    const keep = new Set();
+    curves.forEach((c, place) => {
+      const id = 'curve-' + slug(c.curve);
+      keep.add(id);
+      let card = document.getElementById(id);
+      if (!card) {
+        card = el('article', { class: 'card curve-card', id, 'aria-labelledby': id + '-title' },
+          el('div', { class: 'card-head' }, el('h3', { id: id + '-title' }, c.curve), el('span', { class: 'asof' })),
+          el('figure', { class: 'curve-shape' }), el('div', { class: 'table-scroll' }));
+      }
+      if (box.children[place] !== card) {
+        box.insertBefore(card, box.children[place] || null);
+      }
+      card.dataset.curve = c.curve;
+      card.querySelector('.asof').textContent = 'market date ' + c.date;
+      const tenors = Object.keys(c.yields_bp);
+      const figure = card.querySelector('.curve-shape');
+      const width = Math.max(260, Math.round(figure.clientWidth || 520));
+      figure.replaceChildren(curveChart(c, tenors, width));
+      card.querySelector('.table-scroll').replaceChildren(el('table', { class: 'yields' },
+        el('caption', { class: 'visually-hidden' }, c.curve + ' yields on ' + c.date + ', percent'),
+        el('tbody', null,
+          el('tr', null, el('th', { scope: 'row' }, 'Tenor'), ...tenors.map(t => el('th', { scope: 'col' }, t))),
+          el('tr', null, el('th', { scope: 'row' }, 'Yield %'), ...tenors.map(t => el('td', null, percent(c.yields_bp[t])))))));
+    });
+    for (const card of [...box.children]) {
+      if (!keep.has(card.id)) {
+        card.remove();
+      }
+    }
+  }
+
+  function renderChanges() {
+    const rows = document.getElementById('changes-rows');
+    const recent = [...last.transitions]
+      .sort((a, b) => (a.date === b.date ? b.id - a.id : a.date < b.date ? 1 : -1))
+      .slice(0, RECENT_CHANGES);
+    document.getElementById('changes-empty').hidden = recent.length > 0;
+    document.getElementById('changes-table').hidden = recent.length === 0;
+    rows.replaceChildren(...recent.map(t => el('tr', { 'data-spread': t.spread_id, 'data-to': t.to },
+      el('td', null, t.date),
+      el('td', null, t.spread_id.replace(':', ' ')),
+      el('td', null, stateTag(t.from), el('span', { class: 'arrow', 'aria-label': 'to' }, '\u2192'), stateTag(t.to)),
+      el('td', { class: 'reason' }, t.reason))));
+  }
+
+  // ---- start ----
+
+  let resizeTimer = null;
+  window.addEventListener('resize', () => {
+    clearTimeout(resizeTimer);
+    resizeTimer = setTimeout(() => last && render(), 150);
+  });
+  document.addEventListener('visibilitychange', () => {
+    if (!document.hidden) {
+      schedule(0);
+    }
+  });
+  refresh();
+}());
