@@ -3,21 +3,19 @@ package org.slopewatch.ingest;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import io.agroal.api.AgroalDataSource;
-import java.nio.file.Path;
 import java.time.Clock;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.time.ZoneOffset;
 import java.util.ArrayList;
+import java.util.Collections;
 import java.util.List;
 import java.util.Map;
 import java.util.Random;
 import java.util.Set;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
-import org.junit.jupiter.api.io.TempDir;
 import org.slopewatch.curve.Tenor;
-import org.slopewatch.journal.JournalDatabase;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
 import org.slopewatch.monitor.DaysInverted;
@@ -28,30 +26,38 @@ import org.slopewatch.spread.SpreadDefinition;
 
 /**
  * A stop and restart at any point gives the same states, spells and transitions as an
- * uninterrupted run: the pipeline rebuilds itself from the journal (H2 here; the PostgreSQL
- * variant runs the same checks against a real server).
+ * uninterrupted run: the pipeline rebuilds itself from the journal. The checks are written once
+ * here and run against each journal database by a subclass: {@link QuotePipelineRestartTest}
+ * (H2, the embedded default) and {@link QuotePipelineRestartPostgresTest} (a real PostgreSQL).
  */
-class QuotePipelineRestartTest {
+abstract class QuotePipelineRestartChecks {
 
-    @TempDir
-    Path dir;
-
-    private final List<AgroalDataSource> open = new ArrayList<>();
+    private final List<AutoCloseable> open = new ArrayList<>();
     private final Clock clock = Clock.fixed(Instant.parse("2030-01-01T00:00:00Z"), ZoneOffset.UTC);
     private static final List<Watch> WATCHES = List.of(
             new Watch(SpreadDefinition.parse("10Y-3M"), new MonitorDefinition(0, 5, 2, 60,
                     List.of(new QuarterAverage(0), new DaysInverted(45))), Set.of()),
             new Watch(SpreadDefinition.parse("10Y-2Y"), new MonitorDefinition(0, 0, 1, 30, List.of(new DaysInverted(20))), Set.of()));
 
-    @AfterEach
-    void close() {
-        open.forEach(AgroalDataSource::close);
+    /**
+     * A new, empty journal, migrated and kept apart from every other one; {@code name} tells the
+     * journals of one test apart. Register what must be closed with {@link #closeAfterTest}.
+     */
+    protected abstract AgroalDataSource database(String name);
+
+    /** Closes {@code resource} after the test, before anything registered earlier. */
+    protected final <T extends AutoCloseable> T closeAfterTest(T resource) {
+        open.add(resource);
+        return resource;
     }
 
-    private AgroalDataSource database(String name) {
-        AgroalDataSource ds = JournalDatabase.open("jdbc:h2:file:" + dir.resolve(name) + ";DB_CLOSE_DELAY=0", "sa", "", 4);
-        open.add(ds);
-        return ds;
+    @AfterEach
+    void close() throws Exception {
+        Collections.reverse(open);
+        for (AutoCloseable c : open) {
+            c.close();
+        }
+        open.clear();
     }
 
     private QuotePipeline pipeline(AgroalDataSource ds) {
