@@ -83,6 +83,17 @@ EOF
     say "$(find "$LIBS" -name '*.jar' | wc -l) jars in $LIBS"
 }
 
+# what 'StorageTool random-uuid' prints (16 random bytes, base64url, unpadded; not starting
+# with '-'), without starting a JVM for it
+cluster_id() {
+    local id
+    while :; do
+        id="$(head -c 16 /dev/urandom | base64 | tr '+/' '-_' | tr -d '=')"
+        [[ "$id" != -* ]] && break
+    done
+    echo "$id"
+}
+
 write_config() {
     cat > "$DIR/server.properties" <<EOF
 process.roles=broker,controller
@@ -135,7 +146,7 @@ start() {
     mkdir "$DIR/data"
     write_config
     local cp="$LIBS/*" cluster
-    cluster="$(java -cp "$cp" kafka.tools.StorageTool random-uuid)"
+    cluster="$(cluster_id)"
     java -cp "$cp" -Dlog4j2.configurationFile="$DIR/log4j2.properties" kafka.tools.StorageTool format \
         -t "$cluster" -c "$DIR/server.properties" >"$DIR/format.log" 2>&1 \
         || { cat "$DIR/format.log" >&2; die "could not format the storage in $DIR/data"; }
