@@ -23,7 +23,7 @@ die() { say "error: $*"; exit 1; }
 # run a server command as the cluster's owner: postgres refuses to run as root
 as_owner() {
     if [[ "$(id -u)" == 0 ]]; then
-        runuser -u postgres -- "$@"
+        "$(command -v runuser || echo /usr/sbin/runuser)" -u postgres -- "$@"
     else
         "$@"
     fi
