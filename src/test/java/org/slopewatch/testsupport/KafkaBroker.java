@@ -1,6 +1,5 @@
 package org.slopewatch.testsupport;
 
-import java.nio.file.Path;
 import java.util.Map;
 
 /**
@@ -33,10 +32,10 @@ public final class KafkaBroker {
         while (controllerPort == port) {
             controllerPort = LocalService.freePort();
         }
-        Path dir = LocalService.stateDir("slopewatch-kafka-");
-        LocalService.startOnce("Kafka broker", "kafka.sh", dir, Map.of(
+        int controller = controllerPort;
+        LocalService.startOnce("Kafka broker", "kafka.sh", dir -> Map.of(
                 "SLOPEWATCH_KAFKA_PORT", String.valueOf(port),
-                "SLOPEWATCH_KAFKA_CONTROLLER_PORT", String.valueOf(controllerPort),
+                "SLOPEWATCH_KAFKA_CONTROLLER_PORT", String.valueOf(controller),
                 "SLOPEWATCH_KAFKA_DIR", dir.toString()),
                 "Start one yourself with '.ci/kafka.sh start' (Kafka 4.1.2 from Maven Central, needs only a JDK) and run the tests with "
                         + ENV + "=127.0.0.1:9092.");

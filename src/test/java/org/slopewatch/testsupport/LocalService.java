@@ -11,6 +11,7 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
+import java.util.function.Function;
 import java.util.stream.Stream;
 
 /**
@@ -32,14 +33,16 @@ final class LocalService {
 
     /**
      * Runs {@code .ci/<script> start} with the given environment unless this JVM did already, and
-     * registers {@code .ci/<script> stop} to run at exit, which also removes {@code stateDir}.
+     * registers {@code .ci/<script> stop} to run at exit, which also removes the service's state
+     * directory.
      *
-     * @param name     names the service in messages
-     * @param stateDir the service's own directory (the script's setting for it is in {@code env}); its
-     *                 output goes to a log file there, kept when something went wrong
-     * @param advice   what a developer can do instead, shown when the start fails
+     * @param name   names the service in messages
+     * @param env    the script's settings, given a new state directory under the temporary
+     *               directory (the postgres user must reach it); the script's output goes to a log
+     *               file there, kept when something went wrong
+     * @param advice what a developer can do instead, shown when the start fails
      */
-    static synchronized void startOnce(String name, String script, Path stateDir, Map<String, String> env, String advice) {
+    static synchronized void startOnce(String name, String script, Function<Path, Map<String, String>> env, String advice) {
         String property = "slopewatch.test.started." + script;
         String earlier = System.getProperty(property);
         if (earlier != null) {
@@ -50,8 +53,10 @@ final class LocalService {
         }
         Path root = projectRoot();
         Path scriptPath = root.resolve(".ci").resolve(script);
+        Path stateDir = stateDir("slopewatch-" + script.replace(".sh", "") + "-");
+        Map<String, String> settings = env.apply(stateDir);
         Path log = stateDir.resolve(script.replace(".sh", "") + "-script.log");
-        String failure = run(root, scriptPath, "start", env, log, START_TIMEOUT_MINUTES * 60);
+        String failure = run(root, scriptPath, "start", settings, log, START_TIMEOUT_MINUTES * 60);
         if (failure != null) {
             String message = "No " + name + " for the tests: its environment variable is not set and starting one with "
                     + root.relativize(scriptPath) + " failed (" + failure + "). " + advice;
@@ -60,7 +65,7 @@ final class LocalService {
         }
         System.setProperty(property, "started");
         Runtime.getRuntime().addShutdownHook(new Thread(() -> {
-            if (run(root, scriptPath, "stop", env, log, STOP_TIMEOUT_SECONDS) == null) {
+            if (run(root, scriptPath, "stop", settings, log, STOP_TIMEOUT_SECONDS) == null) {
                 deleteTree(stateDir);
             }
         }, "stop " + name));
@@ -74,8 +79,7 @@ final class LocalService {
         }
     }
 
-    /** A new directory for a service's state, under the temporary directory (the postgres user must reach it). */
-    static Path stateDir(String prefix) {
+    private static Path stateDir(String prefix) {
         try {
             return Files.createTempDirectory(prefix);
         } catch (IOException e) {

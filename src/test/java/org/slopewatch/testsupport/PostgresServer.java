@@ -1,6 +1,5 @@
 package org.slopewatch.testsupport;
 
-import java.nio.file.Path;
 import java.sql.Connection;
 import java.sql.SQLException;
 import java.sql.Statement;
@@ -46,8 +45,7 @@ public final class PostgresServer {
             return new Endpoint(started, "sw", "sw");
         }
         int port = LocalService.freePort();
-        Path dir = LocalService.stateDir("slopewatch-postgres-");
-        LocalService.startOnce("PostgreSQL server", "postgres.sh", dir, Map.of(
+        LocalService.startOnce("PostgreSQL server", "postgres.sh", dir -> Map.of(
                 "SLOPEWATCH_POSTGRES_PORT", String.valueOf(port),
                 "SLOPEWATCH_POSTGRES_DIR", dir.toString()),
                 "Start one yourself with '.ci/postgres.sh start' (as root it installs Debian's postgresql if needed; "
