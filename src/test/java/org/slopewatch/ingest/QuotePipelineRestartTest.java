@@ -1,144 +1,18 @@
 package org.slopewatch.ingest;
 
-import static org.assertj.core.api.Assertions.assertThat;
-
 import io.agroal.api.AgroalDataSource;
 import java.nio.file.Path;
-import java.time.Clock;
-import java.time.Instant;
-import java.time.LocalDate;
-import java.time.ZoneOffset;
-import java.util.ArrayList;
-import java.util.List;
-import java.util.Map;
-import java.util.Random;
-import java.util.Set;
-import org.junit.jupiter.api.AfterEach;
-import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.slopewatch.curve.Tenor;
 import org.slopewatch.journal.JournalDatabase;
-import org.slopewatch.journal.JournalReader;
-import org.slopewatch.journal.JournalWriter;
-import org.slopewatch.monitor.DaysInverted;
-import org.slopewatch.monitor.MonitorDefinition;
-import org.slopewatch.monitor.QuarterAverage;
-import org.slopewatch.monitor.Watch;
-import org.slopewatch.spread.SpreadDefinition;
 
-/**
- * A stop and restart at any point gives the same states, spells and transitions as an
- * uninterrupted run: the pipeline rebuilds itself from the journal (H2 here; the PostgreSQL
- * variant runs the same checks against a real server).
- */
-class QuotePipelineRestartTest {
+/** The restart checks on the embedded journal: an H2 file database per journal in a temporary directory. */
+class QuotePipelineRestartTest extends QuotePipelineRestartChecks {
 
     @TempDir
     Path dir;
 
-    private final List<AgroalDataSource> open = new ArrayList<>();
-    private final Clock clock = Clock.fixed(Instant.parse("2030-01-01T00:00:00Z"), ZoneOffset.UTC);
-    private static final List<Watch> WATCHES = List.of(
-            new Watch(SpreadDefinition.parse("10Y-3M"), new MonitorDefinition(0, 5, 2, 60,
-                    List.of(new QuarterAverage(0), new DaysInverted(45))), Set.of()),
-            new Watch(SpreadDefinition.parse("10Y-2Y"), new MonitorDefinition(0, 0, 1, 30, List.of(new DaysInverted(20))), Set.of()));
-
-    @AfterEach
-    void close() {
-        open.forEach(AgroalDataSource::close);
-    }
-
-    private AgroalDataSource database(String name) {
-        AgroalDataSource ds = JournalDatabase.open("jdbc:h2:file:" + dir.resolve(name) + ";DB_CLOSE_DELAY=0", "sa", "", 4);
-        open.add(ds);
-        return ds;
-    }
-
-    private QuotePipeline pipeline(AgroalDataSource ds) {
-        QuotePipeline p = new QuotePipeline(WATCHES, new JournalWriter(ds, clock), new JournalReader(ds), PipelineListener.NONE, clock);
-        p.recover();
-        return p;
-    }
-
-    /** A year of business days on two curves through an inversion, with revisions, replacements and duplicates. */
-    static List<QuoteBatch> scenario(long seed) {
-        Random random = new Random(seed);
-        List<QuoteBatch> batches = new ArrayList<>();
-        LocalDate date = LocalDate.of(2026, 1, 1);
-        double shortRate = 300;
-        int n = 0;
-        for (int day = 0; day < 260; day++) {
-            date = date.plusDays(date.getDayOfWeek().getValue() >= 5 ? 8 - date.getDayOfWeek().getValue() : 1);
-            shortRate += day < 120 ? 2.0 : -2.5;
-            for (String curve : List.of("GOVT-A", "GOVT-B")) {
-                double tilt = curve.equals("GOVT-A") ? 0 : 150;
-                List<QuoteMessage> messages = new ArrayList<>();
-                messages.add(new QuoteMessage("m" + (n++), "test", null, curve, date, new java.util.TreeMap<>(Map.of(
-                        Tenor.months(3), shortRate + random.nextGaussian() * 3,
-                        Tenor.years(2), 380 + tilt + random.nextGaussian() * 3))));
-                messages.add(new QuoteMessage("m" + (n++), "test", null, curve, date, new java.util.TreeMap<>(Map.of(
-                        Tenor.years(10), 420 + tilt + random.nextGaussian() * 3))));
-                if (day % 17 == 5) {
-                    // a corrected 10Y for the same date replaces the provisional value
-                    messages.add(new QuoteMessage("m" + (n++), "test", null, curve, date, new java.util.TreeMap<>(Map.of(
-                            Tenor.years(10), 420 + tilt - 25))));
-                }
-                if (day % 29 == 11) {
-                    // a revision of a date a week back
-                    messages.add(new QuoteMessage("m" + (n++), "test", null, curve, date.minusDays(7), new java.util.TreeMap<>(Map.of(
-                            Tenor.months(3), shortRate + 60))));
-                }
-                if (day % 13 == 3) {
-                    messages.add(messages.get(0)); // a duplicate id
-                }
-                batches.add(new QuoteBatch("test", messages, List.of()));
-            }
-        }
-        return batches;
-    }
-
-    @Test
-    void aRestartAtAnyPointGivesTheSameOutcomeAsAnUninterruptedRun() {
-        List<QuoteBatch> batches = scenario(7);
-
-        AgroalDataSource straight = database("straight");
-        QuotePipeline uninterrupted = pipeline(straight);
-        batches.forEach(b -> uninterrupted.process(List.of(b)));
-
-        for (int stopAt : new int[] {1, 97, 250, 401}) {
-            AgroalDataSource ds = database("restart-" + stopAt);
-            QuotePipeline first = pipeline(ds);
-            batches.subList(0, stopAt).forEach(b -> first.process(List.of(b)));
-            QuotePipeline second = pipeline(ds); // the first is gone: rebuilt from the journal alone
-            batches.subList(stopAt, batches.size()).forEach(b -> second.process(List.of(b)));
-
-            assertThat(second.spreads()).as("states and open spells after a restart at batch %d", stopAt)
-                    .isEqualTo(uninterrupted.spreads());
-            JournalReader expected = new JournalReader(straight);
-            JournalReader actual = new JournalReader(ds);
-            assertThat(outcomes(actual)).as("journalled transitions after a restart at batch %d", stopAt)
-                    .isEqualTo(outcomes(expected));
-        }
-        assertThat(outcomes(new JournalReader(straight))).as("the scenario does exercise the monitor and revisions")
-                .anyMatch(s -> s.contains("CONFIRMED")).anyMatch(s -> s.contains("superseded"));
-    }
-
-    @Test
-    void duplicatesAreIgnoredAndCountedEvenAcrossARestart() {
-        AgroalDataSource ds = database("dups");
-        QuoteMessage m = new QuoteMessage("abc-1", "test", null, "GOVT-A", LocalDate.of(2026, 3, 2),
-                new java.util.TreeMap<>(Map.of(Tenor.years(10), 400.0, Tenor.months(3), 410.0)));
-        BatchOutcome first = pipeline(ds).process(List.of(new QuoteBatch("test", List.of(m, m), List.of())));
-        assertThat(first.accepted()).isEqualTo(1);
-        assertThat(first.duplicates()).isEqualTo(1);
-        BatchOutcome afterRestart = pipeline(ds).process(List.of(new QuoteBatch("test", List.of(m), List.of())));
-        assertThat(afterRestart.accepted()).isZero();
-        assertThat(afterRestart.duplicates()).isEqualTo(1);
-    }
-
-    private static List<String> outcomes(JournalReader journal) {
-        return journal.transitions(null, LocalDate.of(1, 1, 1), LocalDate.of(9999, 1, 1), true, 100_000)
-                .stream().map(t -> t.spreadId() + " " + t.date() + " " + t.from() + "->" + t.to() + " " + t.test() + " spell "
-                        + t.spellId() + " seq " + t.seq() + (t.supersededBy() == null ? "" : " superseded")).toList();
+    @Override
+    protected AgroalDataSource database(String name) {
+        return closeAfterTest(JournalDatabase.open("jdbc:h2:file:" + dir.resolve(name) + ";DB_CLOSE_DELAY=0", "sa", "", 4));
     }
 }

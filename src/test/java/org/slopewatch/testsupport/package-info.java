@@ -1,0 +1,9 @@
+/**
+ * Real servers for the tests: the Kafka broker and the PostgreSQL server that {@code .ci/run}
+ * starts and names in environment variables, or that these helpers start once per JVM with the
+ * same {@code .ci/*.sh} scripts when the variables are absent.
+ *
+ * <p>Invariants: a test never silently skips for want of a server, it fails saying how to start
+ * one; every test gets topics or databases of its own, so runs do not see each other's data.
+ */
+package org.slopewatch.testsupport;
