@@ -1,0 +1,75 @@
+package org.slopewatch.delivery;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.time.Duration;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+
+/** Channels are chosen by type name; a bad configuration is refused with a message a person can act on. */
+class ChannelFactoryTest {
+
+    private static final String FILE = "PropertiesConfigSource[source=file:config/application.properties]";
+
+    private final ChannelFactory factory = ChannelFactory.standard(() -> {
+        throw new AssertionError("no mailer is needed unless an email channel is made");
+    }, Redactor.none(), null);
+
+    @Test
+    void theFourTypesAreKnown() {
+        assertThat(factory.knownTypes()).containsExactly("chat-webhook", "email", "log", "stream");
+    }
+
+    @Test
+    void aTypeNameChoosesTheClass() {
+        Map<String, ChannelSettings> settings = new LinkedHashMap<>();
+        settings.put("log", ChannelSettings.ofType("log"));
+        settings.put("desk-chat", ChannelSettings.ofType(" Chat-Webhook ").withUrl("https://chat.example.org/hooks/abc")
+                .withFormat("alert-json").withTimeout(Duration.ofSeconds(3)));
+
+        Map<String, AlertChannel> channels = factory.createAll(settings);
+
+        assertThat(channels.keySet()).as("in name order").containsExactly("desk-chat", "log");
+        assertThat(channels.get("log")).isInstanceOf(LogChannel.class);
+        assertThat(channels.get("desk-chat")).isInstanceOf(ChatWebhookChannel.class);
+        assertThat(((ChatWebhookChannel) channels.get("desk-chat")).format()).isEqualTo(ChatWebhookChannel.Format.ALERT_JSON);
+        assertThat(channels.get("desk-chat").name()).isEqualTo("desk-chat");
+    }
+
+    @Test
+    void anUnknownTypeNamesTheChannelTheTypeWhereItWasSetAndTheKnownTypes() {
+        assertThatThrownBy(() -> factory.create("desk-chat", ChannelSettings.ofType("slack").withOrigin(FILE)))
+                .isInstanceOf(ChannelConfigException.class)
+                .hasMessage("channel 'desk-chat' has unknown type 'slack' (slopewatch.channels.desk-chat.type in " + FILE
+                        + "); known types: chat-webhook, email, log, stream");
+    }
+
+    @Test
+    void settingsATypeCannotUseAreRefused() {
+        assertThatThrownBy(() -> factory.create("desk-chat", ChannelSettings.ofType("chat-webhook").withOrigin(FILE)))
+                .hasMessage("channel 'desk-chat': type chat-webhook needs a url (slopewatch.channels.desk-chat.url, e.g. "
+                        + "${SLOPEWATCH_CHAT_URL}) (configured in " + FILE + ")");
+        assertThatThrownBy(() -> factory.create("desk-chat", ChannelSettings.ofType("chat-webhook").withUrl("https://chat.example.org/h")
+                .withFormat("markdown"))).hasMessageStartingWith("channel 'desk-chat': unknown format 'markdown'; known formats: text, alert-json");
+        ChannelFactory withMailer = ChannelFactory.standard(() -> mails -> { }, Redactor.none(), null);
+        assertThatThrownBy(() -> withMailer.create("desk-mail", ChannelSettings.ofType("email")))
+                .hasMessageStartingWith("channel 'desk-mail': no recipients (set slopewatch.channels.desk-mail.to)");
+        assertThatThrownBy(() -> withMailer.create("desk-mail", ChannelSettings.ofType("email").withTo(List.of("desk"))))
+                .hasMessageStartingWith("channel 'desk-mail': 'desk' is not an email address");
+    }
+
+    @Test
+    void everyProblemIsReportedAtOnce() {
+        Map<String, ChannelSettings> settings = new LinkedHashMap<>();
+        settings.put("log", ChannelSettings.ofType("log"));
+        settings.put("b-chat", ChannelSettings.ofType("chat-webhook"));
+        settings.put("a-pager", ChannelSettings.ofType("pager"));
+
+        assertThatThrownBy(() -> factory.createAll(settings)).isInstanceOf(ChannelConfigException.class)
+                .hasMessageStartingWith("the channel configuration has 2 problems:\n  channel 'a-pager' has unknown type 'pager'")
+                .hasMessageContaining("\n  channel 'b-chat': type chat-webhook needs a url");
+    }
+}
