@@ -2,7 +2,8 @@
 # Kafka ingest benchmark: a real broker (.ci/kafka.sh, port 19092), the daemon with --kafka
 # draining a topic of MESSAGES snapshots (11 quotes each) with the journal on, next to a bare
 # Kafka consumer reading the same topic in the same run; then p50/p99 from a record's time to
-# its journalled row at a steady rate below capacity.   bench/ingest-kafka.sh [MESSAGES]
+# its journalled row at a steady rate below capacity.
+#   [BENCH_POLICY=FILE] bench/ingest-kafka.sh [MESSAGES]
 set -euo pipefail
 cd "$(dirname "$0")/.."
 messages=${1:-100000}

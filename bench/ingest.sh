@@ -2,7 +2,7 @@
 # Ingest benchmark: the daemon on embedded defaults (journal on, H2 file in a fresh directory),
 # HTTP batches from a Java client, next to a decode-only baseline measured in the same run.
 # Prints one result line per run; docs/benchmarks.md records them with this command.
-#   bench/ingest.sh [REQUESTS] [MESSAGES_PER_REQUEST] [CLIENTS]
+#   [BENCH_POLICY=FILE] bench/ingest.sh [REQUESTS] [MESSAGES_PER_REQUEST] [CLIENTS]
 set -euo pipefail
 cd "$(dirname "$0")/.."
 requests=${1:-200}; per_request=${2:-500}; clients=${3:-2}; port=${BENCH_PORT:-18080}
@@ -10,7 +10,10 @@ mkdir -p bench/out
 ./mvnw -B -q -DskipTests package
 ./mvnw -B -q dependency:build-classpath -Dmdep.includeScope=test -Dmdep.outputFile=bench/out/test-classpath.txt
 data=$(mktemp -d /tmp/slopewatch-bench-XXXXXX)
+policy=${BENCH_POLICY:-alert-rules/default.yaml}
+echo "ingest-http policy=$policy"
 java -Xmx2g -Dslopewatch.home="$PWD" -Dslopewatch.data-dir="$data" -Dslopewatch.ingest.max-days-ahead=36500 \
+     -Dslopewatch.ingest.policy="$policy" \
      -Dquarkus.http.port="$port" -Dquarkus.log.category.\"org.slopewatch.transitions\".level=WARN \
      -jar target/quarkus-app/quarkus-run.jar serve > bench/out/ingest-daemon.log 2>&1 &
 daemon=$!

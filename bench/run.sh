@@ -123,6 +123,11 @@ done < "$out/launcher.txt")"
 launcher_median="$(sort -k2,2n "$out/launcher.txt" | sed -n 2p | awk '{ print $2 }')"
 launcher_rate="$(n "$(awk -v q="$quotes" -v s="$launcher_median" 'BEGIN { print q / s }')")"
 
+# the daemon's ingest figures (bench/ingest.sh, bench/ingest-kafka.sh) are kept from the file as it was
+ingest_section=""
+if [[ -f "$report" ]] && grep -q '^<!-- ingest -->' "$report"; then
+  ingest_section="$(sed -n '/^<!-- ingest -->/,$p' "$report")"
+fi
 cat > "$report" <<EOF
 # Benchmarks
 
@@ -256,4 +261,7 @@ $launcher_table
   figure. Its user CPU time includes the JIT compiler and GC threads; a CPU share well below
   100 % means the process was waiting for a core that other work held.
 EOF
+if [[ -n "$ingest_section" ]]; then
+  printf '\n%s\n' "$ingest_section" >> "$report"
+fi
 say "wrote $report"

@@ -107,32 +107,36 @@ public final class IngestBench {
 
     /** As {@link #bodies(int, int)}, from a given first date. */
     public static List<String> bodies(int requests, int perRequest, LocalDate first) {
+        List<String> items = items(requests * perRequest, first);
         List<String> out = new ArrayList<>(requests);
+        for (int r = 0; r < requests; r++) {
+            out.add("[" + String.join(",", items.subList(r * perRequest, (r + 1) * perRequest)) + "]");
+        }
+        return out;
+    }
+
+    /** Snapshot messages: consecutive business days, each on GOVT-A then GOVT-B, every tenor quoted. */
+    public static List<String> items(int count, LocalDate first) {
+        List<String> out = new ArrayList<>(count);
         LocalDate date = first;
         double level = 400;
         java.util.Random random = new java.util.Random(42);
-        for (int r = 0; r < requests; r++) {
-            StringBuilder b = new StringBuilder(perRequest * 220).append('[');
-            for (int m = 0; m < perRequest; m++) {
-                String curve = m % 2 == 0 ? "GOVT-A" : "GOVT-B";
-                if (m % 2 == 0) {
-                    do {
-                        date = date.plusDays(1);
-                    } while (date.getDayOfWeek() == DayOfWeek.SATURDAY || date.getDayOfWeek() == DayOfWeek.SUNDAY);
-                    level += random.nextGaussian() * 3;
-                }
-                if (m > 0) {
-                    b.append(',');
-                }
-                b.append("{\"curve\":\"").append(curve).append("\",\"date\":\"").append(date).append("\",\"unit\":\"bp\",\"yields\":{");
-                for (int t = 0; t < TENORS.length; t++) {
-                    double slope = (curve.equals("GOVT-A") ? -40 : 60) * Math.log1p(t) / Math.log(12);
-                    b.append(t == 0 ? "" : ",").append('"').append(TENORS[t]).append("\":")
-                            .append(String.format(Locale.ROOT, "%.1f", level + slope + random.nextGaussian()));
-                }
-                b.append("}}");
+        for (int m = 0; m < count; m++) {
+            String curve = m % 2 == 0 ? "GOVT-A" : "GOVT-B";
+            if (m % 2 == 0) {
+                do {
+                    date = date.plusDays(1);
+                } while (date.getDayOfWeek() == DayOfWeek.SATURDAY || date.getDayOfWeek() == DayOfWeek.SUNDAY);
+                level += random.nextGaussian() * 3;
             }
-            out.add(b.append(']').toString());
+            StringBuilder b = new StringBuilder(220);
+            b.append("{\"curve\":\"").append(curve).append("\",\"date\":\"").append(date).append("\",\"unit\":\"bp\",\"yields\":{");
+            for (int t = 0; t < TENORS.length; t++) {
+                double slope = (curve.equals("GOVT-A") ? -40 : 60) * Math.log1p(t) / Math.log(12);
+                b.append(t == 0 ? "" : ",").append('"').append(TENORS[t]).append("\":")
+                        .append(String.format(Locale.ROOT, "%.1f", level + slope + random.nextGaussian()));
+            }
+            out.add(b.append("}}").toString());
         }
         return out;
     }

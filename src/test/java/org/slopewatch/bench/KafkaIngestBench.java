@@ -52,7 +52,9 @@ public final class KafkaIngestBench {
         double bareRate = bareConsumer(bootstrap, topic, messages) * TENORS;
 
         Path data = Files.createTempDirectory("slopewatch-kafka-bench-");
+        String policy = System.getenv().getOrDefault("BENCH_POLICY", "alert-rules/default.yaml");
         Process daemon = new ProcessBuilder("java", "-Xmx2g", "-Dslopewatch.home=" + home, "-Dslopewatch.data-dir=" + data,
+                "-Dslopewatch.ingest.policy=" + home.resolve(policy),
                 "-Dslopewatch.ingest.max-days-ahead=36500", "-Dquarkus.http.port=" + port, "-Dkafka.bootstrap.servers=" + bootstrap,
                 // the profile-specific keys, which win over plain ones in the kafka profile
                 "-D%kafka.mp.messaging.incoming.quotes.topic=" + topic, "-D%kafka.mp.messaging.incoming.quotes.group.id=bench-" + UUID.randomUUID(),
@@ -69,13 +71,13 @@ public final class KafkaIngestBench {
             // latency at a steady rate below capacity: time stamp at send, compare with the journal after
             int steady = Math.max(2_000, messages / 20);
             int perSecond = (int) Math.max(100, daemonRate / TENORS / 4);
-            List<String> later = snapshots(steady, LocalDate.of(2200, 1, 1));
+            List<String> later = snapshots(steady, LocalDate.of(2110, 1, 1));
             produce(bootstrap, topic, later, perSecond);
             waitForAccepted(http, port, messages + steady, Duration.ofMinutes(10));
             daemon.destroy();
             daemon.waitFor();
-            double[] latencies = latenciesMs(data, LocalDate.of(2200, 1, 1));
-            System.out.printf(Locale.ROOT, "ingest-kafka messages=%d quotes=%d quotes_per_s=%.0f bare_consumer_quotes_per_s=%.0f ratio=%.3f "
+            double[] latencies = latenciesMs(data, LocalDate.of(2110, 1, 1));
+            System.out.printf(Locale.ROOT, "ingest-kafka policy=" + policy + " messages=%d quotes=%d quotes_per_s=%.0f bare_consumer_quotes_per_s=%.0f ratio=%.3f "
                             + "steady_messages=%d steady_rate_msgs_per_s=%d p50_ms=%.1f p99_ms=%.1f%n",
                     messages, (long) messages * TENORS, daemonRate, bareRate, daemonRate / bareRate, steady, perSecond,
                     latencies[0], latencies[1]);
@@ -175,8 +177,7 @@ public final class KafkaIngestBench {
     /** Snapshot messages of consecutive business days on two curves, with a {@code time} placeholder. */
     static List<String> snapshots(int count, LocalDate start) {
         List<String> out = new ArrayList<>(count);
-        for (String body : IngestBench.bodies(count, 1, start)) {
-            String item = body.substring(1, body.length() - 1);
+        for (String item : IngestBench.items(count, start)) {
             out.add(item.replace("\"unit\":\"bp\"", "\"unit\":\"bp\",\"time\":\"T\""));
         }
         return out;
