@@ -43,10 +43,4 @@ public final class CurveBook {
         NavigableMap<LocalDate, CurveSnapshot> byDate = curves.get(curve);
         return byDate == null ? null : byDate.get(date);
     }
-
-    /** The latest date of a curve, or null if it has none. */
-    public LocalDate latestDate(String curve) {
-        NavigableMap<LocalDate, CurveSnapshot> byDate = curves.get(curve);
-        return byDate == null ? null : byDate.lastKey();
-    }
 }

@@ -180,8 +180,7 @@ public final class ChatWebhookChannel implements AlertChannel {
     }
 
     private String describe(Throwable t) {
-        String message = t.getMessage() == null ? "" : ": " + redactor.redactAndTruncate(t.getMessage(), BODY_CHARS);
-        return t.getClass().getSimpleName() + message;
+        return redactor.describe(t, BODY_CHARS);
     }
 
     private String prefix() {

@@ -111,8 +111,7 @@ public final class EmailChannel implements AlertChannel {
     }
 
     private String describe(Throwable t) {
-        String message = t.getMessage() == null ? "" : ": " + redactor.redactAndTruncate(t.getMessage(), REPLY_CHARS);
-        return t.getClass().getSimpleName() + message;
+        return redactor.describe(t, REPLY_CHARS);
     }
 
     private String prefix() {

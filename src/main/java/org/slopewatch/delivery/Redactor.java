@@ -117,6 +117,12 @@ public final class Redactor {
      * Redacted first and cut afterwards, so that a cut never leaves the start of a secret that
      * redaction would no longer recognise; line breaks become spaces to keep a reason on one line.
      */
+    /** A failure as {@code ClassName: message}, the message redacted and cut: what channels put in a reason. */
+    public String describe(Throwable t, int maxChars) {
+        String message = t.getMessage() == null ? "" : ": " + redactAndTruncate(t.getMessage(), maxChars);
+        return t.getClass().getSimpleName() + message;
+    }
+
     public String redactAndTruncate(String text, int maxChars) {
         String clean = redact(text);
         if (clean == null) {

@@ -18,16 +18,4 @@ public record LeadTimeReport(int windowMonths, List<LeadTime> leads, List<YearMo
         missedPeaks = List.copyOf(missedPeaks);
         unassessedPeaks = List.copyOf(unassessedPeaks);
     }
-
-    public long hits() {
-        return leads.stream().filter(l -> l.outcome().equals("hit")).count();
-    }
-
-    public long falseAlarms() {
-        return leads.stream().filter(LeadTime::falseAlarm).count();
-    }
-
-    public long lateSignals() {
-        return leads.stream().filter(LeadTime::late).count();
-    }
 }

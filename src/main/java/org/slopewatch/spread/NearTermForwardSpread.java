@@ -1,6 +1,5 @@
 package org.slopewatch.spread;
 
-import java.util.List;
 import java.util.Optional;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.NelsonSiegelSvensson;
@@ -24,11 +23,6 @@ public record NearTermForwardSpread() implements SpreadDefinition {
     @Override
     public String name() {
         return NAME;
-    }
-
-    @Override
-    public List<Tenor> legs() {
-        return List.of();
     }
 
     @Override

@@ -1,6 +1,5 @@
 package org.slopewatch.spread;
 
-import java.util.List;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.Tenor;
 
@@ -14,9 +13,6 @@ public sealed interface SpreadDefinition permits TermSpread, NearTermForwardSpre
 
     /** The spread's name as written in policy files and reports, e.g. {@code 10Y-3M}. */
     String name();
-
-    /** The tenors the spread reads: a change to any of them calls for a new observation. */
-    List<Tenor> legs();
 
     /** The spread in basis points, or NaN when the snapshot lacks what it needs. */
     double valueBp(CurveSnapshot snapshot);

@@ -1,6 +1,5 @@
 package org.slopewatch.spread;
 
-import java.util.List;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.Tenor;
 
@@ -22,11 +21,6 @@ public record TermSpread(Tenor longLeg, Tenor shortLeg, boolean interpolate) imp
     @Override
     public String name() {
         return longLeg + "-" + shortLeg + (interpolate ? "~" : "");
-    }
-
-    @Override
-    public List<Tenor> legs() {
-        return List.of(longLeg, shortLeg);
     }
 
     @Override
