@@ -1,14 +1,7 @@
 package org.slopewatch.curve;
 
+import java.util.List;
 import java.util.Optional;
-import org.apache.commons.math3.exception.MathArithmeticException;
-import org.apache.commons.math3.exception.MathIllegalArgumentException;
-import org.apache.commons.math3.exception.MathIllegalStateException;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer.Optimum;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
-import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
-import org.apache.commons.math3.linear.RealVector;
 
 /**
  * Fits a Nelson–Siegel–Svensson curve to the quoted points of a snapshot by least squares,
@@ -22,11 +15,18 @@ import org.apache.commons.math3.linear.RealVector;
  *
  * <p>Six or more points get the six-parameter Svensson form; four or five get plain Nelson–Siegel
  * ({@code beta3 = 0}, {@code tau2 = tau1}), since a second hump cannot be identified from so few;
- * fewer than {@link #MIN_POINTS} get no fit. The decay parameters are searched by
- * Levenberg–Marquardt with the betas solved exactly at each step ({@link NssProfile}). The sum of
- * squares has local minima in the decay parameters, so the search starts from a small grid of
- * them and keeps the best end point. A start that does not converge within the caps is dropped;
- * when none converges the result is empty, never an exception.
+ * fewer than {@link #MIN_POINTS} get no fit. The betas are solved exactly for any decay parameters
+ * ({@link NssProfile}); the decay parameters are found in two steps: a coarse grid over them
+ * ({@link DecayGrid}) finds the basins of the sum of squares, which has several, and
+ * Levenberg–Marquardt ({@link DecaySearch}) descends from the best few grid minima; the best end
+ * point wins. A search that does not converge within its caps is dropped; when none converges the
+ * result is empty, never an exception.
+ *
+ * <p>With eleven points the second hump is often barely identified, so nearly equal local minima
+ * with different forwards exist; no method short of an exhaustive search is sure to find the
+ * global one. The result depends on the snapshot alone (no warm start from an earlier date), so a
+ * spread's value never depends on the order quotes arrived in, which replay, revision and recovery
+ * rely on.
  */
 public final class NssFitter {
 
@@ -35,21 +35,11 @@ public final class NssFitter {
     public static final int SVENSSON_MIN_POINTS = 6;
 
     static final int MAX_EVALUATIONS = 200;
-    static final int MAX_ITERATIONS = 100;
-
-    // Starting decay parameters, as ln(years): a short, a medium and a long first hump; the
-    // second hump starts further out, where Svensson's extra term usually earns its keep.
-    private static final double[][] SVENSSON_STARTS = logGrid(new double[] {0.3, 1.0, 3.0}, new double[] {5.0, 15.0});
-    private static final double[][] NELSON_SIEGEL_STARTS = logGrid(new double[] {0.3, 1.0, 3.0, 10.0}, null);
+    // Grid minima to descend from: the best basin on a coarse grid is nearly always the best one,
+    // but two basins of almost equal depth are common on humped curves.
+    private static final int MAX_STARTS = 3;
     // A start that already fits this closely cannot be beaten in any sense that matters.
     private static final double GOOD_ENOUGH_RMSE_BP = 1e-6;
-
-    // Immutable, so one instance serves every thread. Relative tolerances of 1e-8 on a cost in bp²
-    // stop far below any difference a spread could show, a few iterations sooner than the defaults.
-    private static final LevenbergMarquardtOptimizer OPTIMIZER = new LevenbergMarquardtOptimizer()
-            .withCostRelativeTolerance(1e-8)
-            .withParameterRelativeTolerance(1e-8)
-            .withOrthoTolerance(1e-8);
 
     private NssFitter() {
     }
@@ -81,12 +71,12 @@ public final class NssFitter {
         }
         boolean svensson = n >= SVENSSON_MIN_POINTS;
         NssProfile profile = new NssProfile(years, yields, svensson);
-        Optimum best = null;
-        for (double[] start : svensson ? SVENSSON_STARTS : NELSON_SIEGEL_STARTS) {
-            Optimum optimum = run(profile, yields, start, maxEvaluations);
-            if (optimum != null && (best == null || optimum.getCost() < best.getCost())) {
-                best = optimum;
-                if (best.getRMS() < GOOD_ENOUGH_RMSE_BP) {
+        DecaySearch.Minimum best = null;
+        for (double[] start : DecayGrid.starts(profile, years, yields, svensson, MAX_STARTS)) {
+            DecaySearch.Minimum minimum = DecaySearch.minimise(profile, start, maxEvaluations);
+            if (minimum != null && (best == null || minimum.cost() < best.cost())) {
+                best = minimum;
+                if (rmse(best.cost(), n) < GOOD_ENOUGH_RMSE_BP) {
                     break;
                 }
             }
@@ -94,43 +84,11 @@ public final class NssFitter {
         if (best == null) {
             return Optional.empty();
         }
-        NelsonSiegelSvensson curve = profile.curve(best.getPoint().toArray());
-        return Optional.of(new NssFit(curve, best.getRMS(), n, svensson));
+        NelsonSiegelSvensson curve = profile.curve(best.logTaus());
+        return Optional.of(new NssFit(curve, rmse(best.cost(), n), n, svensson));
     }
 
-    /** One search from given log decay parameters; null when it fails or ends somewhere non-finite. */
-    private static Optimum run(NssProfile profile, double[] yields, double[] start, int maxEvaluations) {
-        LeastSquaresProblem problem = new LeastSquaresBuilder()
-                .model(profile)
-                .parameterValidator(profile)
-                .target(yields)
-                .start(start)
-                .maxEvaluations(maxEvaluations)
-                .maxIterations(MAX_ITERATIONS)
-                .build();
-        try {
-            Optimum optimum = OPTIMIZER.optimize(problem);
-            RealVector point = optimum.getPoint();
-            return point.isNaN() || point.isInfinite() || !Double.isFinite(optimum.getCost()) ? null : optimum;
-        } catch (MathIllegalStateException | MathArithmeticException | MathIllegalArgumentException e) {
-            // too many evaluations or iterations, or a degenerate step: this start has failed
-            return null;
-        }
-    }
-
-    private static double[][] logGrid(double[] tau1s, double[] tau2s) {
-        int per = tau2s == null ? 1 : tau2s.length;
-        double[][] grid = new double[tau1s.length * per][];
-        int k = 0;
-        for (double tau1 : tau1s) {
-            if (tau2s == null) {
-                grid[k++] = new double[] {Math.log(tau1)};
-            } else {
-                for (double tau2 : tau2s) {
-                    grid[k++] = new double[] {Math.log(tau1), Math.log(tau2)};
-                }
-            }
-        }
-        return grid;
+    private static double rmse(double sumOfSquares, int points) {
+        return Math.sqrt(sumOfSquares / points);
     }
 }

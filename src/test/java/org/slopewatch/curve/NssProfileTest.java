@@ -3,9 +3,6 @@ package org.slopewatch.curve;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.RealVector;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -50,36 +47,58 @@ class NssProfileTest {
 
     private static void check(NssProfile profile, double[] at) {
         double h = 1e-5;
-        RealMatrix jacobian = profile.value(new ArrayRealVector(at)).getSecond();
+        double[][] jacobian = new double[YEARS.length][at.length];
+        profile.cost(at);
+        profile.jacobian(jacobian);
         for (int j = 0; j < at.length; j++) {
             double[] up = at.clone();
             double[] down = at.clone();
             up[j] += h;
             down[j] -= h;
-            RealVector plus = profile.value(new ArrayRealVector(up)).getFirst();
-            RealVector minus = profile.value(new ArrayRealVector(down)).getFirst();
+            // the fitted yield at a quoted maturity is the fitted curve's zero rate there
+            NelsonSiegelSvensson plus = profile.curve(up);
+            NelsonSiegelSvensson minus = profile.curve(down);
             for (int i = 0; i < YEARS.length; i++) {
-                double numeric = (plus.getEntry(i) - minus.getEntry(i)) / (2 * h);
-                assertThat(jacobian.getEntry(i, j)).as("∂ŷ(%s)/∂ln τ%d", YEARS[i], j + 1)
+                double numeric = (plus.zeroRate(YEARS[i]) - minus.zeroRate(YEARS[i])) / (2 * h);
+                assertThat(jacobian[i][j]).as("∂ŷ(%s)/∂ln τ%d", YEARS[i], j + 1)
                         .isCloseTo(numeric, within(1e-5 * Math.max(1.0, Math.abs(numeric))));
             }
         }
     }
 
     @Test
-    void validatorKeepsDecayInRange() {
+    void costIsTheSumOfSquaredResidualsOfTheFittedCurve() {
+        SvenssonFormula truth = new SvenssonFormula(420, 120, -80, 50, 0.9, 6);
+        double[] yields = sample(truth);
+        yields[4] += 5.0;
+        NssProfile profile = new NssProfile(YEARS, yields, true);
+        double[] at = {Math.log(1.1), Math.log(7)};
+        double cost = profile.cost(at);
+        NelsonSiegelSvensson curve = profile.curve(at);
+        double sum = 0.0;
+        for (int i = 0; i < YEARS.length; i++) {
+            double r = yields[i] - curve.zeroRate(YEARS[i]);
+            sum += r * r;
+        }
+        assertThat(cost).isCloseTo(sum, within(1e-9 * Math.max(1.0, sum)));
+    }
+
+    @Test
+    void clampKeepsDecayInRange() {
         NssProfile profile = new NssProfile(YEARS, new double[YEARS.length], true);
-        RealVector clamped = profile.validate(new ArrayRealVector(new double[] {Double.NaN, 40.0}));
-        assertThat(Math.exp(clamped.getEntry(0))).as("1M/1.7933 = 0.046 < 0.05: floor applies").isCloseTo(0.05, within(1e-12));
-        assertThat(Math.exp(clamped.getEntry(1))).isCloseTo(50.0, within(1e-9));
+        double[] clamped = {Double.NaN, 40.0};
+        profile.clamp(clamped);
+        assertThat(Math.exp(clamped[0])).as("1M/1.7933 = 0.046 < 0.05: floor applies").isCloseTo(0.05, within(1e-12));
+        assertThat(Math.exp(clamped[1])).isCloseTo(50.0, within(1e-9));
     }
 
     @Test
     void decayFloorRisesWithTheShortestMaturity() {
         NssProfile fromOneYear = new NssProfile(new double[] {1, 3, 5, 10}, new double[4], false);
         assertThat(fromOneYear.minTau()).as("1Y / 1.7933").isCloseTo(0.55763, within(1e-5));
-        RealVector clamped = fromOneYear.validate(new ArrayRealVector(new double[] {Math.log(0.1)}));
-        assertThat(Math.exp(clamped.getEntry(0))).isCloseTo(0.55763, within(1e-5));
+        double[] clamped = {Math.log(0.1)};
+        fromOneYear.clamp(clamped);
+        assertThat(Math.exp(clamped[0])).isCloseTo(0.55763, within(1e-5));
     }
 
     /*
