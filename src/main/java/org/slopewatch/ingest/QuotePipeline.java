@@ -3,6 +3,7 @@ package org.slopewatch.ingest;
 import java.time.Clock;
 import java.time.Duration;
 import java.time.Instant;
+import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Collection;
 import java.util.HashMap;
@@ -40,10 +41,11 @@ public final class QuotePipeline {
 
     private static final Logger LOG = Logger.getLogger("org.slopewatch.transitions");
 
-    private final List<Watch> watches;
+    private List<Watch> watches;
     private final JournalWriter writer;
     private final JournalReader reader;
     private final PipelineListener listener;
+    private final AlertStage alerts;
     private final Clock clock;
 
     private SignalEngine engine;
@@ -53,10 +55,16 @@ public final class QuotePipeline {
     private final Map<String, Instant> lastReceived = new HashMap<>();
 
     public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, Clock clock) {
+        this(watches, writer, reader, listener, AlertStage.NONE, clock);
+    }
+
+    public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, AlertStage alerts,
+                         Clock clock) {
         this.watches = List.copyOf(watches);
         this.writer = writer;
         this.reader = reader;
         this.listener = listener;
+        this.alerts = alerts;
         this.clock = clock;
         reset();
     }
@@ -88,7 +96,38 @@ public final class QuotePipeline {
         for (SpreadTrack t : engine.tracks()) {
             listener.spreadChanged(SpreadStatus.of(t));
         }
+        alerts.rebuild();
         return count[0];
+    }
+
+    /**
+     * Watches other spreads or rules from now on: the monitors are rebuilt from the journalled
+     * quotes under the new definitions (as a restart with the new policy would), without
+     * journalling again what was concluded under the old ones.
+     */
+    public synchronized long reconfigure(List<Watch> newWatches) {
+        this.watches = List.copyOf(newWatches);
+        return recover();
+    }
+
+    /**
+     * Decides the notices due by the clock alone (repeats, stale feeds) and journals them.
+     *
+     * @param staleCurves every watched curve → the date its feed went quiet, or null while fresh
+     */
+    public synchronized void tick(Map<String, LocalDate> staleCurves) {
+        JournalEntries journal = new JournalEntries();
+        alerts.onTick(spreads(), staleCurves, journal);
+        if (journal.isEmpty()) {
+            return;
+        }
+        try {
+            writer.write(journal);
+        } catch (RuntimeException e) {
+            alerts.rebuild();
+            throw e;
+        }
+        alerts.written(journal.alerts());
     }
 
     /** Processes batches in order and journals the step; returns what happened. */
@@ -129,6 +168,13 @@ public final class QuotePipeline {
                 }
             }
         }
+        List<SpreadStatus> changed = new ArrayList<>(touched.size());
+        for (SpreadTrack t : touched.values()) {
+            if (t != null) {
+                changed.add(SpreadStatus.of(t));
+            }
+        }
+        alerts.onStep(changed, sequence, journal);
         long beforeWrite = System.nanoTime();
         try {
             writer.write(journal);
@@ -146,11 +192,8 @@ public final class QuotePipeline {
             log(t);
             listener.transition(t);
         }
-        for (SpreadTrack t : touched.values()) {
-            if (t != null) {
-                listener.spreadChanged(SpreadStatus.of(t));
-            }
-        }
+        changed.forEach(listener::spreadChanged);
+        alerts.written(journal.alerts());
         listener.processed(Duration.ofNanos(beforeWrite - started), Duration.ofNanos(written - beforeWrite));
         return new BatchOutcome(accepted, duplicates, rejects.size(), transitions.size(), rejects);
     }
@@ -193,7 +236,7 @@ public final class QuotePipeline {
     }
 
     /** A curve's snapshot on a market date, or null. */
-    public synchronized CurveSnapshot curve(String curve, java.time.LocalDate date) {
+    public synchronized CurveSnapshot curve(String curve, LocalDate date) {
         return book.snapshot(curve, date);
     }
 

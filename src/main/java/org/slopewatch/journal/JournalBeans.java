@@ -38,4 +38,10 @@ public class JournalBeans {
     JournalReader journalReader(AgroalDataSource ds) {
         return new JournalReader(ds);
     }
+
+    @Produces
+    @Singleton
+    AlertStore alertStore(AgroalDataSource ds, Clock clock) {
+        return new AlertStore(ds, clock);
+    }
 }

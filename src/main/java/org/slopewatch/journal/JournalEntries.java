@@ -6,6 +6,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.SortedMap;
 import org.slopewatch.curve.Tenor;
+import org.slopewatch.delivery.Alert;
 import org.slopewatch.monitor.Observation;
 import org.slopewatch.monitor.Revision;
 import org.slopewatch.monitor.Spell;
@@ -35,12 +36,31 @@ public final class JournalEntries {
     public record RevisionEntry(Revision revision, List<Spell> endedSpells) {
     }
 
+    /**
+     * A notice and its outbox rows: one per channel, pending unless {@code skipped} gives a
+     * reason not to deliver (channel not configured, alert muted).
+     *
+     * @param episodeSince the market date the rule's condition started to hold (names the episode)
+     * @param mutedBy      the mute that silenced it, or null
+     */
+    public record AlertEntry(Alert alert, String subject, LocalDate episodeSince, int notice, String mutedBy, String policyHash,
+                             Long seq, List<Outbox> outbox) {
+        public AlertEntry {
+            outbox = List.copyOf(outbox);
+        }
+    }
+
+    /** One channel an alert goes to; {@code skipped} is null for a delivery to make, else why none is made. */
+    public record Outbox(String channel, String skipped) {
+    }
+
     final List<AcceptedQuote> quotes = new ArrayList<>();
     final List<RejectedQuote> rejects = new ArrayList<>();
     final List<SpreadValue> observations = new ArrayList<>();
     final List<Transition> transitions = new ArrayList<>();
     final List<Spell> spells = new ArrayList<>();
     final List<RevisionEntry> revisions = new ArrayList<>();
+    final List<AlertEntry> alerts = new ArrayList<>();
 
     public void quote(AcceptedQuote quote) {
         quotes.add(quote);
@@ -66,8 +86,17 @@ public final class JournalEntries {
         revisions.add(new RevisionEntry(r, List.copyOf(endedSpellsAfter)));
     }
 
+    public void alert(AlertEntry alert) {
+        alerts.add(alert);
+    }
+
+    /** The alerts of this step, in the order they were decided. */
+    public List<AlertEntry> alerts() {
+        return List.copyOf(alerts);
+    }
+
     public boolean isEmpty() {
         return quotes.isEmpty() && rejects.isEmpty() && observations.isEmpty() && transitions.isEmpty()
-                && spells.isEmpty() && revisions.isEmpty();
+                && spells.isEmpty() && revisions.isEmpty() && alerts.isEmpty();
     }
 }

@@ -43,14 +43,15 @@ public final class JournalWriter {
                 revisions(c, e, now);
                 transitions(c, e.transitions, now);
                 spells(c, e.spells, now);
+                AlertStore.insert(c, e.alerts, now);
                 c.commit();
             } catch (SQLException | RuntimeException ex) {
                 c.rollback();
                 throw ex;
             }
         } catch (SQLException ex) {
-            throw new JournalException("cannot write " + e.quotes.size() + " quotes and " + e.transitions.size()
-                    + " transitions to the journal", ex);
+            throw new JournalException("cannot write " + e.quotes.size() + " quotes, " + e.transitions.size()
+                    + " transitions and " + e.alerts.size() + " alerts to the journal", ex);
         }
     }
 
@@ -221,7 +222,7 @@ public final class JournalWriter {
         return transitions.stream().map(Transition::toString).collect(Collectors.joining("\n"));
     }
 
-    private static String truncate(String s, int max) {
+    static String truncate(String s, int max) {
         return s == null || s.length() <= max ? s : s.substring(0, max - 1) + "…";
     }
 }

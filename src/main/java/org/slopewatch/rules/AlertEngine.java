@@ -75,8 +75,35 @@ public final class AlertEngine {
 
     private static AlertDecision decision(AlertRule rule, AlertCondition c, LocalDate since, AlertDecision.Notice notice, int n,
                                           String why) {
-        String id = rule.name() + "/" + c.subject() + "/" + since + "/" + n;
-        return new AlertDecision(id, rule, c.subject(), notice, why, fill(rule.message(), rule, c), c);
+        String id = id(rule.name(), c.subject(), since, n);
+        return new AlertDecision(id, rule, c.subject(), since, n, notice, why, fill(rule.message(), rule, c), c);
+    }
+
+    /**
+     * The deterministic id of a notice: rule, subject, episode start and notice number joined by
+     * {@code ~}, which appears in none of them and, unlike {@code /}, needs no escaping in a URL path.
+     */
+    public static String id(String rule, String subject, LocalDate since, int notice) {
+        return rule + "~" + subject + "~" + since + "~" + notice;
+    }
+
+    /** Puts back an episode read from the journal (after a restart), so that repeats and resolves continue. */
+    public void restore(String rule, String subject, Episode episode) {
+        open.put(rule + "|" + subject, episode);
+    }
+
+    /**
+     * An engine with new rules that keeps the open episodes of rules still present by name, so
+     * that reloading a policy neither repeats a first notice nor forgets a resolve.
+     */
+    public AlertEngine withRules(List<AlertRule> newRules) {
+        AlertEngine next = new AlertEngine(newRules);
+        open.forEach((key, episode) -> {
+            if (next.rules.containsKey(key.substring(0, key.indexOf('|')))) {
+                next.open.put(key, episode);
+            }
+        });
+        return next;
     }
 
     static String fill(String template, AlertRule rule, AlertCondition c) {

@@ -21,7 +21,7 @@ final class AlertSectionParser {
     static final Set<String> CHANNEL_KEYS = ordered("type");
     static final Set<String> PLACEHOLDERS = Set.of("curve", "spread", "state", "value", "reason", "days", "date", "rule", "severity");
 
-    private static final Pattern DURATION = Pattern.compile("(\\d+)\\s*([mhd])");
+    private static final Pattern DURATION = Pattern.compile("(\\d+)\\s*([smhd])");
     private static final Pattern PLACEHOLDER = Pattern.compile("\\{([^{}]*)}");
 
     private AlertSectionParser() {
@@ -191,11 +191,12 @@ final class AlertSectionParser {
         }
         Matcher m = DURATION.matcher(text.strip());
         if (!m.matches()) {
-            node.problem("'repeat-every' must be a duration such as 30m, 4h or 1d (0 for never), got '" + text + "'");
+            node.problem("'repeat-every' must be a duration such as 30s, 30m, 4h or 1d (0 for never), got '" + text + "'");
             return null;
         }
         long n = Long.parseLong(m.group(1));
         return switch (m.group(2)) {
+            case "s" -> Duration.ofSeconds(n);
             case "m" -> Duration.ofMinutes(n);
             case "h" -> Duration.ofHours(n);
             default -> Duration.ofDays(n);

@@ -24,9 +24,9 @@ public class SmtpTestResource implements QuarkusTestResourceLifecycleManager {
     static final String PASSWORD = "smtp-pw-Qz7Kx2Lm9Vw";
     static final String WRONG_PASSWORD = "smtp-pw-WRONG-Hr4Tn8Bc";
     static final String DESK = "desk@slopewatch.test";
-    static final String RISK = "risk@slopewatch.test";
+    public static final String RISK = "risk@slopewatch.test";
 
-    static GreenMail greenMail;
+    public static GreenMail greenMail;
     static ScriptedSmtpServer scripted;
 
     @Override

@@ -24,10 +24,10 @@ import org.awaitility.Awaitility;
  * (a status and a body, or no answer at all), records every request it reads, can be stopped so
  * that connections are refused, and started again on the same port.
  */
-final class TestHttpReceiver implements AutoCloseable {
+public final class TestHttpReceiver implements AutoCloseable {
 
     /** A request as the receiver read it. */
-    record Request(String path, String query, String contentType, String body) {
+    public record Request(String path, String query, String contentType, String body) {
     }
 
     /** One scripted answer; {@code status < 0} means never answer. */
@@ -45,7 +45,7 @@ final class TestHttpReceiver implements AutoCloseable {
     private TestHttpReceiver() {
     }
 
-    static TestHttpReceiver start() {
+    public static TestHttpReceiver start() {
         TestHttpReceiver receiver = new TestHttpReceiver();
         receiver.bind(0);
         return receiver;
@@ -64,7 +64,7 @@ final class TestHttpReceiver implements AutoCloseable {
     }
 
     /** The URL of a path (and query) on this receiver. */
-    String url(String pathAndQuery) {
+    public String url(String pathAndQuery) {
         return "http://127.0.0.1:" + port + pathAndQuery;
     }
 
@@ -73,7 +73,7 @@ final class TestHttpReceiver implements AutoCloseable {
     }
 
     /** The next request gets this answer; with an empty script every request gets 200. */
-    synchronized TestHttpReceiver answer(int status, String body) {
+    public synchronized TestHttpReceiver answer(int status, String body) {
         script.add(new Reply(status, r -> body));
         return this;
     }
@@ -85,7 +85,7 @@ final class TestHttpReceiver implements AutoCloseable {
     }
 
     /** The next request is read and never answered. */
-    synchronized TestHttpReceiver hang() {
+    public synchronized TestHttpReceiver hang() {
         script.add(new Reply(-1, r -> ""));
         return this;
     }
@@ -124,22 +124,22 @@ final class TestHttpReceiver implements AutoCloseable {
     }
 
     /** Every request read, whatever the answer. */
-    List<Request> requests() {
+    public List<Request> requests() {
         return List.copyOf(requests);
     }
 
     /** The requests answered with 2xx: what the chat service actually took. */
-    List<Request> accepted() {
+    public List<Request> accepted() {
         return List.copyOf(accepted);
     }
 
     /** Closes the port: from now on connections are refused. */
-    void stop() {
+    public void stop() {
         server.stop(0);
     }
 
     /** Listens again on the same port. */
-    void restart() {
+    public void restart() {
         int same = port;
         // the port was just released; binding again can take a moment on a busy machine
         Awaitility.await("rebind port " + same).atMost(Duration.ofSeconds(10)).pollInterval(Duration.ofMillis(50))

@@ -33,18 +33,18 @@ class AlertEngineTest {
         assertThat(t0).singleElement().satisfies(d -> {
             assertThat(d.notice()).isEqualTo(AlertDecision.Notice.FIRING);
             assertThat(d.why()).isEqualTo("first notice");
-            assertThat(d.id()).isEqualTo("inversion-confirmed/GOVT-A:10Y-3M/2026-09-21/1");
+            assertThat(d.id()).isEqualTo("inversion-confirmed~GOVT-A:10Y-3M~2026-09-21~1");
             assertThat(d.message()).isEqualTo("GOVT-A 10Y-3M confirmed at -18.4 bp: quarter average -18.4 bp < 0 bp (2026Q3)");
         });
         assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(23)))).as("within the repeat interval").isEmpty();
         assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(24)))).singleElement().satisfies(d -> {
             assertThat(d.notice()).isEqualTo(AlertDecision.Notice.REPEAT);
-            assertThat(d.id()).endsWith("/2");
+            assertThat(d.id()).endsWith("~2");
         });
         assertThat(engine.decide(List.of(confirmed(false)), T0.plus(Duration.ofHours(30)))).singleElement().satisfies(d -> {
             assertThat(d.notice()).isEqualTo(AlertDecision.Notice.RESOLVED);
             assertThat(d.why()).isEqualTo("condition cleared");
-            assertThat(d.id()).isEqualTo("inversion-confirmed/GOVT-A:10Y-3M/2026-09-21/3");
+            assertThat(d.id()).isEqualTo("inversion-confirmed~GOVT-A:10Y-3M~2026-09-21~3");
         });
         assertThat(engine.openEpisodes()).isEmpty();
     }
@@ -54,6 +54,23 @@ class AlertEngineTest {
         List<AlertDecision> a = new AlertEngine(List.of(CONFIRMED)).decide(List.of(confirmed(true)), T0);
         List<AlertDecision> b = new AlertEngine(List.of(CONFIRMED)).decide(List.of(confirmed(true)), T0.plusSeconds(90));
         assertThat(b.get(0).id()).isEqualTo(a.get(0).id());
+    }
+
+    @Test
+    void aRestoredEpisodeContinuesInsteadOfStartingAgain() {
+        AlertEngine engine = new AlertEngine(List.of(CONFIRMED));
+        engine.restore("inversion-confirmed", "GOVT-A:10Y-3M", new AlertEngine.Episode(LocalDate.of(2026, 9, 21), T0, 2));
+        assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(1)))).as("no second first notice").isEmpty();
+        assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(24)))).singleElement()
+                .satisfies(d -> assertThat(d.id()).isEqualTo("inversion-confirmed~GOVT-A:10Y-3M~2026-09-21~3"));
+    }
+
+    @Test
+    void newRulesKeepTheEpisodesOfRulesThatStay() {
+        AlertEngine engine = new AlertEngine(List.of(CONFIRMED));
+        engine.decide(List.of(confirmed(true)), T0);
+        assertThat(engine.withRules(List.of(CONFIRMED)).openEpisodes()).hasSize(1);
+        assertThat(engine.withRules(List.of()).openEpisodes()).as("rule removed: its episode goes").isEmpty();
     }
 
     @Test

@@ -1,0 +1,231 @@
+package org.slopewatch.alerting;
+
+import jakarta.inject.Singleton;
+import java.time.Clock;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.Collection;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import org.jboss.logging.Logger;
+import org.slopewatch.delivery.Alert;
+import org.slopewatch.delivery.AlertChannel;
+import org.slopewatch.delivery.ChannelRegistry;
+import org.slopewatch.ingest.AlertStage;
+import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.JournalEntries;
+import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.rules.AlertCondition;
+import org.slopewatch.rules.AlertConditions;
+import org.slopewatch.rules.AlertDecision;
+import org.slopewatch.rules.AlertEngine;
+import org.slopewatch.rules.AlertRule;
+import org.slopewatch.rules.ChannelDeclaration;
+import org.slopewatch.rules.Policy;
+
+/**
+ * The rule engine in the daemon: decides notices as the pipeline steps and the clock ticks, adds
+ * them with their outbox rows to the step's journal transaction, and keeps acknowledgements and
+ * mutes. Its memory (open episodes, mutes) is rebuilt from the journal on start and after a
+ * failed write, so a restart neither repeats a first notice nor forgets a resolve.
+ *
+ * <p>Synchronised: the pipeline calls it under its own lock, the API for acks and mutes does not.
+ */
+@Singleton
+public class AlertDesk implements AlertStage {
+
+    private static final Logger LOG = Logger.getLogger(AlertDesk.class);
+
+    private final PolicyHolder policies;
+    private final AlertStore store;
+    private final ChannelRegistry channels;
+    private final AlertDispatcher dispatcher;
+    private final AlertMetrics metrics;
+    private final AlertComposer composer;
+    private final Clock clock;
+
+    private AlertEngine engine;
+    private List<AlertStore.Mute> mutes = List.of();
+
+    AlertDesk(PolicyHolder policies, AlertStore store, ChannelRegistry channels, AlertDispatcher dispatcher, AlertMetrics metrics,
+              AlertsConfig config, Clock clock) {
+        this.policies = policies;
+        this.store = store;
+        this.channels = channels;
+        this.dispatcher = dispatcher;
+        this.metrics = metrics;
+        this.composer = new AlertComposer(config.dashboardUrl());
+        this.clock = clock;
+        List<String> problems = checkChannels(policies.policy());
+        if (!problems.isEmpty()) {
+            throw new IllegalStateException("the policy's channels do not match the configuration:" + System.lineSeparator()
+                    + String.join(System.lineSeparator(), problems));
+        }
+        warnUnconfigured(policies.policy());
+        this.engine = new AlertEngine(policies.policy().alerts());
+    }
+
+    /**
+     * What stops a policy from running with this configuration: a channel declared with one type
+     * in the policy and configured with another. A declared channel that is not configured at all
+     * is allowed (its deliveries are recorded as skipped), so that the shipped policy runs on a
+     * machine with no chat or mail server.
+     */
+    List<String> checkChannels(Policy policy) {
+        List<String> problems = new ArrayList<>();
+        for (ChannelDeclaration declared : policy.channels()) {
+            Optional<AlertChannel> configured = channels.channel(declared.name());
+            if (configured.isPresent() && !configured.get().type().equals(declared.type())) {
+                problems.add(policy.source() + ": channel " + declared.name() + " is declared as " + declared.type()
+                        + " but configured as " + configured.get().type() + " (slopewatch.channels." + declared.name() + ".type)");
+            }
+        }
+        return problems;
+    }
+
+    private void warnUnconfigured(Policy policy) {
+        for (ChannelDeclaration declared : policy.channels()) {
+            if (channels.channel(declared.name()).isEmpty()) {
+                LOG.warnf("channel %s (%s) is named in %s but not configured (slopewatch.channels.%s.*): its deliveries will be "
+                        + "recorded as skipped", declared.name(), declared.type(), policy.source(), declared.name());
+            }
+        }
+    }
+
+    /** A new policy: rules change, open episodes of rules kept by name carry over. */
+    synchronized void replaceRules(Policy policy) {
+        warnUnconfigured(policy);
+        engine = engine.withRules(policy.alerts());
+    }
+
+    @Override
+    public synchronized void onStep(Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
+        if (changed.isEmpty()) {
+            return;
+        }
+        decide(AlertConditions.of(policies.policy().alerts(), List.copyOf(changed), Map.of(), Map.of()), changed, sequence, journal);
+    }
+
+    @Override
+    public synchronized void onTick(Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
+        decide(AlertConditions.of(policies.policy().alerts(), List.copyOf(all), staleCurves, Map.of()), all, null, journal);
+    }
+
+    private void decide(List<AlertCondition> conditions, Collection<SpreadStatus> statuses, Long sequence,
+                        JournalEntries journal) {
+        Instant now = clock.instant();
+        List<AlertDecision> decisions = engine.decide(conditions, now);
+        if (decisions.isEmpty()) {
+            return;
+        }
+        Map<String, SpreadStatus> byId = new HashMap<>();
+        statuses.forEach(s -> byId.put(s.id(), s));
+        String hash = policies.current().hash();
+        for (AlertDecision d : decisions) {
+            Alert alert = composer.compose(d, byId.get(d.subject()), now);
+            String mutedBy = mutedBy(d, now);
+            List<JournalEntries.Outbox> outbox = new ArrayList<>();
+            for (String channel : d.rule().channels()) {
+                String skipped = mutedBy != null ? "muted: " + mutedBy
+                        : channels.channel(channel).isEmpty() ? "channel " + channel + " is not configured" : null;
+                outbox.add(new JournalEntries.Outbox(channel, skipped));
+            }
+            journal.alert(new JournalEntries.AlertEntry(alert, d.subject(), d.since(), d.number(), mutedBy, hash, sequence, outbox));
+        }
+    }
+
+    /** The mute that silences a decision, described, or null. A spread mute matches the spread id or its name. */
+    private String mutedBy(AlertDecision d, Instant now) {
+        for (AlertStore.Mute m : mutes) {
+            if (!m.activeAt(now)) {
+                continue;
+            }
+            boolean hit = "rule".equals(m.kind()) ? m.target().equals(d.rule().name())
+                    : m.target().equals(d.subject()) || d.subject().endsWith(":" + m.target());
+            if (hit) {
+                return m.kind() + " " + m.target() + " muted by " + m.by() + " until " + m.until() + " (" + m.reason() + ")";
+            }
+        }
+        return null;
+    }
+
+    @Override
+    public void written(List<JournalEntries.AlertEntry> alerts) {
+        if (alerts.isEmpty()) {
+            return;
+        }
+        for (JournalEntries.AlertEntry e : alerts) {
+            metrics.decided(e.alert(), e.mutedBy() != null);
+            e.outbox().stream().filter(o -> o.skipped() != null).forEach(o -> metrics.finished(o.channel(), "skipped"));
+            LOG.infof("alert id=%s rule=%s severity=%s kind=%s subject=%s: %s", e.alert().id(), e.alert().rule(), e.alert().severity(),
+                    e.alert().kind(), e.alert().subject(), e.mutedBy() == null ? "queued" : "muted (" + e.mutedBy() + ")");
+        }
+        dispatcher.wake();
+    }
+
+    @Override
+    public synchronized void rebuild() {
+        AlertEngine fresh = new AlertEngine(policies.policy().alerts());
+        for (AlertStore.StoredAlert a : store.latestPerEpisode()) {
+            if (a.alert().kind() == Alert.Kind.RESOLVED || a.episodeSince() == null) {
+                continue;
+            }
+            fresh.restore(a.alert().rule(), a.subject(), new AlertEngine.Episode(a.episodeSince(), a.alert().createdAt(), a.notice()));
+            if (store.episodeAcknowledged(a.alert().rule(), a.subject(), a.episodeSince())) {
+                fresh.silence(a.alert().rule(), a.subject());
+            }
+        }
+        engine = fresh;
+        mutes = store.mutes();
+    }
+
+    /**
+     * Acknowledges an alert: its episode sends no more repeats (a resolve notice still comes).
+     *
+     * @return the alert as it stands, or empty when there is no such alert
+     */
+    public synchronized Optional<AlertStore.AlertView> acknowledge(String alertId, String by, String note) {
+        AlertStore.AlertView view = store.find(alertId);
+        if (view == null) {
+            return Optional.empty();
+        }
+        store.ack(alertId, by, note);
+        engine.silence(view.stored().alert().rule(), view.stored().subject());
+        LOG.infof("alert %s acknowledged by %s%s", alertId, by, note == null || note.isBlank() ? "" : ": " + note);
+        return Optional.ofNullable(store.find(alertId));
+    }
+
+    /** Mutes a rule or a spread until a time; journalled with who and why. */
+    public synchronized AlertStore.Mute mute(String kind, String target, Instant until, String reason, String by) {
+        AlertStore.Mute m = store.mute(kind, target, until, reason, by);
+        mutes = store.mutes();
+        LOG.infof("%s %s muted by %s until %s: %s", kind, target, by, until, reason);
+        return m;
+    }
+
+    public synchronized boolean lift(long muteId, String by) {
+        boolean lifted = store.lift(muteId, by);
+        mutes = store.mutes();
+        if (lifted) {
+            LOG.infof("mute %d lifted by %s", muteId, by);
+        }
+        return lifted;
+    }
+
+    public synchronized List<AlertStore.Mute> mutes() {
+        return mutes;
+    }
+
+    /** The episodes whose condition holds now, by {@code rule|subject}. */
+    public synchronized Map<String, AlertEngine.Episode> openEpisodes() {
+        return engine.openEpisodes();
+    }
+
+    /** The rules in force, for validation of mute targets. */
+    public List<AlertRule> rules() {
+        return policies.policy().alerts();
+    }
+}

@@ -1,0 +1,66 @@
+package org.slopewatch.alerting;
+
+import jakarta.inject.Singleton;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.HexFormat;
+import org.slopewatch.ingest.IngestConfig;
+import org.slopewatch.rules.Policy;
+import org.slopewatch.rules.PolicyException;
+import org.slopewatch.rules.PolicyParser;
+
+/**
+ * The policy in force, with the content hash that names it in the journal. Replaced as a whole
+ * by a reload, so a reader sees either the old set or the new one, never a mixture.
+ */
+@Singleton
+public class PolicyHolder {
+
+    /** A parsed policy, its SHA-256 content hash (hex) and the file it came from. */
+    public record Loaded(Policy policy, String hash, String source) {
+    }
+
+    private volatile Loaded current;
+
+    PolicyHolder(IngestConfig config) {
+        String file = config.policy();
+        try {
+            this.current = read(file);
+        } catch (IOException e) {
+            throw new IllegalStateException("cannot read the policy file " + file + " (slopewatch.ingest.policy): " + e, e);
+        } catch (PolicyException e) {
+            throw new IllegalStateException("the policy file is invalid:" + System.lineSeparator() + e.getMessage(), e);
+        }
+    }
+
+    public Loaded current() {
+        return current;
+    }
+
+    public Policy policy() {
+        return current.policy();
+    }
+
+    void replace(Loaded next) {
+        this.current = next;
+    }
+
+    /** Reads and parses a policy file; the hash is of its bytes as read. */
+    public static Loaded read(String file) throws IOException, PolicyException {
+        byte[] bytes = Files.readAllBytes(Path.of(file));
+        Policy policy = PolicyParser.parse(file, new String(bytes, StandardCharsets.UTF_8));
+        return new Loaded(policy, hash(bytes), file);
+    }
+
+    static String hash(byte[] bytes) {
+        try {
+            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("every Java runtime has SHA-256", e);
+        }
+    }
+}

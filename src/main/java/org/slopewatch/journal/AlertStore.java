@@ -1,0 +1,402 @@
+package org.slopewatch.journal;
+
+import java.sql.Connection;
+import java.sql.Date;
+import java.sql.PreparedStatement;
+import java.sql.ResultSet;
+import java.sql.SQLException;
+import java.sql.Timestamp;
+import java.time.Clock;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import javax.sql.DataSource;
+import org.slopewatch.delivery.Alert;
+import org.slopewatch.rules.Severity;
+
+/**
+ * The alert part of the journal: notices, the per-channel outbox, delivery attempts,
+ * acknowledgements, mutes and policy versions. Notices are inserted by {@link JournalWriter} in
+ * the transaction of the step that decided them; the rest is read and written here.
+ */
+public final class AlertStore {
+
+    /** Outbox states. */
+    public enum Status { PENDING, DELIVERED, FAILED, SKIPPED }
+
+    /** One delivery of one alert to one channel as it stands. */
+    public record Delivery(String alertId, String channel, Status status, int attempts, Instant nextAttemptAt,
+                           Instant firstAttemptAt, String lastDetail, Instant updatedAt) {
+    }
+
+    /** A stored notice with what the rule engine needs to pick up its episode after a restart. */
+    public record StoredAlert(Alert alert, String subject, LocalDate episodeSince, int notice, String mutedBy, String policyHash,
+                              Instant recordedAt) {
+    }
+
+    /** A stored notice with its deliveries and acknowledgements, as the API lists it. */
+    public record AlertView(StoredAlert stored, List<Delivery> deliveries, List<Ack> acks) {
+    }
+
+    public record Ack(String alertId, String by, String note, Instant at) {
+    }
+
+    public record Mute(long id, String kind, String target, Instant until, String reason, String by, Instant createdAt,
+                       Instant liftedAt, String liftedBy) {
+
+        public boolean activeAt(Instant now) {
+            return liftedAt == null && until.isAfter(now);
+        }
+    }
+
+    /** A delivery due now, with its alert. */
+    public record Due(Alert alert, Delivery delivery) {
+    }
+
+    private static final String ALERT_COLUMNS = "a.id, a.rule, a.subject, a.episode_since, a.notice, a.kind, a.severity, a.market_date, "
+            + "a.state, a.title, a.body, a.facts, a.dashboard, a.muted_by, a.policy_hash, a.created_at, a.recorded_at";
+    private static final String DELIVERY_COLUMNS = "d.alert_id, d.channel, d.status, d.attempts, d.next_attempt_at, d.first_attempt_at, "
+            + "d.last_detail, d.updated_at";
+
+    private final DataSource dataSource;
+    private final Clock clock;
+
+    public AlertStore(DataSource dataSource, Clock clock) {
+        this.dataSource = dataSource;
+        this.clock = clock;
+    }
+
+    /** Inserts notices not stored yet and their outbox rows; part of the caller's transaction. */
+    static void insert(Connection c, List<JournalEntries.AlertEntry> alerts, Timestamp now) throws SQLException {
+        if (alerts.isEmpty()) {
+            return;
+        }
+        try (PreparedStatement exists = c.prepareStatement("SELECT 1 FROM alert WHERE id = ?");
+             PreparedStatement a = c.prepareStatement("INSERT INTO alert (id, rule, subject, episode_since, notice, kind, severity, "
+                     + "market_date, state, title, body, facts, dashboard, muted_by, policy_hash, seq, created_at, recorded_at) "
+                     + "VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)");
+             PreparedStatement d = c.prepareStatement("INSERT INTO delivery (alert_id, channel, status, attempts, next_attempt_at, "
+                     + "last_detail, updated_at, recorded_at) VALUES (?,?,?,0,?,?,?,?)")) {
+            for (JournalEntries.AlertEntry e : alerts) {
+                Alert alert = e.alert();
+                exists.setString(1, alert.id());
+                try (ResultSet rs = exists.executeQuery()) {
+                    if (rs.next()) {
+                        continue; // decided before (a restart or another instance): never twice
+                    }
+                }
+                a.setString(1, alert.id());
+                a.setString(2, alert.rule());
+                a.setString(3, e.subject());
+                a.setDate(4, e.episodeSince() == null ? null : Date.valueOf(e.episodeSince()));
+                a.setInt(5, e.notice());
+                a.setString(6, alert.kind().name());
+                a.setString(7, alert.severity().name());
+                a.setDate(8, alert.marketDate() == null ? null : Date.valueOf(alert.marketDate()));
+                a.setString(9, alert.state());
+                a.setString(10, JournalWriter.truncate(alert.subject(), 400));
+                a.setString(11, JournalWriter.truncate(alert.text(), 8000));
+                a.setString(12, JournalWriter.truncate(FactsText.write(alert.facts()), 4000));
+                a.setString(13, alert.dashboard());
+                a.setString(14, e.mutedBy());
+                a.setString(15, e.policyHash());
+                if (e.seq() == null) {
+                    a.setNull(16, java.sql.Types.BIGINT);
+                } else {
+                    a.setLong(16, e.seq());
+                }
+                a.setTimestamp(17, Timestamp.from(alert.createdAt()));
+                a.setTimestamp(18, now);
+                a.executeUpdate();
+                for (JournalEntries.Outbox o : e.outbox()) {
+                    d.setString(1, alert.id());
+                    d.setString(2, o.channel());
+                    d.setString(3, (o.skipped() == null ? Status.PENDING : Status.SKIPPED).name());
+                    d.setTimestamp(4, o.skipped() == null ? Timestamp.from(alert.createdAt()) : null);
+                    d.setString(5, JournalWriter.truncate(o.skipped(), 1000));
+                    d.setTimestamp(6, now);
+                    d.setTimestamp(7, now);
+                    d.addBatch();
+                }
+            }
+            d.executeBatch();
+        }
+    }
+
+    /** Deliveries of a channel due at {@code now}, oldest first. */
+    public List<Due> due(String channel, Instant now, int limit) {
+        String sql = "SELECT " + ALERT_COLUMNS + ", " + DELIVERY_COLUMNS + " FROM delivery d JOIN alert a ON a.id = d.alert_id "
+                + "WHERE d.channel = ? AND d.status = 'PENDING' AND d.next_attempt_at <= ? ORDER BY d.next_attempt_at, a.created_at "
+                + "FETCH FIRST " + limit + " ROWS ONLY";
+        List<Due> out = new ArrayList<>();
+        query(sql, s -> {
+            s.setString(1, channel);
+            s.setTimestamp(2, Timestamp.from(now));
+        }, rs -> out.add(new Due(alert(rs).alert(), delivery(rs, 18))));
+        return out;
+    }
+
+    /**
+     * Records one attempt and where the delivery stands after it, in one transaction.
+     *
+     * @param next   when to try again, or null when the delivery is finished
+     * @param status PENDING with {@code next}, or DELIVERED / FAILED
+     */
+    public void attempt(Delivery before, Instant attemptedAt, String outcome, String detail, String decision, Status status,
+                        Instant next) {
+        Timestamp now = Timestamp.from(clock.instant());
+        inTransaction(c -> {
+            try (PreparedStatement s = c.prepareStatement("INSERT INTO delivery_attempt (alert_id, channel, attempt, outcome, detail, "
+                    + "decision, attempted_at, recorded_at) VALUES (?,?,?,?,?,?,?,?)")) {
+                s.setString(1, before.alertId());
+                s.setString(2, before.channel());
+                s.setInt(3, before.attempts() + 1);
+                s.setString(4, outcome);
+                s.setString(5, JournalWriter.truncate(detail, 1000));
+                s.setString(6, JournalWriter.truncate(decision, 1000));
+                s.setTimestamp(7, Timestamp.from(attemptedAt));
+                s.setTimestamp(8, now);
+                s.executeUpdate();
+            }
+            try (PreparedStatement s = c.prepareStatement("UPDATE delivery SET status = ?, attempts = attempts + 1, next_attempt_at = ?, "
+                    + "first_attempt_at = COALESCE(first_attempt_at, ?), last_detail = ?, updated_at = ? WHERE alert_id = ? AND channel = ?")) {
+                s.setString(1, status.name());
+                s.setTimestamp(2, next == null ? null : Timestamp.from(next));
+                s.setTimestamp(3, Timestamp.from(attemptedAt));
+                s.setString(4, JournalWriter.truncate(decision, 1000));
+                s.setTimestamp(5, now);
+                s.setString(6, before.alertId());
+                s.setString(7, before.channel());
+                s.executeUpdate();
+            }
+        });
+    }
+
+    /** Pending deliveries, all channels: the outbox backlog. */
+    public long backlog() {
+        long[] n = {0};
+        query("SELECT COUNT(*) FROM delivery WHERE status = 'PENDING'", s -> { }, rs -> n[0] = rs.getLong(1));
+        return n[0];
+    }
+
+    /** The newest alerts with their deliveries and acknowledgements, newest first. */
+    public List<AlertView> recent(int limit) {
+        Map<String, StoredAlert> alerts = new LinkedHashMap<>();
+        query("SELECT " + ALERT_COLUMNS + " FROM alert a ORDER BY a.created_at DESC, a.id DESC FETCH FIRST " + limit + " ROWS ONLY",
+                s -> { }, rs -> {
+                    StoredAlert a = alert(rs);
+                    alerts.put(a.alert().id(), a);
+                });
+        return views(alerts);
+    }
+
+    /** One alert with its deliveries and acknowledgements, or null. */
+    public AlertView find(String id) {
+        Map<String, StoredAlert> alerts = new LinkedHashMap<>();
+        query("SELECT " + ALERT_COLUMNS + " FROM alert a WHERE a.id = ?", s -> s.setString(1, id), rs -> {
+            StoredAlert a = alert(rs);
+            alerts.put(a.alert().id(), a);
+        });
+        List<AlertView> views = views(alerts);
+        return views.isEmpty() ? null : views.get(0);
+    }
+
+    private List<AlertView> views(Map<String, StoredAlert> alerts) {
+        if (alerts.isEmpty()) {
+            return List.of();
+        }
+        Map<String, List<Delivery>> deliveries = new LinkedHashMap<>();
+        Map<String, List<Ack>> acks = new LinkedHashMap<>();
+        String in = String.join(",", java.util.Collections.nCopies(alerts.size(), "?"));
+        List<String> ids = List.copyOf(alerts.keySet());
+        query("SELECT " + DELIVERY_COLUMNS + " FROM delivery d WHERE d.alert_id IN (" + in + ") ORDER BY d.channel", s -> bind(s, ids),
+                rs -> deliveries.computeIfAbsent(rs.getString(1), k -> new ArrayList<>()).add(delivery(rs, 1)));
+        query("SELECT alert_id, acked_by, note, recorded_at FROM alert_ack WHERE alert_id IN (" + in + ") ORDER BY id", s -> bind(s, ids),
+                rs -> acks.computeIfAbsent(rs.getString(1), k -> new ArrayList<>()).add(ack(rs)));
+        List<AlertView> out = new ArrayList<>();
+        alerts.forEach((id, a) -> out.add(new AlertView(a, deliveries.getOrDefault(id, List.of()), acks.getOrDefault(id, List.of()))));
+        return out;
+    }
+
+    /** The latest notice of every rule and subject: where each episode stands. */
+    public List<StoredAlert> latestPerEpisode() {
+        Map<String, StoredAlert> latest = new LinkedHashMap<>();
+        query("SELECT " + ALERT_COLUMNS + " FROM alert a ORDER BY a.created_at, a.notice", s -> { }, rs -> {
+            StoredAlert a = alert(rs);
+            latest.put(a.alert().rule() + "|" + a.subject(), a);
+        });
+        return List.copyOf(latest.values());
+    }
+
+    /** Acknowledgements of the alerts of one episode (same rule, subject and start). */
+    public boolean episodeAcknowledged(String rule, String subject, LocalDate since) {
+        boolean[] found = {false};
+        query("SELECT 1 FROM alert_ack k JOIN alert a ON a.id = k.alert_id WHERE a.rule = ? AND a.subject = ? AND a.episode_since = ?",
+                s -> {
+                    s.setString(1, rule);
+                    s.setString(2, subject);
+                    s.setDate(3, Date.valueOf(since));
+                }, rs -> found[0] = true);
+        return found[0];
+    }
+
+    public void ack(String alertId, String by, String note) {
+        Timestamp now = Timestamp.from(clock.instant());
+        inTransaction(c -> {
+            try (PreparedStatement s = c.prepareStatement("INSERT INTO alert_ack (alert_id, acked_by, note, recorded_at) VALUES (?,?,?,?)")) {
+                s.setString(1, alertId);
+                s.setString(2, JournalWriter.truncate(by, 100));
+                s.setString(3, JournalWriter.truncate(note, 400));
+                s.setTimestamp(4, now);
+                s.executeUpdate();
+            }
+        });
+    }
+
+    /** Stores a mute and returns it with its id. */
+    public Mute mute(String kind, String target, Instant until, String reason, String by) {
+        Instant now = clock.instant();
+        long[] id = {0};
+        inTransaction(c -> {
+            try (PreparedStatement s = c.prepareStatement("INSERT INTO mute (target_kind, target, until_at, reason, muted_by, recorded_at) "
+                    + "VALUES (?,?,?,?,?,?)", new String[] {"id"})) {
+                s.setString(1, kind);
+                s.setString(2, target);
+                s.setTimestamp(3, Timestamp.from(until));
+                s.setString(4, JournalWriter.truncate(reason, 400));
+                s.setString(5, JournalWriter.truncate(by, 100));
+                s.setTimestamp(6, Timestamp.from(now));
+                s.executeUpdate();
+                try (ResultSet keys = s.getGeneratedKeys()) {
+                    keys.next();
+                    id[0] = keys.getLong(1);
+                }
+            }
+        });
+        return new Mute(id[0], kind, target, until, reason, by, now, null, null);
+    }
+
+    /** Ends a mute early; false when there is no such mute or it was lifted already. */
+    public boolean lift(long id, String by) {
+        Timestamp now = Timestamp.from(clock.instant());
+        int[] n = {0};
+        inTransaction(c -> {
+            try (PreparedStatement s = c.prepareStatement("UPDATE mute SET lifted_at = ?, lifted_by = ? WHERE id = ? AND lifted_at IS NULL")) {
+                s.setTimestamp(1, now);
+                s.setString(2, JournalWriter.truncate(by, 100));
+                s.setLong(3, id);
+                n[0] = s.executeUpdate();
+            }
+        });
+        return n[0] == 1;
+    }
+
+    /** All mutes, newest first. */
+    public List<Mute> mutes() {
+        List<Mute> out = new ArrayList<>();
+        query("SELECT id, target_kind, target, until_at, reason, muted_by, recorded_at, lifted_at, lifted_by FROM mute ORDER BY id DESC",
+                s -> { }, rs -> out.add(new Mute(rs.getLong(1), rs.getString(2), rs.getString(3), instant(rs, 4), rs.getString(5),
+                        rs.getString(6), instant(rs, 7), instant(rs, 8), rs.getString(9))));
+        return out;
+    }
+
+    /** Journals a policy load: its content hash, where it came from, applied or rejected and why. */
+    public void policyVersion(String hash, String source, String outcome, String detail) {
+        Timestamp now = Timestamp.from(clock.instant());
+        inTransaction(c -> {
+            try (PreparedStatement s = c.prepareStatement("INSERT INTO policy_version (content_hash, source, outcome, detail, recorded_at) "
+                    + "VALUES (?,?,?,?,?)")) {
+                s.setString(1, hash);
+                s.setString(2, JournalWriter.truncate(source, 400));
+                s.setString(3, outcome);
+                s.setString(4, JournalWriter.truncate(detail, 4000));
+                s.setTimestamp(5, now);
+                s.executeUpdate();
+            }
+        });
+    }
+
+    /** The hash of the policy applied last, or null. */
+    public String currentPolicyHash() {
+        String[] hash = {null};
+        query("SELECT content_hash FROM policy_version WHERE outcome = 'applied' ORDER BY id DESC FETCH FIRST 1 ROWS ONLY", s -> { },
+                rs -> hash[0] = rs.getString(1));
+        return hash[0];
+    }
+
+    private static StoredAlert alert(ResultSet rs) throws SQLException {
+        Date since = rs.getDate(4);
+        Date market = rs.getDate(8);
+        Alert alert = new Alert(rs.getString(1), rs.getString(2), Severity.valueOf(rs.getString(7)), Alert.Kind.valueOf(rs.getString(6)),
+                rs.getString(3), market == null ? null : market.toLocalDate(), rs.getString(9), rs.getString(10), rs.getString(11),
+                FactsText.read(rs.getString(12)), rs.getString(13), instant(rs, 16));
+        return new StoredAlert(alert, rs.getString(3), since == null ? null : since.toLocalDate(), rs.getInt(5), rs.getString(14),
+                rs.getString(15), instant(rs, 17));
+    }
+
+    private static Delivery delivery(ResultSet rs, int first) throws SQLException {
+        return new Delivery(rs.getString(first), rs.getString(first + 1), Status.valueOf(rs.getString(first + 2)), rs.getInt(first + 3),
+                instant(rs, first + 4), instant(rs, first + 5), rs.getString(first + 6), instant(rs, first + 7));
+    }
+
+    private static Ack ack(ResultSet rs) throws SQLException {
+        return new Ack(rs.getString(1), rs.getString(2), rs.getString(3), instant(rs, 4));
+    }
+
+    private static Instant instant(ResultSet rs, int column) throws SQLException {
+        Timestamp t = rs.getTimestamp(column);
+        return t == null ? null : t.toInstant();
+    }
+
+    private static void bind(PreparedStatement s, List<String> values) throws SQLException {
+        for (int i = 0; i < values.size(); i++) {
+            s.setString(i + 1, values.get(i));
+        }
+    }
+
+    @FunctionalInterface
+    private interface Binder {
+        void bind(PreparedStatement s) throws SQLException;
+    }
+
+    @FunctionalInterface
+    private interface RowHandler {
+        void row(ResultSet rs) throws SQLException;
+    }
+
+    @FunctionalInterface
+    private interface Work {
+        void run(Connection c) throws SQLException;
+    }
+
+    private void query(String sql, Binder binder, RowHandler handler) {
+        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
+            binder.bind(s);
+            try (ResultSet rs = s.executeQuery()) {
+                while (rs.next()) {
+                    handler.row(rs);
+                }
+            }
+        } catch (SQLException e) {
+            throw new JournalException("cannot read alerts from the journal", e);
+        }
+    }
+
+    private void inTransaction(Work work) {
+        try (Connection c = dataSource.getConnection()) {
+            c.setAutoCommit(false);
+            try {
+                work.run(c);
+                c.commit();
+            } catch (SQLException | RuntimeException e) {
+                c.rollback();
+                throw e;
+            }
+        } catch (SQLException e) {
+            throw new JournalException("cannot write alert records to the journal", e);
+        }
+    }
+}

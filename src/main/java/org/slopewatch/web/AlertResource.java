@@ -1,0 +1,184 @@
+package org.slopewatch.web;
+
+import jakarta.ws.rs.Consumes;
+import jakarta.ws.rs.DELETE;
+import jakarta.ws.rs.DefaultValue;
+import jakarta.ws.rs.GET;
+import jakarta.ws.rs.POST;
+import jakarta.ws.rs.Path;
+import jakarta.ws.rs.PathParam;
+import jakarta.ws.rs.Produces;
+import jakarta.ws.rs.QueryParam;
+import jakarta.ws.rs.core.MediaType;
+import jakarta.ws.rs.core.Response;
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.time.format.DateTimeParseException;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.slopewatch.alerting.AlertDesk;
+import org.slopewatch.alerting.PolicyReloader;
+import org.slopewatch.delivery.Alert;
+import org.slopewatch.journal.AlertStore;
+import org.slopewatch.rules.AlertEngine;
+
+/** Alerts for people: the list with deliveries, acknowledgements, mutes, and a policy reload on demand. */
+@Path("/api")
+@Produces(MediaType.APPLICATION_JSON)
+public class AlertResource {
+
+    private static final int MAX_ALERTS = 1000;
+    private static final Duration LONGEST_MUTE = Duration.ofDays(90);
+
+    private final AlertDesk desk;
+    private final AlertStore store;
+    private final PolicyReloader reloader;
+    private final Clock clock;
+
+    AlertResource(AlertDesk desk, AlertStore store, PolicyReloader reloader, Clock clock) {
+        this.desk = desk;
+        this.store = store;
+        this.reloader = reloader;
+        this.clock = clock;
+    }
+
+    /** One open episode: a rule whose condition holds for a subject. */
+    public record EpisodeView(String rule, String subject, String since, int notices, boolean acknowledged) {
+    }
+
+    public record AlertsView(List<EpisodeView> open, List<AlertView> recent, String caution) {
+    }
+
+    public record DeliveryView(String channel, String status, int attempts, Instant nextAttemptAt, String lastDetail, Instant updatedAt) {
+    }
+
+    public record AckView(String by, String note, Instant at) {
+    }
+
+    public record AlertView(String id, String rule, String severity, String kind, String subject, String marketDate, String state,
+                            String title, String text, List<Alert.Fact> facts, String dashboard, String mutedBy, String policyHash,
+                            Instant createdAt, List<DeliveryView> deliveries, List<AckView> acks) {
+
+        static AlertView of(AlertStore.AlertView v) {
+            Alert a = v.stored().alert();
+            return new AlertView(a.id(), a.rule(), a.severity().name(), a.kind().name(), v.stored().subject(),
+                    a.marketDate() == null ? null : a.marketDate().toString(), a.state(), a.subject(), a.text(), a.facts(), a.dashboard(),
+                    v.stored().mutedBy(), v.stored().policyHash(), a.createdAt(),
+                    v.deliveries().stream().map(d -> new DeliveryView(d.channel(), d.status().name(), d.attempts(), d.nextAttemptAt(),
+                            d.lastDetail(), d.updatedAt())).toList(),
+                    v.acks().stream().map(k -> new AckView(k.by(), k.note(), k.at())).toList());
+        }
+    }
+
+    public record AckRequest(String by, String note) {
+    }
+
+    /** Mute a rule or a spread (id such as GOVT-A:10Y-3M, or a spread name for every curve) for a while. */
+    public record MuteRequest(String rule, String spread, String duration, String until, String reason, String by) {
+    }
+
+    @GET
+    @Path("/alerts")
+    @Operation(summary = "Open alert episodes and the most recent notices with their deliveries and acknowledgements")
+    public AlertsView alerts(@QueryParam("limit") @DefaultValue("100") int limit) {
+        List<EpisodeView> open = new ArrayList<>();
+        for (Map.Entry<String, AlertEngine.Episode> e : desk.openEpisodes().entrySet()) {
+            String[] key = e.getKey().split("\\|", 2);
+            open.add(new EpisodeView(key[0], key[1], String.valueOf(e.getValue().since()), e.getValue().notices(),
+                    Instant.MAX.equals(e.getValue().lastNotice())));
+        }
+        open.sort(java.util.Comparator.comparing(EpisodeView::rule).thenComparing(EpisodeView::subject));
+        List<AlertView> recent = store.recent(Math.max(1, Math.min(limit, MAX_ALERTS))).stream().map(AlertView::of).toList();
+        return new AlertsView(open, recent, Alert.CAUTION);
+    }
+
+    @GET
+    @Path("/alerts/{id}")
+    @Operation(summary = "One alert with its deliveries and acknowledgements")
+    public Response alert(@PathParam("id") String id) {
+        AlertStore.AlertView v = store.find(id);
+        return v == null ? error(Response.Status.NOT_FOUND, "no alert " + id) : Response.ok(AlertView.of(v)).build();
+    }
+
+    @POST
+    @Path("/alerts/{id}/ack")
+    @Consumes(MediaType.APPLICATION_JSON)
+    @Operation(summary = "Acknowledge an alert: its episode sends no more repeats; journalled with who and when")
+    public Response acknowledge(@PathParam("id") String id, AckRequest request) {
+        if (request == null || blank(request.by())) {
+            return error(Response.Status.BAD_REQUEST, "say who acknowledges: {\"by\": \"name\", \"note\": \"optional\"}");
+        }
+        return desk.acknowledge(id, request.by().strip(), request.note())
+                .map(v -> Response.ok(AlertView.of(v)).build())
+                .orElseGet(() -> error(Response.Status.NOT_FOUND, "no alert " + id));
+    }
+
+    @GET
+    @Path("/mutes")
+    @Operation(summary = "Mutes, newest first, with whether each is active")
+    public List<Map<String, Object>> mutes() {
+        Instant now = clock.instant();
+        return desk.mutes().stream().map(m -> Map.<String, Object>of("id", m.id(), "kind", m.kind(), "target", m.target(),
+                "until", m.until(), "reason", m.reason(), "by", m.by(), "created_at", m.createdAt(), "active", m.activeAt(now))).toList();
+    }
+
+    @POST
+    @Path("/mutes")
+    @Consumes(MediaType.APPLICATION_JSON)
+    @Operation(summary = "Mute a rule or a spread for a period (ISO-8601 duration such as PT4H, or an until time) with a reason")
+    public Response mute(MuteRequest r) {
+        if (r == null || blank(r.by()) || blank(r.reason())) {
+            return error(Response.Status.BAD_REQUEST, "a mute needs by and reason, and one of rule or spread");
+        }
+        if (blank(r.rule()) == blank(r.spread())) {
+            return error(Response.Status.BAD_REQUEST, "name exactly one of rule or spread");
+        }
+        if (!blank(r.rule()) && desk.rules().stream().noneMatch(rule -> rule.name().equals(r.rule()))) {
+            return error(Response.Status.BAD_REQUEST, "no alert rule " + r.rule() + " in the policy in force");
+        }
+        Instant now = clock.instant();
+        Instant until;
+        try {
+            until = !blank(r.until()) ? Instant.parse(r.until()) : !blank(r.duration()) ? now.plus(Duration.parse(r.duration())) : null;
+        } catch (DateTimeParseException e) {
+            return error(Response.Status.BAD_REQUEST, "duration must be ISO-8601 (e.g. PT4H) and until an instant (e.g. 2026-07-01T08:00:00Z)");
+        }
+        if (until == null || !until.isAfter(now) || until.isAfter(now.plus(LONGEST_MUTE))) {
+            return error(Response.Status.BAD_REQUEST, "a mute must end in the future and within " + LONGEST_MUTE.toDays() + " days");
+        }
+        String kind = blank(r.rule()) ? "spread" : "rule";
+        AlertStore.Mute m = desk.mute(kind, blank(r.rule()) ? r.spread().strip() : r.rule().strip(), until, r.reason().strip(), r.by().strip());
+        return Response.status(Response.Status.CREATED).entity(Map.of("id", m.id(), "kind", m.kind(), "target", m.target(),
+                "until", m.until(), "reason", m.reason(), "by", m.by())).build();
+    }
+
+    @DELETE
+    @Path("/mutes/{id}")
+    @Operation(summary = "Lift a mute early")
+    public Response lift(@PathParam("id") long id, @QueryParam("by") String by) {
+        if (blank(by)) {
+            return error(Response.Status.BAD_REQUEST, "say who lifts the mute: ?by=name");
+        }
+        return desk.lift(id, by.strip()) ? Response.noContent().build()
+                : error(Response.Status.NOT_FOUND, "no active mute " + id);
+    }
+
+    @POST
+    @Path("/policy/reload")
+    @Operation(summary = "Check the policy file now and apply it if it changed and is valid")
+    public Response reload() {
+        PolicyReloader.Outcome o = reloader.check();
+        return Response.status("rejected".equals(o.result()) ? 422 : 200).entity(o).build();
+    }
+
+    private static boolean blank(String s) {
+        return s == null || s.isBlank();
+    }
+
+    private static Response error(Response.Status status, String message) {
+        return Response.status(status).type(MediaType.APPLICATION_JSON).entity(Map.of("error", message)).build();
+    }
+}
