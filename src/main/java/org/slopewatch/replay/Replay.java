@@ -110,7 +110,7 @@ public final class Replay {
      * Each confirmation with the re-steepening of the same spell (the transition into RESTEEPENING
      * carries the spell's id), or none while the spell was still open at the end of the data.
      */
-    static List<Confirmation> confirmations(List<Transition> transitions) {
+    private static List<Confirmation> confirmations(List<Transition> transitions) {
         Map<Long, LocalDate> resteepened = new HashMap<>();
         for (Transition t : transitions) {
             if (t.to() == SpreadState.RESTEEPENING) {

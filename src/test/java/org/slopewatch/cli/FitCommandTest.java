@@ -176,6 +176,33 @@ class FitCommandTest {
     }
 
     @Test
+    void aLongFileWithSeveralCurvesNeedsTheCurveNamed() throws IOException {
+        // the reference yields in the long layout under the name H15, beside a second curve holding only 1Y
+        List<String> lines = Files.readAllLines(history);
+        List<String> header = List.of(lines.get(0).split(","));
+        List<String> out = new ArrayList<>(List.of("date,curve,tenor,yield"));
+        for (String line : lines.subList(1, lines.size())) {
+            String[] f = line.split(",");
+            for (int i = 1; i < f.length; i++) {
+                out.add(f[0] + ",H15," + header.get(i) + "," + f[i]);
+            }
+            out.add(f[0] + ",OTHER,1Y," + f[1]);
+        }
+        Path file = dir.resolve("long.csv");
+        Files.write(file, out);
+        CliRun ambiguous = fit(file);
+        assertThat(ambiguous.exitCode()).isEqualTo(2);
+        assertThat(ambiguous.err()).contains("the file holds several curves (H15, OTHER); name the one to fit");
+        CliRun named = fit(file, "--curve", "H15");
+        assertThat(named.exitCode()).as(named.err()).isZero();
+        fourDigits(row(named.out(), "alpha")[0], "alpha");
+        fourDigits(row(named.out(), "beta")[2], "se_beta_newey_west");
+        CliRun unknown = fit(file, "--curve", "GOVT-Z");
+        assertThat(unknown.exitCode()).isEqualTo(2);
+        assertThat(unknown.err()).contains("no curve 'GOVT-Z' in the file (curves: H15, OTHER)");
+    }
+
+    @Test
     void aMissingFileExits1() {
         CliRun run = fit(dir.resolve("nope.csv"));
         assertThat(run.exitCode()).isEqualTo(1);
