@@ -37,6 +37,22 @@ class ArchitectureTest {
     }
 
     @Test
+    void theOfflineAnalysisIsPlainJavaToo() {
+        // replay and fit read files through ingest's CSV reader, so replay sits outside ENGINE's layering
+        // rule, but like the engine it must run without a container and without reading the clock
+        noClasses().that().resideInAPackage("org.slopewatch.replay..")
+                .should().dependOnClassesThat().resideInAnyPackage("io.quarkus..", "jakarta..", "javax.inject..", "io.smallrye..",
+                        "io.vertx..", "java.sql..", "javax.sql..", "org.eclipse.microprofile..", "org.slopewatch.cli..",
+                        "org.slopewatch.journal..", "org.slopewatch.delivery..", "org.slopewatch.web..", "org.slopewatch.ops..")
+                .check(classes);
+        noClasses().that().resideInAPackage("org.slopewatch.replay..")
+                .should().callMethod(java.time.LocalDate.class, "now")
+                .orShould().callMethod(java.time.Instant.class, "now")
+                .orShould().callMethod(System.class, "currentTimeMillis")
+                .check(classes);
+    }
+
+    @Test
     void layersDependOnlyDownwards() {
         noClasses().that().resideInAPackage("org.slopewatch.curve..")
                 .should().dependOnClassesThat().resideInAnyPackage("org.slopewatch.spread..", "org.slopewatch.monitor..",

@@ -47,8 +47,8 @@ final class CheckRulesCommand implements Callable<Integer> {
         for (Path f : files) {
             try {
                 Policy p = PolicyParser.parse(f.toString(), Files.readString(f));
-                out.printf("%s: ok: %d spread(s) watched, %d channel(s), %d alert rule(s)%n", f, p.watches().size(), p.channels().size(),
-                        p.alerts().size());
+                out.printf("%s: ok: %d spread(s) watched, %d channel(s), %d alert rule(s), %d probability model(s)%n", f,
+                        p.watches().size(), p.channels().size(), p.alerts().size(), p.probability().size());
             } catch (PolicyException e) {
                 err.println(e.getMessage());
                 code = Math.max(code, 2);

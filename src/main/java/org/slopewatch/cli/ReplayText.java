@@ -14,6 +14,10 @@ import org.slopewatch.replay.SpreadReport;
 /** The replay report as text for people: a summary per spread, confirmed spells, lead times. */
 final class ReplayText {
 
+    private static final String LATE = "late: recession already under way";
+    /** The outcome column is padded so that the re-steepening columns line up after the longest outcome. */
+    private static final int OUTCOME_WIDTH = LATE.length();
+
     private final PrintWriter out;
     private final boolean listTransitions;
 
@@ -74,11 +78,14 @@ final class ReplayText {
     private void leads(SpreadReport s, Integer window) {
         out.println();
         out.printf(Locale.ROOT, "  lead to the next business-cycle peak (false alarm: no peak within %d months)%n", window);
-        out.printf(Locale.ROOT, "    %-10s  %-7s  %6s  %s%n", "confirmed", "peak", "months", "outcome");
+        out.println("  months: from the confirmation, and from the re-steepening, to that peak (negative: after it)");
+        out.printf(Locale.ROOT, "    %-10s  %-7s  %6s  %-" + OUTCOME_WIDTH + "s  %-12s  %6s%n", "confirmed", "peak", "months", "outcome",
+                "re-steepened", "months");
         for (LeadTime l : s.leads()) {
-            String outcome = l.late() ? "late: recession already under way" : l.outcome();
-            out.printf(Locale.ROOT, "    %-10s  %-7s  %6s  %s%n", l.confirmed(), l.peak() == null ? "-" : l.peak().toString(),
-                    l.months() == null ? "-" : l.months().toString(), outcome);
+            String outcome = l.late() ? LATE : l.outcome();
+            out.printf(Locale.ROOT, "    %-10s  %-7s  %6s  %-" + OUTCOME_WIDTH + "s  %-12s  %6s%n", l.confirmed(),
+                    l.peak() == null ? "-" : l.peak().toString(), orDash(l.months()), outcome,
+                    l.resteepened() == null ? "not yet" : l.resteepened().toString(), orDash(l.monthsFromResteepening()));
         }
         long hits = s.leads().stream().filter(l -> l.outcome().equals("hit")).count();
         long late = s.leads().stream().filter(LeadTime::late).count();
@@ -87,6 +94,10 @@ final class ReplayText {
         if (!s.unassessedPeaks().isEmpty()) {
             out.printf(Locale.ROOT, "    not assessed (data starts less than %d months before): %s%n", window, months(s.unassessedPeaks()));
         }
+    }
+
+    private static String orDash(Integer months) {
+        return months == null ? "-" : months.toString();
     }
 
     private static String months(List<YearMonth> months) {

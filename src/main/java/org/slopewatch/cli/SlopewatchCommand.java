@@ -8,7 +8,7 @@ import picocli.CommandLine.Command;
         version = "slopewatch 0.1.0",
         description = "Watches government yield-curve spreads for persistent inversions.%n"
                 + "A statistical signal, not investment advice.",
-        subcommands = {DemoCommand.class, ServeCommand.class, ReplayCommand.class, CheckRulesCommand.class})
+        subcommands = {DemoCommand.class, ServeCommand.class, ReplayCommand.class, FitCommand.class, CheckRulesCommand.class})
 final class SlopewatchCommand implements Runnable {
 
     @picocli.CommandLine.Spec

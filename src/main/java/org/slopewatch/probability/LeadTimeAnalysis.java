@@ -14,6 +14,11 @@ import java.util.Set;
  * peak, false alarms (no peak within the window), late signals (confirmed after a peak, by its
  * trough) and missed recessions (a peak with no confirmation in the window before it).
  *
+ * <p>For each confirmed spell that has re-steepened it also gives the months from the
+ * re-steepening to the same peak. That peak is the one the confirmation is measured against, not
+ * the first peak after the re-steepening: a spread that re-steepens during the recession would
+ * otherwise be credited with the next cycle's peak, years away.
+ *
  * <p>Months are counted between calendar months, so a confirmation on 1959-10-01 leads a
  * 1960-04 peak by 6 months.
  */
@@ -38,15 +43,15 @@ public final class LeadTimeAnalysis {
     }
 
     /**
-     * @param confirmations confirmation dates in any order
+     * @param confirmations confirmed spells in any order
      * @param dataStart     the first date of the data the confirmations came from
      * @param dataEnd       the last date of that data
      */
-    public LeadTimeReport analyse(List<LocalDate> confirmations, LocalDate dataStart, LocalDate dataEnd) {
+    public LeadTimeReport analyse(List<Confirmation> confirmations, LocalDate dataStart, LocalDate dataEnd) {
         List<LeadTime> leads = new ArrayList<>();
         Set<YearMonth> signalled = new HashSet<>();
-        for (LocalDate confirmed : confirmations.stream().sorted().toList()) {
-            LeadTime lead = lead(confirmed, YearMonth.from(dataEnd));
+        for (Confirmation c : confirmations.stream().sorted(Comparator.comparing(Confirmation::confirmed)).toList()) {
+            LeadTime lead = lead(c, YearMonth.from(dataEnd));
             leads.add(lead);
             if (lead.peak() != null) {
                 signalled.add(lead.peak());
@@ -74,19 +79,20 @@ public final class LeadTimeAnalysis {
         return a.isAfter(b) ? a : b;
     }
 
-    private LeadTime lead(LocalDate confirmed, YearMonth lastMonth) {
+    private LeadTime lead(Confirmation c, YearMonth lastMonth) {
+        LocalDate confirmed = c.confirmed();
         YearMonth month = YearMonth.from(confirmed);
         for (Recession r : recessions) {
             if (r.contains(month)) {
                 int months = (int) ChronoUnit.MONTHS.between(r.peak(), month);
-                return new LeadTime(confirmed, r.peak(), -months, false, true, false);
+                return new LeadTime(confirmed, c.resteepened(), r.peak(), -months, fromResteepening(c, r.peak()), false, true, false);
             }
         }
         for (Recession r : recessions) {
             if (!r.peak().isBefore(month)) {
                 int months = (int) ChronoUnit.MONTHS.between(month, r.peak());
                 if (months <= windowMonths) {
-                    return new LeadTime(confirmed, r.peak(), months, false, false, false);
+                    return new LeadTime(confirmed, c.resteepened(), r.peak(), months, fromResteepening(c, r.peak()), false, false, false);
                 }
                 break;
             }
@@ -95,6 +101,10 @@ public final class LeadTimeAnalysis {
         YearMonth knownUntil = recessions.isEmpty() ? lastMonth
                 : max(lastMonth, recessions.get(recessions.size() - 1).trough());
         boolean pending = month.plusMonths(windowMonths).isAfter(knownUntil);
-        return new LeadTime(confirmed, null, null, !pending, false, pending);
+        return new LeadTime(confirmed, c.resteepened(), null, null, null, !pending, false, pending);
+    }
+
+    private static Integer fromResteepening(Confirmation c, YearMonth peak) {
+        return c.resteepened() == null ? null : (int) ChronoUnit.MONTHS.between(YearMonth.from(c.resteepened()), peak);
     }
 }

@@ -18,6 +18,7 @@ import org.slopewatch.monitor.SpreadState;
 import org.slopewatch.monitor.SpreadTrack;
 import org.slopewatch.monitor.Transition;
 import org.slopewatch.monitor.Watch;
+import org.slopewatch.probability.Confirmation;
 import org.slopewatch.probability.LeadTimeAnalysis;
 import org.slopewatch.probability.LeadTimeReport;
 import org.slopewatch.spread.SpreadKey;
@@ -90,9 +91,7 @@ public final class Replay {
         }
         LeadTimeReport leads = null;
         if (leadTimes != null) {
-            List<LocalDate> confirmations = log.transitions.stream()
-                    .filter(t -> t.to() == SpreadState.CONFIRMED).map(Transition::date).toList();
-            leads = leadTimes.analyse(confirmations, track.date(0), track.date(track.size() - 1));
+            leads = leadTimes.analyse(confirmations(log.transitions), track.date(0), track.date(track.size() - 1));
         }
         return new SpreadReport(key.id(), key.curve(), key.spread(), track.rules().describe(), track.size(),
                 track.state().state().name(), track.state().lastDate(), track.state().lastValueBp(),
@@ -105,6 +104,26 @@ public final class Replay {
                 leads == null ? null : leads.leads(),
                 leads == null ? null : leads.missedPeaks(),
                 leads == null ? null : leads.unassessedPeaks());
+    }
+
+    /**
+     * Each confirmation with the re-steepening of the same spell (the transition into RESTEEPENING
+     * carries the spell's id), or none while the spell was still open at the end of the data.
+     */
+    private static List<Confirmation> confirmations(List<Transition> transitions) {
+        Map<Long, LocalDate> resteepened = new HashMap<>();
+        for (Transition t : transitions) {
+            if (t.to() == SpreadState.RESTEEPENING) {
+                resteepened.put(t.spellId(), t.date());
+            }
+        }
+        List<Confirmation> out = new ArrayList<>();
+        for (Transition t : transitions) {
+            if (t.to() == SpreadState.CONFIRMED) {
+                out.add(new Confirmation(t.date(), resteepened.get(t.spellId())));
+            }
+        }
+        return out;
     }
 
     private static SpreadReport.TransitionRow row(Transition t) {

@@ -55,14 +55,18 @@ final class AlertSectionParser {
         return out;
     }
 
-    static List<AlertRule> alerts(YamlNode node, Set<String> spreadNames, Set<String> channelNames) {
+    /**
+     * @param modelled spreads with a probability model: the only ones a {@code probability-above}
+     *                 rule may apply to
+     */
+    static List<AlertRule> alerts(YamlNode node, Set<String> spreadNames, Set<String> channelNames, Set<String> modelled) {
         List<AlertRule> out = new ArrayList<>();
         if (node == null) {
             return out;
         }
         Set<String> names = new LinkedHashSet<>();
         for (YamlNode item : node.sequence("'alerts'")) {
-            AlertRule rule = rule(item, spreadNames, channelNames);
+            AlertRule rule = rule(item, spreadNames, channelNames, modelled);
             if (rule != null) {
                 if (!names.add(rule.name())) {
                     item.problem("alert rule name '" + rule.name() + "' is used twice");
@@ -74,7 +78,7 @@ final class AlertSectionParser {
         return out;
     }
 
-    private static AlertRule rule(YamlNode item, Set<String> spreadNames, Set<String> channelNames) {
+    private static AlertRule rule(YamlNode item, Set<String> spreadNames, Set<String> channelNames, Set<String> modelled) {
         Map<String, YamlNode> keys = item.mapping("an alert rule", RULE_KEYS);
         if (!item.isMapping()) {
             return null;
@@ -88,9 +92,21 @@ final class AlertSectionParser {
                 String spread = s.string("a spread name");
                 if (spread != null && !spreadNames.contains(spread)) {
                     s.problem("unknown spread '" + spread + "': not watched by this policy (watched: " + String.join(", ", spreadNames) + ")");
+                } else if (spread != null && when instanceof AlertTrigger.ProbabilityAbove && !modelled.contains(spread)) {
+                    s.problem("'probability-above' needs a probability model for spread '" + spread + "': add one under"
+                            + " 'probability' (models: " + names(modelled) + ")");
                 } else if (spread != null) {
                     spreads.add(spread);
                 }
+            }
+        } else if (when instanceof AlertTrigger.ProbabilityAbove) {
+            // no 'spreads' means every watched spread, and each of them needs a model
+            List<String> without = spreadNames.stream().filter(n -> !modelled.contains(n)).toList();
+            if (!without.isEmpty()) {
+                keys.get("when").problem("'probability-above' applies to every watched spread, but " + String.join(", ", without)
+                        + " ha" + (without.size() == 1 ? "s" : "ve") + " no probability model: list 'spreads' or add models under"
+                        + " 'probability' (models: " + names(modelled) + ")");
+                when = null;
             }
         }
         Severity severity = null;
@@ -234,6 +250,10 @@ final class AlertSectionParser {
     private static <T> T missing(YamlNode item, String message) {
         item.problem(message);
         return null;
+    }
+
+    private static String names(Set<String> names) {
+        return names.isEmpty() ? "none" : String.join(", ", names);
     }
 
     private static Set<String> ordered(String... keys) {

@@ -4,17 +4,26 @@ import java.util.List;
 import org.slopewatch.monitor.Watch;
 
 /**
- * A desk's signed-off policy: the spreads it watches, how an inversion is confirmed, and who
- * hears about it (channels and alert rules).
+ * A desk's signed-off policy: the spreads it watches, how an inversion is confirmed, the
+ * recession-probability models it accepts, and who hears about it (channels and alert rules).
  *
- * @param source where it was read from, for messages
+ * @param source      where it was read from, for messages
+ * @param probability the probit models by spread; every {@code probability-above} rule refers
+ *                    only to spreads that have one
  */
-public record Policy(String source, List<Watch> watches, List<ChannelDeclaration> channels, List<AlertRule> alerts) {
+public record Policy(String source, List<Watch> watches, List<ChannelDeclaration> channels, List<AlertRule> alerts,
+                     ProbabilityModels probability) {
 
     public Policy {
         watches = List.copyOf(watches);
         channels = List.copyOf(channels);
         alerts = List.copyOf(alerts);
+        probability = probability == null ? ProbabilityModels.NONE : probability;
+    }
+
+    /** A policy without probability models. */
+    public Policy(String source, List<Watch> watches, List<ChannelDeclaration> channels, List<AlertRule> alerts) {
+        this(source, watches, channels, alerts, ProbabilityModels.NONE);
     }
 
     /** A policy with spreads only, no alerting part. */

@@ -27,7 +27,7 @@ import org.snakeyaml.engine.v2.nodes.Node;
  */
 public final class PolicyParser {
 
-    static final Set<String> TOP_KEYS = ordered("watch", "channels", "alerts");
+    static final Set<String> TOP_KEYS = ordered("watch", "probability", "channels", "alerts");
     static final Set<String> WATCH_KEYS = ordered("spread", "curves", "enter-below-bp", "exit-at-or-above-bp",
             "exit-after-observations", "hold-days", "confirm");
     static final Set<String> TEST_KEYS = ordered(QuarterAverage.NAME, DaysInverted.NAME, RollingAverage.NAME, ShareInverted.NAME);
@@ -71,14 +71,15 @@ public final class PolicyParser {
                 watchNode.problem("'watch' lists no spread");
             }
         }
-        Map<String, ChannelDeclaration> channels = AlertSectionParser.channels(top.get("channels"));
         Set<String> spreadNames = new LinkedHashSet<>();
         watches.forEach(w -> spreadNames.add(w.spread().name()));
-        List<AlertRule> alerts = AlertSectionParser.alerts(top.get("alerts"), spreadNames, channels.keySet());
+        ProbabilityModels models = ProbabilitySectionParser.models(top.get("probability"), spreadNames);
+        Map<String, ChannelDeclaration> channels = AlertSectionParser.channels(top.get("channels"));
+        List<AlertRule> alerts = AlertSectionParser.alerts(top.get("alerts"), spreadNames, channels.keySet(), models.spreads());
         if (!problems.isEmpty()) {
             throw new PolicyException(problems);
         }
-        return new Policy(file, watches, List.copyOf(channels.values()), alerts);
+        return new Policy(file, watches, List.copyOf(channels.values()), alerts, models);
     }
 
     private static Watch watch(YamlNode item) {

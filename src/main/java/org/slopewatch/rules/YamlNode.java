@@ -1,11 +1,13 @@
 package org.slopewatch.rules;
 
 import java.util.ArrayList;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.regex.Pattern;
 import org.snakeyaml.engine.v2.exceptions.Mark;
 import org.snakeyaml.engine.v2.nodes.MappingNode;
 import org.snakeyaml.engine.v2.nodes.Node;
@@ -20,6 +22,9 @@ import org.snakeyaml.engine.v2.nodes.Tag;
  * every mistake in a file.
  */
 final class YamlNode {
+
+    /** YAML's spellings of infinity and not-a-number, which the core schema tags as floats. */
+    private static final Pattern NON_FINITE = Pattern.compile("[-+]?\\.(inf|Inf|INF|nan|NaN|NAN)");
 
     private final String file;
     private final Node node;
@@ -82,6 +87,36 @@ final class YamlNode {
         return out;
     }
 
+    /** One entry of a mapping whose keys are names of the user's own, with the key's node for positions. */
+    record Entry(String key, YamlNode keyNode, YamlNode value) {
+    }
+
+    /**
+     * The entries of a mapping in file order with their key nodes, for keys the caller checks
+     * itself (such as spread names); reports keys that are not plain words and duplicate keys.
+     * Empty (with a problem recorded) if this is not a mapping.
+     */
+    List<Entry> entries(String what) {
+        List<Entry> out = new ArrayList<>();
+        if (!(node instanceof MappingNode m)) {
+            problem(what + " must be a mapping of keys to values");
+            return out;
+        }
+        Set<String> seen = new HashSet<>();
+        for (NodeTuple t : m.getValue()) {
+            if (!(t.getKeyNode() instanceof ScalarNode k)) {
+                problems.add(at(t.getKeyNode(), "keys in " + what + " must be plain words"));
+                continue;
+            }
+            if (!seen.add(k.getValue())) {
+                problems.add(at(k, "key '" + k.getValue() + "' appears twice in " + what));
+                continue;
+            }
+            out.add(new Entry(k.getValue(), new YamlNode(file, k, problems), new YamlNode(file, t.getValueNode(), problems)));
+        }
+        return out;
+    }
+
     /** The items of a sequence; a problem (and no items) if this is not a sequence. */
     List<YamlNode> sequence(String what) {
         List<YamlNode> out = new ArrayList<>();
@@ -104,14 +139,20 @@ final class YamlNode {
         return null;
     }
 
-    /** A number; NaN (with a problem) for anything else. */
+    /** A finite number; NaN (with a problem) for anything else, including .inf, .nan and overflow. */
     double number(String what) {
         if (node instanceof ScalarNode s && (Tag.INT.equals(s.getTag()) || Tag.FLOAT.equals(s.getTag()))) {
+            if (NON_FINITE.matcher(s.getValue()).matches()) {
+                problem(what + " must be a finite number, got " + describe());
+                return Double.NaN;
+            }
             try {
                 double v = Double.parseDouble(s.getValue());
                 if (Double.isFinite(v)) {
                     return v;
                 }
+                problem(what + " must be a finite number, got " + describe());
+                return Double.NaN;
             } catch (NumberFormatException ignored) {
                 // reported below
             }

@@ -41,6 +41,50 @@ class CheckRulesCommandTest {
     }
 
     @Test
+    void theShippedPolicyCountsItsProbabilityModel() {
+        CliRun run = CliRun.of("check-rules", "alert-rules/default.yaml");
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.out()).contains("4 alert rule(s), 1 probability model(s)");
+    }
+
+    @Test
+    void probabilityModelsAreCheckedWithTheirPositions() throws IOException {
+        Files.writeString(dir.resolve("good.yaml"), """
+                watch:
+                  - spread: 10Y-3M
+                    confirm: [quarter-average]
+                probability:
+                  10Y-3M: { alpha: -0.5333, beta: -0.6330, horizon-months: 12, source: "Estrella and Trubin (2006) (from memory)" }
+                alerts:
+                  - { name: odds, when: { probability-above: 0.3 }, severity: warning, channels: [log] }
+                """);
+        CliRun good = CliRun.of("check-rules", dir.resolve("good.yaml").toString());
+        assertThat(good.exitCode()).as(good.err()).isZero();
+        assertThat(good.out()).contains("1 alert rule(s), 1 probability model(s)");
+
+        Files.writeString(dir.resolve("bad.yaml"), """
+                watch:
+                  - spread: 10Y-3M
+                    confirm: [quarter-average]
+                  - spread: 10Y-2Y
+                    confirm: [quarter-average]
+                probability:
+                  10Y-3M: { alpha: .inf, beta: -0.6330, horizon-months: 12 }
+                  10Y-1Y: { alpha: -1, beta: -1, horizon-months: 12, source: fit }
+                alerts:
+                  - { name: odds, when: { probability-above: 0.3 }, spreads: [10Y-2Y], severity: warning, channels: [log] }
+                """);
+        CliRun bad = CliRun.of("check-rules", dir.resolve("bad.yaml").toString());
+        assertThat(bad.exitCode()).isEqualTo(2);
+        String file = dir.resolve("bad.yaml").toString();
+        assertThat(bad.err()).contains(file + ":7:20: 'alpha' must be a finite number, got '.inf'")
+                .contains(file + ":7:11: the probability model for 10Y-3M needs 'source'")
+                .contains(file + ":8:3: unknown spread '10Y-1Y' in 'probability': not watched by this policy")
+                .contains(file + ":10:63: 'probability-above' needs a probability model for spread '10Y-2Y'");
+        assertThat(bad.out()).isEmpty();
+    }
+
+    @Test
     void aDirectoryWithoutPoliciesOrAMissingPathIsAnError() {
         assertThat(CliRun.of("check-rules", dir.toString()).exitCode()).isEqualTo(2);
         CliRun missing = CliRun.of("check-rules", dir.resolve("nope").toString());

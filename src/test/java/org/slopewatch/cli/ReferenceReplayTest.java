@@ -117,6 +117,80 @@ class ReferenceReplayTest {
                 .contains("false alarm").contains("not investment advice");
     }
 
+    @Test
+    void eachConfirmedSpellReSteepensAtTheFirstMonthBackAtOrAboveZero() throws IOException {
+        // Recomputed from the file alone: with entry and exit at 0 bp and one observation to exit, a
+        // confirmed spell re-steepens in the first month after its confirmation with 10Y >= 1Y.
+        Map<String, Boolean> atOrAboveZero = monthsAtOrAboveZeroFromFile();
+        List<String> months = new ArrayList<>(atOrAboveZero.keySet());
+        for (JsonNode lead : spread.get("leads")) {
+            String confirmed = lead.get("confirmed").asText().substring(0, 7);
+            String expected = null;
+            for (String m : months.subList(months.indexOf(confirmed) + 1, months.size())) {
+                if (atOrAboveZero.get(m)) {
+                    expected = m + "-01";
+                    break;
+                }
+            }
+            assertThat(lead.get("resteepened").asText()).as("re-steepening of the spell confirmed %s", confirmed).isEqualTo(expected);
+            JsonNode peak = lead.get("peak");
+            if (peak.isNull()) {
+                assertThat(lead.get("months_from_resteepening").isNull()).as("no peak, no lead from re-steepening").isTrue();
+            } else {
+                long between = java.time.temporal.ChronoUnit.MONTHS.between(java.time.YearMonth.parse(expected.substring(0, 7)),
+                        java.time.YearMonth.parse(peak.asText()));
+                assertThat(lead.get("months_from_resteepening").asLong()).as("months from %s to the %s peak", expected, peak.asText())
+                        .isEqualTo(between);
+            }
+        }
+    }
+
+    @Test
+    void theSpreadReSteepenedBeforeThe1960And1990PeaksAsTheFileShows() {
+        // Hand-computed from the file's rows (10Y - 1Y, pp): 1959-10 -0.27, 1959-11 -0.28, 1959-12 -0.45, 1960-01 -0.31,
+        // 1960-02 -0.17, 1960-03 4.25 - 4.02 = +0.23; 1989-04 -0.18, 1989-05 -0.12, 1989-06 -0.16, 1989-07 8.02 - 7.89 = +0.13.
+        // Peaks 1960-04 and 1990-07: NBER business-cycle reference dates (from memory).
+        Map<String, JsonNode> byConfirmation = new LinkedHashMap<>();
+        spread.get("leads").forEach(l -> byConfirmation.put(l.get("confirmed").asText(), l));
+        JsonNode sixty = byConfirmation.get("1959-10-01");
+        assertThat(sixty.get("resteepened").asText()).isEqualTo("1960-03-01");
+        assertThat(sixty.get("months_from_resteepening").asInt()).isEqualTo(1);
+        JsonNode ninety = byConfirmation.get("1989-04-01");
+        assertThat(ninety.get("resteepened").asText()).isEqualTo("1989-07-01");
+        assertThat(ninety.get("months_from_resteepening").asInt()).isEqualTo(12);
+        // the replay's spell table says the same: each confirmed spell ended on its re-steepening date
+        for (JsonNode spell : spread.get("spells")) {
+            if (!spell.get("confirmed").isNull()) {
+                assertThat(byConfirmation.get(spell.get("confirmed").asText()).get("resteepened").asText())
+                        .isEqualTo(spell.get("end").asText());
+            }
+        }
+    }
+
+    @Test
+    void theTextReportShowsTheReSteepeningBesideEachLead() {
+        CliRun run = CliRun.of("replay", history.toString(), "--spread", "10Y-1Y", "--persistence", "quarter-average",
+                "--recessions", recessions.toString());
+        assertThat(run.exitCode()).isZero();
+        assertThat(run.out()).contains("re-steepened")
+                .containsPattern("1989-04-01  1990-07      15  hit +1989-07-01 +12")
+                .containsPattern("1959-10-01  1960-04       6  hit +1960-03-01 +1\\n");
+    }
+
+    /** Month (YYYY-MM) → whether 10Y >= 1Y in it, compared exactly on the file's decimal strings. */
+    private static Map<String, Boolean> monthsAtOrAboveZeroFromFile() throws IOException {
+        Map<String, Boolean> out = new LinkedHashMap<>();
+        List<String> lines = Files.readAllLines(history);
+        List<String> header = List.of(lines.get(0).split(","));
+        int oneYear = header.indexOf("1Y");
+        int tenYear = header.indexOf("10Y");
+        for (String line : lines.subList(1, lines.size())) {
+            String[] f = line.split(",");
+            out.put(f[0].substring(0, 7), new java.math.BigDecimal(f[tenYear]).compareTo(new java.math.BigDecimal(f[oneYear])) >= 0);
+        }
+        return out;
+    }
+
     /** Quarter → {sum of 10Y−1Y in percent, months}, computed with nothing but string splitting. */
     private static Map<String, double[]> quarterAveragesFromFile() throws IOException {
         Map<String, double[]> out = new LinkedHashMap<>();

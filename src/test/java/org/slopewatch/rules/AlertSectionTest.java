@@ -41,7 +41,10 @@ class AlertSectionTest {
 
     @Test
     void everyTriggerParses() throws PolicyException {
+        // a probability-above rule needs a model for each spread it covers (here every watched one)
         Policy p = PolicyParser.parse("p.yaml", WATCH + """
+                probability:
+                  10Y-3M: { alpha: -0.5333, beta: -0.6330, horizon-months: 12, source: "Estrella and Trubin (2006) (from memory)" }
                 alerts:
                   - { name: a, when: { enters-state: inverted }, severity: info, channels: [log] }
                   - { name: b, when: { inverted-for-days: 180 }, severity: warning, channels: [log], repeat-every: 4h }
