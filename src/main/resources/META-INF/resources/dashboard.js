@@ -244,6 +244,11 @@
     if (s.spell) {
       facts.push(['Deepest so far', bp(s.spell.deepest_bp) + ' on ' + s.spell.deepest_date]);
     }
+    if (s.probability) {
+      const p = s.probability;
+      facts.push(['Recession odds', Math.round(100 * p.value) + '% for ' + p.recession_month
+        + ' (' + p.month + ' average so far, ' + p.observations + ' days; a statistical signal only)']);
+    }
     card.querySelector('.facts').replaceChildren(...facts.flatMap(([k, v]) => [el('dt', null, k), el('dd', null, v)]));
 
     const figure = card.querySelector('.history');

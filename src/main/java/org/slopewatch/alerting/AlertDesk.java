@@ -106,12 +106,16 @@ public class AlertDesk implements AlertStage {
         if (changed.isEmpty()) {
             return;
         }
-        decide(AlertConditions.of(policies.policy().alerts(), List.copyOf(changed), Map.of(), Map.of()), changed, sequence, journal);
+        Policy policy = policies.policy();
+        decide(AlertConditions.of(policy.alerts(), List.copyOf(changed), Map.of(), policy.probability().currentBySpreadId(changed)), changed,
+                sequence, journal);
     }
 
     @Override
     public synchronized void onTick(Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
-        decide(AlertConditions.of(policies.policy().alerts(), List.copyOf(all), staleCurves, Map.of()), all, null, journal);
+        Policy policy = policies.policy();
+        decide(AlertConditions.of(policy.alerts(), List.copyOf(all), staleCurves, policy.probability().currentBySpreadId(all)), all, null,
+                journal);
     }
 
     private void decide(List<AlertCondition> conditions, Collection<SpreadStatus> statuses, Long sequence,

@@ -8,10 +8,12 @@ import jakarta.enterprise.context.ApplicationScoped;
 import java.time.Duration;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
+import org.slopewatch.alerting.PolicyHolder;
 import org.slopewatch.ingest.PipelineListener;
 import org.slopewatch.ingest.RejectReason;
 import org.slopewatch.monitor.SpreadState;
 import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.probability.LiveProbability;
 import org.slopewatch.monitor.Transition;
 
 /**
@@ -37,10 +39,14 @@ public class PipelineMetrics implements PipelineListener {
         volatile double state;
         volatile double daysInverted;
         volatile double quarterToDateBp = Double.NaN;
+        volatile double probability = Double.NaN;
     }
 
-    PipelineMetrics(MeterRegistry registry) {
+    private final PolicyHolder policies;
+
+    PipelineMetrics(MeterRegistry registry, PolicyHolder policies) {
         this.registry = registry;
+        this.policies = policies;
         this.processing = Timer.builder("slopewatch.processing").description("Time to run a step through curves, spreads and monitors")
                 .register(registry);
         this.journalWrite = Timer.builder("slopewatch.journal.write").description("Time to write a step to the journal").register(registry);
@@ -96,6 +102,7 @@ public class PipelineMetrics implements PipelineListener {
         g.state = s.state().code();
         g.daysInverted = s.daysInverted();
         g.quarterToDateBp = s.quarterToDateAverageBp();
+        g.probability = policies.policy().probability().current(s).map(LiveProbability::probability).orElse(Double.NaN);
     }
 
     private SpreadGauges register(String spreadId) {
@@ -108,6 +115,9 @@ public class PipelineMetrics implements PipelineListener {
                 .description("Calendar days continuously below the entry threshold").tag("spread", spreadId).register(registry);
         Gauge.builder("slopewatch.spread.quarter.average", g, x -> x.quarterToDateBp).baseUnit("bp")
                 .description("Average of the current calendar quarter so far").tag("spread", spreadId).register(registry);
+        Gauge.builder("slopewatch.spread.recession.probability", g, x -> x.probability)
+                .description("Recession probability from the policy's probit model on this month's average so far (0 to 1; "
+                        + "absent model: NaN)").tag("spread", spreadId).register(registry);
         return g;
     }
 

@@ -1,10 +1,15 @@
 package org.slopewatch.rules;
 
+import java.util.Collection;
 import java.util.Collections;
+import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import org.slopewatch.monitor.MonthAverages;
+import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.probability.LiveProbability;
 
 /**
  * The policy's probability models, by spread name. A spread without a model has no probability,
@@ -34,5 +39,34 @@ public record ProbabilityModels(Map<String, SpreadProbabilityModel> bySpread) {
 
     public int size() {
         return bySpread.size();
+    }
+
+    /** The probability from the spread's month so far (provisional), or empty without a model or data. */
+    public Optional<LiveProbability> current(SpreadStatus status) {
+        MonthAverages m = status.months();
+        if (m.month() == null || m.observations() == 0) {
+            return Optional.empty();
+        }
+        return forSpread(status.spread()).map(model -> LiveProbability.of(model.model(), model.horizonMonths(), m.month(), m.averageBp(),
+                m.observations(), true));
+    }
+
+    /** The probability from the last complete month (final), or empty without a model or data for it. */
+    public Optional<LiveProbability> lastMonth(SpreadStatus status) {
+        MonthAverages m = status.months();
+        if (m.month() == null || m.previousObservations() == 0) {
+            return Optional.empty();
+        }
+        return forSpread(status.spread()).map(model -> LiveProbability.of(model.model(), model.horizonMonths(), m.month().minusMonths(1),
+                m.previousAverageBp(), m.previousObservations(), false));
+    }
+
+    /** Spread id → the current probability, for the alert rules; spreads without a model are absent. */
+    public Map<String, Double> currentBySpreadId(Collection<SpreadStatus> statuses) {
+        Map<String, Double> out = new HashMap<>();
+        for (SpreadStatus s : statuses) {
+            current(s).ifPresent(p -> out.put(s.id(), p.probability()));
+        }
+        return out;
     }
 }

@@ -4,8 +4,11 @@ import java.time.LocalDate;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.slopewatch.curve.CurveSnapshot;
+import org.slopewatch.delivery.Alert;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.probability.LiveProbability;
+import org.slopewatch.rules.ProbabilityModels;
 
 /** The shapes the read API returns (snake-case JSON). NaN never reaches JSON: it becomes null. */
 final class ApiViews {
@@ -36,11 +39,24 @@ final class ApiViews {
     /** Where a spread stands. {@code state_code}: 0 NORMAL, 1 INVERTED, 2 CONFIRMED, 3 RESTEEPENING. */
     record SpreadView(String id, String curve, String spread, LocalDate date, Double valueBp, String state, int stateCode,
                       long daysInverted, Double quarterToDateAverageBp, int quarterToDateObservations, long observations,
-                      SpellView spell) {
-        static SpreadView of(SpreadStatus s) {
+                      SpellView spell, ProbabilityView probability, ProbabilityView probabilityLastMonth) {
+        static SpreadView of(SpreadStatus s, ProbabilityModels models) {
             return new SpreadView(s.id(), s.curve(), s.spread(), s.date(), finite(s.valueBp()), s.state().name(), s.state().code(),
                     s.daysInverted(), finite(s.quarterToDateAverageBp()), s.quarterToDateObservations(), s.observations(),
-                    SpellView.of(s.openSpell()));
+                    SpellView.of(s.openSpell()), models.current(s).map(ProbabilityView::of).orElse(null),
+                    models.lastMonth(s).map(ProbabilityView::of).orElse(null));
+        }
+    }
+
+    /**
+     * A recession probability with what it rests on. No confidence band: the policy's coefficients
+     * come without a covariance (a fit from {@code slopewatch fit} prints one for its own sample).
+     */
+    record ProbabilityView(double value, String month, boolean provisional, double monthAverageBp, int observations,
+                           String recessionMonth, String modelSource, String caution) {
+        static ProbabilityView of(LiveProbability p) {
+            return new ProbabilityView(p.probability(), p.month().toString(), p.provisional(), p.averageBp(), p.observations(),
+                    p.targetMonth().toString(), p.source(), Alert.CAUTION);
         }
     }
 

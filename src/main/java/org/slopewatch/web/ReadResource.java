@@ -13,9 +13,11 @@ import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.util.List;
 import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.slopewatch.alerting.PolicyHolder;
 import org.slopewatch.ingest.QuotePipeline;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.rules.ProbabilityModels;
 import org.slopewatch.spread.SpreadKey;
 
 /** The read API: curves, spreads, their history, transitions and rejects. */
@@ -27,10 +29,12 @@ public class ReadResource {
 
     private final QuotePipeline pipeline;
     private final JournalReader journal;
+    private final PolicyHolder policies;
 
-    ReadResource(QuotePipeline pipeline, JournalReader journal) {
+    ReadResource(QuotePipeline pipeline, JournalReader journal, PolicyHolder policies) {
         this.pipeline = pipeline;
         this.journal = journal;
+        this.policies = policies;
     }
 
     @GET
@@ -55,7 +59,8 @@ public class ReadResource {
     @Path("/spreads")
     @Operation(summary = "Each spread's latest value, state, open spell and quarter-to-date average")
     public List<ApiViews.SpreadView> spreads() {
-        return pipeline.spreads().stream().map(ApiViews.SpreadView::of).toList();
+        ProbabilityModels models = policies.policy().probability();
+        return pipeline.spreads().stream().map(s -> ApiViews.SpreadView.of(s, models)).toList();
     }
 
     @GET
@@ -66,7 +71,7 @@ public class ReadResource {
         if (s == null) {
             throw new NotFoundException("no spread " + id);
         }
-        return ApiViews.SpreadView.of(s);
+        return ApiViews.SpreadView.of(s, policies.policy().probability());
     }
 
     @GET
