@@ -246,7 +246,9 @@
     }
     if (s.probability) {
       const p = s.probability;
-      facts.push(['Recession odds', Math.round(100 * p.value) + '% for ' + p.recession_month
+      const band = p.band90_lower === null ? '' : ' (90% band ' + Math.round(100 * p.band90_lower) + '–'
+        + Math.round(100 * p.band90_upper) + '%)';
+      facts.push(['Recession odds', Math.round(100 * p.value) + '%' + band + ' for ' + p.recession_month
         + ' (' + p.month + ' average so far, ' + p.observations + ' days; a statistical signal only)']);
     }
     card.querySelector('.facts').replaceChildren(...facts.flatMap(([k, v]) => [el('dt', null, k), el('dd', null, v)]));

@@ -5,6 +5,8 @@ import java.math.BigDecimal;
 import java.math.MathContext;
 import java.nio.file.Path;
 import java.util.Locale;
+import org.slopewatch.probability.Covariance;
+import org.slopewatch.probability.CovarianceKind;
 import org.slopewatch.replay.FitReport;
 
 /**
@@ -61,7 +63,12 @@ final class FitText {
         out.println("    probability:");
         out.printf(Locale.ROOT, "      %s: { alpha: %s, beta: %s, horizon-months: %d, average: monthly,%n", r.spread(),
                 sig(r.coefficients().get(0).estimate()), sig(r.coefficients().get(1).estimate()), r.horizonMonths());
-        out.printf(Locale.ROOT, "        source: \"%s\" }%n", yamlText(provenance(r)));
+        out.printf(Locale.ROOT, "        source: \"%s\",%n", yamlText(provenance(r)));
+        // the covariance the bands above rest on, so that the daemon shows the same band next to its live probability
+        Covariance c = r.bands().covariance().equals(CovarianceKind.NEWEY_WEST.label()) ? r.standardErrors().covarianceNeweyWest()
+                : r.standardErrors().covarianceModelBased();
+        out.printf(Locale.ROOT, "        covariance: { var-alpha: %s, cov-alpha-beta: %s, var-beta: %s } }%n", sig(c.varAlpha()),
+                sig(c.covAlphaBeta()), sig(c.varBeta()));
         out.println();
         out.println(r.caution());
     }

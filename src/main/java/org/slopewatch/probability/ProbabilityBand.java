@@ -11,8 +11,24 @@ package org.slopewatch.probability;
  * for readers who want it.
  *
  * @param level      confidence level, e.g. 0.90
- * @param covariance which covariance of (α, β) the band rests on
+ * @param covariance which covariance of (α, β) the band rests on; null when given from outside (a policy) without saying
  */
 public record ProbabilityBand(double spreadPct, double probability, double lower, double upper,
                               double seProbability, double level, CovarianceKind covariance) {
+
+    /**
+     * The band of a model at a spread, given a covariance of its coefficients.
+     *
+     * @param level confidence level strictly between 0 and 1, e.g. 0.90
+     */
+    public static ProbabilityBand of(ProbitModel model, Covariance cov, CovarianceKind kind, double spreadPct, double level) {
+        if (!(level > 0.0 && level < 1.0)) {
+            throw new IllegalArgumentException("confidence level must lie strictly between 0 and 1, got " + level);
+        }
+        double eta = model.index(spreadPct);
+        double seIndex = Math.sqrt(cov.indexVariance(spreadPct));
+        double z = Gaussian.inverseCdf(0.5 + level / 2.0);
+        return new ProbabilityBand(spreadPct, Gaussian.cdf(eta), Gaussian.cdf(eta - z * seIndex), Gaussian.cdf(eta + z * seIndex),
+                Gaussian.pdf(eta) * seIndex, level, kind);
+    }
 }

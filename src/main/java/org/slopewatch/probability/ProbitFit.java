@@ -76,15 +76,6 @@ public record ProbitFit(double alpha, double beta, Covariance modelBased, Covari
      */
     public ProbabilityBand band(double spreadPct, double level, CovarianceKind kind) {
         Objects.requireNonNull(kind, "kind");
-        if (!(level > 0.0 && level < 1.0)) {
-            throw new IllegalArgumentException("confidence level must lie strictly between 0 and 1, got " + level);
-        }
-        ProbitModel model = model();
-        double eta = model.index(spreadPct);
-        double seIndex = Math.sqrt(covariance(kind).indexVariance(spreadPct));
-        double z = Gaussian.inverseCdf(0.5 + level / 2.0);
-        return new ProbabilityBand(spreadPct, Gaussian.cdf(eta),
-                Gaussian.cdf(eta - z * seIndex), Gaussian.cdf(eta + z * seIndex),
-                Gaussian.pdf(eta) * seIndex, level, kind);
+        return ProbabilityBand.of(model(), covariance(kind), kind, spreadPct, level);
     }
 }

@@ -47,7 +47,7 @@ public record ProbabilityModels(Map<String, SpreadProbabilityModel> bySpread) {
         if (m.month() == null || m.observations() == 0) {
             return Optional.empty();
         }
-        return forSpread(status.spread()).map(model -> LiveProbability.of(model.model(), model.horizonMonths(), m.month(), m.averageBp(),
+        return forSpread(status.spread()).map(model -> LiveProbability.of(model.model(), model.covariance(), model.horizonMonths(), m.month(), m.averageBp(),
                 m.observations(), true));
     }
 
@@ -57,7 +57,7 @@ public record ProbabilityModels(Map<String, SpreadProbabilityModel> bySpread) {
         if (m.month() == null || m.previousObservations() == 0) {
             return Optional.empty();
         }
-        return forSpread(status.spread()).map(model -> LiveProbability.of(model.model(), model.horizonMonths(), m.month().minusMonths(1),
+        return forSpread(status.spread()).map(model -> LiveProbability.of(model.model(), model.covariance(), model.horizonMonths(), m.month().minusMonths(1),
                 m.previousAverageBp(), m.previousObservations(), false));
     }
 

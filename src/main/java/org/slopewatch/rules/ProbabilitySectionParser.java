@@ -8,6 +8,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 import java.util.stream.Collectors;
+import org.slopewatch.probability.Covariance;
 import org.slopewatch.probability.ProbitModel;
 import org.slopewatch.rules.SpreadProbabilityModel.Averaging;
 
@@ -17,7 +18,9 @@ import org.slopewatch.rules.SpreadProbabilityModel.Averaging;
  */
 final class ProbabilitySectionParser {
 
-    static final Set<String> MODEL_KEYS = new LinkedHashSet<>(List.of("alpha", "beta", "horizon-months", "average", "source"));
+    static final Set<String> MODEL_KEYS = new LinkedHashSet<>(List.of("alpha", "beta", "horizon-months", "average", "source",
+            "covariance"));
+    static final Set<String> COVARIANCE_KEYS = new LinkedHashSet<>(List.of("var-alpha", "cov-alpha-beta", "var-beta"));
 
     private ProbabilitySectionParser() {
     }
@@ -65,10 +68,40 @@ final class ProbabilitySectionParser {
         String source = required(keys, "source", item, what, "a note on where the coefficients come from (paper or fit, sample)")
                 ? keys.get("source").string("'source'") : null;
         Averaging average = keys.containsKey("average") ? averaging(keys.get("average")) : Averaging.MONTHLY;
-        if (Double.isNaN(alpha) || Double.isNaN(beta) || horizon == Integer.MIN_VALUE || source == null || average == null) {
+        Covariance covariance = keys.containsKey("covariance") ? covariance(keys.get("covariance"), what) : null;
+        if (Double.isNaN(alpha) || Double.isNaN(beta) || horizon == Integer.MIN_VALUE || source == null || average == null
+                || keys.containsKey("covariance") && covariance == null) {
             return null;
         }
-        return new SpreadProbabilityModel(spread, new ProbitModel(alpha, beta, source), horizon, average);
+        return new SpreadProbabilityModel(spread, new ProbitModel(alpha, beta, source), horizon, average, covariance);
+    }
+
+    /** {@code { var-alpha: …, cov-alpha-beta: …, var-beta: … }}: all three, a positive semi-definite matrix. */
+    private static Covariance covariance(YamlNode node, String what) {
+        String where = "the covariance of " + what.replace("the probability model for ", "");
+        Map<String, YamlNode> keys = node.mapping(where, COVARIANCE_KEYS);
+        if (!node.isMapping()) {
+            return null;
+        }
+        double[] v = new double[3];
+        int k = 0;
+        boolean complete = true;
+        for (String key : COVARIANCE_KEYS) {
+            if (!required(keys, key, node, where, "a number")) {
+                complete = false;
+                continue;
+            }
+            v[k++] = keys.get(key).number("'" + key + "'");
+        }
+        if (!complete || Double.isNaN(v[0]) || Double.isNaN(v[1]) || Double.isNaN(v[2])) {
+            return null;
+        }
+        if (v[0] < 0 || v[2] < 0 || v[1] * v[1] > v[0] * v[2] * (1 + 1e-12)) {
+            node.problem("'covariance' is not a covariance matrix: variances must be 0 or more and cov-alpha-beta² at most "
+                    + "var-alpha × var-beta");
+            return null;
+        }
+        return new Covariance(v[0], v[1], v[2]);
     }
 
     private static Averaging averaging(YamlNode node) {

@@ -2,6 +2,7 @@ package org.slopewatch.rules;
 
 import java.util.Locale;
 import java.util.Objects;
+import org.slopewatch.probability.Covariance;
 import org.slopewatch.probability.ProbitModel;
 
 /**
@@ -12,8 +13,10 @@ import org.slopewatch.probability.ProbitModel;
  * @param spread        the watched spread's name, e.g. {@code 10Y-3M}
  * @param model         α, β and the {@code source} note as the model's provenance
  * @param horizonMonths the model gives P(recession in month m + horizonMonths)
+ * @param covariance    the coefficients' covariance, when the policy gives one (a fit does; published
+ *                      coefficients often come without): it is what a confidence band rests on
  */
-public record SpreadProbabilityModel(String spread, ProbitModel model, int horizonMonths, Averaging average) {
+public record SpreadProbabilityModel(String spread, ProbitModel model, int horizonMonths, Averaging average, Covariance covariance) {
 
     /** How the spread is averaged before the model is applied. */
     public enum Averaging {
@@ -24,6 +27,11 @@ public record SpreadProbabilityModel(String spread, ProbitModel model, int horiz
         public String key() {
             return name().toLowerCase(Locale.ROOT);
         }
+    }
+
+    /** A model without a covariance: probabilities come without a band. */
+    public SpreadProbabilityModel(String spread, ProbitModel model, int horizonMonths, Averaging average) {
+        this(spread, model, horizonMonths, average, null);
     }
 
     public SpreadProbabilityModel {

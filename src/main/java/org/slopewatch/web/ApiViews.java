@@ -49,14 +49,15 @@ final class ApiViews {
     }
 
     /**
-     * A recession probability with what it rests on. No confidence band: the policy's coefficients
-     * come without a covariance (a fit from {@code slopewatch fit} prints one for its own sample).
+     * A recession probability with what it rests on, and its 90 % band when the policy gives the
+     * coefficients' covariance (null otherwise: published coefficients often come without one).
      */
-    record ProbabilityView(double value, String month, boolean provisional, double monthAverageBp, int observations,
-                           String recessionMonth, String modelSource, String caution) {
+    record ProbabilityView(double value, Double band90Lower, Double band90Upper, String month, boolean provisional,
+                           double monthAverageBp, int observations, String recessionMonth, String modelSource, String caution) {
         static ProbabilityView of(LiveProbability p) {
-            return new ProbabilityView(p.probability(), p.month().toString(), p.provisional(), p.averageBp(), p.observations(),
-                    p.targetMonth().toString(), p.source(), Alert.CAUTION);
+            return new ProbabilityView(p.probability(), p.band() == null ? null : p.band().lower(), p.band() == null ? null : p.band().upper(),
+                    p.month().toString(), p.provisional(), p.averageBp(), p.observations(), p.targetMonth().toString(), p.source(),
+                    Alert.CAUTION);
         }
     }
 

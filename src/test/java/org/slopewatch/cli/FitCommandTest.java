@@ -76,6 +76,26 @@ class FitCommandTest {
         throw new AssertionError("no row '" + name + "' in\n" + out);
     }
 
+    /*
+     * The policy entry the command prints, pasted under a policy's 'probability' section, makes the
+     * daemon show R's 90 % Newey-West band at a spread of -1 pp (probit-10y1y-h12.csv,
+     * band90_newey_west_*_at_m1).
+     */
+    @Test
+    void thePrintedPolicyEntryGivesTheDaemonRsBand() throws Exception {
+        String out = fit(history).out();
+        int from = out.indexOf("    probability:");
+        String entry = out.substring(from, out.indexOf("\n\n", from)).replace("\n    ", "\n").strip();
+        org.slopewatch.rules.Policy policy = org.slopewatch.rules.PolicyParser.parse("pasted.yaml",
+                "watch:\n  - spread: 10Y-1Y\n    confirm: [quarter-average]\n" + entry + "\n");
+        org.slopewatch.rules.SpreadProbabilityModel m = policy.probability().forSpread("10Y-1Y").orElseThrow();
+        org.slopewatch.probability.LiveProbability live = org.slopewatch.probability.LiveProbability.of(m.model(), m.covariance(),
+                m.horizonMonths(), java.time.YearMonth.of(2026, 1), -100.0, 21, true);
+        fourDigits(live.probability(), "p_at_m1");
+        fourDigits(live.band().lower(), "band90_newey_west_lower_at_m1");
+        fourDigits(live.band().upper(), "band90_newey_west_upper_at_m1");
+    }
+
     @Test
     void thePrintedCoefficientsAndBothStandardErrorsAreRs() {
         CliRun run = fit(history);

@@ -65,6 +65,28 @@ class LiveProbabilityTest {
         assertThat(MODELS.currentBySpreadId(List.of(status))).containsOnlyKeys("GOVT-A:10Y-3M");
     }
 
+    /*
+     * The band: delta method on the index η = α + β·s with var(η) = var α + 2s·cov + s²·var β, mapped
+     * through Φ (the construction documented in ProbabilityBand), recomputed here with Commons Math.
+     */
+    @Test
+    void aModelWithACovarianceShowsTheNinetyPercentBand() {
+        ProbabilityModels withCovariance = new ProbabilityModels(Map.of("10Y-3M", new SpreadProbabilityModel("10Y-3M",
+                new ProbitModel(-0.5333, -0.6330, "test"), 12, SpreadProbabilityModel.Averaging.MONTHLY,
+                new org.slopewatch.probability.Covariance(0.01, -0.004, 0.02))));
+        SpreadTrack track = new SpreadTrack(new InversionMonitor(new MonitorDefinition(0, 5, 5, 365, List.of(new DaysInverted(90)))), KEY);
+        track.record(new Observation(LocalDate.of(2026, 7, 1), -50, 1));
+        LiveProbability p = withCovariance.current(SpreadStatus.of(track)).orElseThrow();
+        double s = -0.5;
+        double eta = -0.5333 - 0.6330 * s;
+        double se = Math.sqrt(0.01 + 2 * s * -0.004 + s * s * 0.02);
+        double z = PHI.inverseCumulativeProbability(0.95);
+        assertThat(p.band().lower()).isCloseTo(PHI.cumulativeProbability(eta - z * se), within(1e-9));
+        assertThat(p.band().upper()).isCloseTo(PHI.cumulativeProbability(eta + z * se), within(1e-9));
+        assertThat(p.band().level()).isEqualTo(0.90);
+        assertThat(MODELS.current(SpreadStatus.of(track)).orElseThrow().band()).as("no covariance, no band").isNull();
+    }
+
     @Test
     void aSpreadWithoutAModelHasNoProbability() {
         SpreadTrack track = new SpreadTrack(new InversionMonitor(new MonitorDefinition(0, 5, 5, 365, List.of(new DaysInverted(90)))),

@@ -74,11 +74,24 @@ class ProbabilitySectionTest {
         assertThat(PolicyParser.parse("p.yaml", WATCH).probability().size()).as("the section is optional").isZero();
     }
 
+    @Test
+    void aCovarianceGivesTheModelABand() throws PolicyException {
+        // the Newey-West covariance of the 10Y-1Y fit on the bundled H.15 data, as ./slopewatch fit prints it
+        Policy p = PolicyParser.parse("p.yaml", model("10Y-3M", "alpha: -0.8097", "beta: -0.9407", "horizon-months: 12", "source: fit",
+                "covariance: { var-alpha: 0.0357, cov-alpha-beta: -0.0301, var-beta: 0.0642 }"));
+        SpreadProbabilityModel m = p.probability().forSpread("10Y-3M").orElseThrow();
+        assertThat(m.covariance().varAlpha()).isEqualTo(0.0357);
+        assertThat(m.covariance().covAlphaBeta()).isEqualTo(-0.0301);
+        assertThat(m.covariance().varBeta()).isEqualTo(0.0642);
+        assertThat(PolicyParser.parse("p.yaml", model("10Y-3M", "alpha: -0.5", "beta: -0.6", "horizon-months: 12", "source: paper"))
+                .probability().forSpread("10Y-3M").orElseThrow().covariance()).as("optional").isNull();
+    }
+
     static Stream<Arguments> badSections() {
         String[] ok = {"alpha: -0.5", "beta: -0.6", "horizon-months: 12", "source: paper"};
         return Stream.of(
                 Arguments.of("unknown key", model("10Y-3M", ok[0], ok[1], ok[2], ok[3], "gamma: 1"),
-                        "p.yaml:12:5: unknown key 'gamma' in the probability model for 10Y-3M (known: alpha, beta, horizon-months, average, source)"),
+                        "p.yaml:12:5: unknown key 'gamma' in the probability model for 10Y-3M (known: alpha, beta, horizon-months, average, source, covariance)"),
                 Arguments.of("text for a number", model("10Y-3M", "alpha: high", ok[1], ok[2], ok[3]),
                         "p.yaml:8:12: 'alpha' must be a number, got 'high'"),
                 Arguments.of("fraction for whole months", model("10Y-3M", ok[0], ok[1], "horizon-months: 12.5", ok[3]),
@@ -107,6 +120,15 @@ class ProbabilitySectionTest {
                         "p.yaml:7:11: the probability model for 10Y-3M must be a mapping of keys to values"),
                 Arguments.of("section not a mapping", WATCH + "probability: [10Y-3M]\n",
                         "p.yaml:6:14: 'probability' must be a mapping of keys to values"),
+                Arguments.of("covariance with a negative variance",
+                        model("10Y-3M", ok[0], ok[1], ok[2], ok[3], "covariance: { var-alpha: -0.01, cov-alpha-beta: 0, var-beta: 0.01 }"),
+                        "p.yaml:12:17: 'covariance' is not a covariance matrix"),
+                Arguments.of("covariance that is not positive semi-definite",
+                        model("10Y-3M", ok[0], ok[1], ok[2], ok[3], "covariance: { var-alpha: 0.01, cov-alpha-beta: 0.02, var-beta: 0.01 }"),
+                        "p.yaml:12:17: 'covariance' is not a covariance matrix"),
+                Arguments.of("covariance missing a term",
+                        model("10Y-3M", ok[0], ok[1], ok[2], ok[3], "covariance: { var-alpha: 0.01, var-beta: 0.01 }"),
+                        "p.yaml:12:17: the covariance of 10Y-3M needs 'cov-alpha-beta'"),
                 Arguments.of("spread twice", model("10Y-3M", ok) + "  10Y-3M: { alpha: 1, beta: 1, horizon-months: 1, source: x }\n",
                         "p.yaml:12:3: key '10Y-3M' appears twice in 'probability'"));
     }
