@@ -52,6 +52,10 @@ public final class AlertStore {
         }
     }
 
+    /** One journalled delivery attempt. */
+    public record Attempt(String channel, int attempt, String outcome, String detail, String decision, Instant attemptedAt) {
+    }
+
     /** A delivery due now, with its alert. */
     public record Due(Alert alert, Delivery delivery) {
     }
@@ -218,6 +222,15 @@ public final class AlertStore {
                 rs -> acks.computeIfAbsent(rs.getString(1), k -> new ArrayList<>()).add(ack(rs)));
         List<AlertView> out = new ArrayList<>();
         alerts.forEach((id, a) -> out.add(new AlertView(a, deliveries.getOrDefault(id, List.of()), acks.getOrDefault(id, List.of()))));
+        return out;
+    }
+
+    /** Every delivery attempt of an alert, in the order they were made. */
+    public List<Attempt> attempts(String alertId) {
+        List<Attempt> out = new ArrayList<>();
+        query("SELECT channel, attempt, outcome, detail, decision, attempted_at FROM delivery_attempt WHERE alert_id = ? ORDER BY id",
+                s -> s.setString(1, alertId), rs -> out.add(new Attempt(rs.getString(1), rs.getInt(2), rs.getString(3), rs.getString(4),
+                        rs.getString(5), instant(rs, 6))));
         return out;
     }
 

@@ -73,6 +73,10 @@ public class AlertResource {
         }
     }
 
+    /** One alert with every delivery attempt, for a post-mortem. */
+    public record AlertDetail(AlertView alert, List<AlertStore.Attempt> attempts) {
+    }
+
     public record AckRequest(String by, String note) {
     }
 
@@ -97,10 +101,11 @@ public class AlertResource {
 
     @GET
     @Path("/alerts/{id}")
-    @Operation(summary = "One alert with its deliveries and acknowledgements")
+    @Operation(summary = "One alert with its deliveries, acknowledgements and every delivery attempt")
     public Response alert(@PathParam("id") String id) {
         AlertStore.AlertView v = store.find(id);
-        return v == null ? error(Response.Status.NOT_FOUND, "no alert " + id) : Response.ok(AlertView.of(v)).build();
+        return v == null ? error(Response.Status.NOT_FOUND, "no alert " + id)
+                : Response.ok(new AlertDetail(AlertView.of(v), store.attempts(id))).build();
     }
 
     @POST

@@ -111,7 +111,7 @@ class AlertTimelineTest {
         chat.answer(500, "internal error").hang();
         post(days("GOVT-A", LocalDate.of(2026, 4, 1), LocalDate.of(2026, 4, 3), -20.0));
         String confirmed = "inversion-confirmed~GOVT-A:10Y-3M~2026-04-01~1";
-        Awaitility.await("two failed attempts").atMost(PATIENCE).until(() -> requestsFor(confirmed) >= 2);
+        Awaitility.await("the 500 and then the hung request timed out").atMost(PATIENCE).until(() -> attempts(confirmed, "desk-chat") >= 2);
         chat.stop();
         Awaitility.await("an attempt refused while the receiver is down").atMost(PATIENCE)
                 .until(() -> attempts(confirmed, "desk-chat") >= 3);
@@ -120,6 +120,16 @@ class AlertTimelineTest {
                 .until(() -> "DELIVERED".equals(deliveryStatus(confirmed, "desk-chat")));
         assertThat(acceptedIds().stream().filter(confirmed::equals)).as("taken by the receiver exactly once").hasSize(1);
         assertThat(attempts(confirmed, "desk-chat")).as("500, time-out, refused, then delivered").isGreaterThanOrEqualTo(4);
+        List<String> details = new ArrayList<>();
+        for (JsonNode a : JSON.readTree(given().get("/api/alerts/" + confirmed).asString()).get("attempts")) {
+            if (a.get("channel").asText().equals("desk-chat")) {
+                details.add(a.get("outcome").asText() + ": " + a.get("detail").asText());
+            }
+        }
+        assertThat(details.get(0)).startsWith("retry: ").contains("HTTP 500");
+        assertThat(details.get(1)).startsWith("retry: ").contains("no answer within 1000 ms");
+        assertThat(details.get(2)).startsWith("retry: ").contains("refused");
+        assertThat(details.get(details.size() - 1)).startsWith("delivered: ");
         JsonNode body = JSON.readTree(chat.accepted().stream().filter(r -> r.body().contains(confirmed)).findFirst().orElseThrow().body());
         assertThat(body.get("severity").asText()).isEqualTo("critical");
         assertThat(body.get("text").asText()).contains("confirmed inverted").contains("Inverted since 2026-01-02")
@@ -161,7 +171,7 @@ class AlertTimelineTest {
         String id = "first-inversion~GOVT-B:10Y-3M~2026-05-04~1";
         Awaitility.await("the muted notice journalled").atMost(PATIENCE).until(() -> deliveryStatus(id, "desk-chat") != null);
         assertThat(deliveryStatus(id, "desk-chat")).isEqualTo("SKIPPED");
-        given().get("/api/alerts/" + id).then().statusCode(200).body("muted_by", containsString("muted by ops"));
+        given().get("/api/alerts/" + id).then().statusCode(200).body("alert.muted_by", containsString("muted by ops"));
         assertThat(acceptedIds()).doesNotContain(id);
         given().contentType("application/json").body("{\"rule\":\"no-such-rule\",\"duration\":\"PT1H\",\"reason\":\"x\",\"by\":\"ops\"}")
                 .post("/api/mutes").then().statusCode(400);
@@ -185,8 +195,8 @@ class AlertTimelineTest {
         post(days("GOVT-B", LocalDate.of(2026, 6, 15), LocalDate.of(2026, 6, 16), -5.0));
         String id = "first-inversion~GOVT-B:10Y-3M~2026-06-15~1";
         Awaitility.await("a notice under the reloaded policy").atMost(PATIENCE).until(() -> acceptedIds().contains(id));
-        String hash = given().get("/api/alerts/" + id).then().statusCode(200).body("text", containsString("dipped below zero"))
-                .extract().path("policy_hash");
+        String hash = given().get("/api/alerts/" + id).then().statusCode(200).body("alert.text", containsString("dipped below zero"))
+                .extract().path("alert.policy_hash");
         assertThat(hash).as("the alert names the rule set it was decided under").isNotEqualTo(before).hasSize(64);
     }
 
@@ -238,7 +248,7 @@ class AlertTimelineTest {
         if (response.statusCode() != 200) {
             return null;
         }
-        for (JsonNode d : JSON.readTree(response.asString()).get("deliveries")) {
+        for (JsonNode d : JSON.readTree(response.asString()).get("alert").get("deliveries")) {
             if (d.get("channel").asText().equals(channel)) {
                 return d;
             }
@@ -258,9 +268,6 @@ class AlertTimelineTest {
         return ids;
     }
 
-    private static long requestsFor(String id) {
-        return chat.requests().stream().filter(r -> r.body().contains(id)).count();
-    }
 
     private static MimeMessage mail(String subject) throws Exception {
         for (MimeMessage m : SmtpTestResource.greenMail.getReceivedMessages()) {
