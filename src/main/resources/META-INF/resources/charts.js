@@ -200,18 +200,22 @@ window.slopewatchCharts = (function () {
     return [];
   }
 
-  function curveChart(c, tenors, width) {
+  // The curve on its latest date, and (dashed, lighter) the same curve three months before when known.
+  function curveChart(c, tenors, width, before) {
     const height = 150;
     const m = { left: 40, right: 12, top: 10, bottom: 24 };
     const values = tenors.map(t => c.yields_bp[t] / 100);
+    const old = before ? tenors.map(t => (before.yields_bp[t] === undefined ? null : before.yields_bp[t] / 100)) : [];
+    const label = c.curve + ' yield curve on ' + c.date + ': ' + tenors.map((t, i) => t + ' ' + values[i].toFixed(2) + ' %').join(', ')
+      + (before ? '; on ' + before.date + ': ' + tenors.map((t, i) => t + ' ' + (old[i] === null ? 'not quoted' : old[i].toFixed(2) + ' %')).join(', ') : '');
     const chart = svg('svg', { viewBox: '0 0 ' + width + ' ' + height, width, height, role: 'img', class: 'curve-chart',
-      'aria-label': c.curve + ' yield curve on ' + c.date + ': ' + tenors.map((t, i) => t + ' ' + values[i].toFixed(2) + ' %').join(', ') },
-    svg('title', null, c.curve + ' yield curve'));
+      'aria-label': label }, svg('title', null, c.curve + ' yield curve' + (before ? ', now and three months before' : '')));
     if (tenors.length === 0) {
       return chart;
     }
-    let lo = Math.min(...values);
-    let hi = Math.max(...values);
+    const all = values.concat(old.filter(v => v !== null));
+    let lo = Math.min(...all);
+    let hi = Math.max(...all);
     const pad = Math.max(0.05, (hi - lo) * 0.1);
     const { ticks, step } = niceTicks(lo - pad, hi + pad, 3);
     lo = Math.min(lo - pad, ticks[0]);
@@ -229,10 +233,28 @@ window.slopewatchCharts = (function () {
         chart.append(svg('text', { x: x(i), y: height - 6, 'text-anchor': 'middle' }, t));
       }
     });
+    if (before) {
+      let d = '';
+      let pen = 'M';
+      old.forEach((v, i) => {
+        if (v === null) {
+          pen = 'M';
+          return;
+        }
+        d += pen + x(i).toFixed(1) + ' ' + y(v).toFixed(1) + ' ';
+        pen = 'L';
+      });
+      chart.append(svg('path', { class: 'series-earlier', fill: 'none', stroke: '#9a8f7a', 'stroke-width': 1.5,
+        'stroke-dasharray': '5 4', d: d.trim() }, svg('title', null, 'on ' + before.date)));
+    }
     chart.append(svg('path', { class: 'series', fill: 'none', stroke: '#24566b', 'stroke-width': 1.8, 'stroke-linejoin': 'round',
       d: values.map((v, i) => (i === 0 ? 'M' : 'L') + x(i).toFixed(1) + ' ' + y(v).toFixed(1)).join(' ') }));
     values.forEach((v, i) => chart.append(svg('circle', { cx: x(i), cy: y(v), r: 2.8, fill: '#ffffff', stroke: '#24566b',
       'stroke-width': 1.5 }, svg('title', null, tenors[i] + ': ' + v.toFixed(2) + ' %'))));
+    if (before) {
+      chart.append(svg('text', { x: width - m.right, y: m.top + 10, 'text-anchor': 'end', class: 'legend' },
+        '\u2014 ' + c.date + '   - - ' + before.date));
+    }
     return chart;
   }
 

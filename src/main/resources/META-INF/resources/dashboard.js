@@ -17,6 +17,7 @@
   };
 
   const histories = new Map();   // spread id -> [{date, value_bp}]
+  const earlier = new Map();     // curve -> {for: latest date, curve: snapshot three months before (or null)}
   let last = null;               // what the last successful poll read, for redrawing on resize
   let lastGood = null;           // when that was
   let polls = 0;
@@ -86,6 +87,27 @@
     histories.set(s.id, points);
   }
 
+  // The same curve three months before its latest date (the latest market date on or before it).
+  async function loadEarlierCurve(c) {
+    const known = earlier.get(c.curve);
+    if (known && known.for === c.date) {
+      return;
+    }
+    const d = new Date(c.date + 'T00:00:00Z');
+    d.setUTCMonth(d.getUTCMonth() - 3);
+    const back = d.toISOString().slice(0, 10);
+    const response = await fetch('/api/curves/' + encodeURIComponent(c.curve) + '?on_or_before=' + back,
+      { cache: 'no-store', headers: { Accept: 'application/json' } });
+    if (response.status === 404) {
+      earlier.set(c.curve, { for: c.date, curve: null });   // no history that far back yet
+      return;
+    }
+    if (!response.ok) {
+      throw new Error('GET /api/curves/' + c.curve + ' answered ' + response.status);
+    }
+    earlier.set(c.curve, { for: c.date, curve: await response.json() });
+  }
+
   // Spells are read off the transitions: entering INVERTED starts one, CONFIRMED confirms it,
   // leaving INVERTED or CONFIRMED for NORMAL or RESTEEPENING ends it. The end of a hold period
   // (RESTEEPENING -> NORMAL) belongs to no spell.
@@ -129,12 +151,12 @@
     busy = true;
     const problems = [];
     try {
-      const [spreads, curves, transitions] = await Promise.all(
-        [fetchJson('/api/spreads'), fetchJson('/api/curves'), fetchJson('/api/transitions')]);
-      const results = await Promise.allSettled(spreads.map(loadHistory));
+      const [spreads, curves, transitions, alerts] = await Promise.all(
+        [fetchJson('/api/spreads'), fetchJson('/api/curves'), fetchJson('/api/transitions'), fetchJson('/api/alerts?limit=200')]);
+      const results = await Promise.allSettled([...spreads.map(loadHistory), ...curves.map(loadEarlierCurve)]);
       results.filter(r => r.status === 'rejected')
         .forEach(r => problems.push('Could not read from the slopewatch API (' + r.reason.message + ').'));
-      last = { spreads, curves, transitions, spells: spellsBySpread(transitions) };
+      last = { spreads, curves, transitions, alerts, spells: spellsBySpread(transitions) };
       lastGood = new Date();
     } catch (e) {
       problems.push('Could not read from the slopewatch API (' + e.message + ').');
@@ -189,9 +211,110 @@
   // ---- drawing ----
 
   function render() {
+    renderAlerts();
+    renderOverview();
     renderSpreads();
     renderCurves();
     renderChanges();
+  }
+
+  function odds(p) {
+    if (!p) {
+      return '\u2014';
+    }
+    const band = p.band90_lower === null || p.band90_lower === undefined ? ''
+      : ' (90% band ' + Math.round(100 * p.band90_lower) + '\u2013' + Math.round(100 * p.band90_upper) + '%)';
+    return Math.round(100 * p.value) + '%' + band + ' for ' + p.recession_month;
+  }
+
+  function renderOverview() {
+    const rows = document.getElementById('overview-rows');
+    const spreads = [...last.spreads].sort((a, b) => a.curve.localeCompare(b.curve));
+    rows.replaceChildren(...spreads.map(s => el('tr', { 'data-spread': s.id, 'data-state': s.state },
+      el('th', { scope: 'row' }, s.curve + ' ' + s.spread),
+      el('td', { class: 'num' }, s.value_bp === null ? '\u2014' : signed(s.value_bp, 1)),
+      el('td', null, stateTag(s.state)),
+      el('td', { class: 'num' }, String(s.days_inverted)),
+      el('td', { class: 'num' }, s.quarter_to_date_average_bp === null ? '\u2014' : signed(s.quarter_to_date_average_bp, 1)),
+      el('td', { class: 'odds' }, odds(s.probability)),
+      el('td', null, el('a', { href: '#spread-' + slug(s.id), class: 'show-chart' }, 'Chart', el('span', { class: 'visually-hidden' },
+        ' of ' + s.curve + ' ' + s.spread))))));
+  }
+
+  // Open alert episodes, each with the id of its latest notice (rule~subject~since~notices, as the server makes it).
+  function renderAlerts() {
+    const list = document.getElementById('alert-list');
+    const open = last.alerts.open || [];
+    document.getElementById('alerts-empty').hidden = open.length > 0;
+    const byId = new Map((last.alerts.recent || []).map(a => [a.id, a]));
+    const keep = new Set();
+    for (const episode of open) {
+      const id = episode.rule + '~' + episode.subject + '~' + episode.since + '~' + episode.notices;
+      const key = 'alert-' + slug(episode.rule + '-' + episode.subject);
+      keep.add(key);
+      const notice = byId.get(id);
+      let item = document.getElementById(key);
+      if (!item) {
+        item = el('li', { id: key, class: 'alert-item' });
+        list.append(item);
+      }
+      if (item.dataset.alertId === id && item.dataset.acknowledged === String(episode.acknowledged)) {
+        continue;   // unchanged: keep whatever is being typed into the form
+      }
+      item.dataset.alertId = id;
+      item.dataset.acknowledged = String(episode.acknowledged);
+      const severity = notice ? notice.severity.toLowerCase() : 'info';
+      item.className = 'alert-item severity-' + severity;
+      const head = el('p', { class: 'alert-head' }, el('span', { class: 'severity' }, severity), ' ',
+        el('strong', null, notice ? notice.title.replace(/^\[[A-Z]+\]\s*/, '') : episode.rule + ' on ' + episode.subject));
+      const meta = el('p', { class: 'muted' }, 'Rule ' + episode.rule + ' \u00b7 since ' + episode.since + ' \u00b7 '
+        + episode.notices + (episode.notices === 1 ? ' notice' : ' notices'));
+      if (episode.acknowledged) {
+        item.replaceChildren(head, meta, el('p', { class: 'acked' }, 'Acknowledged: no more reminders.'));
+        continue;
+      }
+      const inputId = key + '-by';
+      const form = el('form', { class: 'ack-form' },
+        el('label', { for: inputId }, 'Your name'),
+        el('input', { id: inputId, name: 'by', required: 'required', autocomplete: 'name' }),
+        el('button', { type: 'submit' }, 'Acknowledge'),
+        el('span', { class: 'ack-result', role: 'status' }));
+      form.addEventListener('submit', ev => {
+        ev.preventDefault();
+        acknowledge(id, form);
+      });
+      item.replaceChildren(head, meta, form);
+    }
+    for (const item of [...list.children]) {
+      if (!keep.has(item.id)) {
+        item.remove();
+      }
+    }
+  }
+
+  async function acknowledge(id, form) {
+    const by = form.querySelector('input').value.trim();
+    const result = form.querySelector('.ack-result');
+    if (!by) {
+      result.textContent = 'Say who acknowledges.';
+      return;
+    }
+    form.querySelector('button').disabled = true;
+    try {
+      const response = await fetch('/api/alerts/' + encodeURIComponent(id) + '/ack', {
+        method: 'POST', headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
+        body: JSON.stringify({ by })
+      });
+      if (!response.ok) {
+        const body = await response.json().catch(() => ({}));
+        throw new Error(body.error || ('answered ' + response.status));
+      }
+      result.textContent = 'Acknowledged by ' + by + '.';
+      schedule(300);
+    } catch (e) {
+      result.textContent = 'Not acknowledged: ' + e.message;
+      form.querySelector('button').disabled = false;
+    }
   }
 
   function renderSpreads() {
@@ -310,15 +433,18 @@
       }
       card.dataset.curve = c.curve;
       card.querySelector('.asof').textContent = 'market date ' + c.date;
+      const before = (earlier.get(c.curve) || {}).curve || null;
       const tenors = Object.keys(c.yields_bp);
       const figure = card.querySelector('.curve-shape');
       const width = Math.max(260, Math.round(figure.clientWidth || 520));
-      figure.replaceChildren(curveChart(c, tenors, width));
+      figure.replaceChildren(curveChart(c, tenors, width, before && before.date !== c.date ? before : null));
       card.querySelector('.table-scroll').replaceChildren(el('table', { class: 'yields' },
         el('caption', { class: 'visually-hidden' }, c.curve + ' yields on ' + c.date + ', percent'),
         el('tbody', null,
           el('tr', null, el('th', { scope: 'row' }, 'Tenor'), ...tenors.map(t => el('th', { scope: 'col' }, t))),
-          el('tr', null, el('th', { scope: 'row' }, 'Yield %'), ...tenors.map(t => el('td', null, percent(c.yields_bp[t])))))));
+          el('tr', null, el('th', { scope: 'row' }, 'Yield % ' + c.date), ...tenors.map(t => el('td', null, percent(c.yields_bp[t])))),
+          before && before.date !== c.date ? el('tr', { class: 'earlier' }, el('th', { scope: 'row' }, 'Yield % ' + before.date),
+            ...tenors.map(t => el('td', null, percent(before.yields_bp[t])))) : null)));
     });
     for (const card of [...box.children]) {
       if (!keep.has(card.id)) {

@@ -43,4 +43,11 @@ public final class CurveBook {
         NavigableMap<LocalDate, CurveSnapshot> byDate = curves.get(curve);
         return byDate == null ? null : byDate.get(date);
     }
+
+    /** The snapshot of a curve on the latest market date on or before {@code date}, or null. */
+    public CurveSnapshot snapshotOnOrBefore(String curve, LocalDate date) {
+        NavigableMap<LocalDate, CurveSnapshot> byDate = curves.get(curve);
+        Map.Entry<LocalDate, CurveSnapshot> e = byDate == null ? null : byDate.floorEntry(date);
+        return e == null ? null : e.getValue();
+    }
 }

@@ -240,6 +240,11 @@ public final class QuotePipeline {
         return book.snapshot(curve, date);
     }
 
+    /** A curve's snapshot on the latest market date on or before a date, or null. */
+    public synchronized CurveSnapshot curveOnOrBefore(String curve, LocalDate date) {
+        return book.snapshotOnOrBefore(curve, date);
+    }
+
     public synchronized List<SpreadStatus> spreads() {
         return engine.tracks().stream().map(SpreadStatus::of).toList();
     }

@@ -56,6 +56,20 @@ public class ReadResource {
     }
 
     @GET
+    @Path("/curves/{curve}")
+    @Operation(summary = "A curve's snapshot on the latest market date on or before a date (e.g. three months back, for comparison)")
+    public ApiViews.CurveView curveOnOrBefore(@PathParam("curve") String curve, @QueryParam("on_or_before") String onOrBefore) {
+        if (onOrBefore == null) {
+            throw new BadRequestException("give on_or_before=YYYY-MM-DD");
+        }
+        var snapshot = pipeline.curveOnOrBefore(curve, date(onOrBefore, null));
+        if (snapshot == null) {
+            throw new NotFoundException("no quotes for " + curve + " on or before " + onOrBefore);
+        }
+        return ApiViews.CurveView.of(snapshot);
+    }
+
+    @GET
     @Path("/spreads")
     @Operation(summary = "Each spread's latest value, state, open spell and quarter-to-date average")
     public List<ApiViews.SpreadView> spreads() {

@@ -141,6 +141,46 @@ class DashboardBrowserTest {
         screenshot("dashboard-narrow.png");
     }
 
+    /*
+     * The default policy's first-inversion rule (alert-rules/default.yaml) fires when GOVT-B's 10Y-3M
+     * goes below zero; the page lists it as an open alert, and acknowledging it there is journalled
+     * and shown. The curve card compares the latest curve with the one three months before.
+     */
+    @Test
+    void anOpenAlertIsAcknowledgedFromThePageAndTheCurveIsComparedWithThreeMonthsBefore() {
+        given().contentType(ContentType.JSON).body("""
+                [{"curve":"GOVT-B","date":"2026-02-16","yields":{"3M":4.10,"1Y":4.15,"2Y":4.20,"5Y":4.35,"10Y":4.50,"30Y":4.70}},
+                 {"curve":"GOVT-B","date":"2026-05-18","yields":{"3M":4.60,"1Y":4.55,"2Y":4.45,"5Y":4.40,"10Y":4.45,"30Y":4.60}}]""")
+                .post("/api/quotes").then().statusCode(200).body("accepted", equalTo(2));
+        String id = "first-inversion~GOVT-B:10Y-3M~2026-05-18~1";
+        given().get("/api/alerts/" + id).then().statusCode(200).body("alert.rule", equalTo("first-inversion"));
+
+        browser.manage().window().setSize(new Dimension(1280, 2300));
+        browser.get(page.toString());
+        WebDriverWait wait = new WebDriverWait(browser, PATIENCE);
+        By item = By.cssSelector("li.alert-item[data-alert-id='" + id + "']");
+        wait.withMessage("the open alert " + id + " should be listed").until(b -> !b.findElements(item).isEmpty());
+        WebElement alert = browser.findElement(item);
+        assertThat(alert.getText()).contains("GOVT-B 10Y-3M").contains("since 2026-05-18");
+        WebElement name = alert.findElement(By.cssSelector("input[name='by']"));
+        assertThat(browser.findElement(By.cssSelector("label[for='" + name.getAttribute("id") + "']")).getText()).isEqualTo("Your name");
+        name.sendKeys("desk lead");
+        alert.findElement(By.cssSelector("button[type='submit']")).click();
+        wait.withMessage("the page should show the alert acknowledged")
+                .until(b -> b.findElement(item).getText().contains("Acknowledged"));
+        given().get("/api/alerts/" + id).then().statusCode(200).body("alert.acks[0].by", equalTo("desk lead"));
+
+        By row = By.cssSelector("#overview-rows tr[data-spread='GOVT-B:10Y-3M']");
+        wait.withMessage("the overview table should list GOVT-B 10Y-3M as inverted")
+                .until(b -> !b.findElements(row).isEmpty() && "INVERTED".equals(b.findElement(row).getAttribute("data-state")));
+        assertThat(browser.findElement(row).getText()).contains("\u221215.0");
+
+        By earlier = By.cssSelector("article[data-curve='GOVT-B'] svg.curve-chart path.series-earlier");
+        wait.withMessage("the GOVT-B curve should be drawn against 2026-02-16").until(b -> !b.findElements(earlier).isEmpty());
+        assertThat(browser.findElement(By.cssSelector("article[data-curve='GOVT-B'] svg.curve-chart")).getAttribute("aria-label"))
+                .contains("on 2026-02-16");
+    }
+
     private static void screenshot(String name) throws IOException {
         Path shot = ((TakesScreenshot) browser).getScreenshotAs(OutputType.FILE).toPath();
         Files.copy(shot, Path.of("target", name), StandardCopyOption.REPLACE_EXISTING);
