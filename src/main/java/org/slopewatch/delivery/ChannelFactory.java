@@ -36,17 +36,19 @@ public final class ChannelFactory {
      * The four types slopewatch ships. The mailer is asked for only when an email channel is made.
      *
      * @param smtpSecrets knows the SMTP password, so that no email reason repeats it
+     * @param webhookHosts the hosts chat webhooks may point at
      */
-    public static ChannelFactory standard(Supplier<Mailer> mailer, Redactor smtpSecrets, Emitter<String> stream) {
+    public static ChannelFactory standard(Supplier<Mailer> mailer, Redactor smtpSecrets, Emitter<String> stream,
+                                          HostAllowlist webhookHosts) {
         Map<String, Maker> makers = new LinkedHashMap<>();
-        makers.put(ChatWebhookChannel.TYPE, ChannelFactory::chatWebhook);
+        makers.put(ChatWebhookChannel.TYPE, (name, s) -> chatWebhook(name, s, webhookHosts));
         makers.put(EmailChannel.TYPE, (name, s) -> new EmailChannel(name, mailer.get(), s.to(), smtpSecrets));
         makers.put(LogChannel.TYPE, (name, s) -> new LogChannel(name));
         makers.put(StreamChannel.TYPE, (name, s) -> new StreamChannel(name, stream, s.timeout()));
         return new ChannelFactory(makers);
     }
 
-    private static AlertChannel chatWebhook(String name, ChannelSettings s) {
+    private static AlertChannel chatWebhook(String name, ChannelSettings s, HostAllowlist webhookHosts) {
         String url = s.url().filter(u -> !u.isBlank()).orElseThrow(() -> new IllegalArgumentException("channel '" + name
                 + "': type chat-webhook needs a url (slopewatch.channels." + name + ".url, e.g. ${SLOPEWATCH_CHAT_URL})"));
         String formatName = s.format().orElse(ChatWebhookChannel.Format.TEXT.configName());
@@ -59,7 +61,13 @@ public final class ChannelFactory {
             throw new IllegalArgumentException("channel '" + name + "': unknown format '" + formatName + "'; known formats: "
                     + String.join(", ", known));
         }
-        return new ChatWebhookChannel(name, url, format, s.timeout());
+        ChatWebhookChannel channel = new ChatWebhookChannel(name, url, format, s.timeout());
+        if (!channel.pointsWithin(webhookHosts)) {
+            // the host is named (it is not the secret part); the path and query are not
+            throw new IllegalArgumentException("channel '" + name + "': the url's host " + channel.host()
+                    + " is not among the allowed webhook hosts: " + webhookHosts.describe());
+        }
+        return channel;
     }
 
     /** The type names this factory knows, sorted. */

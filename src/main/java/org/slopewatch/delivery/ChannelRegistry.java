@@ -33,7 +33,7 @@ public class ChannelRegistry {
     private final Map<String, AlertChannel> channels;
 
     @Inject
-    ChannelRegistry(ChannelsConfig config, Config rawConfig, Mailer mailer,
+    ChannelRegistry(ChannelsConfig config, DeliveryConfig delivery, Config rawConfig, Mailer mailer,
                     @ConfigProperty(name = "quarkus.mailer.password") Optional<String> smtpPassword,
                     @Channel(StreamChannel.CHANNEL) Emitter<String> stream) {
         Map<String, ChannelSettings> settings = new LinkedHashMap<>();
@@ -42,7 +42,8 @@ public class ChannelRegistry {
             settings.put(e.getKey(), new ChannelSettings(c.type(), c.url(), c.format(), c.to().orElse(List.of()), c.timeout(),
                     origin(rawConfig, "slopewatch.channels." + e.getKey() + ".type")));
         }
-        ChannelFactory factory = ChannelFactory.standard(() -> mailer, Redactor.of(smtpPassword.stream().toList()), stream);
+        ChannelFactory factory = ChannelFactory.standard(() -> mailer, Redactor.of(smtpPassword.stream().toList()), stream,
+                new HostAllowlist(delivery.allowedHosts().orElse(List.of())));
         this.channels = factory.createAll(settings);
         LOG.infof("delivery channels: %s", summary(channels.values()));
     }

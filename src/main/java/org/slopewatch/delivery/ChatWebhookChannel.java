@@ -106,6 +106,16 @@ public final class ChatWebhookChannel implements AlertChannel {
         return name;
     }
 
+    /** Whether the webhook's host is on the list. */
+    public boolean pointsWithin(HostAllowlist allowed) {
+        return allowed.allows(url);
+    }
+
+    /** The webhook's host, which may appear in messages (its path and query may not: they carry the token). */
+    public String host() {
+        return url.getHost();
+    }
+
     @Override
     public String type() {
         return TYPE;

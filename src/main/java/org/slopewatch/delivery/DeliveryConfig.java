@@ -3,12 +3,20 @@ package org.slopewatch.delivery;
 import io.smallrye.config.ConfigMapping;
 import io.smallrye.config.WithDefault;
 import java.time.Duration;
+import java.util.List;
+import java.util.Optional;
 
-/** Delivery settings shared by every channel: the retry policy. */
+/** Delivery settings shared by every channel: the retry policy and where webhooks may go. */
 @ConfigMapping(prefix = "slopewatch.delivery")
 public interface DeliveryConfig {
 
     Retry retry();
+
+    /**
+     * Hosts chat webhooks may point at: names, addresses or {@code *.domain}; empty allows none, so
+     * a webhook channel then stops start-up.
+     */
+    Optional<List<String>> allowedHosts();
 
     /** See {@link RetryPolicy}. */
     interface Retry {

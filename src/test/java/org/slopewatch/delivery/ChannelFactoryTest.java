@@ -16,7 +16,7 @@ class ChannelFactoryTest {
 
     private final ChannelFactory factory = ChannelFactory.standard(() -> {
         throw new AssertionError("no mailer is needed unless an email channel is made");
-    }, Redactor.none(), null);
+    }, Redactor.none(), null, new HostAllowlist(List.of("chat.example.org")));
 
     @Test
     void theFourTypesAreKnown() {
@@ -54,11 +54,35 @@ class ChannelFactoryTest {
                         + "${SLOPEWATCH_CHAT_URL}) (configured in " + FILE + ")");
         assertThatThrownBy(() -> factory.create("desk-chat", ChannelSettings.ofType("chat-webhook").withUrl("https://chat.example.org/h")
                 .withFormat("markdown"))).hasMessageStartingWith("channel 'desk-chat': unknown format 'markdown'; known formats: text, alert-json");
-        ChannelFactory withMailer = ChannelFactory.standard(() -> mails -> { }, Redactor.none(), null);
+        ChannelFactory withMailer = ChannelFactory.standard(() -> mails -> { }, Redactor.none(), null, HostAllowlist.NONE);
         assertThatThrownBy(() -> withMailer.create("desk-mail", ChannelSettings.ofType("email")))
                 .hasMessageStartingWith("channel 'desk-mail': no recipients (set slopewatch.channels.desk-mail.to)");
         assertThatThrownBy(() -> withMailer.create("desk-mail", ChannelSettings.ofType("email").withTo(List.of("desk"))))
                 .hasMessageStartingWith("channel 'desk-mail': 'desk' is not an email address");
+    }
+
+    /*
+     * Safe outbound calls: a webhook may only point at an allowed host, named exactly or under an
+     * allowed domain; the refusal names the host but never the path, which carries the token.
+     */
+    @Test
+    void aWebhookOutsideTheAllowedHostsStopsStartUpWithoutShowingItsPath() {
+        ChannelFactory strict = ChannelFactory.standard(() -> null, Redactor.none(), null,
+                new HostAllowlist(List.of("chat.example.org", "*.desk.example.org")));
+        assertThat(strict.create("desk-chat", ChannelSettings.ofType("chat-webhook").withUrl("https://chat.example.org/hooks/T0K3N")))
+                .isInstanceOf(ChatWebhookChannel.class);
+        assertThat(strict.create("desk-chat", ChannelSettings.ofType("chat-webhook").withUrl("https://hooks.desk.example.org/x")))
+                .as("under an allowed domain").isInstanceOf(ChatWebhookChannel.class);
+        for (String elsewhere : List.of("https://collector.example.net/hooks/T0K3N", "https://desk.example.org/hooks/T0K3N",
+                "https://chat.example.org.evil.example.net/hooks/T0K3N")) {
+            assertThatThrownBy(() -> strict.create("desk-chat", ChannelSettings.ofType("chat-webhook").withUrl(elsewhere).withOrigin(FILE)))
+                    .isInstanceOf(ChannelConfigException.class)
+                    .hasMessageContaining("is not among the allowed webhook hosts: chat.example.org, *.desk.example.org")
+                    .hasMessageNotContaining("T0K3N");
+        }
+        assertThatThrownBy(() -> ChannelFactory.standard(() -> null, Redactor.none(), null, HostAllowlist.NONE)
+                .create("desk-chat", ChannelSettings.ofType("chat-webhook").withUrl("https://chat.example.org/hooks/T0K3N")))
+                .as("an empty list allows nothing").hasMessageContaining("none configured (slopewatch.delivery.allowed-hosts)");
     }
 
     @Test

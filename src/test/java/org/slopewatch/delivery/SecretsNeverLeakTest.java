@@ -110,13 +110,16 @@ class SecretsNeverLeakTest {
 
     @Test
     void chatWebhookConfigurationErrorsDoNotQuoteTheUrl() {
-        ChannelFactory factory = ChannelFactory.standard(() -> null, Redactor.none(), stream);
+        ChannelFactory factory = ChannelFactory.standard(() -> null, Redactor.none(), stream,
+                new HostAllowlist(List.of("chat.example.org")));
         String url = "https://chat.example.org/hooks/" + PATH_TOKEN + "?key=" + QUERY_TOKEN;
+        ChannelSettings elsewhere = ChannelSettings.ofType("chat-webhook").withUrl("https://collector.example.net/hooks/" + PATH_TOKEN
+                + "?key=" + QUERY_TOKEN);
         ChannelSettings badFormat = ChannelSettings.ofType("chat-webhook").withUrl(url).withFormat("markdown");
         ChannelSettings badUrl = ChannelSettings.ofType("chat-webhook").withUrl("htps:// chat.example.org/" + PATH_TOKEN);
         ChannelSettings noHost = ChannelSettings.ofType("chat-webhook").withUrl("mailto:" + PATH_TOKEN);
 
-        for (ChannelSettings settings : List.of(badFormat, badUrl, noHost)) {
+        for (ChannelSettings settings : List.of(badFormat, badUrl, noHost, elsewhere)) {
             assertThatThrownBy(() -> factory.create("desk-chat", settings)).isInstanceOf(ChannelConfigException.class)
                     .message().contains("desk-chat").doesNotContain(PATH_TOKEN).doesNotContain(QUERY_TOKEN);
             assertThat(settings.toString()).doesNotContain(PATH_TOKEN);
@@ -162,7 +165,7 @@ class SecretsNeverLeakTest {
 
     /** An email channel made the way the registry makes one, with the given mailer and its password. */
     private AlertChannel emailVia(io.quarkus.mailer.Mailer mailer, String password) {
-        return ChannelFactory.standard(() -> mailer, Redactor.of(List.of(password)), stream)
+        return ChannelFactory.standard(() -> mailer, Redactor.of(List.of(password)), stream, new HostAllowlist(List.of("127.0.0.1")))
                 .create("desk-mail", ChannelSettings.ofType("email").withTo(List.of(SmtpTestResource.DESK)));
     }
 
@@ -179,7 +182,7 @@ class SecretsNeverLeakTest {
     @Test
     void everyChannelTypeIsCovered() throws Exception {
         assertThat(CONTRACT.keySet()).as("every type the factory knows has its cases in this contract")
-                .containsAll(ChannelFactory.standard(() -> null, Redactor.none(), null).knownTypes());
+                .containsAll(ChannelFactory.standard(() -> null, Redactor.none(), null, HostAllowlist.NONE).knownTypes());
         for (String method : CONTRACT.values()) {
             assertThat(SecretsNeverLeakTest.class.getDeclaredMethod(method).isAnnotationPresent(Test.class))
                     .as("%s is a test", method).isTrue();

@@ -23,6 +23,20 @@ class AlertSectionTest {
         return catchThrowableOfType(PolicyException.class, () -> PolicyParser.parse("p.yaml", yaml)).getMessage();
     }
 
+    /*
+     * Safe outbound calls: a policy file cannot say where a channel points, so it cannot send the
+     * desk's alerts to a host of its choosing; a URL in it is refused at load with its position.
+     */
+    @Test
+    void aPolicyNamingAHostForAChannelIsRejectedAtLoad() {
+        String message = problems(WATCH + """
+                channels:
+                  desk-chat: { type: chat-webhook, url: "https://collector.example.net/hooks/abc" }
+                alerts: []
+                """);
+        assertThat(message).contains("p.yaml:").contains("unknown key 'url' in channel 'desk-chat' (known: type)");
+    }
+
     @Test
     void theShippedDefaultPolicyHasTheFourAlertsTheDeskSignedOff() throws IOException, PolicyException {
         Policy p = PolicyParser.parse("default.yaml", Files.readString(Path.of("alert-rules/default.yaml")));
