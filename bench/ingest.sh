@@ -12,7 +12,9 @@ mkdir -p bench/out
 data=$(mktemp -d /tmp/slopewatch-bench-XXXXXX)
 policy=${BENCH_POLICY:-alert-rules/default.yaml}
 echo "ingest-http policy=$policy"
-java -Xmx2g ${DAEMON_JAVA_OPTS:-} -Dslopewatch.home="$PWD" -Dslopewatch.data-dir="$data" -Dslopewatch.ingest.max-days-ahead=36500 \
+token="bench-$(od -An -N12 -tx1 /dev/urandom | tr -d ' \n')"
+export SLOPEWATCH_BENCH_TOKEN="$token"
+java -Xmx2g ${DAEMON_JAVA_OPTS:-} -Dslopewatch.security.write-tokens="$token" -Dslopewatch.home="$PWD" -Dslopewatch.data-dir="$data" -Dslopewatch.ingest.max-days-ahead=36500 \
      -Dslopewatch.ingest.policy="$policy" \
      -Dquarkus.http.port="$port" -Dquarkus.log.category.\"org.slopewatch.transitions\".level=WARN \
      -jar target/quarkus-app/quarkus-run.jar serve > bench/out/ingest-daemon.log 2>&1 &

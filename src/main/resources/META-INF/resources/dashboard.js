@@ -23,6 +23,30 @@
   let polls = 0;
   let timer = null;
   let busy = false;
+  let token = sessionStorage.getItem('slopewatch-token');
+
+  function authorised(headers) {
+    return token ? Object.assign({ Authorization: 'Bearer ' + token }, headers) : headers;
+  }
+
+  // Asks for a token when the server wants one; the token stays in this tab's session storage.
+  function askForToken(why) {
+    const form = document.getElementById('token-form');
+    document.getElementById('token-why').textContent = why;
+    form.hidden = false;
+  }
+
+  document.getElementById('token-form').addEventListener('submit', ev => {
+    ev.preventDefault();
+    const value = document.getElementById('token-input').value.trim();
+    if (value) {
+      token = value;
+      sessionStorage.setItem('slopewatch-token', value);
+      document.getElementById('token-form').hidden = true;
+      document.getElementById('token-input').value = '';
+      schedule(0);
+    }
+  });
 
   // ---- small helpers ----
 
@@ -51,11 +75,14 @@
     const t = setTimeout(() => abort.abort(), 8000);
     let response;
     try {
-      response = await fetch(url, { cache: 'no-store', headers: { Accept: 'application/json' }, signal: abort.signal });
+      response = await fetch(url, { cache: 'no-store', headers: authorised({ Accept: 'application/json' }), signal: abort.signal });
     } catch (e) {
       throw new Error('GET ' + url + ': ' + (e.name === 'AbortError' ? 'no answer within 8 s' : 'the server cannot be reached'));
     } finally {
       clearTimeout(t);
+    }
+    if (response.status === 401) {
+      askForToken(token ? 'The access token was not accepted; enter another.' : 'This slopewatch asks for an access token to read.');
     }
     if (!response.ok) {
       throw new Error('GET ' + url + ' answered ' + response.status + (response.statusText ? ' ' + response.statusText : ''));
@@ -97,7 +124,7 @@
     d.setUTCMonth(d.getUTCMonth() - 3);
     const back = d.toISOString().slice(0, 10);
     const response = await fetch('/api/curves/' + encodeURIComponent(c.curve) + '?on_or_before=' + back,
-      { cache: 'no-store', headers: { Accept: 'application/json' } });
+      { cache: 'no-store', headers: authorised({ Accept: 'application/json' }) });
     if (response.status === 404) {
       earlier.set(c.curve, { for: c.date, curve: null });   // no history that far back yet
       return;
@@ -302,9 +329,12 @@
     form.querySelector('button').disabled = true;
     try {
       const response = await fetch('/api/alerts/' + encodeURIComponent(id) + '/ack', {
-        method: 'POST', headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
+        method: 'POST', headers: authorised({ 'Content-Type': 'application/json', Accept: 'application/json' }),
         body: JSON.stringify({ by })
       });
+      if (response.status === 401 || response.status === 403) {
+        askForToken('Acknowledging needs a token with the write role (the demo prints one when it starts).');
+      }
       if (!response.ok) {
         const body = await response.json().catch(() => ({}));
         throw new Error(body.error || ('answered ' + response.status));

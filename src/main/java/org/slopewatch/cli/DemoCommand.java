@@ -26,6 +26,12 @@ final class DemoCommand implements Callable<Integer> {
     @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "Scenario seed (default: ${DEFAULT-VALUE}).")
     long seed;
 
+    private static String newToken() {
+        byte[] bytes = new byte[24];
+        new java.security.SecureRandom().nextBytes(bytes);
+        return "demo-" + java.util.Base64.getUrlEncoder().withoutPadding().encodeToString(bytes);
+    }
+
     @Override
     public Integer call() throws IOException {
         Path dir = data != null ? data : Files.createTempDirectory("slopewatch-demo-");
@@ -37,7 +43,14 @@ final class DemoCommand implements Callable<Integer> {
         System.setProperty("slopewatch.ingest.max-days-ahead", "36500");
         System.setProperty("slopewatch.ingest.curves", "GOVT-A,GOVT-B");
         System.setProperty("quarkus.http.port", Integer.toString(port));
+        // a local demo: anyone on this machine may read; changing anything (posting quotes,
+        // acknowledging, muting) takes the token printed here, made afresh for each run
+        String token = newToken();
+        System.setProperty("slopewatch.security.write-tokens", token);
+        System.setProperty("slopewatch.security.open-reads", "true");
         System.out.println("slopewatch demo: journal in " + dir.toAbsolutePath());
+        System.out.println("slopewatch demo: write token for this run (POST /api/quotes, acknowledge, mute): " + token);
+        System.out.println("  e.g. curl -H 'Authorization: Bearer " + token + "' -X POST localhost:" + port + "/api/policy/reload");
         Quarkus.run(DaemonApplication.class, (code, failure) -> {
             if (failure != null) {
                 System.err.println("slopewatch demo: could not start: " + ServeCommand.rootMessage(failure));

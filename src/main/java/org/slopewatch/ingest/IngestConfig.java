@@ -29,5 +29,9 @@ public interface IngestConfig {
     @WithDefault("embedded")
     Transport transport();
 
+    /** The most quote messages one HTTP request may carry; more is answered 413 (the body size itself is quarkus.http.limits.max-body-size). */
+    @WithDefault("20000")
+    int maxBatch();
+
     enum Transport { EMBEDDED, KAFKA }
 }

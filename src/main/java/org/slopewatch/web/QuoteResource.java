@@ -19,6 +19,7 @@ import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.ingest.HistoryCsvReader;
 import org.slopewatch.ingest.HistoryFormatException;
+import org.slopewatch.ingest.IngestConfig;
 import org.slopewatch.ingest.IngestRules;
 import org.slopewatch.ingest.QuoteBatch;
 import org.slopewatch.ingest.QuoteDecoder;
@@ -39,11 +40,13 @@ public class QuoteResource {
     private final QuoteDecoder decoder;
     private final IngestRules rules;
     private final QuoteGateway gateway;
+    private final int maxBatch;
 
-    QuoteResource(QuoteDecoder decoder, IngestRules rules, QuoteGateway gateway) {
+    QuoteResource(QuoteDecoder decoder, IngestRules rules, QuoteGateway gateway, IngestConfig config) {
         this.decoder = decoder;
         this.rules = rules;
         this.gateway = gateway;
+        this.maxBatch = config.maxBatch();
     }
 
     @POST
@@ -87,6 +90,13 @@ public class QuoteResource {
     }
 
     private Response submit(QuoteBatch batch) {
+        int items = batch.messages().size() + batch.rejects().size();
+        if (items > maxBatch) {
+            // nothing is taken: a client that sends too much at once should split, not lose the tail
+            return Response.status(413).entity(new IngestAnswer(false, 0, 0, 0, 0, List.of(new IngestAnswer.Error(null, "too-large",
+                    "the request carries " + items + " quote messages; at most " + maxBatch + " per request "
+                            + "(slopewatch.ingest.max-batch): split it")))).build();
+        }
         QuoteGateway.Submitted submitted;
         try {
             submitted = gateway.submit(batch).toCompletableFuture().get(TIMEOUT_SECONDS, TimeUnit.SECONDS);

@@ -96,6 +96,7 @@ public final class IngestBench {
 
     private static int post(HttpClient http, String base, String body) throws Exception {
         HttpRequest request = HttpRequest.newBuilder(URI.create(base + "/api/quotes")).header("Content-Type", "application/json")
+                .header("Authorization", "Bearer " + System.getenv().getOrDefault("SLOPEWATCH_BENCH_TOKEN", ""))
                 .timeout(Duration.ofSeconds(120)).POST(HttpRequest.BodyPublishers.ofString(body)).build();
         return http.send(request, HttpResponse.BodyHandlers.discarding()).statusCode();
     }

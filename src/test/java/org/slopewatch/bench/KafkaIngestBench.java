@@ -55,7 +55,9 @@ public final class KafkaIngestBench {
         String policy = System.getenv().getOrDefault("BENCH_POLICY", "alert-rules/default.yaml");
         Process daemon = new ProcessBuilder("java", "-Xmx2g", "-Dslopewatch.home=" + home, "-Dslopewatch.data-dir=" + data,
                 "-Dslopewatch.ingest.policy=" + home.resolve(policy),
-                "-Dslopewatch.ingest.max-days-ahead=36500", "-Dquarkus.http.port=" + port, "-Dkafka.bootstrap.servers=" + bootstrap,
+                "-Dslopewatch.ingest.max-days-ahead=36500", "-Dquarkus.http.port=" + port,
+                // quotes come from the topic; the daemon still wants a write token to start
+                "-Dslopewatch.security.write-tokens=bench-" + java.util.UUID.randomUUID(), "-Dkafka.bootstrap.servers=" + bootstrap,
                 // the profile-specific keys, which win over plain ones in the kafka profile
                 "-D%kafka.mp.messaging.incoming.quotes.topic=" + topic, "-D%kafka.mp.messaging.incoming.quotes.group.id=bench-" + UUID.randomUUID(),
                 "-Dquarkus.log.category.\"org.slopewatch.transitions\".level=WARN",

@@ -16,13 +16,13 @@ import org.jboss.logmanager.ExtLogRecord;
  * Captures every record of the given log categories, down to the finest level, while it is open:
  * the formatted message, the MDC and the full stack trace of anything thrown.
  */
-final class LogCapture implements AutoCloseable {
+public final class LogCapture implements AutoCloseable {
 
     /** One captured record. */
-    record Line(String category, Level level, String message, Map<String, String> mdc, String thrown) {
+    public record Line(String category, Level level, String message, Map<String, String> mdc, String thrown) {
 
         /** Everything a reader of the log could see. */
-        String all() {
+        public String all() {
             return category + " " + level + " " + message + " " + mdc + " " + thrown;
         }
     }
@@ -63,7 +63,7 @@ final class LogCapture implements AutoCloseable {
         handler.setLevel(Level.ALL);
     }
 
-    static LogCapture of(String... categories) {
+    public static LogCapture of(String... categories) {
         LogCapture capture = new LogCapture();
         for (String category : categories) {
             Logger logger = Logger.getLogger(category);
@@ -90,7 +90,7 @@ final class LogCapture implements AutoCloseable {
         return capture;
     }
 
-    List<Line> lines() {
+    public List<Line> lines() {
         return List.copyOf(lines);
     }
 

@@ -1,0 +1,86 @@
+package org.slopewatch.security;
+
+import io.quarkus.runtime.Startup;
+import io.vertx.core.json.JsonObject;
+import io.vertx.ext.web.Router;
+import io.vertx.ext.web.RoutingContext;
+import jakarta.enterprise.event.Observes;
+import jakarta.inject.Singleton;
+import java.util.List;
+import java.util.Optional;
+import org.jboss.logging.Logger;
+
+/**
+ * Applies the {@link AccessRule} to every HTTP request, before the API, the metrics or the
+ * dashboard's files see it: no token or an unknown one is 401, a read token asking to write is
+ * 403. Answers say why in a few words and never repeat the token. With security on and no write
+ * token configured, start-up stops: a daemon nobody can feed is a misconfiguration, not a mode.
+ */
+@Startup
+@Singleton
+public class AccessFilter {
+
+    private static final Logger LOG = Logger.getLogger(AccessFilter.class);
+    // ahead of every route Quarkus registers (health, metrics, REST, static files)
+    private static final int FIRST = -10_000;
+
+    private final boolean enabled;
+    private final AccessRule rule;
+    private final TokenBook tokens;
+
+    AccessFilter(SecurityConfig config) {
+        this.enabled = config.enabled();
+        this.rule = new AccessRule(config.openReads(), config.openMetrics());
+        try {
+            this.tokens = TokenBook.of(config.readTokens().orElse(List.of()), config.writeTokens().orElse(List.of()));
+        } catch (IllegalArgumentException e) {
+            throw new IllegalStateException("slopewatch.security: " + e.getMessage(), e);
+        }
+        if (enabled && !tokens.hasWriteToken()) {
+            throw new IllegalStateException("no write token configured: set slopewatch.security.write-tokens (e.g. the environment "
+                    + "variable SLOPEWATCH_SECURITY_WRITE_TOKENS) to one or more tokens of at least 16 characters, or "
+                    + "sha256:<hex> of them; or slopewatch.security.enabled=false on a closed network");
+        }
+        if (!enabled) {
+            LOG.warn("slopewatch.security.enabled=false: the API accepts every request without a token");
+        }
+    }
+
+    void install(@Observes Router router) {
+        router.route().order(FIRST).handler(this::check);
+    }
+
+    private void check(RoutingContext rc) {
+        if (!enabled) {
+            rc.next();
+            return;
+        }
+        Optional<Role> needed = rule.needed(rc.request().method().name(), rc.normalizedPath());
+        if (needed.isEmpty()) {
+            rc.next();
+            return;
+        }
+        String header = rc.request().getHeader("Authorization");
+        String what = needed.get() == Role.WRITE ? "a token with the write role" : "a token with the read role";
+        if (header == null || !header.regionMatches(true, 0, "Bearer ", 0, 7) || header.length() <= 7) {
+            refuse(rc, 401, "this request needs " + what + " (Authorization: Bearer <token>)");
+            return;
+        }
+        Optional<Role> role = tokens.roleOf(header.substring(7).strip());
+        if (role.isEmpty()) {
+            refuse(rc, 401, "the bearer token is not valid");
+        } else if (!role.get().covers(needed.get())) {
+            refuse(rc, 403, "this token may read but not change anything; this request needs " + what);
+        } else {
+            rc.next();
+        }
+    }
+
+    private static void refuse(RoutingContext rc, int status, String reason) {
+        var response = rc.response().setStatusCode(status).putHeader("Content-Type", "application/json");
+        if (status == 401) {
+            response.putHeader("WWW-Authenticate", "Bearer realm=\"slopewatch\"");
+        }
+        response.end(new JsonObject().put("error", reason).encode());
+    }
+}
