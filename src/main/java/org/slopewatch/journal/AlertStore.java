@@ -1,5 +1,6 @@
 package org.slopewatch.journal;
 
+import java.io.IOException;
 import java.sql.Connection;
 import java.sql.Date;
 import java.sql.PreparedStatement;
@@ -54,6 +55,11 @@ public final class AlertStore {
 
     /** One journalled delivery attempt. */
     public record Attempt(String channel, int attempt, String outcome, String detail, String decision, Instant attemptedAt) {
+    }
+
+    /** One journalled delivery attempt with its alert and when it was recorded, for timelines and as-of answers. */
+    public record StoredAttempt(long id, String alertId, String channel, int attempt, String outcome, String detail, String decision,
+                                Instant attemptedAt, Instant recordedAt) {
     }
 
     /** A delivery due now, with its alert. */
@@ -209,19 +215,139 @@ public final class AlertStore {
     }
 
     private List<AlertView> views(Map<String, StoredAlert> alerts) {
+        return views(alerts, null);
+    }
+
+    /** The alerts with their deliveries and acknowledgements as they stood at {@code asOf} (null: now). */
+    private List<AlertView> views(Map<String, StoredAlert> alerts, Instant asOf) {
         if (alerts.isEmpty()) {
             return List.of();
         }
         Map<String, List<Delivery>> deliveries = new LinkedHashMap<>();
         Map<String, List<Ack>> acks = new LinkedHashMap<>();
-        String in = String.join(",", java.util.Collections.nCopies(alerts.size(), "?"));
-        List<String> ids = List.copyOf(alerts.keySet());
-        query("SELECT " + DELIVERY_COLUMNS + " FROM delivery d WHERE d.alert_id IN (" + in + ") ORDER BY d.channel", s -> bind(s, ids),
-                rs -> deliveries.computeIfAbsent(rs.getString(1), k -> new ArrayList<>()).add(delivery(rs, 1)));
-        query("SELECT alert_id, acked_by, note, recorded_at FROM alert_ack WHERE alert_id IN (" + in + ") ORDER BY id", s -> bind(s, ids),
-                rs -> acks.computeIfAbsent(rs.getString(1), k -> new ArrayList<>()).add(ack(rs)));
+        String recordedBy = asOf == null ? "" : " AND recorded_at <= ?";
+        for (List<String> ids : chunks(List.copyOf(alerts.keySet()))) {
+            String in = String.join(",", java.util.Collections.nCopies(ids.size(), "?"));
+            query("SELECT " + DELIVERY_COLUMNS + " FROM delivery d WHERE d.alert_id IN (" + in + ") ORDER BY d.channel", s -> bind(s, ids),
+                    rs -> deliveries.computeIfAbsent(rs.getString(1), k -> new ArrayList<>()).add(delivery(rs, 1)));
+            query("SELECT alert_id, acked_by, note, recorded_at FROM alert_ack WHERE alert_id IN (" + in + ")" + recordedBy + " ORDER BY id",
+                    s -> {
+                        bind(s, ids);
+                        if (asOf != null) {
+                            s.setTimestamp(ids.size() + 1, Timestamp.from(asOf));
+                        }
+                    }, rs -> acks.computeIfAbsent(rs.getString(1), k -> new ArrayList<>()).add(ack(rs)));
+        }
+        Map<String, List<StoredAttempt>> attempts = new LinkedHashMap<>();
+        if (asOf != null) {
+            for (StoredAttempt a : attempts(List.copyOf(alerts.keySet()), asOf)) {
+                attempts.computeIfAbsent(a.alertId() + "|" + a.channel(), k -> new ArrayList<>()).add(a);
+            }
+        }
         List<AlertView> out = new ArrayList<>();
-        alerts.forEach((id, a) -> out.add(new AlertView(a, deliveries.getOrDefault(id, List.of()), acks.getOrDefault(id, List.of()))));
+        alerts.forEach((id, a) -> {
+            List<Delivery> ds = deliveries.getOrDefault(id, List.of());
+            if (asOf != null) {
+                ds = ds.stream().map(d -> DeliveryAsOf.at(d, a, attempts.getOrDefault(id + "|" + d.channel(), List.of()))).toList();
+            }
+            out.add(new AlertView(a, ds, acks.getOrDefault(id, List.of())));
+        });
+        return out;
+    }
+
+    /** Id lists in pieces small enough for one IN list on any database. */
+    private static List<List<String>> chunks(List<String> ids) {
+        List<List<String>> out = new ArrayList<>();
+        for (int i = 0; i < ids.size(); i += 500) {
+            out.add(ids.subList(i, Math.min(ids.size(), i + 500)));
+        }
+        return out;
+    }
+
+    /** The newest alerts recorded at or before {@code asOf}, with their deliveries and acknowledgements as they stood then. */
+    public List<AlertView> recent(int limit, Instant asOf) {
+        if (asOf == null) {
+            return recent(limit);
+        }
+        Map<String, StoredAlert> alerts = new LinkedHashMap<>();
+        query("SELECT " + ALERT_COLUMNS + " FROM alert a WHERE a.recorded_at <= ? ORDER BY a.created_at DESC, a.id DESC FETCH FIRST "
+                + limit + " ROWS ONLY", s -> s.setTimestamp(1, Timestamp.from(asOf)), rs -> {
+                    StoredAlert a = alert(rs);
+                    alerts.put(a.alert().id(), a);
+                });
+        return views(alerts, asOf);
+    }
+
+    /**
+     * The alerts about one subject (a spread id) of a range, oldest first, at most {@code limit}:
+     * those with a market date in the range, or with none; as the journal held them at the range's moment.
+     */
+    public List<AlertView> forSubject(JournalRange range, int limit) {
+        Map<String, StoredAlert> alerts = new LinkedHashMap<>();
+        query("SELECT " + ALERT_COLUMNS + " FROM alert a WHERE " + alertFilter(range) + " ORDER BY a.recorded_at, a.created_at, a.id "
+                + "FETCH FIRST " + limit + " ROWS ONLY", s -> bindAlertFilter(s, range), rs -> {
+                    StoredAlert a = alert(rs);
+                    alerts.put(a.alert().id(), a);
+                });
+        return views(alerts, range.asOf());
+    }
+
+    /** Every alert of a range ({@code spreadId} is the subject, null for all), streamed oldest first. */
+    public void eachAlert(JournalRange range, RowSink<StoredAlert> sink) throws IOException {
+        String sql = "SELECT " + ALERT_COLUMNS + " FROM alert a WHERE " + alertFilter(range) + " ORDER BY a.created_at, a.id";
+        try (Connection c = dataSource.getConnection()) {
+            boolean autoCommit = c.getAutoCommit();
+            c.setAutoCommit(false); // PostgreSQL keeps a cursor only inside a transaction; without one it reads every row first
+            try (PreparedStatement s = c.prepareStatement(sql)) {
+                bindAlertFilter(s, range);
+                s.setFetchSize(1_000);
+                try (ResultSet rs = s.executeQuery()) {
+                    while (rs.next()) {
+                        sink.accept(alert(rs));
+                    }
+                }
+            } finally {
+                c.rollback();
+                c.setAutoCommit(autoCommit);
+            }
+        } catch (SQLException e) {
+            throw new JournalException("cannot read alerts from the journal", e);
+        }
+    }
+
+    private static String alertFilter(JournalRange range) {
+        // notices without a market date (a stale feed) belong to every range
+        return "(a.market_date IS NULL OR (a.market_date >= ? AND a.market_date <= ?))"
+                + (range.spreadId() == null ? "" : " AND a.subject = ?") + (range.asOf() == null ? "" : " AND a.recorded_at <= ?");
+    }
+
+    private static void bindAlertFilter(PreparedStatement s, JournalRange range) throws SQLException {
+        int i = 1;
+        s.setDate(i++, Date.valueOf(range.from()));
+        s.setDate(i++, Date.valueOf(range.to()));
+        if (range.spreadId() != null) {
+            s.setString(i++, range.spreadId());
+        }
+        if (range.asOf() != null) {
+            s.setTimestamp(i, Timestamp.from(range.asOf()));
+        }
+    }
+
+    /** The delivery attempts of some alerts recorded at or before {@code asOf} (null: all), in the order they were recorded. */
+    public List<StoredAttempt> attempts(List<String> alertIds, Instant asOf) {
+        List<StoredAttempt> out = new ArrayList<>();
+        for (List<String> ids : chunks(alertIds)) {
+            String in = String.join(",", java.util.Collections.nCopies(ids.size(), "?"));
+            query("SELECT id, alert_id, channel, attempt, outcome, detail, decision, attempted_at, recorded_at FROM delivery_attempt "
+                    + "WHERE alert_id IN (" + in + ")" + (asOf == null ? "" : " AND recorded_at <= ?") + " ORDER BY id", s -> {
+                        bind(s, ids);
+                        if (asOf != null) {
+                            s.setTimestamp(ids.size() + 1, Timestamp.from(asOf));
+                        }
+                    }, rs -> out.add(new StoredAttempt(rs.getLong(1), rs.getString(2), rs.getString(3), rs.getInt(4), rs.getString(5),
+                            rs.getString(6), rs.getString(7), instant(rs, 8), instant(rs, 9))));
+        }
+        out.sort(java.util.Comparator.comparingLong(StoredAttempt::id));
         return out;
     }
 
@@ -330,6 +456,14 @@ public final class AlertStore {
                 s.executeUpdate();
             }
         });
+    }
+
+    /** The hash of the last policy applied at or before {@code asOf}: the rule set in force then, or null before the first. */
+    public String policyHashAt(Instant asOf) {
+        String[] hash = {null};
+        query("SELECT content_hash FROM policy_version WHERE outcome = 'applied' AND recorded_at <= ? ORDER BY recorded_at DESC, id DESC "
+                + "FETCH FIRST 1 ROWS ONLY", s -> s.setTimestamp(1, Timestamp.from(asOf)), rs -> hash[0] = rs.getString(1));
+        return hash[0];
     }
 
     /** The hash of the policy applied last, or null. */

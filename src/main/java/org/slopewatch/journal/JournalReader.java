@@ -1,5 +1,7 @@
 package org.slopewatch.journal;
 
+import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.sql.Connection;
 import java.sql.Date;
 import java.sql.PreparedStatement;
@@ -32,6 +34,21 @@ public final class JournalReader {
     public record HistoryPoint(LocalDate date, double valueBp, long seq) {
     }
 
+    /**
+     * One computed spread value as journalled. Every value is kept; {@code standing} says whether
+     * it is the last one recorded for its spread and date (as of the moment the query asked about).
+     */
+    public record StoredObservation(long id, String spreadId, LocalDate date, double valueBp, long seq, boolean standing,
+                                    Instant recordedAt) {
+
+        StoredObservation replaced() {
+            return new StoredObservation(id, spreadId, date, valueBp, seq, false, recordedAt);
+        }
+    }
+
+    /** Rows a cursor reads before handing them on: enough for few round trips, few enough to keep memory flat. */
+    private static final int FETCH_SIZE = 1_000;
+
     private final DataSource dataSource;
 
     public JournalReader(DataSource dataSource) {
@@ -53,8 +70,25 @@ public final class JournalReader {
      * in-memory state on start.
      */
     public void replayQuotes(Consumer<JournalEntries.AcceptedQuote> sink) {
-        String sql = "SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote ORDER BY id";
+        replayQuotes(null, null, sink);
+    }
+
+    /**
+     * As {@link #replayQuotes(Consumer)}, bounded: only the quotes recorded at or before
+     * {@code until}, and only those of {@code curve} (each curve's monitors depend on its own
+     * quotes alone). Null bounds nothing.
+     */
+    public void replayQuotes(Instant until, String curve, Consumer<JournalEntries.AcceptedQuote> sink) {
+        String sql = "SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote WHERE 1 = 1"
+                + (until == null ? "" : " AND recorded_at <= ?") + (curve == null ? "" : " AND curve = ?") + " ORDER BY id";
         try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
+            int i = 1;
+            if (until != null) {
+                s.setTimestamp(i++, Timestamp.from(until));
+            }
+            if (curve != null) {
+                s.setString(i, curve);
+            }
             s.setFetchSize(5_000);
             try (ResultSet rs = s.executeQuery()) {
                 while (rs.next()) {
@@ -71,13 +105,24 @@ public final class JournalReader {
 
     /** The standing value of a spread on each date in a range (the last value recorded for the date). */
     public List<HistoryPoint> history(String spreadId, LocalDate from, LocalDate to) {
+        return history(spreadId, from, to, null);
+    }
+
+    /**
+     * As {@link #history(String, LocalDate, LocalDate)} as the journal held it at {@code asOf}:
+     * the value of a date is the last one recorded at or before that moment. Null: now.
+     */
+    public List<HistoryPoint> history(String spreadId, LocalDate from, LocalDate to, Instant asOf) {
         String sql = "SELECT market_date, value_bp, seq FROM observation WHERE spread_id = ? AND market_date >= ? AND market_date <= ? "
-                + "ORDER BY market_date, id";
+                + (asOf == null ? "" : "AND recorded_at <= ? ") + "ORDER BY market_date, id";
         Map<LocalDate, HistoryPoint> byDate = new LinkedHashMap<>();
         try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
             s.setString(1, spreadId);
             s.setDate(2, Date.valueOf(from));
             s.setDate(3, Date.valueOf(to));
+            if (asOf != null) {
+                s.setTimestamp(4, Timestamp.from(asOf));
+            }
             try (ResultSet rs = s.executeQuery()) {
                 while (rs.next()) {
                     LocalDate d = rs.getDate(1).toLocalDate();
@@ -97,30 +142,22 @@ public final class JournalReader {
      * @param includeSuperseded  also those a revision replaced
      */
     public List<StoredTransition> transitions(String spreadId, LocalDate from, LocalDate to, boolean includeSuperseded, int limit) {
-        StringBuilder sql = new StringBuilder("SELECT id, spread_id, market_date, from_state, to_state, reason, test, window_label, measured, "
-                + "limit_value, value_bp, days_inverted, spell_id, seq, superseded_by, recorded_at FROM transition WHERE market_date >= ? AND market_date <= ?");
-        if (spreadId != null) {
-            sql.append(" AND spread_id = ?");
-        }
-        if (!includeSuperseded) {
-            sql.append(" AND superseded_by IS NULL");
-        }
-        sql.append(" ORDER BY market_date, id");
+        return transitions(new JournalRange(spreadId, from, to, null), includeSuperseded, limit);
+    }
+
+    /**
+     * Transitions in market-date order as the journal held them at {@code range.asOf()}: those
+     * recorded by then, each marked superseded only if the revision that replaced it had been
+     * recorded by then too (before a revision, the transitions it later replaced were standing).
+     */
+    public List<StoredTransition> transitions(JournalRange range, boolean includeSuperseded, int limit) {
         List<StoredTransition> out = new ArrayList<>();
-        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql.toString())) {
-            s.setDate(1, Date.valueOf(from));
-            s.setDate(2, Date.valueOf(to));
-            if (spreadId != null) {
-                s.setString(3, spreadId);
-            }
+        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(transitionSql(range, includeSuperseded))) {
+            bindTransitions(s, range, includeSuperseded);
             s.setMaxRows(limit);
             try (ResultSet rs = s.executeQuery()) {
                 while (rs.next()) {
-                    long superseded = rs.getLong(15);
-                    out.add(new StoredTransition(rs.getLong(1), rs.getString(2), rs.getDate(3).toLocalDate(), rs.getString(4),
-                            rs.getString(5), rs.getString(6), rs.getString(7), rs.getString(8), rs.getDouble(9), rs.getDouble(10),
-                            rs.getDouble(11), rs.getLong(12), rs.getLong(13), rs.getLong(14), rs.wasNull() ? null : superseded,
-                            rs.getTimestamp(16).toInstant()));
+                    out.add(transition(rs, range.asOf()));
                 }
             }
         } catch (SQLException e) {
@@ -129,11 +166,126 @@ public final class JournalReader {
         return out;
     }
 
+    /** Every transition of a range, superseded ones included and marked as of the range's moment, streamed in market-date order. */
+    public void eachTransition(JournalRange range, RowSink<StoredTransition> sink) throws IOException {
+        stream(transitionSql(range, true), s -> bindTransitions(s, range, true), rs -> {
+            while (rs.next()) {
+                sink.accept(transition(rs, range.asOf()));
+            }
+        }, "transitions");
+    }
+
+    private static String transitionSql(JournalRange range, boolean includeSuperseded) {
+        // the revision's own time decides whether a transition was superseded at the moment asked about
+        StringBuilder sql = new StringBuilder("SELECT t.id, t.spread_id, t.market_date, t.from_state, t.to_state, t.reason, t.test, "
+                + "t.window_label, t.measured, t.limit_value, t.value_bp, t.days_inverted, t.spell_id, t.seq, t.superseded_by, t.recorded_at, "
+                + "r.recorded_at FROM transition t LEFT JOIN revision r ON r.id = t.superseded_by WHERE t.market_date >= ? AND t.market_date <= ?");
+        if (range.spreadId() != null) {
+            sql.append(" AND t.spread_id = ?");
+        }
+        if (range.asOf() != null) {
+            sql.append(" AND t.recorded_at <= ?");
+        }
+        if (!includeSuperseded) {
+            sql.append(range.asOf() == null ? " AND t.superseded_by IS NULL" : " AND (t.superseded_by IS NULL OR r.recorded_at > ?)");
+        }
+        return sql.append(" ORDER BY t.market_date, t.id").toString();
+    }
+
+    private static void bindTransitions(PreparedStatement s, JournalRange range, boolean includeSuperseded) throws SQLException {
+        int i = 1;
+        s.setDate(i++, Date.valueOf(range.from()));
+        s.setDate(i++, Date.valueOf(range.to()));
+        if (range.spreadId() != null) {
+            s.setString(i++, range.spreadId());
+        }
+        if (range.asOf() != null) {
+            s.setTimestamp(i++, Timestamp.from(range.asOf()));
+            if (!includeSuperseded) {
+                s.setTimestamp(i, Timestamp.from(range.asOf()));
+            }
+        }
+    }
+
+    private static StoredTransition transition(ResultSet rs, Instant asOf) throws SQLException {
+        long superseded = rs.getLong(15);
+        boolean marked = !rs.wasNull();
+        Timestamp revisedAt = rs.getTimestamp(17);
+        if (marked && asOf != null && (revisedAt == null || revisedAt.toInstant().isAfter(asOf))) {
+            marked = false; // the revision came later: at asOf this transition was standing
+        }
+        return new StoredTransition(rs.getLong(1), rs.getString(2), rs.getDate(3).toLocalDate(), rs.getString(4),
+                rs.getString(5), rs.getString(6), rs.getString(7), rs.getString(8), rs.getDouble(9), rs.getDouble(10),
+                rs.getDouble(11), rs.getLong(12), rs.getLong(13), rs.getLong(14), marked ? superseded : null,
+                rs.getTimestamp(16).toInstant());
+    }
+
+    /**
+     * Every journalled value of a range in order of spread, market date and recording, each
+     * marked standing or replaced as of the range's moment, at most {@code max} of them.
+     */
+    public List<StoredObservation> observations(JournalRange range, int max) {
+        List<StoredObservation> out = new ArrayList<>();
+        try {
+            observationRows(range, max, out::add);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e); // a list never throws it
+        }
+        return out;
+    }
+
+    /** As {@link #observations(JournalRange, int)}, all of them, streamed. */
+    public void eachObservation(JournalRange range, RowSink<StoredObservation> sink) throws IOException {
+        observationRows(range, Long.MAX_VALUE, sink);
+    }
+
+    private void observationRows(JournalRange range, long max, RowSink<StoredObservation> sink) throws IOException {
+        String sql = "SELECT id, spread_id, market_date, value_bp, seq, recorded_at FROM observation WHERE market_date >= ? AND market_date <= ?"
+                + (range.spreadId() == null ? "" : " AND spread_id = ?") + (range.asOf() == null ? "" : " AND recorded_at <= ?")
+                + " ORDER BY spread_id, market_date, id";
+        stream(sql, s -> {
+            int i = 1;
+            s.setDate(i++, Date.valueOf(range.from()));
+            s.setDate(i++, Date.valueOf(range.to()));
+            if (range.spreadId() != null) {
+                s.setString(i++, range.spreadId());
+            }
+            if (range.asOf() != null) {
+                s.setTimestamp(i, Timestamp.from(range.asOf()));
+            }
+        }, rs -> {
+            // a value stands until a later row for the same spread and date replaces it: one row of look-ahead tells
+            StoredObservation pending = null;
+            long emitted = 0;
+            while (emitted < max && rs.next()) {
+                StoredObservation o = new StoredObservation(rs.getLong(1), rs.getString(2), rs.getDate(3).toLocalDate(), rs.getDouble(4),
+                        rs.getLong(5), true, rs.getTimestamp(6).toInstant());
+                if (pending != null) {
+                    sink.accept(pending.spreadId().equals(o.spreadId()) && pending.date().equals(o.date()) ? pending.replaced() : pending);
+                    emitted++;
+                }
+                pending = o;
+            }
+            if (pending != null && emitted < max) {
+                sink.accept(pending);
+            }
+        }, "observations");
+    }
+
     /** The most recent rejects, newest first. */
     public List<StoredReject> rejects(int limit) {
+        return rejects(limit, null);
+    }
+
+    /** The most recent rejects recorded at or before {@code asOf} (null: now), newest first. */
+    public List<StoredReject> rejects(int limit, Instant asOf) {
         List<StoredReject> out = new ArrayList<>();
         try (Connection c = dataSource.getConnection();
-             PreparedStatement s = c.prepareStatement("SELECT id, origin, reason, detail, item, raw, recorded_at FROM reject ORDER BY id DESC")) {
+             PreparedStatement s = c.prepareStatement("SELECT id, origin, reason, detail, item, raw, recorded_at FROM reject"
+                     + (asOf == null ? "" : " WHERE recorded_at <= ?") + " ORDER BY id DESC")) {
+            if (asOf != null) {
+                s.setTimestamp(1, Timestamp.from(asOf));
+            }
             s.setMaxRows(limit);
             try (ResultSet rs = s.executeQuery()) {
                 while (rs.next()) {
@@ -145,5 +297,39 @@ public final class JournalReader {
             throw new JournalException("cannot read rejects", e);
         }
         return out;
+    }
+
+    @FunctionalInterface
+    private interface Binder {
+        void bind(PreparedStatement s) throws SQLException;
+    }
+
+    @FunctionalInterface
+    private interface Cursor {
+        void read(ResultSet rs) throws SQLException, IOException;
+    }
+
+    /**
+     * Runs a query through a cursor with a bounded fetch size, so that memory stays flat however
+     * many rows match. PostgreSQL keeps a cursor only inside a transaction, hence auto-commit off
+     * for the read (and back on before the connection returns to the pool).
+     */
+    private void stream(String sql, Binder binder, Cursor cursor, String what) throws IOException {
+        try (Connection c = dataSource.getConnection()) {
+            boolean autoCommit = c.getAutoCommit();
+            c.setAutoCommit(false);
+            try (PreparedStatement s = c.prepareStatement(sql, ResultSet.TYPE_FORWARD_ONLY, ResultSet.CONCUR_READ_ONLY)) {
+                binder.bind(s);
+                s.setFetchSize(FETCH_SIZE);
+                try (ResultSet rs = s.executeQuery()) {
+                    cursor.read(rs);
+                }
+            } finally {
+                c.rollback(); // read only: nothing to keep
+                c.setAutoCommit(autoCommit);
+            }
+        } catch (SQLException e) {
+            throw new JournalException("cannot read " + what + " from the journal", e);
+        }
     }
 }

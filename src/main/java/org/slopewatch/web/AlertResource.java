@@ -37,12 +37,14 @@ public class AlertResource {
     private final AlertStore store;
     private final PolicyReloader reloader;
     private final Clock clock;
+    private final RuleSetAt ruleSets;
 
-    AlertResource(AlertDesk desk, AlertStore store, PolicyReloader reloader, Clock clock) {
+    AlertResource(AlertDesk desk, AlertStore store, PolicyReloader reloader, Clock clock, RuleSetAt ruleSets) {
         this.desk = desk;
         this.store = store;
         this.reloader = reloader;
         this.clock = clock;
+        this.ruleSets = ruleSets;
     }
 
     /** One open episode: a rule whose condition holds for a subject. */
@@ -73,6 +75,14 @@ public class AlertResource {
         }
     }
 
+    /**
+     * The notices recorded at or before {@code as_of}, with their deliveries and acknowledgements
+     * as they stood then. Open episodes are left out: a rule without a resolve notice ends its
+     * episode without a journal row, so the journal cannot say which were open at a past moment.
+     */
+    public record AlertsAsOf(Instant asOf, String policyHash, List<AlertView> items, String note, String caution) {
+    }
+
     /** One alert with every delivery attempt, for a post-mortem. */
     public record AlertDetail(AlertView alert, List<AlertStore.Attempt> attempts) {
     }
@@ -86,8 +96,15 @@ public class AlertResource {
 
     @GET
     @Path("/alerts")
-    @Operation(summary = "Open alert episodes and the most recent notices with their deliveries and acknowledgements")
-    public AlertsView alerts(@QueryParam("limit") @DefaultValue("100") int limit) {
+    @Operation(summary = "Open alert episodes and the most recent notices with their deliveries and acknowledgements; with asOf, "
+            + "the notices recorded by then as they stood then")
+    public Object alerts(@QueryParam("limit") @DefaultValue("100") int limit, @QueryParam("asOf") String asOf) {
+        Instant at = QueryParams.asOf(asOf);
+        if (at != null) {
+            List<AlertView> items = store.recent(Math.max(1, Math.min(limit, MAX_ALERTS)), at).stream().map(AlertView::of).toList();
+            return new AlertsAsOf(at, ruleSets.hash(at), items, "deliveries as they stood at as_of, replayed from their journalled "
+                    + "attempts (next_attempt_at is known only for a delivery not yet attempted); open episodes are not journalled", Alert.CAUTION);
+        }
         List<EpisodeView> open = new ArrayList<>();
         for (Map.Entry<String, AlertEngine.Episode> e : desk.openEpisodes().entrySet()) {
             String[] key = e.getKey().split("\\|", 2);

@@ -1,7 +1,9 @@
 package org.slopewatch.web;
 
+import java.time.Instant;
 import java.time.LocalDate;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.delivery.Alert;
@@ -59,6 +61,18 @@ final class ApiViews {
                     p.month().toString(), p.provisional(), p.averageBp(), p.observations(), p.targetMonth().toString(), p.source(),
                     Alert.CAUTION);
         }
+    }
+
+    /** A list as the journal held it at {@code as_of}, with the content hash of the rule set in force then. */
+    record AsOfList<T>(Instant asOf, String policyHash, List<T> items) {
+    }
+
+    /**
+     * A spread's status at a past moment, rebuilt from the quote messages recorded by then under
+     * the rules in force now ({@code recomputed_under}); {@code policy_hash} names those in force then.
+     */
+    record SpreadAsOfView(Instant asOf, String policyHash, String recomputedUnder, long quotesReplayed, String method,
+                          SpreadView spread) {
     }
 
     static Double finite(double v) {

@@ -9,18 +9,25 @@ import jakarta.ws.rs.Produces;
 import jakarta.ws.rs.QueryParam;
 import jakarta.ws.rs.BadRequestException;
 import jakarta.ws.rs.core.MediaType;
+import java.time.Instant;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.util.List;
 import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.slopewatch.alerting.PolicyHolder;
+import org.slopewatch.ingest.AsOfRebuild;
 import org.slopewatch.ingest.QuotePipeline;
+import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.rules.ProbabilityModels;
 import org.slopewatch.spread.SpreadKey;
 
-/** The read API: curves, spreads, their history, transitions and rejects. */
+/**
+ * The read API: curves, spreads, their history, transitions and rejects. The history endpoints
+ * take {@code asOf} (an instant) and then answer with what the journal held at that moment,
+ * wrapped with that moment and the rule set in force then; without it they answer as before.
+ */
 @Path("/api")
 @Produces(MediaType.APPLICATION_JSON)
 public class ReadResource {
@@ -30,11 +37,15 @@ public class ReadResource {
     private final QuotePipeline pipeline;
     private final JournalReader journal;
     private final PolicyHolder policies;
+    private final RuleSetAt ruleSets;
+    private final AsOfRebuild rebuild;
 
-    ReadResource(QuotePipeline pipeline, JournalReader journal, PolicyHolder policies) {
+    ReadResource(QuotePipeline pipeline, JournalReader journal, PolicyHolder policies, RuleSetAt ruleSets) {
         this.pipeline = pipeline;
         this.journal = journal;
         this.policies = policies;
+        this.ruleSets = ruleSets;
+        this.rebuild = new AsOfRebuild(journal);
     }
 
     @GET
@@ -79,8 +90,13 @@ public class ReadResource {
 
     @GET
     @Path("/spreads/{id}")
-    @Operation(summary = "One spread's status; the id is CURVE:SPREAD, e.g. GOVT-A:10Y-3M")
-    public ApiViews.SpreadView spread(@PathParam("id") String id) {
+    @Operation(summary = "One spread's status; the id is CURVE:SPREAD, e.g. GOVT-A:10Y-3M. With asOf, its status at that moment, "
+            + "rebuilt from the quotes recorded by then")
+    public Object spread(@PathParam("id") String id, @QueryParam("asOf") String asOf) {
+        Instant at = QueryParams.asOf(asOf);
+        if (at != null) {
+            return spreadAsOf(key(id), at);
+        }
         SpreadStatus s = pipeline.spread(key(id));
         if (s == null) {
             throw new NotFoundException("no spread " + id);
@@ -88,33 +104,53 @@ public class ReadResource {
         return ApiViews.SpreadView.of(s, policies.policy().probability());
     }
 
+    private ApiViews.SpreadAsOfView spreadAsOf(SpreadKey key, Instant at) {
+        // the rules in force now are read before the replay, so the hash named is the one the replay ran under
+        String now = ruleSets.current();
+        AsOfRebuild.Rebuilt r = rebuild.spread(key, at, pipeline.watches());
+        if (r.status() == null) {
+            throw new NotFoundException("no value of " + key.id() + " recorded at or before " + at);
+        }
+        return new ApiViews.SpreadAsOfView(at, ruleSets.hash(at), now, r.quotes(),
+                "recomputed: the " + r.quotes() + " quote message(s) of " + key.curve() + " recorded at or before as_of, replayed in "
+                        + "recorded order under the rule set in force now (recomputed_under)",
+                ApiViews.SpreadView.of(r.status(), policies.policy().probability()));
+    }
+
     @GET
     @Path("/spreads/{id}/history")
-    @Operation(summary = "The standing value of a spread on each market date in a range")
-    public List<JournalReader.HistoryPoint> history(@PathParam("id") String id, @QueryParam("from") String from,
-                                                    @QueryParam("to") String to) {
+    @Operation(summary = "The standing value of a spread on each market date in a range; with asOf, as recorded by then")
+    public Object history(@PathParam("id") String id, @QueryParam("from") String from, @QueryParam("to") String to,
+                          @QueryParam("asOf") String asOf) {
         key(id);
-        return journal.history(id, date(from, LocalDate.of(1900, 1, 1)), date(to, LocalDate.of(9999, 12, 31)));
+        Instant at = QueryParams.asOf(asOf);
+        List<JournalReader.HistoryPoint> points = journal.history(id, date(from, LocalDate.of(1900, 1, 1)),
+                date(to, LocalDate.of(9999, 12, 31)), at);
+        return at == null ? points : new ApiViews.AsOfList<>(at, ruleSets.hash(at), points);
     }
 
     @GET
     @Path("/transitions")
-    @Operation(summary = "Transitions in market-date order; superseded=true also shows those a revision replaced")
-    public List<JournalReader.StoredTransition> transitions(@QueryParam("spread") String spread, @QueryParam("from") String from,
-                                                            @QueryParam("to") String to,
-                                                            @QueryParam("superseded") @DefaultValue("false") boolean superseded) {
+    @Operation(summary = "Transitions in market-date order; superseded=true also shows those a revision replaced; with asOf, "
+            + "as recorded by then (a transition counts as superseded only once its revision was recorded)")
+    public Object transitions(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
+                              @QueryParam("superseded") @DefaultValue("false") boolean superseded, @QueryParam("asOf") String asOf) {
         if (spread != null) {
             key(spread);
         }
-        return journal.transitions(spread, date(from, LocalDate.of(1900, 1, 1)), date(to, LocalDate.of(9999, 12, 31)), superseded,
-                MAX_ROWS);
+        Instant at = QueryParams.asOf(asOf);
+        List<JournalReader.StoredTransition> rows = journal.transitions(new JournalRange(spread, date(from, LocalDate.of(1900, 1, 1)),
+                date(to, LocalDate.of(9999, 12, 31)), at), superseded, MAX_ROWS);
+        return at == null ? rows : new ApiViews.AsOfList<>(at, ruleSets.hash(at), rows);
     }
 
     @GET
     @Path("/rejects")
-    @Operation(summary = "The most recent rejected quotes, newest first")
-    public List<JournalReader.StoredReject> rejects(@QueryParam("limit") @DefaultValue("100") int limit) {
-        return journal.rejects(Math.max(1, Math.min(limit, MAX_ROWS)));
+    @Operation(summary = "The most recent rejected quotes, newest first; with asOf, those recorded by then")
+    public Object rejects(@QueryParam("limit") @DefaultValue("100") int limit, @QueryParam("asOf") String asOf) {
+        Instant at = QueryParams.asOf(asOf);
+        List<JournalReader.StoredReject> rows = journal.rejects(Math.max(1, Math.min(limit, MAX_ROWS)), at);
+        return at == null ? rows : new ApiViews.AsOfList<>(at, ruleSets.hash(at), rows);
     }
 
     private static SpreadKey key(String id) {

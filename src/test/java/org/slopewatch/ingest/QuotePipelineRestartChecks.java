@@ -100,6 +100,10 @@ abstract class QuotePipelineRestartChecks {
                 batches.add(new QuoteBatch("test", messages, List.of()));
             }
         }
+        // the week-back revisions above deepen values without changing an outcome; this one must: a 10Y of
+        // 100 bp on the first day inverts both of GOVT-A's spreads that day, so every transition since is superseded
+        batches.add(new QuoteBatch("test", List.of(new QuoteMessage("m" + n, "test", null, "GOVT-A", LocalDate.of(2026, 1, 2),
+                new java.util.TreeMap<>(Map.of(Tenor.years(10), 100.0)))), List.of()));
         return batches;
     }
 

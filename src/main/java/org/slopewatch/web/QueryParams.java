@@ -1,0 +1,62 @@
+package org.slopewatch.web;
+
+import jakarta.ws.rs.BadRequestException;
+import jakarta.ws.rs.core.MediaType;
+import jakarta.ws.rs.core.Response;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.format.DateTimeParseException;
+import java.util.Map;
+import org.slopewatch.spread.SpreadKey;
+
+/** The query parameters the history endpoints share, checked the same way everywhere (400 with what was expected). */
+final class QueryParams {
+
+    static final LocalDate EARLIEST = LocalDate.of(1900, 1, 1);
+    static final LocalDate LATEST = LocalDate.of(9999, 12, 31);
+
+    private QueryParams() {
+    }
+
+    /** {@code asOf}: an ISO-8601 instant, or null when absent (meaning now). */
+    static Instant asOf(String text) {
+        if (text == null || text.isBlank()) {
+            return null;
+        }
+        try {
+            return Instant.parse(text.strip());
+        } catch (DateTimeParseException e) {
+            throw bad("unparsable asOf '" + text + "' (expected an ISO-8601 instant such as 2026-04-01T17:30:00Z; "
+                    + "write + in an offset as %2B)");
+        }
+    }
+
+    static LocalDate date(String text, LocalDate otherwise) {
+        if (text == null || text.isBlank()) {
+            return otherwise;
+        }
+        try {
+            return LocalDate.parse(text);
+        } catch (DateTimeParseException e) {
+            throw bad("unparsable date '" + text + "' (expected YYYY-MM-DD)");
+        }
+    }
+
+    /** A spread id such as GOVT-A:10Y-3M, or null when absent. */
+    static SpreadKey spread(String id) {
+        if (id == null || id.isBlank()) {
+            return null;
+        }
+        try {
+            return SpreadKey.parse(id);
+        } catch (IllegalArgumentException e) {
+            throw bad(e.getMessage());
+        }
+    }
+
+    /** A 400 whose body says what was wrong (a bare exception message does not reach the client). */
+    static BadRequestException bad(String message) {
+        return new BadRequestException(Response.status(Response.Status.BAD_REQUEST).type(MediaType.APPLICATION_JSON)
+                .entity(Map.of("error", message)).build());
+    }
+}
