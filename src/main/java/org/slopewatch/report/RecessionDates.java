@@ -1,6 +1,7 @@
 package org.slopewatch.report;
 
 import java.time.LocalDate;
+import java.util.Comparator;
 import java.util.List;
 import org.slopewatch.probability.Recession;
 
@@ -18,7 +19,7 @@ public record RecessionDates(String source, List<Recession> recessions) {
     public List<Recession> within(LocalDate first, LocalDate last) {
         return recessions.stream()
                 .filter(r -> !start(r).isAfter(last) && !end(r).isBefore(first))
-                .sorted(java.util.Comparator.comparing(Recession::peak))
+                .sorted(Comparator.comparing(Recession::peak))
                 .toList();
     }
 

@@ -24,6 +24,7 @@ import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.title.LegendTitle;
 import org.jfree.chart.ui.Layer;
 import org.jfree.chart.ui.RectangleEdge;
+import org.jfree.chart.ui.RectangleInsets;
 import org.jfree.data.xy.XYSeries;
 import org.jfree.data.xy.XYSeriesCollection;
 import org.jfree.svg.SVGGraphics2D;
@@ -104,7 +105,7 @@ final class SpreadChart {
 
         JFreeChart chart = new JFreeChart(null, JFreeChart.DEFAULT_TITLE_FONT, plot, false);
         chart.setBackgroundPaint(Color.WHITE);
-        chart.setPadding(new org.jfree.chart.ui.RectangleInsets(8, 8, 4, 12));
+        chart.setPadding(new RectangleInsets(8, 8, 4, 12));
         LegendTitle legend = new LegendTitle(plot);
         legend.setPosition(RectangleEdge.BOTTOM);
         legend.setItemFont(new Font(Font.SANS_SERIF, Font.PLAIN, 13));

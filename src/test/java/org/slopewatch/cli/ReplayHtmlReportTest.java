@@ -16,6 +16,7 @@ import java.time.YearMonth;
 import java.util.ArrayList;
 import java.util.HexFormat;
 import java.util.List;
+import java.util.Locale;
 import org.jsoup.Jsoup;
 import org.jsoup.nodes.Attribute;
 import org.jsoup.nodes.Document;
@@ -217,8 +218,8 @@ class ReplayHtmlReportTest {
         assertThat(page.select("link, script, iframe, object, embed, base, img")).isEmpty();
         for (Element e : page.getAllElements()) {
             for (Attribute a : e.attributes()) {
-                String key = a.getKey().toLowerCase(java.util.Locale.ROOT);
-                String value = a.getValue().strip().toLowerCase(java.util.Locale.ROOT);
+                String key = a.getKey().toLowerCase(Locale.ROOT);
+                String value = a.getValue().strip().toLowerCase(Locale.ROOT);
                 if (key.equals("src") || key.endsWith("href") || key.equals("action") || key.equals("data")) {
                     assertThat(value).as("%s of <%s>", key, e.tagName()).startsWith("#");
                 }
@@ -272,7 +273,7 @@ class ReplayHtmlReportTest {
         StringBuilder rows = new StringBuilder("date,1Y,10Y\n");
         LocalDate day = LocalDate.of(1970, 1, 1);
         for (int i = 0; i < 20_000; i++) {
-            rows.append(day.plusDays(i)).append(",5.00,").append(String.format(java.util.Locale.ROOT, "%.3f", 5 + Math.sin(i / 400.0)))
+            rows.append(day.plusDays(i)).append(",5.00,").append(String.format(Locale.ROOT, "%.3f", 5 + Math.sin(i / 400.0)))
                     .append('\n');
         }
         Files.writeString(longFile, rows);
@@ -303,7 +304,8 @@ class ReplayHtmlReportTest {
         YearMonth first = YearMonth.from(LocalDate.parse(rows.get(1).split(",")[0]));
         YearMonth last = YearMonth.from(LocalDate.parse(rows.get(rows.size() - 1).split(",")[0]));
         List<String> peaks = new ArrayList<>();
-        for (String line : Files.readAllLines(recessions).subList(1, Files.readAllLines(recessions).size())) {
+        List<String> dates = Files.readAllLines(recessions);
+        for (String line : dates.subList(1, dates.size())) {
             String[] f = line.split(",");
             YearMonth start = YearMonth.parse(f[0]).plusMonths(1);
             YearMonth end = YearMonth.parse(f[1]);
