@@ -53,6 +53,23 @@ class ArchitectureTest {
     }
 
     @Test
+    void reportsArePlainJavaToo() {
+        // the replay command and the daemon's API render the same pages: each hands the report package plain data
+        noClasses().that().resideInAPackage("org.slopewatch.report..")
+                .should().dependOnClassesThat().resideInAnyPackage("io.quarkus..", "jakarta..", "javax.inject..", "io.smallrye..",
+                        "io.vertx..", "java.sql..", "javax.sql..", "org.eclipse.microprofile..", "org.slopewatch.cli..",
+                        "org.slopewatch.journal..", "org.slopewatch.delivery..", "org.slopewatch.web..", "org.slopewatch.ops..",
+                        "org.slopewatch.alerting..", "org.slopewatch.ingest..")
+                .check(classes);
+        noClasses().that().resideInAPackage("org.slopewatch.report..")
+                .should().callMethod(java.time.LocalDate.class, "now")
+                .orShould().callMethod(java.time.Instant.class, "now")
+                .orShould().callMethod(System.class, "currentTimeMillis")
+                .because("the generation time comes in with the document")
+                .check(classes);
+    }
+
+    @Test
     void layersDependOnlyDownwards() {
         noClasses().that().resideInAPackage("org.slopewatch.curve..")
                 .should().dependOnClassesThat().resideInAnyPackage("org.slopewatch.spread..", "org.slopewatch.monitor..",

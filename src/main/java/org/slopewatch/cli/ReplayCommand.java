@@ -88,6 +88,10 @@ final class ReplayCommand implements Callable<Integer> {
     @Option(names = "--transitions", description = "List every transition in the text report.")
     boolean listTransitions;
 
+    @Option(names = "--report", paramLabel = "FILE", description = "Also write the report as one self-contained HTML page: "
+            + "charts of each spread, spells, transitions, the policy and its hash, with --recessions the lead times.")
+    Path htmlReport;
+
     @Spec
     CommandSpec spec;
 
@@ -106,15 +110,19 @@ final class ReplayCommand implements Callable<Integer> {
             HistoryCsvReader.Options options = new HistoryCsvReader.Options(curveName(), YieldUnit.parse(unit), YieldBounds.DEFAULT);
             long size = Files.size(file);
             ReplayReport report;
+            Replay replay = new Replay(watches);
             try (InputStream raw = Files.newInputStream(file); CountingInputStream in = new CountingInputStream(raw);
                  ProgressBar bar = ProgressBar.forStderr("replay", size)) {
-                report = new Replay(watches).run(file.toString(), in, options, leads, () -> bar.update(in.count()));
+                report = replay.run(file.toString(), in, options, leads, () -> bar.update(in.count()));
             }
             if (report.spreads().isEmpty()) {
                 err.println(file + ": none of the watched spreads (" + String.join(", ", watches.stream()
                         .map(w -> w.spread().name()).distinct().toList()) + ") could be computed from "
                         + report.snapshots() + " snapshots: are their tenors among the file's columns?");
                 return 2;
+            }
+            if (htmlReport != null && HtmlReportOption.write(htmlReport, report, replay, policy, watches, recessions, err) != 0) {
+                return 1;
             }
             if (json) {
                 ReportJson.write(report, out);

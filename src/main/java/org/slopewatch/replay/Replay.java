@@ -63,6 +63,24 @@ public final class Replay {
                 leadTimes == null ? null : leadTimes.windowMonths(), spreads, ReplayReport.CAUTION);
     }
 
+    /**
+     * After {@link #run}: each spread's standing values, in the order of the report's spreads. The
+     * report itself leaves them out (its JSON would grow by every date); a chart needs them.
+     */
+    public List<SpreadValues> values() {
+        List<SpreadValues> out = new ArrayList<>();
+        for (SpreadTrack track : engine.tracks()) {
+            int[] days = new int[track.size()];
+            double[] bp = new double[track.size()];
+            for (int i = 0; i < days.length; i++) {
+                days[i] = (int) track.date(i).toEpochDay();
+                bp[i] = track.valueBp(i);
+            }
+            out.add(new SpreadValues(track.spread().id(), days, bp));
+        }
+        return out;
+    }
+
     private void record(List<MonitorEvent> events) {
         for (MonitorEvent e : events) {
             if (e instanceof QuarterSummary q) {

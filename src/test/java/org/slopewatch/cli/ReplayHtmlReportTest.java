@@ -1,0 +1,345 @@
+package org.slopewatch.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.time.LocalDate;
+import java.time.YearMonth;
+import java.util.ArrayList;
+import java.util.HexFormat;
+import java.util.List;
+import java.util.Locale;
+import org.jsoup.Jsoup;
+import org.jsoup.nodes.Attribute;
+import org.jsoup.nodes.Document;
+import org.jsoup.nodes.Element;
+import org.jsoup.select.Elements;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * {@code replay --report}: the HTML page written for real history, read back with a real HTML
+ * parser (jsoup) and checked against the replay's own JSON for the same input, the files it was
+ * made from, and the business-cycle dates.
+ *
+ * <p>Data: Federal Reserve H.15 monthly constant-maturity yields 1953-04 to 1999-09 and NBER
+ * business-cycle reference dates (from memory); see src/test/resources/reference/README.md.
+ */
+class ReplayHtmlReportTest {
+
+    @TempDir
+    static Path dir;
+
+    private static Path history;
+    private static Path recessions;
+    private static Path policy;
+    private static String html;
+    private static Document page;
+    private static JsonNode json;
+
+    @BeforeAll
+    static void replay() throws Exception {
+        history = ReferenceReplayTest.resource("reference/us-cmt-monthly-1953-1999.csv");
+        recessions = ReferenceReplayTest.resource("reference/us-business-cycle-dates.csv");
+        policy = ReferenceReplayTest.resource("policies/reference-report.yaml");
+        Path out = dir.resolve("report.html");
+        CliRun run = CliRun.of("replay", history.toString(), "--policy", policy.toString(), "--recessions", recessions.toString(),
+                "--report", out.toString());
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.out()).as("the text report still goes to standard output").contains("lead to the next business-cycle peak");
+        html = Files.readString(out, StandardCharsets.UTF_8);
+        page = Jsoup.parse(html);
+        CliRun asJson = CliRun.of("replay", history.toString(), "--policy", policy.toString(), "--recessions", recessions.toString(),
+                "--json");
+        assertThat(asJson.exitCode()).as(asJson.err()).isZero();
+        json = new ObjectMapper().readTree(asJson.out());
+    }
+
+    @Test
+    void eachReplayedSpreadHasASectionWithOneTitledChart() {
+        Elements sections = page.select("section.spread");
+        assertThat(sections.eachAttr("data-spread")).containsExactlyElementsOf(ids());
+        assertThat(ids()).as("the policy watches two spreads the file can compute").hasSize(2);
+        for (Element section : sections) {
+            Elements charts = section.select("svg.chart");
+            assertThat(charts).as("one chart in %s", section.attr("data-spread")).hasSize(1);
+            Element svg = charts.first();
+            assertThat(svg.attr("role")).isEqualTo("img");
+            for (String id : svg.attr("aria-labelledby").split(" ")) {
+                assertThat(svg.getElementById(id)).as("aria-labelledby names #%s", id).isNotNull();
+            }
+            assertThat(svg.selectFirst("> title").text()).contains(section.attr("data-spread")).contains("1953-04-01").contains("1999-09-01");
+            assertThat(svg.selectFirst("> desc").text()).contains("inverted spell");
+            assertThat(svg.select("g.spread-line path")).as("the spread's line is drawn").isNotEmpty();
+            assertThat(svg.select("g.zero-line")).as("a zero line").hasSize(1);
+        }
+    }
+
+    @Test
+    void theShadedSpellsAreTheSpellsTheReplayFound() {
+        for (int i = 0; i < ids().size(); i++) {
+            JsonNode spells = json.get("spreads").get(i).get("spells");
+            Elements bands = chart(i).select("g.spell");
+            assertThat(bands).as("shaded spells of %s", ids().get(i)).hasSize(spells.size());
+            assertThat(spells.size()).as("the file has inversions in every decade but the 1990s").isGreaterThan(5);
+            List<String> starts = new ArrayList<>();
+            List<String> ends = new ArrayList<>();
+            spells.forEach(s -> {
+                starts.add(s.get("start").asText());
+                ends.add(s.get("end").isNull() ? "open" : s.get("end").asText());
+            });
+            assertThat(bands.eachAttr("data-start")).containsExactlyElementsOf(starts);
+            assertThat(bands.eachAttr("data-end")).containsExactlyElementsOf(ends);
+            assertThat(bands.select("rect")).as("each band is drawn").hasSizeGreaterThanOrEqualTo(spells.size());
+        }
+    }
+
+    @Test
+    void confirmationsAndReSteepeningsAreMarked() {
+        for (int i = 0; i < ids().size(); i++) {
+            List<String> confirmed = new ArrayList<>();
+            List<String> resteepened = new ArrayList<>();
+            json.get("spreads").get(i).get("transitions").forEach(t -> {
+                if (t.get("to").asText().equals("CONFIRMED")) {
+                    confirmed.add(t.get("date").asText());
+                } else if (t.get("to").asText().equals("RESTEEPENING")) {
+                    resteepened.add(t.get("date").asText());
+                }
+            });
+            assertThat(confirmed).isNotEmpty();
+            assertThat(chart(i).select("g.confirmation").eachAttr("data-date")).containsExactlyElementsOf(confirmed);
+            assertThat(chart(i).select("g.resteepening").eachAttr("data-date")).containsExactlyElementsOf(resteepened);
+        }
+    }
+
+    @Test
+    void recessionBandsAreTheNberRecessionsInTheDataRange() throws IOException {
+        // NBER business-cycle reference dates (from memory): the peaks from 1953 to 1999; each recession
+        // runs from the month after its peak through its trough, and the 1953-07 peak's recession (1953-08 to
+        // 1954-05) falls inside data that starts in 1953-04.
+        List<String> nberPeaks = List.of("1953-07", "1957-08", "1960-04", "1969-12", "1973-11", "1980-01", "1981-07", "1990-07");
+        assertThat(peaksInRangeFromTheFiles()).as("the dates file agrees with the chronology").isEqualTo(nberPeaks);
+        for (int i = 0; i < ids().size(); i++) {
+            Elements bands = chart(i).select("g.recession");
+            assertThat(bands.eachAttr("data-peak")).as("recession bands of %s", ids().get(i)).containsExactlyElementsOf(nberPeaks);
+        }
+    }
+
+    @Test
+    void theLeadTimeTableIsTheReplaysLeadTimes() {
+        for (int i = 0; i < ids().size(); i++) {
+            JsonNode leads = json.get("spreads").get(i).get("leads");
+            Elements rows = section(i).select("table.leads tbody tr");
+            assertThat(rows).as("lead-time rows of %s", ids().get(i)).hasSize(leads.size());
+            for (int r = 0; r < leads.size(); r++) {
+                JsonNode l = leads.get(r);
+                String outcome = l.get("late").asBoolean() ? "late: recession already under way"
+                        : l.get("false_alarm").asBoolean() ? "false alarm" : l.get("pending").asBoolean() ? "pending" : "hit";
+                assertThat(rows.get(r).select("td").eachText()).as("row %d of %s", r, ids().get(i)).containsExactly(
+                        l.get("confirmed").asText(), orDash(l.get("peak")), orDash(l.get("months")), outcome,
+                        l.get("resteepened").isNull() ? "not yet" : l.get("resteepened").asText(), orDash(l.get("months_from_resteepening")));
+            }
+            long hits = 0;
+            long falseAlarms = 0;
+            for (JsonNode l : leads) {
+                hits += !l.get("late").asBoolean() && !l.get("false_alarm").asBoolean() && !l.get("pending").asBoolean() ? 1 : 0;
+                falseAlarms += l.get("false_alarm").asBoolean() ? 1 : 0;
+            }
+            Element summary = section(i).selectFirst("dl.lead-summary");
+            assertThat(fact(summary, "Hits")).isEqualTo(Long.toString(hits));
+            assertThat(fact(summary, "False alarms")).startsWith(falseAlarms + " ");
+            List<String> missed = new ArrayList<>();
+            json.get("spreads").get(i).get("missed_peaks").forEach(m -> missed.add(m.asText()));
+            assertThat(fact(summary, "Missed recessions")).isEqualTo(missed.isEmpty() ? "none" : String.join(", ", missed));
+        }
+        // the row ReferenceReplayTest checks in the text report, seen in the page
+        assertThat(section(0).select("table.leads tbody tr").stream().map(r -> r.select("td").eachText()))
+                .contains(List.of("1959-10-01", "1960-04", "6", "hit", "1960-03-01", "1"));
+    }
+
+    @Test
+    void theTransitionsTableListsEveryTransition() {
+        for (int i = 0; i < ids().size(); i++) {
+            JsonNode transitions = json.get("spreads").get(i).get("transitions");
+            Elements rows = section(i).select("table.transitions tbody tr");
+            assertThat(rows).hasSize(transitions.size());
+            for (int r = 0; r < transitions.size(); r++) {
+                JsonNode t = transitions.get(r);
+                assertThat(rows.get(r).select("td").eachText().subList(0, 3))
+                        .containsExactly(t.get("date").asText(), t.get("from").asText(), t.get("to").asText());
+                assertThat(rows.get(r).select("td").last().text()).isEqualTo(t.get("reason").asText());
+            }
+        }
+    }
+
+    @Test
+    void thePolicyIsNamedWithTheSha256OfItsBytesAndItsRules() throws Exception {
+        String expected = HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(Files.readAllBytes(policy)));
+        assertThat(page.select(".policy-hash").text()).isEqualTo(expected);
+        assertThat(page.select(".policy-file").text()).isEqualTo(policy.toString());
+        Elements rules = page.select("table.rules tbody tr");
+        assertThat(rules.eachText()).hasSize(2);
+        assertThat(rules.get(0).select("th, td").eachText()).containsExactly("10Y-1Y", "all", "0 bp", "0 bp", "1", "365 days",
+                "quarter-average < 0 bp");
+        assertThat(rules.get(1).select("th, td").eachText()).containsExactly("10Y-3Y", "all", "0 bp", "0 bp", "1", "365 days",
+                "quarter-average < 0 bp or days-inverted >= 120 d");
+    }
+
+    @Test
+    void theCoverageIsStated() {
+        Element source = page.selectFirst("dl.source");
+        assertThat(fact(source, "History file")).isEqualTo(history.toString());
+        assertThat(fact(source, "Dates")).isEqualTo("1953-04-01 to 1999-09-01");
+        assertThat(fact(source, "Spreads")).isEqualTo(String.join(", ", ids()));
+        assertThat(fact(source, "Recession dates")).isEqualTo(recessions.toString());
+        assertThat(page.selectFirst("dl.source time").attr("datetime")).isNotBlank();
+    }
+
+    @Test
+    void theCautionIsShownAtTheTopAndTheFoot() {
+        Elements caution = page.select(".caution");
+        assertThat(caution).hasSize(2);
+        assertThat(caution.first().text()).contains("not investment advice").contains(org.slopewatch.replay.ReplayReport.CAUTION);
+        assertThat(page.selectFirst("header + main > .caution")).as("first thing under the title").isNotNull();
+    }
+
+    @Test
+    void thePageIsSelfContained() {
+        assertThat(html).doesNotContain("src=\"http").doesNotContain("<link").doesNotContain("@import");
+        assertThat(page.select("link, script, iframe, object, embed, base, img")).isEmpty();
+        for (Element e : page.getAllElements()) {
+            for (Attribute a : e.attributes()) {
+                String key = a.getKey().toLowerCase(Locale.ROOT);
+                String value = a.getValue().strip().toLowerCase(Locale.ROOT);
+                if (key.equals("src") || key.endsWith("href") || key.equals("action") || key.equals("data")) {
+                    assertThat(value).as("%s of <%s>", key, e.tagName()).startsWith("#");
+                }
+                assertThat(value).as("%s of <%s>", key, e.tagName()).doesNotContain("url(http").doesNotContain("url(//");
+            }
+        }
+        for (Element style : page.select("style")) {
+            assertThat(style.data()).doesNotContain("url(");
+        }
+    }
+
+    @Test
+    void thePageIsStructuredForAssistiveTechnology() {
+        assertThat(page.selectFirst("html").attr("lang")).isEqualTo("en");
+        assertThat(page.select("h1")).hasSize(1);
+        assertThat(page.select("h2").eachText()).contains("What the report covers", "Policy", "Recession dates");
+        Elements tables = page.select("table");
+        assertThat(tables).hasSizeGreaterThan(5);
+        for (Element table : tables) {
+            assertThat(table.select("> caption").text()).as("caption of table.%s", table.className()).isNotBlank();
+            assertThat(table.select("> thead th[scope=col]")).as("column headers of table.%s", table.className()).isNotEmpty();
+        }
+    }
+
+    @Test
+    void withoutAPolicyFileOrRecessionDatesThoseAreLeftOut() throws IOException {
+        Path out = dir.resolve("bare.html");
+        CliRun run = CliRun.of("replay", history.toString(), "--spread", "10Y-1Y", "--report", out.toString(), "--json");
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        Document bare = Jsoup.parse(Files.readString(out));
+        assertThat(bare.select(".policy-hash")).isEmpty();
+        assertThat(bare.select("dl.policy").text()).contains("none: rules from the command line");
+        assertThat(bare.select("table.leads")).isEmpty();
+        assertThat(bare.select("g.recession")).isEmpty();
+        assertThat(bare.select("svg.chart g.spell")).hasSize(new ObjectMapper().readTree(run.out()).get("spreads").get(0).get("spells").size());
+    }
+
+    @Test
+    void aReportThatCannotBeWrittenFailsWithExitCode1() {
+        CliRun run = CliRun.of("replay", history.toString(), "--spread", "10Y-1Y", "--report",
+                dir.resolve("no-such-dir").resolve("r.html").toString());
+        assertThat(run.exitCode()).isEqualTo(1);
+        assertThat(run.err()).contains("cannot write the report").contains("no-such-dir");
+        assertThat(run.out()).as("no report printed after a failure").isEmpty();
+    }
+
+    @Test
+    void theProgressBarStillDrawsWithAReport() throws IOException {
+        // the reader reports progress every 16,384 rows: an invented daily history of 20,000 days
+        Path longFile = dir.resolve("GOVT-A.csv");
+        StringBuilder rows = new StringBuilder("date,1Y,10Y\n");
+        LocalDate day = LocalDate.of(1970, 1, 1);
+        for (int i = 0; i < 20_000; i++) {
+            rows.append(day.plusDays(i)).append(",5.00,").append(String.format(Locale.ROOT, "%.3f", 5 + Math.sin(i / 400.0)))
+                    .append('\n');
+        }
+        Files.writeString(longFile, rows);
+        PrintStream stderr = System.err;
+        String before = System.getProperty("slopewatch.progress");
+        ByteArrayOutputStream captured = new ByteArrayOutputStream();
+        try {
+            System.setProperty("slopewatch.progress", "true");
+            System.setErr(new PrintStream(captured, true, StandardCharsets.UTF_8));
+            CliRun run = CliRun.of("replay", longFile.toString(), "--spread", "10Y-1Y", "--report", dir.resolve("p.html").toString());
+            assertThat(run.exitCode()).isZero();
+        } finally {
+            System.setErr(stderr);
+            if (before == null) {
+                System.clearProperty("slopewatch.progress");
+            } else {
+                System.setProperty("slopewatch.progress", before);
+            }
+        }
+        assertThat(captured.toString(StandardCharsets.UTF_8)).contains("\rreplay [").contains(" bytes");
+        Document report = Jsoup.parse(dir.resolve("p.html").toFile());
+        assertThat(report.select("svg.chart g.spell")).as("sin(i/400) dips below zero about every 2,500 days").hasSizeGreaterThan(5);
+    }
+
+    /** Peaks of the recessions in the dates file with a month inside the history file's range. */
+    private static List<String> peaksInRangeFromTheFiles() throws IOException {
+        List<String> rows = Files.readAllLines(history);
+        YearMonth first = YearMonth.from(LocalDate.parse(rows.get(1).split(",")[0]));
+        YearMonth last = YearMonth.from(LocalDate.parse(rows.get(rows.size() - 1).split(",")[0]));
+        List<String> peaks = new ArrayList<>();
+        List<String> dates = Files.readAllLines(recessions);
+        for (String line : dates.subList(1, dates.size())) {
+            String[] f = line.split(",");
+            YearMonth start = YearMonth.parse(f[0]).plusMonths(1);
+            YearMonth end = YearMonth.parse(f[1]);
+            if (!start.isAfter(last) && !end.isBefore(first)) {
+                peaks.add(f[0]);
+            }
+        }
+        return peaks;
+    }
+
+    private static List<String> ids() {
+        List<String> ids = new ArrayList<>();
+        json.get("spreads").forEach(s -> ids.add(s.get("id").asText()));
+        return ids;
+    }
+
+    private static Element section(int i) {
+        return page.select("section.spread").get(i);
+    }
+
+    private static Element chart(int i) {
+        return section(i).selectFirst("svg.chart");
+    }
+
+    private static String fact(Element dl, String label) {
+        for (Element dt : dl.select("dt")) {
+            if (dt.text().equals(label)) {
+                return dt.nextElementSibling().text();
+            }
+        }
+        throw new AssertionError("no '" + label + "' in " + dl.text());
+    }
+
+    private static String orDash(JsonNode n) {
+        return n == null || n.isNull() ? "-" : n.asText();
+    }
+}
