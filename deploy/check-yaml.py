@@ -125,7 +125,7 @@ for name, e in env.items():
     if ref:
         check(ref["name"] == secret.get("metadata", {}).get("name") and ref["key"] in secret_keys,
               f"env {name}: Secret key {ref['key']} is in the template")
-for token in ("SLOPEWATCH_TOKENS_WRITE", "SLOPEWATCH_TOKENS_READ"):
+for token in ("SLOPEWATCH_SECURITY_WRITE_TOKENS", "SLOPEWATCH_SECURITY_READ_TOKENS"):
     check(token in env, f"env {token} is passed to the container")
 for ref in c.get("envFrom", []):
     name = ref.get("configMapRef", {}).get("name")
