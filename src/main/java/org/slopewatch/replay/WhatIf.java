@@ -130,10 +130,10 @@ public final class WhatIf {
         wouldFire.sort(Comparator.comparing(WhatIfReport.Notice::marketDate)); // stable: decision order within a date
         List<WhatIfReport.Notice> firstNotices = wouldFire.stream().filter(n -> n.kind().equals(AlertDecision.Notice.FIRING.name())).toList();
         List<String> notes = new ArrayList<>();
-        notes.add("Market dates are the clock: each quote message" + (live == null ? " (a row of the file)" : "") + " is one step,"
-                + " taken in recorded order, and the rules are evaluated after each step.");
-        notes.add("Repeats are not evaluated: their intervals are wall-clock time, which an offline run does not have;"
-                + " first notices are compared, and resolve notices are listed.");
+        notes.add("Market dates are the clock: each " + (live == null ? "snapshot (a curve on a date)" : "quote message")
+                + " is one step, taken in recorded order, and the rules are evaluated after each step.");
+        notes.add("Repeats are not evaluated: their intervals are wall-clock time, which an offline run does not have; first notices"
+                + (live == null ? "" : " (compared with what fired)") + " and resolve notices are listed.");
         if (!feedRules.isEmpty()) {
             notes.add("Feed rules (" + String.join(", ", feedRules) + ") do not apply offline: a stale feed is about when quotes"
                     + " arrived, which market data does not record.");
