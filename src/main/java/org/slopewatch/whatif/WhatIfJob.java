@@ -1,6 +1,7 @@
 package org.slopewatch.whatif;
 
 import java.time.Instant;
+import java.util.Locale;
 import java.util.concurrent.atomic.AtomicLong;
 import org.slopewatch.replay.WhatIfReport;
 
@@ -15,7 +16,7 @@ public final class WhatIfJob {
         RUNNING, DONE, FAILED;
 
         public String label() {
-            return name().toLowerCase(java.util.Locale.ROOT);
+            return name().toLowerCase(Locale.ROOT);
         }
     }
 
