@@ -31,6 +31,7 @@ import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyParser;
 import org.slopewatch.spread.SpreadDefinition;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Option;
@@ -40,12 +41,13 @@ import picocli.CommandLine.Parameters;
 @Command(name = "replay", mixinStandardHelpOptions = true, sortOptions = false,
         description = {"Replays yield history (CSV) through the inversion monitor and reports quarters, "
                 + "transitions, spells and, with --recessions, lead times.",
-                "Spreads and persistence tests come from --policy, or from --spread/--persistence."},
+                "Spreads and persistence tests come from --policy, or from --spread/--persistence.",
+                "With --rules POLICY, a what-if: what that policy's alert rules would fire on FILE or --from-journal JOURNAL."},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {"0:report written", "1:could not read a file", "2:bad input or options (file:line: what is wrong)"})
 final class ReplayCommand implements Callable<Integer> {
 
-    @Parameters(index = "0", paramLabel = "FILE", description = "History CSV: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield'.")
+    @Parameters(index = "0", arity = "0..1", paramLabel = "FILE", description = "History CSV: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield'.")
     Path file;
 
     @Option(names = "--curve", paramLabel = "NAME", description = "Curve name for a wide file (default: the file name without extension).")
@@ -57,7 +59,8 @@ final class ReplayCommand implements Callable<Integer> {
     @Option(names = "--policy", paramLabel = "FILE", description = "Policy file whose 'watch' part names the spreads and tests (see alert-rules/README.md).")
     Path policy;
 
-    @Option(names = "--spread", paramLabel = "SPREAD", description = "Spread to watch, e.g. 10Y-3M, 10Y-2Y~ (interpolated legs) or near-term-forward. Repeatable.")
+    @Option(names = "--spread", paramLabel = "SPREAD", description = "Spread to watch, e.g. 10Y-3M, 10Y-2Y~ (interpolated legs) or near-term-forward. Repeatable. "
+            + "With --rules: only these of the policy's spreads, by name or id (GOVT-A:10Y-3M).")
     List<String> spreads = new ArrayList<>();
 
     @Option(names = "--persistence", paramLabel = "TEST", description = "Persistence test: quarter-average, days-inverted:DAYS, rolling-average:DAYS, "
@@ -91,6 +94,8 @@ final class ReplayCommand implements Callable<Integer> {
     @Option(names = "--report", paramLabel = "FILE", description = "Also write the report as one self-contained HTML page: "
             + "charts of each spread, spells, transitions, the policy and its hash, with --recessions the lead times.")
     Path htmlReport;
+    @Mixin
+    WhatIfOptions whatIf;
 
     @Spec
     CommandSpec spec;
@@ -99,6 +104,10 @@ final class ReplayCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
+        Integer whatIfExit = whatIf.runIfAsked(file, file == null ? null : curveName(), unit, spreads, json);
+        if (whatIfExit != null) {
+            return whatIfExit;
+        }
         try {
             List<Watch> watches = watches();
             LeadTimeAnalysis leads = null;

@@ -14,6 +14,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import javax.sql.DataSource;
 import org.slopewatch.delivery.Alert;
 import org.slopewatch.rules.Severity;
@@ -368,6 +369,22 @@ public final class AlertStore {
             latest.put(a.alert().rule() + "|" + a.subject(), a);
         });
         return List.copyOf(latest.values());
+    }
+
+    /**
+     * Every notice of the given kinds, oldest first, without deliveries: what did fire, for a
+     * what-if to compare with.
+     */
+    public List<StoredAlert> notices(Set<Alert.Kind> kinds) {
+        List<StoredAlert> out = new ArrayList<>();
+        if (kinds.isEmpty()) {
+            return out;
+        }
+        List<String> names = kinds.stream().map(Enum::name).sorted().toList();
+        String in = String.join(",", java.util.Collections.nCopies(names.size(), "?"));
+        query("SELECT " + ALERT_COLUMNS + " FROM alert a WHERE a.kind IN (" + in + ") ORDER BY a.created_at, a.id", s -> bind(s, names),
+                rs -> out.add(alert(rs)));
+        return out;
     }
 
     /** Acknowledgements of the alerts of one episode (same rule, subject and start). */

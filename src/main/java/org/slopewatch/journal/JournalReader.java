@@ -103,6 +103,16 @@ public final class JournalReader {
         }
     }
 
+    /** Accepted quote messages recorded so far: the length of {@link #replayQuotes}, for progress reports. */
+    public long quoteCount() {
+        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement("SELECT COUNT(*) FROM quote");
+             ResultSet rs = s.executeQuery()) {
+            return rs.next() ? rs.getLong(1) : 0;
+        } catch (SQLException e) {
+            throw new JournalException("cannot count the journal's quotes", e);
+        }
+    }
+
     /** The standing value of a spread on each date in a range (the last value recorded for the date). */
     public List<HistoryPoint> history(String spreadId, LocalDate from, LocalDate to) {
         return history(spreadId, from, to, null);

@@ -1,7 +1,10 @@
 /**
  * Offline analysis of history files: the replay (history through the engine objects the daemon
- * uses, into a report of quarters, transitions, spells and lead times) and the probit fit (one
- * spread's series read the same way, into a {@link org.slopewatch.replay.FitReport}). Plain Java;
- * opens no ports. Every report carries {@link org.slopewatch.replay.ReplayReport#CAUTION}.
+ * uses, into a report of quarters, transitions, spells and lead times), the probit fit (one
+ * spread's series read the same way, into a {@link org.slopewatch.replay.FitReport}), and the
+ * what-if ({@link org.slopewatch.replay.WhatIf}: another policy's alert rules on stored history,
+ * with market dates as the clock, compared with what fired live). Plain Java; opens no ports and
+ * builds its own engines, so it never touches the daemon's state. Every report carries
+ * {@link org.slopewatch.replay.ReplayReport#CAUTION}.
  */
 package org.slopewatch.replay;

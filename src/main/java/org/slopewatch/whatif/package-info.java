@@ -1,0 +1,10 @@
+/**
+ * The what-if over a journal: reads the stored quotes and the notices that fired into
+ * {@link org.slopewatch.replay.WhatIf} ({@link org.slopewatch.whatif.JournalWhatIf}, used by the
+ * command line and the daemon), and runs what-ifs for the API as bounded background jobs with
+ * progress ({@link org.slopewatch.whatif.WhatIfJobs}).
+ *
+ * <p>Invariant: only reads the journal and builds engines of its own; the daemon's pipeline, rule
+ * engine and policy in force are never touched.
+ */
+package org.slopewatch.whatif;
