@@ -4,9 +4,11 @@ import io.quarkus.runtime.Startup;
 import jakarta.annotation.PreDestroy;
 import jakarta.inject.Singleton;
 import java.time.Clock;
+import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.UUID;
 import java.util.concurrent.Executors;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
@@ -26,7 +28,8 @@ import org.slopewatch.journal.JournalException;
  * journals the attempt and the new schedule together. Because the schedule lives in the journal,
  * pending deliveries resume after a restart; because a delivery is marked done in the same
  * transaction that records its successful attempt, a restart repeats at most the attempt in
- * flight when the process died.
+ * flight when the process died. Each attempt is preceded by a claim on the outbox row (a two-minute
+ * lease), so that several daemons on one journal never send the same delivery at once.
  *
  * <p>A channel with a long outage holds up only its own queue. Workers poll at
  * {@code slopewatch.alerts.delivery-poll} and are woken at once when new alerts are stored.
@@ -37,6 +40,9 @@ public class AlertDispatcher {
 
     private static final Logger LOG = Logger.getLogger(AlertDispatcher.class);
     private static final int BATCH = 50;
+    // how long a claimed delivery is this instance's alone: longer than any attempt can take (a
+    // channel's time-out is seconds), short enough that a row left by a dead instance is soon retried
+    private static final Duration CLAIM = Duration.ofMinutes(2);
 
     private final ChannelRegistry channels;
     private final AlertStore store;
@@ -44,6 +50,8 @@ public class AlertDispatcher {
     private final AlertMetrics metrics;
     private final Clock clock;
     private final ScheduledExecutorService workers;
+    // names this process in outbox claims; only equality matters
+    private final String instance = ProcessHandle.current().pid() + "@" + UUID.randomUUID();
     private final List<Worker> all = new ArrayList<>();
 
     AlertDispatcher(ChannelRegistry channels, AlertStore store, RetryPolicy retry, AlertMetrics metrics, AlertsConfig config, Clock clock) {
@@ -112,6 +120,9 @@ public class AlertDispatcher {
 
         private void deliver(AlertStore.Due d) {
             Instant attemptedAt = clock.instant();
+            if (!store.claim(d.delivery(), instance, attemptedAt, attemptedAt.plus(CLAIM))) {
+                return; // another instance is sending it, or has just sent it
+            }
             DeliveryOutcome outcome;
             try {
                 outcome = channel.deliver(d.alert());

@@ -151,6 +151,30 @@ public final class AlertStore {
     }
 
     /**
+     * Claims a due delivery for one attempt by this instance, until {@code until}. False when
+     * another instance holds an unexpired claim, or the row has moved on since it was read (an
+     * attempt recorded, the delivery finished): then this instance must not attempt it.
+     */
+    public boolean claim(Delivery d, String instance, Instant now, Instant until) {
+        int[] n = {0};
+        inTransaction(c -> {
+            try (PreparedStatement s = c.prepareStatement("UPDATE delivery SET claimed_by = ?, claimed_until = ? "
+                    + "WHERE alert_id = ? AND channel = ? AND status = 'PENDING' AND attempts = ? "
+                    + "AND (claimed_until IS NULL OR claimed_until < ? OR claimed_by = ?)")) {
+                s.setString(1, instance);
+                s.setTimestamp(2, Timestamp.from(until));
+                s.setString(3, d.alertId());
+                s.setString(4, d.channel());
+                s.setInt(5, d.attempts());
+                s.setTimestamp(6, Timestamp.from(now));
+                s.setString(7, instance);
+                n[0] = s.executeUpdate();
+            }
+        });
+        return n[0] == 1;
+    }
+
+    /**
      * Records one attempt and where the delivery stands after it, in one transaction.
      *
      * @param next   when to try again, or null when the delivery is finished
@@ -173,7 +197,8 @@ public final class AlertStore {
                 s.executeUpdate();
             }
             try (PreparedStatement s = c.prepareStatement("UPDATE delivery SET status = ?, attempts = attempts + 1, next_attempt_at = ?, "
-                    + "first_attempt_at = COALESCE(first_attempt_at, ?), last_detail = ?, updated_at = ? WHERE alert_id = ? AND channel = ?")) {
+                    + "first_attempt_at = COALESCE(first_attempt_at, ?), last_detail = ?, updated_at = ?, claimed_by = NULL, "
+                    + "claimed_until = NULL WHERE alert_id = ? AND channel = ?")) {
                 s.setString(1, status.name());
                 s.setTimestamp(2, next == null ? null : Timestamp.from(next));
                 s.setTimestamp(3, Timestamp.from(attemptedAt));

@@ -104,6 +104,32 @@ abstract class AlertStoreChecks {
         assertThat(done.firstAttemptAt()).as("kept from the first attempt").isEqualTo(T0);
     }
 
+    /*
+     * Two daemons on one journal: whoever claims a due delivery first attempts it; the other
+     * backs off until the claim's lease runs out, and a claim read before an attempt was recorded
+     * is refused.
+     */
+    @Test
+    void aDeliveryIsClaimedByOneInstanceAtATime() {
+        AgroalDataSource ds = database();
+        new JournalWriter(ds, clock).write(notice("inversion-confirmed~GOVT-A:10Y-3M~2026-09-30~1", 1, Alert.Kind.FIRING));
+        AlertStore first = new AlertStore(ds, clock);
+        AlertStore second = new AlertStore(ds, clock);
+        AlertStore.Delivery seenByBoth = first.due("log", T0, 10).get(0).delivery();
+
+        assertThat(first.claim(seenByBoth, "instance-1", T0, T0.plusSeconds(120))).isTrue();
+        assertThat(second.claim(seenByBoth, "instance-2", T0.plusSeconds(1), T0.plusSeconds(121))).as("held by instance-1").isFalse();
+        assertThat(second.claim(seenByBoth, "instance-2", T0.plusSeconds(121), T0.plusSeconds(241)))
+                .as("instance-1's lease ran out (it died mid-attempt)").isTrue();
+
+        second.attempt(seenByBoth, T0.plusSeconds(121), "retry", "HTTP 503", "retry in 30s", AlertStore.Status.PENDING,
+                T0.plusSeconds(151));
+        assertThat(first.claim(seenByBoth, "instance-1", T0.plusSeconds(200), T0.plusSeconds(320)))
+                .as("read before instance-2's attempt was recorded: stale").isFalse();
+        AlertStore.Delivery fresh = first.due("log", T0.plusSeconds(200), 10).get(0).delivery();
+        assertThat(first.claim(fresh, "instance-1", T0.plusSeconds(200), T0.plusSeconds(320))).as("recording the attempt freed it").isTrue();
+    }
+
     @Test
     void episodesAcksMutesAndPolicyVersionsReadBack() {
         AgroalDataSource ds = database();
