@@ -1,0 +1,43 @@
+package org.slopewatch.ingest.kafka;
+
+import io.smallrye.common.annotation.Identifier;
+import io.smallrye.reactive.messaging.kafka.KafkaConsumerRebalanceListener;
+import jakarta.enterprise.context.ApplicationScoped;
+import java.util.Collection;
+import org.apache.kafka.clients.consumer.Consumer;
+import org.apache.kafka.common.TopicPartition;
+import org.jboss.logging.Logger;
+import org.slopewatch.ingest.QuotePipeline;
+
+/**
+ * When Kafka hands this instance partitions of the quotes topic (at start, or when another
+ * instance of the same consumer group stops or joins), the monitors are rebuilt from the shared
+ * journal before the first record of the new partitions is processed. The journal holds what the
+ * previous owner concluded, so the new owner continues from there rather than from whatever it
+ * last saw of those curves.
+ *
+ * <p>Rebuilding everything rather than only the curves of the new partitions is deliberate: it is
+ * the same replay a restart does, so its correctness is the restart's, already tested.
+ */
+@ApplicationScoped
+@Identifier(RebuildOnRebalance.NAME)
+public class RebuildOnRebalance implements KafkaConsumerRebalanceListener {
+
+    public static final String NAME = "slopewatch-rebuild-on-rebalance";
+    private static final Logger LOG = Logger.getLogger(RebuildOnRebalance.class);
+
+    private final QuotePipeline pipeline;
+
+    RebuildOnRebalance(QuotePipeline pipeline) {
+        this.pipeline = pipeline;
+    }
+
+    @Override
+    public void onPartitionsAssigned(Consumer<?, ?> consumer, Collection<TopicPartition> partitions) {
+        if (partitions.isEmpty()) {
+            return;
+        }
+        long replayed = pipeline.recover();
+        LOG.infof("quotes partitions assigned %s: monitors rebuilt from %d journalled quote message(s)", partitions, replayed);
+    }
+}
