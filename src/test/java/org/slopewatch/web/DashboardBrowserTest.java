@@ -24,6 +24,7 @@ import org.openqa.selenium.By;
 import org.openqa.selenium.Dimension;
 import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.OutputType;
+import org.openqa.selenium.StaleElementReferenceException;
 import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
@@ -170,15 +171,19 @@ class DashboardBrowserTest {
                 .until(b -> b.findElement(item).getText().contains("Acknowledged"));
         given().get("/api/alerts/" + id).then().statusCode(200).body("alert.acks[0].by", equalTo("desk lead"));
 
+        // the page redraws itself every few seconds: each check reads the element afresh, and a
+        // read that meets an element just replaced is tried again
         By row = By.cssSelector("#overview-rows tr[data-spread='GOVT-B:10Y-3M']");
-        wait.withMessage("the overview table should list GOVT-B 10Y-3M as inverted")
-                .until(b -> !b.findElements(row).isEmpty() && "INVERTED".equals(b.findElement(row).getAttribute("data-state")));
-        assertThat(browser.findElement(row).getText()).contains("\u221215.0");
+        wait.ignoring(StaleElementReferenceException.class)
+                .withMessage("the overview table should list GOVT-B 10Y-3M as inverted at \u221215.0 bp")
+                .until(b -> !b.findElements(row).isEmpty() && "INVERTED".equals(b.findElement(row).getAttribute("data-state"))
+                        && b.findElement(row).getText().contains("\u221215.0"));
 
         By earlier = By.cssSelector("article[data-curve='GOVT-B'] svg.curve-chart path.series-earlier");
-        wait.withMessage("the GOVT-B curve should be drawn against 2026-02-16").until(b -> !b.findElements(earlier).isEmpty());
-        assertThat(browser.findElement(By.cssSelector("article[data-curve='GOVT-B'] svg.curve-chart")).getAttribute("aria-label"))
-                .contains("on 2026-02-16");
+        By chart = By.cssSelector("article[data-curve='GOVT-B'] svg.curve-chart");
+        wait.ignoring(StaleElementReferenceException.class)
+                .withMessage("the GOVT-B curve should be drawn against 2026-02-16, and say so in its text alternative")
+                .until(b -> !b.findElements(earlier).isEmpty() && b.findElement(chart).getAttribute("aria-label").contains("on 2026-02-16"));
     }
 
     private static void screenshot(String name) throws IOException {
