@@ -160,9 +160,4 @@ public class AlertDispatcher {
         }
         return ((DeliveryOutcome.FailedForGood) outcome).reason();
     }
-
-    /** The channels deliveries can go to, by name. */
-    boolean configured(String channel) {
-        return channels.channel(channel).isPresent();
-    }
 }

@@ -5,12 +5,10 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
-import java.util.HexFormat;
 import org.slopewatch.ingest.IngestConfig;
 import org.slopewatch.rules.Policy;
 import org.slopewatch.rules.PolicyException;
+import org.slopewatch.rules.PolicyHash;
 import org.slopewatch.rules.PolicyParser;
 
 /**
@@ -53,14 +51,6 @@ public class PolicyHolder {
     public static Loaded read(String file) throws IOException, PolicyException {
         byte[] bytes = Files.readAllBytes(Path.of(file));
         Policy policy = PolicyParser.parse(file, new String(bytes, StandardCharsets.UTF_8));
-        return new Loaded(policy, hash(bytes), file);
-    }
-
-    static String hash(byte[] bytes) {
-        try {
-            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException("every Java runtime has SHA-256", e);
-        }
+        return new Loaded(policy, PolicyHash.of(bytes), file);
     }
 }

@@ -14,6 +14,7 @@ import org.jboss.logging.Logger;
 import org.slopewatch.ingest.QuotePipeline;
 import org.slopewatch.journal.AlertStore;
 import org.slopewatch.rules.PolicyException;
+import org.slopewatch.rules.PolicyHash;
 
 /**
  * Hot reload of the policy file. Every {@code slopewatch.alerts.reload-check} the file's content
@@ -83,7 +84,7 @@ public class PolicyReloader {
         } catch (IOException e) {
             return reject(file, "unreadable:" + file, "cannot read " + file + ": " + e.getMessage());
         }
-        String hash = PolicyHolder.hash(bytes);
+        String hash = PolicyHash.of(bytes);
         if (hash.equals(current.hash())) {
             return new Outcome("unchanged", hash, "the policy in force has this content");
         }

@@ -6,7 +6,6 @@ import java.io.PrintWriter;
 import java.io.Reader;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -139,20 +138,10 @@ final class ReplayCommand implements Callable<Integer> {
                 new ReplayText(out, listTransitions).print(report);
             }
             return 0;
-        } catch (HistoryFormatException | PolicyException e) {
-            err.println(e.getMessage());
-            return 2;
-        } catch (IllegalArgumentException e) {
-            // messages of file readers already start with file:line
-            String m = e.getMessage();
-            err.println(m.matches("(?s)\\S+:\\d+: .*") ? m : "slopewatch replay: " + m);
-            return 2;
-        } catch (NoSuchFileException e) {
-            err.println("slopewatch replay: no such file: " + e.getFile());
-            return 1;
+        } catch (HistoryFormatException | PolicyException | IllegalArgumentException e) {
+            return ReplayFailure.input(e, err);
         } catch (IOException e) {
-            err.println("slopewatch replay: cannot read: " + e.getMessage());
-            return 1;
+            return ReplayFailure.unreadable(e, err);
         }
     }
 

@@ -5,7 +5,6 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintWriter;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.time.Clock;
 import java.util.List;
@@ -86,19 +85,10 @@ final class WhatIfOptions {
                 new WhatIfText(out).print(report);
             }
             return 0;
-        } catch (PolicyException | HistoryFormatException e) {
-            err.println(e.getMessage());
-            return 2;
-        } catch (IllegalArgumentException e) {
-            String m = e.getMessage();
-            err.println(m.matches("(?s)\\S+:\\d+: .*") ? m : "slopewatch replay: " + m);
-            return 2;
-        } catch (NoSuchFileException e) {
-            err.println("slopewatch replay: no such file: " + e.getFile());
-            return 1;
+        } catch (PolicyException | HistoryFormatException | IllegalArgumentException e) {
+            return ReplayFailure.input(e, err);
         } catch (IOException e) {
-            err.println("slopewatch replay: cannot read: " + e.getMessage());
-            return 1;
+            return ReplayFailure.unreadable(e, err);
         } catch (JournalException e) {
             err.println("slopewatch replay: " + (inUse(e) ? "the journal " + journal + " is in use by another process: an H2 journal"
                     + " can be read while the daemon is stopped; on a running daemon use POST /api/what-if"

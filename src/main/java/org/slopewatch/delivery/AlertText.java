@@ -1,6 +1,7 @@
 package org.slopewatch.delivery;
 
 import java.util.Locale;
+import org.slopewatch.report.Html;
 
 /**
  * The human-readable forms of an alert, shared by the chat, email and log channels so that
@@ -91,21 +92,6 @@ public final class AlertText {
 
     /** HTML text and attribute escaping. */
     public static String escape(String s) {
-        if (s == null) {
-            return "";
-        }
-        StringBuilder out = new StringBuilder(s.length() + 16);
-        for (int i = 0; i < s.length(); i++) {
-            char c = s.charAt(i);
-            switch (c) {
-                case '&' -> out.append("&amp;");
-                case '<' -> out.append("&lt;");
-                case '>' -> out.append("&gt;");
-                case '"' -> out.append("&quot;");
-                case '\'' -> out.append("&#39;");
-                default -> out.append(c);
-            }
-        }
-        return out.toString();
+        return Html.escape(s);
     }
 }

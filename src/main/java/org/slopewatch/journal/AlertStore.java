@@ -311,7 +311,7 @@ public final class AlertStore {
     public List<AlertView> forSubject(JournalRange range, int limit) {
         Map<String, StoredAlert> alerts = new LinkedHashMap<>();
         query("SELECT " + ALERT_COLUMNS + " FROM alert a WHERE " + alertFilter(range) + " ORDER BY a.recorded_at, a.created_at, a.id "
-                + "FETCH FIRST " + limit + " ROWS ONLY", s -> bindAlertFilter(s, range), rs -> {
+                + "FETCH FIRST " + limit + " ROWS ONLY", range::bind, rs -> {
                     StoredAlert a = alert(rs);
                     alerts.put(a.alert().id(), a);
                 });
@@ -321,42 +321,17 @@ public final class AlertStore {
     /** Every alert of a range ({@code spreadId} is the subject, null for all), streamed oldest first. */
     public void eachAlert(JournalRange range, RowSink<StoredAlert> sink) throws IOException {
         String sql = "SELECT " + ALERT_COLUMNS + " FROM alert a WHERE " + alertFilter(range) + " ORDER BY a.created_at, a.id";
-        try (Connection c = dataSource.getConnection()) {
-            boolean autoCommit = c.getAutoCommit();
-            c.setAutoCommit(false); // PostgreSQL keeps a cursor only inside a transaction; without one it reads every row first
-            try (PreparedStatement s = c.prepareStatement(sql)) {
-                bindAlertFilter(s, range);
-                s.setFetchSize(1_000);
-                try (ResultSet rs = s.executeQuery()) {
-                    while (rs.next()) {
-                        sink.accept(alert(rs));
-                    }
-                }
-            } finally {
-                c.rollback();
-                c.setAutoCommit(autoCommit);
+        JournalCursor.stream(dataSource, sql, range::bind, rs -> {
+            while (rs.next()) {
+                sink.accept(alert(rs));
             }
-        } catch (SQLException e) {
-            throw new JournalException("cannot read alerts from the journal", e);
-        }
+        }, "alerts");
     }
 
     private static String alertFilter(JournalRange range) {
         // notices without a market date (a stale feed) belong to every range
         return "(a.market_date IS NULL OR (a.market_date >= ? AND a.market_date <= ?))"
                 + (range.spreadId() == null ? "" : " AND a.subject = ?") + (range.asOf() == null ? "" : " AND a.recorded_at <= ?");
-    }
-
-    private static void bindAlertFilter(PreparedStatement s, JournalRange range) throws SQLException {
-        int i = 1;
-        s.setDate(i++, Date.valueOf(range.from()));
-        s.setDate(i++, Date.valueOf(range.to()));
-        if (range.spreadId() != null) {
-            s.setString(i++, range.spreadId());
-        }
-        if (range.asOf() != null) {
-            s.setTimestamp(i, Timestamp.from(range.asOf()));
-        }
     }
 
     /** The delivery attempts of some alerts recorded at or before {@code asOf} (null: all), in the order they were recorded. */

@@ -47,7 +47,6 @@ public final class JournalReader {
     }
 
     /** Rows a cursor reads before handing them on: enough for few round trips, few enough to keep memory flat. */
-    private static final int FETCH_SIZE = 1_000;
 
     private final DataSource dataSource;
 
@@ -203,17 +202,9 @@ public final class JournalReader {
     }
 
     private static void bindTransitions(PreparedStatement s, JournalRange range, boolean includeSuperseded) throws SQLException {
-        int i = 1;
-        s.setDate(i++, Date.valueOf(range.from()));
-        s.setDate(i++, Date.valueOf(range.to()));
-        if (range.spreadId() != null) {
-            s.setString(i++, range.spreadId());
-        }
-        if (range.asOf() != null) {
-            s.setTimestamp(i++, Timestamp.from(range.asOf()));
-            if (!includeSuperseded) {
-                s.setTimestamp(i, Timestamp.from(range.asOf()));
-            }
+        int next = range.bind(s);
+        if (range.asOf() != null && !includeSuperseded) {
+            s.setTimestamp(next, Timestamp.from(range.asOf()));
         }
     }
 
@@ -253,17 +244,7 @@ public final class JournalReader {
         String sql = "SELECT id, spread_id, market_date, value_bp, seq, recorded_at FROM observation WHERE market_date >= ? AND market_date <= ?"
                 + (range.spreadId() == null ? "" : " AND spread_id = ?") + (range.asOf() == null ? "" : " AND recorded_at <= ?")
                 + " ORDER BY spread_id, market_date, id";
-        stream(sql, s -> {
-            int i = 1;
-            s.setDate(i++, Date.valueOf(range.from()));
-            s.setDate(i++, Date.valueOf(range.to()));
-            if (range.spreadId() != null) {
-                s.setString(i++, range.spreadId());
-            }
-            if (range.asOf() != null) {
-                s.setTimestamp(i, Timestamp.from(range.asOf()));
-            }
-        }, rs -> {
+        stream(sql, range::bind, rs -> {
             // a value stands until a later row for the same spread and date replaces it: one row of look-ahead tells
             StoredObservation pending = null;
             long emitted = 0;
@@ -309,37 +290,7 @@ public final class JournalReader {
         return out;
     }
 
-    @FunctionalInterface
-    private interface Binder {
-        void bind(PreparedStatement s) throws SQLException;
-    }
-
-    @FunctionalInterface
-    private interface Cursor {
-        void read(ResultSet rs) throws SQLException, IOException;
-    }
-
-    /**
-     * Runs a query through a cursor with a bounded fetch size, so that memory stays flat however
-     * many rows match. PostgreSQL keeps a cursor only inside a transaction, hence auto-commit off
-     * for the read (and back on before the connection returns to the pool).
-     */
-    private void stream(String sql, Binder binder, Cursor cursor, String what) throws IOException {
-        try (Connection c = dataSource.getConnection()) {
-            boolean autoCommit = c.getAutoCommit();
-            c.setAutoCommit(false);
-            try (PreparedStatement s = c.prepareStatement(sql, ResultSet.TYPE_FORWARD_ONLY, ResultSet.CONCUR_READ_ONLY)) {
-                binder.bind(s);
-                s.setFetchSize(FETCH_SIZE);
-                try (ResultSet rs = s.executeQuery()) {
-                    cursor.read(rs);
-                }
-            } finally {
-                c.rollback(); // read only: nothing to keep
-                c.setAutoCommit(autoCommit);
-            }
-        } catch (SQLException e) {
-            throw new JournalException("cannot read " + what + " from the journal", e);
-        }
+    private void stream(String sql, JournalCursor.Binder binder, JournalCursor.Cursor cursor, String what) throws IOException {
+        JournalCursor.stream(dataSource, sql, binder, cursor, what);
     }
 }

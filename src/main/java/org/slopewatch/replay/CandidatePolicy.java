@@ -1,11 +1,9 @@
 package org.slopewatch.replay;
 
 import java.nio.charset.StandardCharsets;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
-import java.util.HexFormat;
 import org.slopewatch.rules.Policy;
 import org.slopewatch.rules.PolicyException;
+import org.slopewatch.rules.PolicyHash;
 import org.slopewatch.rules.PolicyParser;
 
 /**
@@ -25,10 +23,6 @@ public record CandidatePolicy(String source, Policy policy, String sha256) {
     }
 
     static String sha256(byte[] bytes) {
-        try {
-            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException("every Java runtime has SHA-256", e);
-        }
+        return PolicyHash.of(bytes);
     }
 }

@@ -1,12 +1,12 @@
 package org.slopewatch.report;
 
-/** Escaping for text and attribute values in the report's HTML. */
-final class Html {
+/** Escaping for text and attribute values in HTML: the reports' pages and the alert emails. */
+public final class Html {
 
     private Html() {
     }
 
-    static String escape(String text) {
+    public static String escape(String text) {
         if (text == null) {
             return "";
         }

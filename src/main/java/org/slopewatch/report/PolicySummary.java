@@ -3,11 +3,9 @@ package org.slopewatch.report;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
-import java.util.HexFormat;
 import java.util.List;
 import org.slopewatch.monitor.Watch;
+import org.slopewatch.rules.PolicyHash;
 
 /**
  * The policy a report was made under: its file, the SHA-256 of the file's bytes (the hash that
@@ -25,7 +23,7 @@ public record PolicySummary(String file, String sha256, String note, List<Spread
 
     /** A policy read from a file: hashed over the bytes as they are on disk now. */
     public static PolicySummary ofFile(Path file, List<Watch> watches, String note) throws IOException {
-        return new PolicySummary(file.toString(), sha256(Files.readAllBytes(file)), note, rules(watches));
+        return new PolicySummary(file.toString(), PolicyHash.of(Files.readAllBytes(file)), note, rules(watches));
     }
 
     /** Rules given without a policy file. */
@@ -35,14 +33,5 @@ public record PolicySummary(String file, String sha256, String note, List<Spread
 
     public static List<SpreadRules> rules(List<Watch> watches) {
         return watches.stream().map(SpreadRules::of).toList();
-    }
-
-    /** Lower-case hex SHA-256, the form {@code PolicyHolder} journals. */
-    public static String sha256(byte[] bytes) {
-        try {
-            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException("every Java runtime has SHA-256", e);
-        }
     }
 }

@@ -14,6 +14,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
+import org.slopewatch.testsupport.MutableClock;
 
 /**
  * The retry policy as a table: base 30 s, cap 10 min, maximum age 2 h, jitter 0.2, the clock at

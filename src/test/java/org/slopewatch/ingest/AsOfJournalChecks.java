@@ -5,13 +5,10 @@ import static org.assertj.core.api.Assertions.tuple;
 
 import io.agroal.api.AgroalDataSource;
 import java.io.IOException;
-import java.time.Clock;
 import java.time.DayOfWeek;
 import java.time.Duration;
 import java.time.Instant;
 import java.time.LocalDate;
-import java.time.ZoneId;
-import java.time.ZoneOffset;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
@@ -34,6 +31,7 @@ import org.slopewatch.monitor.Watch;
 import org.slopewatch.rules.Severity;
 import org.slopewatch.spread.SpreadDefinition;
 import org.slopewatch.spread.SpreadKey;
+import org.slopewatch.testsupport.MutableClock;
 
 /**
  * As-of reads of the journal, the same checks on H2 ({@link AsOfJournalTest}) and PostgreSQL
@@ -61,7 +59,8 @@ abstract class AsOfJournalChecks {
             new MonitorDefinition(0, 5, 2, 60, List.of(new QuarterAverage(0))), Set.of()));
 
     private final List<AutoCloseable> open = new ArrayList<>();
-    private final StepClock clock = new StepClock(T1.minus(Duration.ofHours(1)));
+    // every journal row gets the time the scenario says
+    private final MutableClock clock = new MutableClock(T1.minus(Duration.ofHours(1)));
     private AgroalDataSource ds;
     private QuotePipeline pipeline;
     private JournalReader reader;
@@ -251,33 +250,5 @@ abstract class AsOfJournalChecks {
 
     private static AlertStore.Delivery chat(AlertStore.AlertView v) {
         return v.deliveries().stream().filter(d -> d.channel().equals("desk-chat")).findFirst().orElseThrow();
-    }
-
-    /** A clock the test sets: every journal row gets the time the scenario says. */
-    private static final class StepClock extends Clock {
-        private volatile Instant now;
-
-        StepClock(Instant start) {
-            now = start;
-        }
-
-        void set(Instant instant) {
-            now = instant;
-        }
-
-        @Override
-        public ZoneId getZone() {
-            return ZoneOffset.UTC;
-        }
-
-        @Override
-        public Clock withZone(ZoneId zone) {
-            return this;
-        }
-
-        @Override
-        public Instant instant() {
-            return now;
-        }
     }
 }

@@ -1,4 +1,4 @@
-package org.slopewatch.delivery;
+package org.slopewatch.testsupport;
 
 import java.time.Clock;
 import java.time.Duration;
@@ -7,19 +7,19 @@ import java.time.ZoneId;
 import java.time.ZoneOffset;
 
 /** A clock the test moves by hand. */
-final class MutableClock extends Clock {
+public final class MutableClock extends Clock {
 
     private volatile Instant now;
 
-    MutableClock(Instant start) {
+    public MutableClock(Instant start) {
         this.now = start;
     }
 
-    void set(Instant instant) {
+    public void set(Instant instant) {
         now = instant;
     }
 
-    void advance(Duration d) {
+    public void advance(Duration d) {
         now = now.plus(d);
     }
 
