@@ -15,7 +15,11 @@ import org.slopewatch.monitor.SpreadStatus;
  */
 public interface AlertStage {
 
-    /** Adds the notices that the changed spreads call for to the step's journal entries. */
+    /**
+     * Adds the notices that the spreads one message changed call for to the step's journal entries.
+     * Called after each accepted message, with the status that message left, so that what is
+     * decided does not depend on how messages were batched.
+     */
     void onStep(Collection<SpreadStatus> changed, long sequence, JournalEntries journal);
 
     /**

@@ -8,8 +8,12 @@ import org.eclipse.microprofile.reactive.messaging.Channel;
 import org.eclipse.microprofile.reactive.messaging.Emitter;
 import org.eclipse.microprofile.reactive.messaging.spi.Connector;
 import org.slopewatch.ingest.kafka.KafkaQuoteGateway;
+import org.slopewatch.ingest.kafka.PartitionOwnership;
 
-/** Chooses how HTTP and the demo feed reach the {@code quotes} channel, by {@code slopewatch.ingest.transport}. */
+/**
+ * Chooses, by {@code slopewatch.ingest.transport}, how HTTP and the demo feed reach the {@code quotes} channel and which
+ * curves this instance answers for.
+ */
 @ApplicationScoped
 public class GatewayBeans {
 
@@ -18,5 +22,12 @@ public class GatewayBeans {
     QuoteGateway quoteGateway(IngestConfig config, @Connector("smallrye-in-memory") InMemoryConnector memory,
                               @Channel("quotes-publish") Emitter<String> topic) {
         return config.transport() == IngestConfig.Transport.KAFKA ? new KafkaQuoteGateway(topic) : new EmbeddedQuoteGateway(memory);
+    }
+
+    /** On Kafka the curves whose partitions this instance holds; embedded, every curve. */
+    @Produces
+    @Singleton
+    CurveOwnership curveOwnership(IngestConfig config, PartitionOwnership partitions) {
+        return config.transport() == IngestConfig.Transport.KAFKA ? partitions::ownsCurve : CurveOwnership.ALL;
     }
 }

@@ -12,6 +12,7 @@ import org.eclipse.microprofile.reactive.messaging.Emitter;
 import org.eclipse.microprofile.reactive.messaging.Incoming;
 import org.eclipse.microprofile.reactive.messaging.Message;
 import org.jboss.logging.Logger;
+import org.slopewatch.ingest.kafka.PartitionOwnership;
 
 /**
  * The messaging edge: one method takes each message of the {@code quotes} channel (one batch or,
@@ -22,6 +23,9 @@ import org.jboss.logging.Logger;
  * the message is acknowledged. Only a failure to journal nacks the message; the Kafka channel is
  * configured with {@code failure-strategy=fail}, so consumption stops with the offset uncommitted
  * and nothing is lost: on restart the records are read again.
+ *
+ * <p>Records of partitions this instance no longer holds (a rebalance came between fetch and
+ * processing) are left out: their new owner reads them again.
  */
 @ApplicationScoped
 public class QuoteConsumer {
@@ -29,25 +33,28 @@ public class QuoteConsumer {
     private static final Logger LOG = Logger.getLogger(QuoteConsumer.class);
 
     private final QuotePipeline pipeline;
+    private final PartitionOwnership ownership;
     private final Emitter<String> deadLetters;
 
-    QuoteConsumer(QuotePipeline pipeline, @Channel("quotes-dead-letter") Emitter<String> deadLetters) {
+    QuoteConsumer(QuotePipeline pipeline, PartitionOwnership ownership, @Channel("quotes-dead-letter") Emitter<String> deadLetters) {
         this.pipeline = pipeline;
+        this.ownership = ownership;
         this.deadLetters = deadLetters;
     }
 
     @Incoming("quotes")
     @Blocking(ordered = true)
     public CompletionStage<Void> consume(Message<List<QuoteBatch>> message) {
+        List<QuoteBatch> batches = ownership.stillHeld(message);
         BatchOutcome outcome;
         try {
-            outcome = pipeline.process(message.getPayload());
+            outcome = pipeline.process(batches);
         } catch (RuntimeException e) {
             LOG.errorf("could not process %d quote batch(es): %s", message.getPayload().size(), e.getMessage());
             message.getMetadata(OutcomeReply.class).ifPresent(r -> r.outcome().completeExceptionally(e));
             return message.nack(e);
         }
-        for (QuoteBatch batch : message.getPayload()) {
+        for (QuoteBatch batch : batches) {
             if (batch.origin().equals("kafka")) {
                 batch.rejects().forEach(this::deadLetter);
             }

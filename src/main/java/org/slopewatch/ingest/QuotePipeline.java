@@ -96,6 +96,8 @@ public final class QuotePipeline {
         for (SpreadTrack t : engine.tracks()) {
             listener.spreadChanged(SpreadStatus.of(t));
         }
+        lastReceived.clear();
+        lastReceived.putAll(reader.lastQuoteRecorded());
         alerts.rebuild();
         return count[0];
     }
@@ -111,13 +113,15 @@ public final class QuotePipeline {
     }
 
     /**
-     * Decides the notices due by the clock alone (repeats, stale feeds) and journals them.
+     * Decides the notices due by the clock alone (repeats, stale feeds) and journals them, for the
+     * curves this instance owns.
      *
-     * @param staleCurves every watched curve → the date its feed went quiet, or null while fresh
+     * @param staleCurves every owned curve → the date its feed went quiet, or null while fresh
      */
-    public synchronized void tick(Map<String, LocalDate> staleCurves) {
+    public synchronized void tick(Map<String, LocalDate> staleCurves, CurveOwnership owned) {
         JournalEntries journal = new JournalEntries();
-        alerts.onTick(spreads(), staleCurves, journal);
+        List<SpreadStatus> ownSpreads = engine.tracks().stream().filter(t -> owned.owns(t.spread().curve())).map(SpreadStatus::of).toList();
+        alerts.onTick(ownSpreads, staleCurves, journal);
         if (journal.isEmpty()) {
             return;
         }
@@ -130,6 +134,11 @@ public final class QuotePipeline {
         alerts.written(journal.alerts());
     }
 
+    /** Returns once the step in progress, if any, has been journalled (or failed). */
+    public synchronized void awaitStep() {
+        // the lock is the point: process() holds it for a whole step
+    }
+
     /** Processes batches in order and journals the step; returns what happened. */
     public synchronized BatchOutcome process(Collection<QuoteBatch> batches) {
         long started = System.nanoTime();
@@ -137,6 +146,7 @@ public final class QuotePipeline {
         List<Reject> rejects = new ArrayList<>();
         List<Transition> transitions = new ArrayList<>();
         Map<SpreadKey, SpreadTrack> touched = new LinkedHashMap<>();
+        List<SpreadTrack> stepSpreads = new ArrayList<>();
         int accepted = 0;
         int duplicates = 0;
         Map<String, int[]> acceptedByOrigin = new HashMap<>();
@@ -159,12 +169,22 @@ public final class QuotePipeline {
                 journal.quote(new JournalEntries.AcceptedQuote(seq, batch.origin(), m.id(), m.source(), m.time(), m.curve(),
                         m.date(), m.yieldsBp()));
                 CurveSnapshot snapshot = book.apply(m.curve(), m.date(), m.yieldsBp());
+                stepSpreads.clear();
                 List<MonitorEvent> events = engine.onSnapshot(snapshot, seq, (key, observation) -> {
                     journal.observation(key, observation);
-                    touched.computeIfAbsent(key, engine::track);
+                    SpreadTrack track = touched.computeIfAbsent(key, engine::track);
+                    if (track != null && !stepSpreads.contains(track)) {
+                        stepSpreads.add(track);
+                    }
                 });
                 for (MonitorEvent e : events) {
                     record(e, journal, transitions);
+                }
+                // alerts are decided after each message, on the status it left, not once per batch: a
+                // notice must not depend on how many messages a poll happened to bring (a backlog after
+                // a restart comes in large batches, live quotes in small ones)
+                if (!stepSpreads.isEmpty()) {
+                    alerts.onStep(stepSpreads.stream().map(SpreadStatus::of).toList(), seq, journal);
                 }
             }
         }
@@ -174,7 +194,6 @@ public final class QuotePipeline {
                 changed.add(SpreadStatus.of(t));
             }
         }
-        alerts.onStep(changed, sequence, journal);
         long beforeWrite = System.nanoTime();
         try {
             writer.write(journal);
@@ -254,7 +273,7 @@ public final class QuotePipeline {
         return t == null ? null : SpreadStatus.of(t);
     }
 
-    /** When a quote for each curve was last accepted (since this process started). */
+    /** When a quote for each curve was last journalled: by this process, or as the journal said at the last rebuild. */
     public synchronized Map<String, Instant> lastReceived() {
         return Map.copyOf(lastReceived);
     }

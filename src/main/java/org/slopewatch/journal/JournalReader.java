@@ -11,6 +11,7 @@ import java.sql.Timestamp;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -65,8 +66,14 @@ public final class JournalReader {
     }
 
     /**
-     * Hands every accepted quote message back in the order it was recorded, for rebuilding the
+     * Hands every accepted quote message back in the order it was processed, for rebuilding the
      * in-memory state on start.
+     *
+     * <p>The order is the pipeline's sequence number, not the row id: PostgreSQL hands identity
+     * values to each connection in cached blocks, so ids need not follow commit order. Instances
+     * sharing a journal number their steps independently, but a curve's quotes are only ever
+     * processed by one of them at a time, and the next owner continues above every number it
+     * rebuilt from, so each curve's quotes come back in their order (ties, across curves, by id).
      */
     public void replayQuotes(Consumer<JournalEntries.AcceptedQuote> sink) {
         replayQuotes(null, null, sink);
@@ -79,7 +86,7 @@ public final class JournalReader {
      */
     public void replayQuotes(Instant until, String curve, Consumer<JournalEntries.AcceptedQuote> sink) {
         String sql = "SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote WHERE 1 = 1"
-                + (until == null ? "" : " AND recorded_at <= ?") + (curve == null ? "" : " AND curve = ?") + " ORDER BY id";
+                + (until == null ? "" : " AND recorded_at <= ?") + (curve == null ? "" : " AND curve = ?") + " ORDER BY seq, id";
         try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
             int i = 1;
             if (until != null) {
@@ -99,6 +106,21 @@ public final class JournalReader {
             }
         } catch (SQLException e) {
             throw new JournalException("cannot read the journal's quotes for recovery", e);
+        }
+    }
+
+    /** When each curve's latest quote was journalled, by whichever instance: where a feed's quiet time starts. */
+    public Map<String, Instant> lastQuoteRecorded() {
+        Map<String, Instant> out = new HashMap<>();
+        try (Connection c = dataSource.getConnection();
+             PreparedStatement s = c.prepareStatement("SELECT curve, MAX(recorded_at) FROM quote GROUP BY curve");
+             ResultSet rs = s.executeQuery()) {
+            while (rs.next()) {
+                out.put(rs.getString(1), rs.getTimestamp(2).toInstant());
+            }
+            return out;
+        } catch (SQLException e) {
+            throw new JournalException("cannot read when each curve's latest quote was journalled", e);
         }
     }
 

@@ -9,7 +9,7 @@ import org.eclipse.microprofile.health.HealthCheckResponseBuilder;
 
 /**
  * Feed freshness per watched curve: DOWN when a curve has had no accepted quote for more than the
- * configured business hours (counted from start-up for a curve not yet heard from). A wellness
+ * configured business hours (counted from start-up for a curve never heard from). A wellness
  * check, so that a quiet feed shows in {@code /q/health} without taking the daemon out of a load
  * balancer.
  */
@@ -27,8 +27,12 @@ public class FeedFreshnessCheck implements HealthCheck {
     public HealthCheckResponse call() {
         HealthCheckResponseBuilder b = HealthCheckResponse.named("feed freshness").up();
         for (FeedFreshness.CurveFeed feed : freshness.now().values()) {
+            if (!feed.ownedHere()) {
+                b.withData(feed.curve(), "owned by another instance of the consumer group, which reports its feed");
+                continue;
+            }
             b.withData(feed.curve(), String.format(Locale.ROOT, "%s: last quote %s, %.1f business hours ago",
-                    feed.stale() ? "stale" : "fresh", feed.lastQuote() == null ? "none since start" : feed.lastQuote().toString(),
+                    feed.stale() ? "stale" : "fresh", feed.lastQuote() == null ? "none yet" : feed.lastQuote().toString(),
                     feed.quietBusinessHours()));
             if (feed.stale()) {
                 b.down();

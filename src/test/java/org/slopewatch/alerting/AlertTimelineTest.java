@@ -137,7 +137,10 @@ class AlertTimelineTest {
         Awaitility.await("the confirmation in the mailbox").atMost(PATIENCE).until(() -> mail("[CRITICAL] GOVT-A 10Y-3M CONFIRMED") != null);
         MimeMessage mail = mail("[CRITICAL] GOVT-A 10Y-3M CONFIRMED");
         String mailBody = com.icegreen.greenmail.util.GreenMailUtil.getBody(mail);
-        assertThat(mailBody).contains("Quarter to date: average -20.0 bp").contains("days inverted: 91").contains("not investment advice");
+        // the notice describes the spread as the confirming quote left it (2026-04-01, 89 days after
+        // 2026-01-02), not as the rest of its batch did: notices must not depend on batching
+        assertThat(mailBody).contains("Quarter to date: average -20.0 bp over 1 observations").contains("days inverted: 89")
+                .contains("not investment advice");
         assertThat(mail.getAllRecipients()[0].toString()).isEqualTo(SmtpTestResource.RISK);
 
         // repeats every two seconds until someone acknowledges

@@ -16,11 +16,13 @@ import java.util.Set;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.curve.Tenor;
+import org.slopewatch.journal.JournalEntries;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
 import org.slopewatch.monitor.DaysInverted;
 import org.slopewatch.monitor.MonitorDefinition;
 import org.slopewatch.monitor.QuarterAverage;
+import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.spread.SpreadDefinition;
 
@@ -144,6 +146,84 @@ abstract class QuotePipelineRestartChecks {
         BatchOutcome afterRestart = pipeline(ds).process(List.of(new QuoteBatch("test", List.of(m), List.of())));
         assertThat(afterRestart.accepted()).isZero();
         assertThat(afterRestart.duplicates()).isEqualTo(1);
+    }
+
+    @Test
+    void recoveryFollowsTheProcessingOrderEvenWhereRowIdsDoNot() throws Exception {
+        // PostgreSQL hands identity values to each connection in cached blocks, so a later quote can
+        // get a lower id than an earlier one; here every id is reversed against the processing order
+        List<QuoteBatch> batches = scenario(11);
+        AgroalDataSource straight = database("in-order");
+        QuotePipeline uninterrupted = pipeline(straight);
+        batches.forEach(b -> uninterrupted.process(List.of(b)));
+        AgroalDataSource shuffled = database("ids-reversed");
+        String columns = "seq, message_id, origin, source, sent_at, curve, market_date, yields, recorded_at";
+        try (java.sql.Connection from = straight.getConnection(); java.sql.Connection to = shuffled.getConnection();
+             java.sql.Statement read = from.createStatement();
+             java.sql.ResultSet rs = read.executeQuery("SELECT id, " + columns + " FROM quote");
+             java.sql.PreparedStatement write = to.prepareStatement("INSERT INTO quote (id, " + columns + ") VALUES (?,?,?,?,?,?,?,?,?,?)")) {
+            while (rs.next()) {
+                write.setLong(1, 10_000_000 - rs.getLong(1));
+                for (int i = 2; i <= 10; i++) {
+                    write.setObject(i, rs.getObject(i));
+                }
+                write.addBatch();
+            }
+            write.executeBatch();
+        }
+
+        assertThat(pipeline(shuffled).spreads()).isEqualTo(uninterrupted.spreads());
+    }
+
+    @Test
+    void aRestartRemembersWhenEachCurveWasLastQuoted() {
+        AgroalDataSource ds = database("last-quoted");
+        scenario(3).subList(0, 40).forEach(b -> pipeline(ds).process(List.of(b)));
+
+        // the feed's quiet time runs from the journalled quote, not from the restart
+        assertThat(pipeline(ds).lastReceived()).containsOnlyKeys("GOVT-A", "GOVT-B").containsValue(clock.instant());
+    }
+
+    @Test
+    void alertsSeeTheSameStepsHoweverTheQuotesAreBatched() {
+        // live quotes come a few at a time; a backlog after a restart comes in polls of hundreds
+        List<QuoteBatch> batches = scenario(5);
+        List<String> oneByOne = new ArrayList<>();
+        AgroalDataSource single = database("one-by-one");
+        QuotePipeline live = new QuotePipeline(WATCHES, new JournalWriter(single, clock), new JournalReader(single),
+                PipelineListener.NONE, recording(oneByOne), clock);
+        batches.forEach(b -> live.process(List.of(b)));
+        List<String> inBulk = new ArrayList<>();
+        AgroalDataSource bulk = database("in-bulk");
+        QuotePipeline catchingUp = new QuotePipeline(WATCHES, new JournalWriter(bulk, clock), new JournalReader(bulk),
+                PipelineListener.NONE, recording(inBulk), clock);
+        for (int from = 0; from < batches.size(); from += 150) {
+            catchingUp.process(batches.subList(from, Math.min(batches.size(), from + 150)));
+        }
+
+        assertThat(inBulk).isEqualTo(oneByOne).anyMatch(s -> s.contains("CONFIRMED"));
+    }
+
+    /** An alert stage that writes down every status it is shown, in order. */
+    private static AlertStage recording(List<String> seen) {
+        return new AlertStage() {
+            @Override
+            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
+                changed.forEach(c -> seen.add(c.id() + " " + c.date() + " " + c.state() + " " + c.valueBp()));
+            }
+
+            @Override
+            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
+            }
+
+            @Override
+            public void written(List<JournalEntries.AlertEntry> alerts) {
+            }
+
+            @Override
+            public void rebuild() {
+            }
+        };
     }
 
     private static List<String> outcomes(JournalReader journal) {

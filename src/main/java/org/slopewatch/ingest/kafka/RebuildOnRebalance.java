@@ -18,6 +18,11 @@ import org.slopewatch.ingest.QuotePipeline;
  *
  * <p>Rebuilding everything rather than only the curves of the new partitions is deliberate: it is
  * the same replay a restart does, so its correctness is the restart's, already tested.
+ *
+ * <p>When partitions are taken away, the step in progress is finished first (the pipeline's lock)
+ * and the records of those partitions still waiting here are dropped ({@link PartitionOwnership}),
+ * so that the next owner, whose rebuild reads the journal, finds every quote this instance
+ * processed already journalled and none journalled after it.
  */
 @ApplicationScoped
 @Identifier(RebuildOnRebalance.NAME)
@@ -27,9 +32,11 @@ public class RebuildOnRebalance implements KafkaConsumerRebalanceListener {
     private static final Logger LOG = Logger.getLogger(RebuildOnRebalance.class);
 
     private final QuotePipeline pipeline;
+    private final PartitionOwnership ownership;
 
-    RebuildOnRebalance(QuotePipeline pipeline) {
+    RebuildOnRebalance(QuotePipeline pipeline, PartitionOwnership ownership) {
         this.pipeline = pipeline;
+        this.ownership = ownership;
     }
 
     @Override
@@ -37,7 +44,23 @@ public class RebuildOnRebalance implements KafkaConsumerRebalanceListener {
         if (partitions.isEmpty()) {
             return;
         }
+        String topic = partitions.iterator().next().topic();
+        ownership.assigned(partitions, consumer.partitionsFor(topic).size());
         long replayed = pipeline.recover();
         LOG.infof("quotes partitions assigned %s: monitors rebuilt from %d journalled quote message(s)", partitions, replayed);
+    }
+
+    @Override
+    public void onPartitionsRevoked(Consumer<?, ?> consumer, Collection<TopicPartition> partitions) {
+        ownership.revoked(partitions);
+        pipeline.awaitStep();
+        if (!partitions.isEmpty()) {
+            LOG.infof("quotes partitions revoked %s: their records still queued here are left to the next owner", partitions);
+        }
+    }
+
+    @Override
+    public void onPartitionsLost(Consumer<?, ?> consumer, Collection<TopicPartition> partitions) {
+        onPartitionsRevoked(consumer, partitions);
     }
 }

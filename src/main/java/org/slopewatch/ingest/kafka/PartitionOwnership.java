@@ -1,0 +1,77 @@
+package org.slopewatch.ingest.kafka;
+
+import io.smallrye.reactive.messaging.kafka.api.IncomingKafkaRecordBatchMetadata;
+import jakarta.enterprise.context.ApplicationScoped;
+import java.nio.charset.StandardCharsets;
+import java.util.Collection;
+import java.util.Collections;
+import java.util.IdentityHashMap;
+import java.util.List;
+import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
+import org.apache.kafka.clients.consumer.ConsumerRecord;
+import org.apache.kafka.common.TopicPartition;
+import org.apache.kafka.common.utils.Utils;
+import org.eclipse.microprofile.reactive.messaging.Message;
+import org.slopewatch.ingest.QuoteBatch;
+
+/**
+ * The partitions of the quotes topic this instance holds right now, as the consumer group's
+ * rebalances hand them over ({@link RebuildOnRebalance} keeps it current).
+ *
+ * <p>Two uses. Records of a partition taken away are not processed even if they were fetched
+ * before the rebalance: the new owner reads them again from the last committed offset, and
+ * processing them here too would journal them twice. And a curve belongs to the instance holding
+ * the partition its key maps to, which decides who raises its clock-driven notices; the mapping is
+ * the Kafka producer's default for a keyed record (murmur2 of the key, modulo the partition
+ * count), which is how the daemon's own publishers and {@code deploy/kafka/create-topics.sh}
+ * expect the topic to be written.
+ */
+@ApplicationScoped
+public class PartitionOwnership {
+
+    private final Set<TopicPartition> held = ConcurrentHashMap.newKeySet();
+    private volatile int partitionCount;
+
+    void assigned(Collection<TopicPartition> partitions, int partitionsOfTopic) {
+        partitionCount = partitionsOfTopic;
+        held.addAll(partitions);
+    }
+
+    void revoked(Collection<TopicPartition> partitions) {
+        held.removeAll(partitions);
+    }
+
+    public boolean holds(TopicPartition partition) {
+        return held.contains(partition);
+    }
+
+    /** Whether the curve's partition is held here; false before the first assignment. */
+    public boolean ownsCurve(String curve) {
+        int count = partitionCount;
+        if (count == 0) {
+            return false;
+        }
+        int partition = Utils.toPositive(Utils.murmur2(curve.getBytes(StandardCharsets.UTF_8))) % count;
+        return held.stream().anyMatch(p -> p.partition() == partition);
+    }
+
+    /**
+     * The message's batches without those read from partitions no longer held; all of them when
+     * the message did not come from Kafka.
+     */
+    public List<QuoteBatch> stillHeld(Message<List<QuoteBatch>> message) {
+        @SuppressWarnings("unchecked")
+        IncomingKafkaRecordBatchMetadata<?, QuoteBatch> kafka = message.getMetadata(IncomingKafkaRecordBatchMetadata.class).orElse(null);
+        if (kafka == null) {
+            return message.getPayload();
+        }
+        Set<QuoteBatch> dropped = Collections.newSetFromMap(new IdentityHashMap<>());
+        for (ConsumerRecord<?, QuoteBatch> record : kafka.getRecords()) {
+            if (!holds(new TopicPartition(record.topic(), record.partition()))) {
+                dropped.add(record.value());
+            }
+        }
+        return dropped.isEmpty() ? message.getPayload() : message.getPayload().stream().filter(b -> !dropped.contains(b)).toList();
+    }
+}

@@ -1,0 +1,70 @@
+package org.slopewatch.ingest.kafka;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import io.smallrye.reactive.messaging.kafka.api.IncomingKafkaRecordBatchMetadata;
+import java.nio.charset.StandardCharsets;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.apache.kafka.clients.consumer.ConsumerRecord;
+import org.apache.kafka.clients.consumer.ConsumerRecords;
+import org.apache.kafka.clients.producer.internals.BuiltInPartitioner;
+import org.apache.kafka.common.TopicPartition;
+import org.eclipse.microprofile.reactive.messaging.Message;
+import org.junit.jupiter.api.Test;
+import org.slopewatch.ingest.QuoteBatch;
+
+class PartitionOwnershipTest {
+
+    private static final String TOPIC = "slopewatch.quotes";
+
+    @Test
+    void aCurveBelongsToTheInstanceHoldingThePartitionTheKafkaProducerWritesItsKeyTo() {
+        // reference: the Kafka producer's own choice of partition for a keyed record (kafka-clients 4.1.2)
+        int partitions = 6;
+        for (String curve : List.of("GOVT-A", "GOVT-B", "GOVT-C", "GOVT-D", "GOVT-E", "GOVT-F", "UST", "Bund 10y")) {
+            int producerChoice = BuiltInPartitioner.partitionForKey(curve.getBytes(StandardCharsets.UTF_8), partitions);
+            PartitionOwnership holder = new PartitionOwnership();
+            holder.assigned(List.of(new TopicPartition(TOPIC, producerChoice)), partitions);
+            PartitionOwnership other = new PartitionOwnership();
+            other.assigned(List.of(new TopicPartition(TOPIC, (producerChoice + 1) % partitions)), partitions);
+
+            assertThat(holder.ownsCurve(curve)).as(curve).isTrue();
+            assertThat(other.ownsCurve(curve)).as(curve).isFalse();
+        }
+    }
+
+    @Test
+    void nothingIsOwnedBeforeTheFirstAssignmentNorAfterARevocation() {
+        PartitionOwnership ownership = new PartitionOwnership();
+        assertThat(ownership.ownsCurve("GOVT-A")).isFalse();
+
+        List<TopicPartition> all = List.of(new TopicPartition(TOPIC, 0), new TopicPartition(TOPIC, 1));
+        ownership.assigned(all, 2);
+        assertThat(ownership.ownsCurve("GOVT-A")).isTrue();
+
+        ownership.revoked(all);
+        assertThat(ownership.ownsCurve("GOVT-A")).isFalse();
+    }
+
+    @Test
+    void recordsOfAPartitionTakenAwayAreLeftForTheNextOwner() {
+        PartitionOwnership ownership = new PartitionOwnership();
+        TopicPartition kept = new TopicPartition(TOPIC, 0);
+        TopicPartition lost = new TopicPartition(TOPIC, 1);
+        ownership.assigned(List.of(kept, lost), 2);
+        ownership.revoked(List.of(lost));
+        QuoteBatch fromKept = new QuoteBatch("kafka", List.of(), List.of());
+        QuoteBatch fromLost = new QuoteBatch("kafka", List.of(), List.of());
+        Map<TopicPartition, List<ConsumerRecord<String, QuoteBatch>>> polled = new LinkedHashMap<>();
+        polled.put(kept, List.of(new ConsumerRecord<>(TOPIC, 0, 10, "GOVT-A", fromKept)));
+        polled.put(lost, List.of(new ConsumerRecord<>(TOPIC, 1, 20, "GOVT-B", fromLost)));
+        Message<List<QuoteBatch>> message = Message.of(List.of(fromKept, fromLost))
+                .addMetadata(new IncomingKafkaRecordBatchMetadata<>(new ConsumerRecords<>(polled), TOPIC, Map.of()));
+
+        assertThat(ownership.stillHeld(message)).containsExactly(fromKept);
+        assertThat(ownership.stillHeld(Message.of(List.of(fromKept, fromLost))))
+                .as("not from Kafka: everything").containsExactly(fromKept, fromLost);
+    }
+}

@@ -1,0 +1,61 @@
+package org.slopewatch.testsupport;
+
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.ResultSet;
+import java.sql.ResultSetMetaData;
+import java.sql.SQLException;
+import java.sql.Statement;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * What a journal concluded, read over JDBC in a form two runs can be compared by: every row of
+ * the conclusions (transitions, spells, notices, deliveries) without the columns that depend on
+ * when or by which process it was written (row ids, timestamps, sequence numbers, dashboard
+ * links, claims). Two runs over the same quotes must give equal contents however often their
+ * daemons were stopped, killed or rebalanced.
+ */
+public record JournalContents(long quotes, long distinctQuoteIds, List<String> transitions, List<String> spells, List<String> alerts,
+                              List<String> deliveries) {
+
+    public static JournalContents read(String url, String user, String password) {
+        try (Connection c = DriverManager.getConnection(url, user, password); Statement s = c.createStatement()) {
+            return new JournalContents(
+                    single(s, "SELECT COUNT(*) FROM quote"),
+                    single(s, "SELECT COUNT(DISTINCT message_id) FROM quote"),
+                    rows(s, "SELECT spread_id, market_date, from_state, to_state, reason, test, window_label, measured, limit_value, "
+                            + "value_bp, days_inverted, spell_id, superseded_by IS NOT NULL FROM transition "
+                            + "ORDER BY spread_id, market_date, from_state, to_state, superseded_by NULLS LAST"),
+                    rows(s, "SELECT spread_id, spell_id, start_date, confirmed_date, confirmed_by, end_date, duration_days, observations, "
+                            + "deepest_bp, deepest_date, area_bp_days FROM spell ORDER BY spread_id, spell_id"),
+                    rows(s, "SELECT id, rule, subject, episode_since, notice, kind, severity, market_date, state, title, muted_by "
+                            + "FROM alert ORDER BY id"),
+                    rows(s, "SELECT alert_id, channel, status FROM delivery ORDER BY alert_id, channel"));
+        } catch (SQLException e) {
+            throw new AssertionError("cannot read the journal at " + url + ": " + e.getMessage(), e);
+        }
+    }
+
+    private static long single(Statement s, String sql) throws SQLException {
+        try (ResultSet rs = s.executeQuery(sql)) {
+            rs.next();
+            return rs.getLong(1);
+        }
+    }
+
+    private static List<String> rows(Statement s, String sql) throws SQLException {
+        List<String> out = new ArrayList<>();
+        try (ResultSet rs = s.executeQuery(sql)) {
+            ResultSetMetaData meta = rs.getMetaData();
+            while (rs.next()) {
+                StringBuilder row = new StringBuilder();
+                for (int i = 1; i <= meta.getColumnCount(); i++) {
+                    row.append(i == 1 ? "" : " | ").append(rs.getString(i));
+                }
+                out.add(row.toString());
+            }
+        }
+        return out;
+    }
+}
