@@ -35,7 +35,8 @@ import org.slopewatch.spread.SpreadKey;
  * listeners. One writer: calls are serialised.
  *
  * <p>If the journal write fails, the in-memory state is rebuilt from the journal before the
- * failure is passed on, so memory never runs ahead of what was recorded.
+ * failure is passed on, so memory never runs ahead of what was recorded; if the journal cannot be
+ * read either, the rebuild is done before the next step, which fails until it can.
  */
 public final class QuotePipeline {
 
@@ -52,6 +53,7 @@ public final class QuotePipeline {
     private CurveBook book;
     private Set<String> seenIds;
     private long sequence;
+    private boolean recovered;
     private final Map<String, Instant> lastReceived = new HashMap<>();
 
     public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, Clock clock) {
@@ -83,6 +85,8 @@ public final class QuotePipeline {
      * @return the number of quote messages replayed
      */
     public synchronized long recover() {
+        // until the replay has finished, memory is not what the journal says: nothing may be decided on it
+        recovered = false;
         reset();
         long[] count = {0};
         reader.replayQuotes(q -> {
@@ -99,7 +103,29 @@ public final class QuotePipeline {
         lastReceived.clear();
         lastReceived.putAll(reader.lastQuoteRecorded());
         alerts.rebuild();
+        recovered = true;
         return count[0];
+    }
+
+    /**
+     * Before a step: if a journal failure left memory behind the journal (the rebuild after it
+     * failed too, e.g. while the database was unreachable), rebuild it now. Throws while the
+     * journal still cannot be read, so nothing is decided on a partial state.
+     */
+    private void recoverIfNeeded() {
+        if (!recovered) {
+            long replayed = recover();
+            LOG.infof("journal reachable again: monitors rebuilt from %d journalled quote message(s)", replayed);
+        }
+    }
+
+    /** After a failed write: memory goes back to what the journal holds, now or, if it cannot be read, before the next step. */
+    private void recoverAfterFailedWrite(RuntimeException failure) {
+        try {
+            recover();
+        } catch (RuntimeException again) {
+            failure.addSuppressed(again);
+        }
     }
 
     /**
@@ -119,6 +145,7 @@ public final class QuotePipeline {
      * @param staleCurves every owned curve → the date its feed went quiet, or null while fresh
      */
     public synchronized void tick(Map<String, LocalDate> staleCurves, CurveOwnership owned) {
+        recoverIfNeeded();
         JournalEntries journal = new JournalEntries();
         List<SpreadStatus> ownSpreads = engine.tracks().stream().filter(t -> owned.owns(t.spread().curve())).map(SpreadStatus::of).toList();
         alerts.onTick(ownSpreads, staleCurves, journal);
@@ -128,7 +155,7 @@ public final class QuotePipeline {
         try {
             writer.write(journal);
         } catch (RuntimeException e) {
-            alerts.rebuild();
+            recoverAfterFailedWrite(e);
             throw e;
         }
         alerts.written(journal.alerts());
@@ -141,6 +168,7 @@ public final class QuotePipeline {
 
     /** Processes batches in order and journals the step; returns what happened. */
     public synchronized BatchOutcome process(Collection<QuoteBatch> batches) {
+        recoverIfNeeded();
         long started = System.nanoTime();
         JournalEntries journal = new JournalEntries();
         List<Reject> rejects = new ArrayList<>();
@@ -198,7 +226,7 @@ public final class QuotePipeline {
         try {
             writer.write(journal);
         } catch (RuntimeException e) {
-            recover();
+            recoverAfterFailedWrite(e);
             throw e;
         }
         long written = System.nanoTime();

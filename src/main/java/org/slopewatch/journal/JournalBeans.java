@@ -17,10 +17,42 @@ public class JournalBeans {
     @Produces
     @Singleton
     AgroalDataSource journalDataSource(JournalConfig config) {
-        AgroalDataSource ds = JournalDatabase.open(config.url(), config.username().orElse(null), config.password().orElse(null),
-                config.maxConnections());
-        LOG.infof("journal ready at %s", JournalDatabase.withoutCredentials(config.url()));
-        return ds;
+        String where = JournalDatabase.withoutCredentials(config.url());
+        long deadline = System.nanoTime() + config.startWait().toNanos();
+        long pause = 1_000;
+        while (true) {
+            try {
+                AgroalDataSource ds = JournalDatabase.open(config.url(), config.username().orElse(null), config.password().orElse(null),
+                        config.maxConnections());
+                LOG.infof("journal ready at %s", where);
+                return ds;
+            } catch (JournalException e) {
+                if (System.nanoTime() + pause * 1_000_000 > deadline) {
+                    throw e;
+                }
+                LOG.warnf("journal at %s not reachable at start (%s); trying again in %d s, for up to %s (slopewatch.journal.start-wait)",
+                        where, rootMessage(e), pause / 1000, config.startWait());
+                sleep(pause);
+                pause = Math.min(pause * 2, 10_000);
+            }
+        }
+    }
+
+    private static String rootMessage(Throwable t) {
+        Throwable root = t;
+        while (root.getCause() != null && root.getCause() != root) {
+            root = root.getCause();
+        }
+        return root.getMessage() == null ? root.toString() : root.getMessage();
+    }
+
+    private static void sleep(long millis) {
+        try {
+            Thread.sleep(millis);
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new JournalException("interrupted while waiting for the journal", e);
+        }
     }
 
     void close(@Disposes AgroalDataSource ds) {

@@ -1,6 +1,7 @@
 package org.slopewatch.journal;
 
 import io.agroal.api.AgroalDataSource;
+import io.agroal.api.configuration.AgroalConnectionPoolConfiguration;
 import io.agroal.api.configuration.supplier.AgroalDataSourceConfigurationSupplier;
 import io.agroal.api.security.NamePrincipal;
 import io.agroal.api.security.SimplePassword;
@@ -26,6 +27,12 @@ public final class JournalDatabase {
                             .minSize(1)
                             .maxSize(maxConnections)
                             .acquisitionTimeout(Duration.ofSeconds(10))
+                            // after the database was away, pooled connections are dead: a connection
+                            // error retires the connection it came from, and one idle for a while is
+                            // checked before it is lent again
+                            .exceptionSorter(JournalException::isConnectionFailure)
+                            .connectionValidator(AgroalConnectionPoolConfiguration.ConnectionValidator.defaultValidatorWithTimeout(5))
+                            .idleValidationTimeout(Duration.ofSeconds(5))
                             .connectionFactoryConfiguration(cf -> {
                                 cf.jdbcUrl(jdbcUrl).connectionProviderClass(driverFor(jdbcUrl));
                                 if (username != null && !username.isBlank()) {
@@ -39,7 +46,12 @@ public final class JournalDatabase {
         } catch (SQLException e) {
             throw new JournalException("cannot open the journal at " + withoutCredentials(jdbcUrl), e);
         }
-        migrate(ds, jdbcUrl);
+        try {
+            migrate(ds, jdbcUrl);
+        } catch (JournalException e) {
+            ds.close();
+            throw e;
+        }
         return ds;
     }
 

@@ -116,6 +116,11 @@ public final class DaemonProcess implements AutoCloseable {
         throw new AssertionError(name + " was not ready within " + timeout + ":\n" + logTail());
     }
 
+    /** Whether {@code /q/health/ready} answers 200 now. */
+    public boolean isReady() {
+        return get("/q/health/ready").status() == 200;
+    }
+
     /** The sum of a counter over all its series in {@code /q/metrics} (Prometheus text), e.g. {@code slopewatch_quotes_accepted_total}. */
     public double counter(String metric) {
         Answer r = get("/q/metrics");
