@@ -50,7 +50,7 @@ if $measure; then
   note commit "$(git rev-parse --short HEAD)$(git diff --quiet HEAD -- src pom.xml bench || echo ' (with uncommitted changes)')"
   note load_before "$(load)"
 
-  say "monitor benchmark (JMH, 1 fork, 5 warm-up and 5 measured iterations of 2 s per benchmark)"
+  say "monitor benchmark (JMH, 2 forks, each 5 warm-up and 5 measured iterations of 2 s per benchmark)"
   java -cp "$cp" org.slopewatch.bench.MonitorBench "$out/monitor.txt" -rf json -rff "$out/monitor-jmh.json" ${BENCH_JMH_ARGS:-} \
     | tee "$out/monitor-jmh.log"
   note load_after_monitor "$(load)"
@@ -205,11 +205,12 @@ figures across machines.
 
 ### Monitor (JMH)
 
-\`org.slopewatch.bench.MonitorBench\`: JMH 1.37, throughput mode, 1 fork, 5 warm-up and 5
-measured iterations of 2 s per benchmark, \`@OperationsPerInvocation\` set to the series length so
-that one operation is one observation. The ± is JMH's 99.9 % confidence half-width over the 5
-measured iterations (it assumes a normal distribution; with 5 iterations on a shared machine it
-is wide); min and max are the slowest and fastest iteration. The fork runs on a fixed, pre-touched
+\`org.slopewatch.bench.MonitorBench\`: JMH 1.37, throughput mode, 2 forks (separate JVMs,
+whose JIT may compile the loop differently: one may inline \`observe\` into it and the other not),
+each with 5 warm-up and 5 measured iterations of 2 s per benchmark, \`@OperationsPerInvocation\` set
+to the series length so that one operation is one observation. The ± is JMH's 99.9 % confidence
+half-width over the 10 measured iterations (it assumes a normal distribution; on a shared machine it
+is wide); min and max are the slowest and fastest iteration. Each fork runs on a fixed, pre-touched
 heap (\`-Xms2g -Xmx2g -XX:+AlwaysPreTouch\`), both benchmarks alike: with the default growing heap the
 page faults of each fresh young-generation region fall on the benchmark that allocates (the monitor
 allocates its events, the plain loop nothing) and measure the heap's growth rather than the monitor.
