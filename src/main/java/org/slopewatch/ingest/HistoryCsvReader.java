@@ -8,12 +8,12 @@ import java.io.UncheckedIOException;
 import java.time.DateTimeException;
 import java.time.LocalDate;
 import java.util.Arrays;
+import java.util.HashMap;
 import java.util.Iterator;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.TreeMap;
 import java.util.function.Consumer;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.Tenor;
@@ -168,15 +168,20 @@ public final class HistoryCsvReader {
         int tenorColumn = column(names, "tenor", headerLine);
         int yieldColumn = column(names, "yield", headerLine);
         int needed = Math.max(Math.max(dateColumn, curveColumn), Math.max(tenorColumn, yieldColumn)) + 1;
-        Map<String, Map<Tenor, Double>> pending = new LinkedHashMap<>();
+        // A long file repeats the same few strings on every row: each tenor spelling is parsed once,
+        // and a date is parsed again only when its text changes (rows of one date come together).
+        Map<String, Tenor> tenors = new HashMap<>();
+        Map<String, CurveQuotes> pending = new LinkedHashMap<>();
         LocalDate pendingDate = null;
+        String pendingDateText = null;
         while (it.hasNext()) {
             CsvRecord row = it.next();
             long line = row.getStartingLineNumber();
             if (row.getFieldCount() < needed) {
                 throw new HistoryFormatException(source, line, "expected " + names.size() + " fields as in the header, found " + row.getFieldCount());
             }
-            LocalDate date = date(row.getField(dateColumn), line);
+            String dateText = row.getField(dateColumn);
+            LocalDate date = dateText.equals(pendingDateText) ? pendingDate : date(dateText, line);
             if (pendingDate != null && date.isBefore(pendingDate)) {
                 throw new HistoryFormatException(source, line, "dates out of order: " + date + " after " + pendingDate);
             }
@@ -184,23 +189,18 @@ public final class HistoryCsvReader {
                 flush(pending, pendingDate);
             }
             pendingDate = date;
+            pendingDateText = dateText;
             String curve = row.getField(curveColumn).strip();
             if (curve.isEmpty()) {
                 throw new HistoryFormatException(source, line, "missing curve name");
             }
-            Tenor tenor;
-            try {
-                tenor = Tenor.parse(row.getField(tenorColumn));
-            } catch (IllegalArgumentException e) {
-                throw new HistoryFormatException(source, line, e.getMessage());
-            }
+            Tenor tenor = tenor(tenors, row.getField(tenorColumn), line);
             double v = value(row.getField(yieldColumn), line, tenor);
             noteRow(date);
             if (Double.isNaN(v)) {
                 continue;
             }
-            Double previous = pending.computeIfAbsent(curve, c -> new TreeMap<>()).put(tenor, v);
-            if (previous != null) {
+            if (!pending.computeIfAbsent(curve, c -> new CurveQuotes()).put(tenor, v)) {
                 throw new HistoryFormatException(source, line, "second quote for " + curve + " " + tenor + " on " + date);
             }
             quotes++;
@@ -210,9 +210,57 @@ public final class HistoryCsvReader {
         }
     }
 
-    private void flush(Map<String, Map<Tenor, Double>> pending, LocalDate date) {
-        for (Map.Entry<String, Map<Tenor, Double>> e : pending.entrySet()) {
-            emit(CurveSnapshot.of(e.getKey(), date, e.getValue()));
+    private Tenor tenor(Map<String, Tenor> parsed, String text, long line) throws HistoryFormatException {
+        Tenor tenor = parsed.get(text);
+        if (tenor == null) {
+            try {
+                tenor = Tenor.parse(text);
+            } catch (IllegalArgumentException e) {
+                throw new HistoryFormatException(source, line, e.getMessage());
+            }
+            parsed.put(text, tenor); // only valid spellings are kept, so the map stays as small as the file's tenors
+        }
+        return tenor;
+    }
+
+    /**
+     * One curve's quotes on the pending date, kept in maturity order as they arrive: a pair of
+     * arrays rather than a map of boxed values, since a long file makes one per curve and date.
+     */
+    private static final class CurveQuotes {
+        private Tenor[] tenors = new Tenor[16];
+        private double[] yieldsBp = new double[16];
+        private int size;
+
+        /** Adds a quote in its place by maturity; false if the tenor is already quoted. */
+        boolean put(Tenor tenor, double bp) {
+            int at = size;
+            while (at > 0 && tenors[at - 1].compareTo(tenor) > 0) {
+                at--;
+            }
+            if (at > 0 && tenors[at - 1].compareTo(tenor) == 0) {
+                return false;
+            }
+            if (size == tenors.length) {
+                tenors = Arrays.copyOf(tenors, size * 2);
+                yieldsBp = Arrays.copyOf(yieldsBp, size * 2);
+            }
+            System.arraycopy(tenors, at, tenors, at + 1, size - at);
+            System.arraycopy(yieldsBp, at, yieldsBp, at + 1, size - at);
+            tenors[at] = tenor;
+            yieldsBp[at] = bp;
+            size++;
+            return true;
+        }
+
+        CurveSnapshot snapshot(String curve, LocalDate date) {
+            return CurveSnapshot.ofSorted(curve, date, Arrays.copyOf(tenors, size), Arrays.copyOf(yieldsBp, size));
+        }
+    }
+
+    private void flush(Map<String, CurveQuotes> pending, LocalDate date) {
+        for (Map.Entry<String, CurveQuotes> e : pending.entrySet()) {
+            emit(e.getValue().snapshot(e.getKey(), date));
         }
         pending.clear();
     }

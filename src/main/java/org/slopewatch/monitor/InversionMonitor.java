@@ -3,7 +3,6 @@ package org.slopewatch.monitor;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import org.slopewatch.spread.SpreadKey;
 
 /**
@@ -21,12 +20,20 @@ public final class InversionMonitor {
     private final PersistenceTest[] tests;
     private final double entry;
     private final double exit;
+    /** The thresholds as reasons write them, worked out once rather than per transition. */
+    private final String entryText;
+    private final String exitText;
+    /** Whether any test keeps a trailing window, so that the common rules skip the loop over none. */
+    private final boolean hasWindows;
 
     public InversionMonitor(MonitorDefinition definition) {
         this.definition = definition;
         this.tests = definition.tests().toArray(new PersistenceTest[0]);
         this.entry = definition.entryBelowBp();
         this.exit = definition.exitAboveBp();
+        this.entryText = PersistenceTest.number(entry);
+        this.exitText = PersistenceTest.number(exit);
+        this.hasWindows = definition.tests().stream().anyMatch(t -> t.windowDays() > 0);
     }
 
     public MonitorDefinition definition() {
@@ -42,57 +49,97 @@ public final class InversionMonitor {
      * Consumes one observation and returns what it caused, in order: the close of a quarter (and
      * a confirmation it brings), then transitions and ended spells.
      *
+     * <p>This is the hot path (tens of millions of calls a second in a replay), so it does only
+     * what every observation needs and hands the rest to methods that run on news: a new month
+     * ({@link #enterMonth}) and a spread that is inverted or not {@code NORMAL} ({@link #advance}).
+     * Kept small so that the JIT can inline it into the caller's loop.
+     *
      * @throws IllegalArgumentException if the observation is not dated after the previous one
      */
     public List<MonitorEvent> observe(MonitorState s, Observation o) {
         LocalDate date = o.date();
-        int day = (int) date.toEpochDay();
-        if (s.lastDay != MonitorState.NONE && day <= s.lastDay) {
-            throw new IllegalArgumentException(s.spread + ": observation for " + date + " arrived after "
-                    + LocalDate.ofEpochDay(s.lastDay) + "; observations must arrive in date order");
+        // the epoch day and the quarter change month by month: worked out once per month, the
+        // epoch day of any other day of the month is then an addition (LocalDate.toEpochDay
+        // costs divisions and a leap-year test on every call)
+        int month = date.getYear() * 12 + date.getMonthValue() - 1;
+        List<MonitorEvent> events = month == s.monthIndex ? List.of() : enterMonth(s, o, month);
+        int day = s.monthFirstDay + date.getDayOfMonth() - 1;
+        if (day <= s.lastDay) {
+            throw outOfOrder(s, date); // a date earlier in the same month (enterMonth checks the others)
         }
         double v = o.valueBp();
+        s.quarterSum += v;
+        s.quarterCount++;
+        boolean inverted = v < entry;
+        if (hasWindows) {
+            addToWindows(s, day, v, inverted);
+        }
+        if (!inverted) {
+            s.invertedSinceDay = MonitorState.NONE;
+        } else if (s.invertedSinceDay == MonitorState.NONE) {
+            s.invertedSinceDay = day;
+        }
         int previousDay = s.lastDay;
-        List<MonitorEvent> events = List.of();
+        s.lastDay = day;
+        s.lastValueBp = v;
+        // NORMAL and not below the entry threshold is the usual day: nothing else to look at
+        if (inverted || s.state != SpreadState.NORMAL) {
+            events = advance(s, o, day, previousDay, v, inverted, events);
+        }
+        return events;
+    }
 
-        int quarter = date.getYear() * 4 + (date.getMonthValue() - 1) / 3;
+    /**
+     * The first observation of a calendar month: checks the date order (before anything changes),
+     * caches the month's first epoch day, and closes the quarter when a new one begins.
+     */
+    private List<MonitorEvent> enterMonth(MonitorState s, Observation o, int month) {
+        LocalDate date = o.date();
+        int day = (int) date.toEpochDay();
+        if (s.lastDay != MonitorState.NONE && day <= s.lastDay) {
+            throw outOfOrder(s, date);
+        }
+        s.monthIndex = month;
+        s.monthFirstDay = day - date.getDayOfMonth() + 1;
+        if (s.firstDay == MonitorState.NONE) {
+            s.firstDay = day;
+        }
+        List<MonitorEvent> events = List.of();
+        int quarter = Math.floorDiv(month, 3); // year·4 + quarter − 1, as Quarter.index()
         if (quarter != s.quarterIndex) {
             if (s.quarterIndex != MonitorState.NONE && s.quarterCounts) {
                 events = closeQuarter(s, o, day, events);
             }
             // a series that starts after a quarter's first month has not seen the whole quarter
-            s.quarterCounts = s.quarterIndex != MonitorState.NONE || (date.getMonthValue() - 1) % 3 == 0;
+            s.quarterCounts = s.quarterIndex != MonitorState.NONE || Math.floorMod(month, 3) == 0;
             s.quarterIndex = quarter;
             s.quarterSum = 0;
             s.quarterCount = 0;
         }
-        s.quarterSum += v;
-        s.quarterCount++;
+        return events;
+    }
 
-        boolean inverted = v < entry;
-        if (s.firstDay == MonitorState.NONE) {
-            s.firstDay = day;
-        }
+    private static IllegalArgumentException outOfOrder(MonitorState s, LocalDate date) {
+        return new IllegalArgumentException(s.spread + ": observation for " + date + " arrived after "
+                + LocalDate.ofEpochDay(s.lastDay) + "; observations must arrive in date order");
+    }
+
+    private static void addToWindows(MonitorState s, int day, double v, boolean inverted) {
         for (TrailingWindow w : s.windows) {
             if (w != null) {
                 w.add(day, v, inverted);
             }
         }
-        if (inverted) {
-            if (s.invertedSinceDay == MonitorState.NONE) {
-                s.invertedSinceDay = day;
-            }
-        } else {
-            s.invertedSinceDay = MonitorState.NONE;
-        }
-        s.lastDay = day;
-        s.lastValueBp = v;
+    }
 
+    /** The state machine's step, for an observation below the entry threshold or a state other than NORMAL. */
+    private List<MonitorEvent> advance(MonitorState s, Observation o, int day, int previousDay, double v, boolean inverted,
+                                       List<MonitorEvent> events) {
         switch (s.state) {
             case NORMAL -> {
                 if (inverted) {
-                    events = startSpell(s, o, day, SpreadState.NORMAL,
-                            String.format(Locale.ROOT, "spread %.1f bp below entry threshold %s bp", v, PersistenceTest.number(entry)), events);
+                    String reason = spreadText(v).toString();
+                    events = startSpell(s, o, day, SpreadState.NORMAL, reason, events);
                     events = evaluatePersistence(s, o, day, events);
                 }
             }
@@ -113,20 +160,26 @@ public final class InversionMonitor {
             case RESTEEPENING -> {
                 if (inverted) {
                     long since = (long) day - s.resteepenedDay;
-                    events = startSpell(s, o, day, SpreadState.RESTEEPENING, String.format(Locale.ROOT,
-                            "spread %.1f bp below entry threshold %s bp again, %d days after re-steepening", v, PersistenceTest.number(entry), since), events);
+                    String reason = spreadText(v).append(" again, ").append(since).append(" days after re-steepening").toString();
+                    events = startSpell(s, o, day, SpreadState.RESTEEPENING, reason, events);
                     events = evaluatePersistence(s, o, day, events);
                 } else if ((long) day - s.resteepenedDay >= definition.holdDays()) {
-                    Evidence e = new Evidence("hold", "since " + LocalDate.ofEpochDay(s.resteepenedDay),
+                    LocalDate resteepened = LocalDate.ofEpochDay(s.resteepenedDay);
+                    Evidence e = new Evidence("hold", "since " + resteepened,
                             (long) day - s.resteepenedDay, definition.holdDays(), v, 0);
-                    events = add(events, transition(s, o, SpreadState.NORMAL, String.format(Locale.ROOT,
-                            "hold period of %d days since re-steepening on %s is over", definition.holdDays(),
-                            LocalDate.ofEpochDay(s.resteepenedDay)), e, 0));
+                    String reason = "hold period of " + definition.holdDays() + " days since re-steepening on " + resteepened + " is over";
+                    events = add(events, transition(s, o, SpreadState.NORMAL, reason, e, 0));
                     s.resteepenedDay = MonitorState.NONE;
                 }
             }
         }
         return events;
+    }
+
+    /** {@code spread -3.2 bp below entry threshold 0 bp}. */
+    private StringBuilder spreadText(double v) {
+        return DecimalText.append(new StringBuilder(96).append("spread "), v, 1)
+                .append(" bp below entry threshold ").append(entryText).append(" bp");
     }
 
     private List<MonitorEvent> closeQuarter(MonitorState s, Observation o, int day, List<MonitorEvent> events) {
@@ -139,8 +192,9 @@ public final class InversionMonitor {
         for (PersistenceTest t : tests) {
             if (t instanceof QuarterAverage q && average < q.belowBp()) {
                 Evidence e = new Evidence(q.name(), closed.toString(), average, q.belowBp(), s.lastValueBp, s.daysInverted());
-                return confirm(s, o, day, e, String.format(Locale.ROOT, "quarter average %.1f bp < %s bp (%s)",
-                        average, PersistenceTest.number(q.belowBp()), closed), events);
+                String reason = DecimalText.append(new StringBuilder(64).append("quarter average "), average, 1)
+                        .append(" bp < ").append(PersistenceTest.number(q.belowBp())).append(" bp (").append(closed).append(')').toString();
+                return confirm(s, o, day, e, reason, events);
             }
         }
         return events;
@@ -154,22 +208,25 @@ public final class InversionMonitor {
                 long days = s.daysInverted();
                 if (s.invertedSinceDay != MonitorState.NONE && days >= d.days()) {
                     Evidence e = new Evidence(d.name(), "since " + LocalDate.ofEpochDay(s.invertedSinceDay), days, d.days(), v, days);
-                    return confirm(s, o, day, e, String.format(Locale.ROOT, "inverted for %d days >= %d days (since %s)",
-                            days, d.days(), LocalDate.ofEpochDay(s.invertedSinceDay)), events);
+                    String reason = "inverted for " + days + " days >= " + d.days() + " days (since " + LocalDate.ofEpochDay(s.invertedSinceDay) + ")";
+                    return confirm(s, o, day, e, reason, events);
                 }
             } else if (t instanceof RollingAverage r) {
                 TrailingWindow w = s.windows[i];
                 if (hasWholeWindow(s, day, r.windowDays()) && w.average() < r.belowBp()) {
                     Evidence e = new Evidence(r.name(), r.windowDays() + "d", w.average(), r.belowBp(), v, s.daysInverted());
-                    return confirm(s, o, day, e, String.format(Locale.ROOT, "%d-day average %.1f bp < %s bp (%d observations)",
-                            r.windowDays(), w.average(), PersistenceTest.number(r.belowBp()), w.size()), events);
+                    String reason = DecimalText.append(new StringBuilder(64).append(r.windowDays()).append("-day average "), w.average(), 1)
+                            .append(" bp < ").append(PersistenceTest.number(r.belowBp())).append(" bp (").append(w.size()).append(" observations)")
+                            .toString();
+                    return confirm(s, o, day, e, reason, events);
                 }
             } else if (t instanceof ShareInverted sh) {
                 TrailingWindow w = s.windows[i];
                 if (hasWholeWindow(s, day, sh.windowDays()) && w.invertedShare() >= sh.share()) {
                     Evidence e = new Evidence(sh.name(), sh.windowDays() + "d", w.invertedShare(), sh.share(), v, s.daysInverted());
-                    return confirm(s, o, day, e, String.format(Locale.ROOT, "%.0f%% of %d observations inverted over %d days >= %.0f%%",
-                            100 * w.invertedShare(), w.size(), sh.windowDays(), 100 * sh.share()), events);
+                    StringBuilder reason = DecimalText.append(new StringBuilder(64), 100 * w.invertedShare(), 0)
+                            .append("% of ").append(w.size()).append(" observations inverted over ").append(sh.windowDays()).append(" days >= ");
+                    return confirm(s, o, day, e, DecimalText.append(reason, 100 * sh.share(), 0).append('%').toString(), events);
                 }
             }
         }
@@ -219,8 +276,10 @@ public final class InversionMonitor {
         Spell spell = s.spell(day, true);
         SpreadState to = confirmed ? SpreadState.RESTEEPENING : SpreadState.NORMAL;
         String runs = definition.exitObservations() == 1 ? "1 observation" : definition.exitObservations() + " observations";
-        String reason = String.format(Locale.ROOT, "back at or above exit threshold %s bp for %s (%.1f bp); %s spell of %d days ended",
-                PersistenceTest.number(exit), runs, o.valueBp(), confirmed ? "confirmed" : "unconfirmed", spell.durationDays());
+        String reason = DecimalText.append(new StringBuilder(128).append("back at or above exit threshold ").append(exitText)
+                        .append(" bp for ").append(runs).append(" ("), o.valueBp(), 1)
+                .append(" bp); ").append(confirmed ? "confirmed" : "unconfirmed").append(" spell of ").append(spell.durationDays())
+                .append(" days ended").toString();
         Evidence e = new Evidence("exit", runs, o.valueBp(), exit, o.valueBp(), 0);
         events = add(events, transition(s, o, to, reason, e, s.spellCount));
         events = add(events, spell);

@@ -24,6 +24,10 @@ public final class MonitorState {
     int lastDay = NONE;
     double lastValueBp = Double.NaN;
 
+    /** The calendar month of the last observation (year·12 + month − 1) and the epoch day of its first day. */
+    int monthIndex = NONE;
+    int monthFirstDay;
+
     int quarterIndex = NONE;
     boolean quarterCounts;
     double quarterSum;
@@ -136,6 +140,8 @@ public final class MonitorState {
         firstDay = o.firstDay;
         lastDay = o.lastDay;
         lastValueBp = o.lastValueBp;
+        monthIndex = o.monthIndex;
+        monthFirstDay = o.monthFirstDay;
         quarterIndex = o.quarterIndex;
         quarterCounts = o.quarterCounts;
         quarterSum = o.quarterSum;

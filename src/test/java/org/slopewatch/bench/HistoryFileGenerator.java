@@ -80,12 +80,12 @@ public final class HistoryFileGenerator {
         }
     }
 
-    private static double rise(double years) {
+    static double rise(double years) {
         return 1 - Math.exp(-years / 2);
     }
 
     /** Whole basis points as percent with two decimals: 431 → 4.31, -7 → -0.07. */
-    private static void appendPercent(StringBuilder b, long bp) {
+    static void appendPercent(StringBuilder b, long bp) {
         if (bp < 0) {
             b.append('-');
             bp = -bp;

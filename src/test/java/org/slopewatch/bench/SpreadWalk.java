@@ -41,9 +41,14 @@ final class SpreadWalk {
     /** The business day after {@code date}. */
     static LocalDate nextBusinessDay(LocalDate date) {
         LocalDate d = date.plusDays(1);
-        while (d.getDayOfWeek() == DayOfWeek.SATURDAY || d.getDayOfWeek() == DayOfWeek.SUNDAY) {
+        while (!isBusinessDay(d)) {
             d = d.plusDays(1);
         }
         return d;
+    }
+
+    /** Monday to Friday. */
+    static boolean isBusinessDay(LocalDate date) {
+        return date.getDayOfWeek() != DayOfWeek.SATURDAY && date.getDayOfWeek() != DayOfWeek.SUNDAY;
     }
 }

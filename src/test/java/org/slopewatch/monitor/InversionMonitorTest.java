@@ -188,6 +188,25 @@ class InversionMonitorTest {
     }
 
     @Test
+    void aRejectedObservationLeavesTheStateAsItWas() {
+        // the monitor works out epoch days once per month: an earlier date in the same month, in an
+        // earlier month and in an earlier quarter must each be refused before anything changes
+        Run r = new Run(MonitorDefinition.quarterAverageAtZero()).feed("2026-03-30", -4).feed("2026-04-02", -6).feed("2026-04-20", -8);
+        assertThatThrownBy(() -> r.feed("2026-04-10", 50)).hasMessageContaining("must arrive in date order");
+        assertThatThrownBy(() -> r.feed("2026-03-31", 50)).hasMessageContaining("must arrive in date order");
+        assertThatThrownBy(() -> r.feed("2025-12-31", 50)).hasMessageContaining("must arrive in date order");
+        assertThat(r.state.lastDate()).isEqualTo("2026-04-20");
+        assertThat(r.state.quarterToDateAverageBp()).isEqualTo(-7.0);
+        assertThat(r.state.daysInverted()).isEqualTo(21);
+        r.feed("2026-04-21", -10).feed("2026-07-01", 3);
+        assertThat(r.events.stream().filter(e -> e instanceof QuarterSummary).map(e -> (QuarterSummary) e))
+                .singleElement().satisfies(q -> {
+                    assertThat(q.quarter().toString()).isEqualTo("2026Q2");
+                    assertThat(q.averageBp()).isEqualTo(-8.0); // (-6 - 8 - 10) / 3
+                });
+    }
+
+    @Test
     void aSeriesStartingMidQuarterDoesNotReportThatQuarter() {
         Run r = new Run(MonitorDefinition.quarterAverageAtZero())
                 .feed("2026-02-15", -50).feed("2026-03-15", -50).feed("2026-04-15", 10).feed("2026-07-01", 10);
