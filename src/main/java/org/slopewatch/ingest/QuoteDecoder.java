@@ -193,8 +193,8 @@ public final class QuoteDecoder {
     }
 
     /**
-     * A text the journal keeps must fit its column and hold no control character (PostgreSQL text
-     * cannot hold NUL); null passes.
+     * A text the journal keeps must fit its column and be stored as sent: no control character
+     * (PostgreSQL text cannot hold NUL) and no half of a surrogate pair; null passes.
      */
     private static String keptText(String field, String text) throws Rejection {
         if (text == null) {
@@ -205,9 +205,15 @@ public final class QuoteDecoder {
             throw new Rejection(RejectReason.MALFORMED, "'" + field + "' is " + text.length() + " characters long; at most " + width);
         }
         for (int i = 0; i < text.length(); i++) {
-            if (Character.isISOControl(text.charAt(i))) {
-                throw new Rejection(RejectReason.MALFORMED, String.format("'%s' contains the control character U+%04X", field,
-                        (int) text.charAt(i)));
+            char c = text.charAt(i);
+            if (Character.isISOControl(c)) {
+                throw new Rejection(RejectReason.MALFORMED, String.format("'%s' contains the control character U+%04X", field, (int) c));
+            }
+            // half of a surrogate pair is no character: PostgreSQL would store '?' in its place
+            boolean paired = Character.isHighSurrogate(c) ? i + 1 < text.length() && Character.isLowSurrogate(text.charAt(++i))
+                    : !Character.isLowSurrogate(c);
+            if (!paired) {
+                throw new Rejection(RejectReason.MALFORMED, String.format("'%s' contains an unpaired surrogate U+%04X", field, (int) c));
             }
         }
         return text;

@@ -1,5 +1,6 @@
 package org.slopewatch.rules;
 
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.LinkedHashSet;
 import java.util.List;
@@ -50,6 +51,15 @@ public final class PolicyParser {
     private static final int DEFAULT_HOLD_DAYS = 365;
 
     private PolicyParser() {
+    }
+
+    /**
+     * Parses a policy file's bytes as every reader of policies does (the daemon, {@code check-rules},
+     * replay and what-if): UTF-8, a byte that is not UTF-8 read as U+FFFD, so that all of them
+     * agree on whether a file is valid.
+     */
+    public static Policy parse(String file, byte[] bytes) throws PolicyException {
+        return parse(file, new String(bytes, StandardCharsets.UTF_8));
     }
 
     /** Parses one policy file's text; {@code file} names it in messages. */

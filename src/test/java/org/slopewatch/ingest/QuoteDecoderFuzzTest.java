@@ -32,8 +32,8 @@ import org.slopewatch.testsupport.FuzzTries;
  * text cut or spliced). No exception escapes; every item comes back accepted or rejected with a
  * reason and a detail; and whatever is accepted is something the journal can keep as it is:
  * a market date from {@link QuoteDecoder#EARLIEST_DATE} to three days ahead, finite yields,
- * texts within the journal's column widths and free of NUL, a {@code time} within the years
- * a timestamp column holds.
+ * texts within the journal's column widths, free of NUL and of halves of surrogate pairs, and a
+ * {@code time} within the years a timestamp column holds.
  *
  * <p>Each property runs 10,000 tries in the suite; {@code -Dfuzz.tries=N} runs more (see
  * docs/reliability.md).
@@ -102,6 +102,8 @@ class QuoteDecoderFuzzTest {
         if (text != null) {
             assertThat(text.length()).as(field + " fits its journal column").isLessThanOrEqualTo(width);
             assertThat(text).as(field + " has no NUL (PostgreSQL text cannot hold one)").doesNotContain("\u0000");
+            assertThat(text.codePoints().noneMatch(c -> c >= Character.MIN_SURROGATE && c <= Character.MAX_SURROGATE))
+                    .as(field + " has no half of a surrogate pair (it would be stored as '?')").isTrue();
         }
     }
 

@@ -111,6 +111,11 @@ class QuoteDecoderHostileTest {
         assertThat(r.detail()).isEqualTo("'id' contains the control character U+0000");
         assertThat(onlyReject("{\"curve\":\"GOVT-A\",\"tenor\":\"10Y\",\"date\":\"2026-03-02\",\"yield\":4.2,\"source\":\"a\\nb\"}").detail())
                 .isEqualTo("'source' contains the control character U+000A");
+        // half of a surrogate pair is no character: PostgreSQL stored '?' in its place (found by the corpus)
+        assertThat(onlyReject("{\"curve\":\"GOVT-A\",\"tenor\":\"10Y\",\"date\":\"2026-03-02\",\"yield\":4.2,\"source\":\"\\ud800\"}").detail())
+                .isEqualTo("'source' contains an unpaired surrogate U+D800");
+        assertThat(decoder.decode("test", "{\"curve\":\"GOVT-A\",\"tenor\":\"10Y\",\"date\":\"2026-03-02\",\"yield\":4.2,"
+                + "\"source\":\"desk \\ud83d\\ude00\"}").messages()).as("a whole pair (an emoji) is a character").hasSize(1);
     }
 
     @Test
