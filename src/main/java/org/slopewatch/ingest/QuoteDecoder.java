@@ -9,6 +9,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.json.JsonMapper;
 import java.time.Instant;
 import java.time.LocalDate;
+import java.time.ZoneOffset;
 import java.time.format.DateTimeParseException;
 import java.util.ArrayList;
 import java.util.Iterator;
@@ -48,7 +49,7 @@ public final class QuoteDecoder {
     public static final LocalDate EARLIEST_DATE = LocalDate.of(1583, 1, 1);
 
     /** The bounds of a sender's {@code time}: the years every timestamp column holds faithfully. */
-    static final Instant EARLIEST_TIME = EARLIEST_DATE.atStartOfDay(java.time.ZoneOffset.UTC).toInstant();
+    static final Instant EARLIEST_TIME = EARLIEST_DATE.atStartOfDay(ZoneOffset.UTC).toInstant();
     static final Instant LATEST_TIME = Instant.parse("9999-12-31T23:59:59.999999999Z");
 
     private static final Set<String> SINGLE_FIELDS = Set.of("curve", "tenor", "date", "yield", "unit", "basis", "source", "id", "time");

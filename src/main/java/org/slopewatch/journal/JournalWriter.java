@@ -231,7 +231,7 @@ public final class JournalWriter {
         if (s == null) {
             return null;
         }
-        String text = s.indexOf('\u0000') < 0 ? s : s.replace('\u0000', '\uFFFD');
+        String text = s.indexOf('\0') < 0 ? s : s.replace('\0', '\uFFFD');
         return text.length() <= max ? text : text.substring(0, max - 1) + "…";
     }
 }
