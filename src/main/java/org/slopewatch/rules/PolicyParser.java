@@ -16,14 +16,14 @@ import org.slopewatch.monitor.ShareInverted;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.spread.SpreadDefinition;
 import org.snakeyaml.engine.v2.api.LoadSettings;
-import org.snakeyaml.engine.v2.api.lowlevel.Compose;
-import org.snakeyaml.engine.v2.api.lowlevel.Parse;
-import org.snakeyaml.engine.v2.events.Event;
+import org.snakeyaml.engine.v2.composer.Composer;
 import org.snakeyaml.engine.v2.exceptions.Mark;
 import org.snakeyaml.engine.v2.exceptions.MarkedYamlEngineException;
 import org.snakeyaml.engine.v2.exceptions.ReaderException;
 import org.snakeyaml.engine.v2.exceptions.YamlEngineException;
 import org.snakeyaml.engine.v2.nodes.Node;
+import org.snakeyaml.engine.v2.parser.ParserImpl;
+import org.snakeyaml.engine.v2.scanner.StreamReader;
 
 /**
  * Reads a policy file: YAML with keys of our own (documented in {@code alert-rules/README.md}).
@@ -33,7 +33,7 @@ import org.snakeyaml.engine.v2.nodes.Node;
  * and nothing is looked up or evaluated: {@code ${…}}, {@code !include} and the like stay text.
  * Hostile files end fast with a problem: more than {@link #MAX_CODE_POINTS} code points, more than
  * {@link #MAX_ALIASES} aliases of lists and mappings (an alias bomb), or nesting deeper than
- * {@link #MAX_DEPTH} (which would otherwise overflow the composer's stack).
+ * {@link #MAX_DEPTH} ({@link NestingLimit}: it would otherwise overflow the composer's stack).
  */
 public final class PolicyParser {
 
@@ -75,8 +75,11 @@ public final class PolicyParser {
                 .setMaxAliasesForCollections(MAX_ALIASES).setAllowRecursiveKeys(false).setBufferSize(text.length() + 1).build();
         Optional<Node> root;
         try {
-            checkDepth(file, settings, text);
-            root = new Compose(settings).composeString(text);
+            root = new Composer(settings, new NestingLimit(new ParserImpl(settings, new StreamReader(settings, text)), MAX_DEPTH))
+                    .getSingleNode();
+        } catch (NestingLimit.TooDeep e) {
+            throw new PolicyException(List.of(new PolicyProblem(file, e.mark.map(x -> x.getLine() + 1).orElse(1),
+                    e.mark.map(x -> x.getColumn() + 1).orElse(1), "nested more than " + MAX_DEPTH + " levels deep")));
         } catch (MarkedYamlEngineException e) {
             Optional<Mark> m = e.getProblemMark().or(e::getContextMark);
             throw new PolicyException(List.of(new PolicyProblem(file, m.map(x -> x.getLine() + 1).orElse(1),
@@ -137,25 +140,6 @@ public final class PolicyParser {
             }
         }
         return new PolicyProblem(file, line, column, message);
-    }
-
-    /**
-     * Reads the event stream, which the parser produces without recursion, to refuse deep nesting
-     * before the composer, which recurses once per level, meets it.
-     */
-    private static void checkDepth(String file, LoadSettings settings, String text) throws PolicyException {
-        int depth = 0;
-        for (Event e : new Parse(settings).parseString(text)) {
-            if (e.getEventId() == Event.ID.SequenceStart || e.getEventId() == Event.ID.MappingStart) {
-                if (++depth > MAX_DEPTH) {
-                    Optional<Mark> m = e.getStartMark();
-                    throw new PolicyException(List.of(new PolicyProblem(file, m.map(x -> x.getLine() + 1).orElse(1),
-                            m.map(x -> x.getColumn() + 1).orElse(1), "nested more than " + MAX_DEPTH + " levels deep")));
-                }
-            } else if (e.getEventId() == Event.ID.SequenceEnd || e.getEventId() == Event.ID.MappingEnd) {
-                depth--;
-            }
-        }
     }
 
     private static Watch watch(YamlNode item) {
