@@ -2,7 +2,6 @@ package org.slopewatch.alerting;
 
 import jakarta.inject.Singleton;
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.slopewatch.ingest.IngestConfig;
@@ -50,7 +49,7 @@ public class PolicyHolder {
     /** Reads and parses a policy file; the hash is of its bytes as read. */
     public static Loaded read(String file) throws IOException, PolicyException {
         byte[] bytes = Files.readAllBytes(Path.of(file));
-        Policy policy = PolicyParser.parse(file, new String(bytes, StandardCharsets.UTF_8));
+        Policy policy = PolicyParser.parse(file, bytes);
         return new Loaded(policy, PolicyHash.of(bytes), file);
     }
 }

@@ -46,7 +46,7 @@ final class CheckRulesCommand implements Callable<Integer> {
         int code = 0;
         for (Path f : files) {
             try {
-                Policy p = PolicyParser.parse(f.toString(), Files.readString(f));
+                Policy p = PolicyParser.parse(f.toString(), Files.readAllBytes(f));
                 out.printf("%s: ok: %d spread(s) watched, %d channel(s), %d alert rule(s), %d probability model(s)%n", f,
                         p.watches().size(), p.channels().size(), p.alerts().size(), p.probability().size());
             } catch (PolicyException e) {

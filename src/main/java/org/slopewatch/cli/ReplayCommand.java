@@ -159,7 +159,7 @@ final class ReplayCommand implements Callable<Integer> {
             if (!spreads.isEmpty() || !persistence.isEmpty()) {
                 throw new IllegalArgumentException("give either --policy or --spread/--persistence, not both");
             }
-            return PolicyParser.parse(policy.toString(), Files.readString(policy)).watches();
+            return PolicyParser.parse(policy.toString(), Files.readAllBytes(policy)).watches();
         }
         if (spreads.isEmpty()) {
             throw new IllegalArgumentException("nothing to watch: give --spread (e.g. --spread 10Y-3M) or --policy FILE");

@@ -1,12 +1,15 @@
 package org.slopewatch.ingest;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.StreamReadFeature;
 import com.fasterxml.jackson.core.json.JsonReadFeature;
+import com.fasterxml.jackson.databind.DeserializationFeature;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.json.JsonMapper;
 import java.time.Instant;
 import java.time.LocalDate;
+import java.time.ZoneOffset;
 import java.time.format.DateTimeParseException;
 import java.util.ArrayList;
 import java.util.Iterator;
@@ -28,15 +31,36 @@ import org.slopewatch.curve.YieldUnit;
  *
  * <p>Each item is accepted or rejected whole, with a reason; one bad item never spoils the rest.
  * Unknown fields are rejected rather than ignored, because a misspelt {@code yeild} silently
- * dropped would lose a quote.
+ * dropped would lose a quote; for the same reason a field or tenor given twice, or anything after
+ * the JSON value, makes the input malformed rather than letting one of them win unseen.
+ *
+ * <p>What is accepted is what the journal keeps as it came: a market date from
+ * {@link #EARLIEST_DATE}, texts within the journal's column widths and free of control
+ * characters, a {@code time} within the years a timestamp column holds.
  */
 public final class QuoteDecoder {
 
+    /**
+     * The earliest market date accepted: the first whole year of the Gregorian calendar. The journal
+     * stores dates through {@code java.sql.Date}, which counts earlier days in the Julian calendar,
+     * so they would come back shifted by days or, for distant years, as other years altogether
+     * (-999999999-01-03 was stored as 169087565-03-17 on H2 and refused by PostgreSQL).
+     */
+    public static final LocalDate EARLIEST_DATE = LocalDate.of(1583, 1, 1);
+
+    /** The bounds of a sender's {@code time}: the years every timestamp column holds faithfully. */
+    static final Instant EARLIEST_TIME = EARLIEST_DATE.atStartOfDay(ZoneOffset.UTC).toInstant();
+    static final Instant LATEST_TIME = Instant.parse("9999-12-31T23:59:59.999999999Z");
+
     private static final Set<String> SINGLE_FIELDS = Set.of("curve", "tenor", "date", "yield", "unit", "basis", "source", "id", "time");
     private static final Set<String> SNAPSHOT_FIELDS = Set.of("curve", "date", "yields", "unit", "basis", "source", "id", "time");
+    /** Fields kept as text in the journal, with their column widths (db/journal/V1__journal.sql). */
+    private static final Map<String, Integer> KEPT_TEXT = Map.of("curve", 100, "id", 200, "source", 200);
 
-    // NaN and Infinity tokens are read so that they can be rejected as non-finite, with that reason
-    private static final ObjectMapper JSON = JsonMapper.builder().enable(JsonReadFeature.ALLOW_NON_NUMERIC_NUMBERS).build();
+    // NaN and Infinity tokens are read so that they can be rejected as non-finite, with that reason;
+    // a duplicate field or trailing content is malformed, not a silent last-one-wins or a dropped tail
+    private static final ObjectMapper JSON = JsonMapper.builder().enable(JsonReadFeature.ALLOW_NON_NUMERIC_NUMBERS)
+            .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION).enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
 
     private final IngestRules rules;
 
@@ -56,6 +80,9 @@ public final class QuoteDecoder {
         if (root == null || root.isMissingNode()) {
             return new QuoteBatch(origin, List.of(), List.of(new Reject(RejectReason.MALFORMED, "empty body", -1, body)));
         }
+        if (root.isArray() && root.isEmpty()) {
+            return new QuoteBatch(origin, List.of(), List.of(new Reject(RejectReason.MALFORMED, "an empty array carries no quote", -1, body)));
+        }
         List<QuoteMessage> accepted = new ArrayList<>();
         List<Reject> rejects = new ArrayList<>();
         if (root.isArray()) {
@@ -73,14 +100,13 @@ public final class QuoteDecoder {
      * against the curve and date rules; null when it passes.
      */
     public Reject check(QuoteMessage m, int item) {
-        if (!rules.knowsCurve(m.curve())) {
-            return new Reject(RejectReason.UNKNOWN_CURVE, "unknown curve '" + m.curve() + "'", item, m.curve() + " " + m.date());
+        try {
+            curve(m.curve());
+            dateInRange(m.date());
+            return null;
+        } catch (Rejection r) {
+            return new Reject(r.reason, r.getMessage(), item, m.curve() + " " + m.date());
         }
-        if (m.date().isAfter(rules.latestAcceptedDate())) {
-            return new Reject(RejectReason.FUTURE_DATE, "market date " + m.date() + " is more than " + rules.maxDaysAhead()
-                    + " days ahead", item, m.curve() + " " + m.date());
-        }
-        return null;
     }
 
     private void item(JsonNode node, int index, List<QuoteMessage> accepted, List<Reject> rejects) {
@@ -114,10 +140,7 @@ public final class QuoteDecoder {
                         ? " (a snapshot carries its tenors in 'yields')" : ""));
             }
         }
-        String curve = text(node, "curve", true);
-        if (!rules.knowsCurve(curve)) {
-            throw new Rejection(RejectReason.UNKNOWN_CURVE, "unknown curve '" + curve + "'");
-        }
+        String curve = curve(text(node, "curve", true));
         LocalDate date = date(text(node, "date", true));
         YieldUnit unit;
         try {
@@ -133,9 +156,15 @@ public final class QuoteDecoder {
             if (!ys.isObject() || ys.isEmpty()) {
                 throw new Rejection(RejectReason.MALFORMED, "'yields' must be an object of tenor to yield, e.g. {\"3M\":5.10}");
             }
+            Map<Tenor, String> spelt = new TreeMap<>();
             for (Iterator<Map.Entry<String, JsonNode>> it = ys.fields(); it.hasNext(); ) {
                 Map.Entry<String, JsonNode> e = it.next();
                 Tenor tenor = tenor(e.getKey());
+                String before = spelt.put(tenor, e.getKey());
+                if (before != null) {
+                    throw new Rejection(RejectReason.MALFORMED, "tenor " + tenor + " appears twice in 'yields' (as '" + before + "' and '"
+                            + e.getKey() + "')");
+                }
                 yields.put(tenor, yieldBp(e.getValue(), tenor, unit, discount));
             }
         } else {
@@ -146,8 +175,8 @@ public final class QuoteDecoder {
             }
             yields.put(tenor, yieldBp(y, tenor, unit, discount));
         }
-        return new QuoteMessage(text(node, "id", false), text(node, "source", false), time(text(node, "time", false)),
-                curve, date, yields);
+        return new QuoteMessage(keptText("id", text(node, "id", false)), keptText("source", text(node, "source", false)),
+                time(text(node, "time", false)), curve, date, yields);
     }
 
     private static String text(JsonNode node, String field, boolean required) throws Rejection {
@@ -164,12 +193,54 @@ public final class QuoteDecoder {
         return v.asText().strip();
     }
 
+    /**
+     * A text the journal keeps must fit its column and be stored as sent: no control character
+     * (PostgreSQL text cannot hold NUL) and no half of a surrogate pair; null passes.
+     */
+    private static String keptText(String field, String text) throws Rejection {
+        if (text == null) {
+            return null;
+        }
+        int width = KEPT_TEXT.get(field);
+        if (text.length() > width) {
+            throw new Rejection(RejectReason.MALFORMED, "'" + field + "' is " + text.length() + " characters long; at most " + width);
+        }
+        for (int i = 0; i < text.length(); i++) {
+            char c = text.charAt(i);
+            if (Character.isISOControl(c)) {
+                throw new Rejection(RejectReason.MALFORMED, String.format("'%s' contains the control character U+%04X", field, (int) c));
+            }
+            // half of a surrogate pair is no character: PostgreSQL would store '?' in its place
+            boolean paired = Character.isHighSurrogate(c) ? i + 1 < text.length() && Character.isLowSurrogate(text.charAt(++i))
+                    : !Character.isLowSurrogate(c);
+            if (!paired) {
+                throw new Rejection(RejectReason.MALFORMED, String.format("'%s' contains an unpaired surrogate U+%04X", field, (int) c));
+            }
+        }
+        return text;
+    }
+
+    private String curve(String curve) throws Rejection {
+        if (!rules.knowsCurve(curve)) {
+            throw new Rejection(RejectReason.UNKNOWN_CURVE, "unknown curve '" + curve + "'");
+        }
+        return keptText("curve", curve);
+    }
+
     private LocalDate date(String text) throws Rejection {
         LocalDate date;
         try {
             date = LocalDate.parse(text);
         } catch (DateTimeParseException e) {
             throw new Rejection(RejectReason.BAD_DATE, "unparsable date '" + text + "' (expected YYYY-MM-DD)");
+        }
+        return dateInRange(date);
+    }
+
+    private LocalDate dateInRange(LocalDate date) throws Rejection {
+        if (date.isBefore(EARLIEST_DATE)) {
+            throw new Rejection(RejectReason.BAD_DATE, "market date " + date + " is before " + EARLIEST_DATE
+                    + ", the earliest the journal keeps");
         }
         if (date.isAfter(rules.latestAcceptedDate())) {
             throw new Rejection(RejectReason.FUTURE_DATE, "market date " + date + " is more than " + rules.maxDaysAhead()
@@ -227,10 +298,15 @@ public final class QuoteDecoder {
         if (text == null) {
             return null;
         }
+        Instant time;
         try {
-            return Instant.parse(text);
+            time = Instant.parse(text);
         } catch (DateTimeParseException e) {
             throw new Rejection(RejectReason.MALFORMED, "unparsable time '" + text + "' (expected e.g. 2026-03-02T16:00:00Z)");
         }
+        if (time.isBefore(EARLIEST_TIME) || time.isAfter(LATEST_TIME)) {
+            throw new Rejection(RejectReason.MALFORMED, "time " + text + " is outside the years " + EARLIEST_DATE.getYear() + " to 9999");
+        }
+        return time;
     }
 }

@@ -108,9 +108,9 @@ public final class AlertStore {
                 a.setString(7, alert.severity().name());
                 a.setDate(8, alert.marketDate() == null ? null : Date.valueOf(alert.marketDate()));
                 a.setString(9, alert.state());
-                a.setString(10, JournalWriter.truncate(alert.subject(), 400));
-                a.setString(11, JournalWriter.truncate(alert.text(), 8000));
-                a.setString(12, JournalWriter.truncate(FactsText.write(alert.facts()), 4000));
+                a.setString(10, JournalWriter.fit(alert.subject(), 400));
+                a.setString(11, JournalWriter.fit(alert.text(), 8000));
+                a.setString(12, JournalWriter.fit(FactsText.write(alert.facts()), 4000));
                 a.setString(13, alert.dashboard());
                 a.setString(14, e.mutedBy());
                 a.setString(15, e.policyHash());
@@ -127,7 +127,7 @@ public final class AlertStore {
                     d.setString(2, o.channel());
                     d.setString(3, (o.skipped() == null ? Status.PENDING : Status.SKIPPED).name());
                     d.setTimestamp(4, o.skipped() == null ? Timestamp.from(alert.createdAt()) : null);
-                    d.setString(5, JournalWriter.truncate(o.skipped(), 1000));
+                    d.setString(5, JournalWriter.fit(o.skipped(), 1000));
                     d.setTimestamp(6, now);
                     d.setTimestamp(7, now);
                     d.addBatch();
@@ -190,8 +190,8 @@ public final class AlertStore {
                 s.setString(2, before.channel());
                 s.setInt(3, before.attempts() + 1);
                 s.setString(4, outcome);
-                s.setString(5, JournalWriter.truncate(detail, 1000));
-                s.setString(6, JournalWriter.truncate(decision, 1000));
+                s.setString(5, JournalWriter.fit(detail, 1000));
+                s.setString(6, JournalWriter.fit(decision, 1000));
                 s.setTimestamp(7, Timestamp.from(attemptedAt));
                 s.setTimestamp(8, now);
                 s.executeUpdate();
@@ -202,7 +202,7 @@ public final class AlertStore {
                 s.setString(1, status.name());
                 s.setTimestamp(2, next == null ? null : Timestamp.from(next));
                 s.setTimestamp(3, Timestamp.from(attemptedAt));
-                s.setString(4, JournalWriter.truncate(decision, 1000));
+                s.setString(4, JournalWriter.fit(decision, 1000));
                 s.setTimestamp(5, now);
                 s.setString(6, before.alertId());
                 s.setString(7, before.channel());
@@ -404,8 +404,8 @@ public final class AlertStore {
         inTransaction(c -> {
             try (PreparedStatement s = c.prepareStatement("INSERT INTO alert_ack (alert_id, acked_by, note, recorded_at) VALUES (?,?,?,?)")) {
                 s.setString(1, alertId);
-                s.setString(2, JournalWriter.truncate(by, 100));
-                s.setString(3, JournalWriter.truncate(note, 400));
+                s.setString(2, JournalWriter.fit(by, 100));
+                s.setString(3, JournalWriter.fit(note, 400));
                 s.setTimestamp(4, now);
                 s.executeUpdate();
             }
@@ -422,8 +422,8 @@ public final class AlertStore {
                 s.setString(1, kind);
                 s.setString(2, target);
                 s.setTimestamp(3, Timestamp.from(until));
-                s.setString(4, JournalWriter.truncate(reason, 400));
-                s.setString(5, JournalWriter.truncate(by, 100));
+                s.setString(4, JournalWriter.fit(reason, 400));
+                s.setString(5, JournalWriter.fit(by, 100));
                 s.setTimestamp(6, Timestamp.from(now));
                 s.executeUpdate();
                 try (ResultSet keys = s.getGeneratedKeys()) {
@@ -442,7 +442,7 @@ public final class AlertStore {
         inTransaction(c -> {
             try (PreparedStatement s = c.prepareStatement("UPDATE mute SET lifted_at = ?, lifted_by = ? WHERE id = ? AND lifted_at IS NULL")) {
                 s.setTimestamp(1, now);
-                s.setString(2, JournalWriter.truncate(by, 100));
+                s.setString(2, JournalWriter.fit(by, 100));
                 s.setLong(3, id);
                 n[0] = s.executeUpdate();
             }
@@ -466,9 +466,9 @@ public final class AlertStore {
             try (PreparedStatement s = c.prepareStatement("INSERT INTO policy_version (content_hash, source, outcome, detail, recorded_at) "
                     + "VALUES (?,?,?,?,?)")) {
                 s.setString(1, hash);
-                s.setString(2, JournalWriter.truncate(source, 400));
+                s.setString(2, JournalWriter.fit(source, 400));
                 s.setString(3, outcome);
-                s.setString(4, JournalWriter.truncate(detail, 4000));
+                s.setString(4, JournalWriter.fit(detail, 4000));
                 s.setTimestamp(5, now);
                 s.executeUpdate();
             }

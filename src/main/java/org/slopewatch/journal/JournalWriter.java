@@ -97,9 +97,9 @@ public final class JournalWriter {
             for (JournalEntries.RejectedQuote r : e.rejects) {
                 s.setString(1, r.origin());
                 s.setString(2, r.reason());
-                s.setString(3, truncate(r.detail(), 1000));
+                s.setString(3, fit(r.detail(), 1000));
                 s.setInt(4, r.item());
-                s.setString(5, r.raw());
+                s.setString(5, fit(r.raw(), 2100));
                 s.setTimestamp(6, now);
                 s.addBatch();
             }
@@ -132,8 +132,8 @@ public final class JournalWriter {
                     + "VALUES (?,?,?,?,?,?)", new String[] {"id"})) {
                 s.setString(1, r.spread().id());
                 s.setDate(2, Date.valueOf(r.from()));
-                s.setString(3, truncate(lines(r.before()), 4000));
-                s.setString(4, truncate(lines(r.after()), 4000));
+                s.setString(3, fit(lines(r.before()), 4000));
+                s.setString(4, fit(lines(r.after()), 4000));
                 s.setLong(5, r.sequence());
                 s.setTimestamp(6, now);
                 s.executeUpdate();
@@ -169,7 +169,7 @@ public final class JournalWriter {
                 s.setDate(2, Date.valueOf(t.date()));
                 s.setString(3, t.from().name());
                 s.setString(4, t.to().name());
-                s.setString(5, truncate(t.reason(), 400));
+                s.setString(5, fit(t.reason(), 400));
                 s.setString(6, t.evidence().test());
                 s.setString(7, t.evidence().window());
                 s.setDouble(8, t.evidence().measured());
@@ -222,7 +222,16 @@ public final class JournalWriter {
         return transitions.stream().map(Transition::toString).collect(Collectors.joining("\n"));
     }
 
-    static String truncate(String s, int max) {
-        return s == null || s.length() <= max ? s : s.substring(0, max - 1) + "…";
+    /**
+     * A text as its column can hold it: cut to {@code max} characters with an ellipsis, and NUL
+     * replaced by U+FFFD, because a PostgreSQL text column refuses NUL and the failed write would
+     * refuse the whole step with it. Rejects and delivery answers repeat what was sent to us.
+     */
+    static String fit(String s, int max) {
+        if (s == null) {
+            return null;
+        }
+        String text = s.indexOf('\0') < 0 ? s : s.replace('\0', '\uFFFD');
+        return text.length() <= max ? text : text.substring(0, max - 1) + "…";
     }
 }

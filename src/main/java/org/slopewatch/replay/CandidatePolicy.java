@@ -1,6 +1,5 @@
 package org.slopewatch.replay;
 
-import java.nio.charset.StandardCharsets;
 import org.slopewatch.rules.Policy;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyHash;
@@ -16,9 +15,12 @@ import org.slopewatch.rules.PolicyParser;
  */
 public record CandidatePolicy(String source, Policy policy, String sha256) {
 
-    /** Parses a policy file's bytes (UTF-8); every problem is reported as {@code file:line:column: message}. */
+    /**
+     * Parses a policy file's bytes as {@link PolicyParser#parse(String, byte[])} reads them; every
+     * problem is reported as {@code file:line:column: message}.
+     */
     public static CandidatePolicy parse(String source, byte[] bytes) throws PolicyException {
-        Policy policy = PolicyParser.parse(source, new String(bytes, StandardCharsets.UTF_8));
+        Policy policy = PolicyParser.parse(source, bytes);
         return new CandidatePolicy(source, policy, sha256(bytes));
     }
 

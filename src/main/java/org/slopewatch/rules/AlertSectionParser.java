@@ -210,13 +210,18 @@ final class AlertSectionParser {
             node.problem("'repeat-every' must be a duration such as 30s, 30m, 4h or 1d (0 for never), got '" + text + "'");
             return null;
         }
-        long n = Long.parseLong(m.group(1));
-        return switch (m.group(2)) {
-            case "s" -> Duration.ofSeconds(n);
-            case "m" -> Duration.ofMinutes(n);
-            case "h" -> Duration.ofHours(n);
-            default -> Duration.ofDays(n);
-        };
+        try {
+            long n = Long.parseLong(m.group(1));
+            return switch (m.group(2)) {
+                case "s" -> Duration.ofSeconds(n);
+                case "m" -> Duration.ofMinutes(n);
+                case "h" -> Duration.ofHours(n);
+                default -> Duration.ofDays(n);
+            };
+        } catch (ArithmeticException | NumberFormatException e) {
+            node.problem("'repeat-every' is too long to be a duration, got '" + text + "'");
+            return null;
+        }
     }
 
     private static String template(YamlNode node) {

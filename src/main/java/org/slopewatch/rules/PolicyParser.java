@@ -1,5 +1,6 @@
 package org.slopewatch.rules;
 
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.LinkedHashSet;
 import java.util.List;
@@ -15,17 +16,32 @@ import org.slopewatch.monitor.ShareInverted;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.spread.SpreadDefinition;
 import org.snakeyaml.engine.v2.api.LoadSettings;
-import org.snakeyaml.engine.v2.api.lowlevel.Compose;
+import org.snakeyaml.engine.v2.composer.Composer;
 import org.snakeyaml.engine.v2.exceptions.Mark;
 import org.snakeyaml.engine.v2.exceptions.MarkedYamlEngineException;
+import org.snakeyaml.engine.v2.exceptions.ReaderException;
 import org.snakeyaml.engine.v2.exceptions.YamlEngineException;
 import org.snakeyaml.engine.v2.nodes.Node;
+import org.snakeyaml.engine.v2.parser.ParserImpl;
+import org.snakeyaml.engine.v2.scanner.StreamReader;
 
 /**
  * Reads a policy file: YAML with keys of our own (documented in {@code alert-rules/README.md}).
  * Every problem is reported with {@code file:line:column}, all of them in one go.
+ *
+ * <p>The YAML is composed into nodes and never constructed into objects, so tags name no class
+ * and nothing is looked up or evaluated: {@code ${…}}, {@code !include} and the like stay text.
+ * Hostile files end fast with a problem: more than {@link #MAX_CODE_POINTS} code points, more than
+ * {@link #MAX_ALIASES} aliases of lists and mappings (an alias bomb), or nesting deeper than
+ * {@link #MAX_DEPTH} ({@link NestingLimit}: it would otherwise overflow the composer's stack).
  */
 public final class PolicyParser {
+
+    /** About 300 times the shipped policy; a longer file is not a policy anyone reviews. */
+    static final int MAX_CODE_POINTS = 1 << 20;
+    static final int MAX_ALIASES = 50;
+    /** The shipped policy nests six levels deep. */
+    static final int MAX_DEPTH = 64;
 
     static final Set<String> TOP_KEYS = ordered("watch", "probability", "channels", "alerts");
     static final Set<String> WATCH_KEYS = ordered("spread", "curves", "enter-below-bp", "exit-at-or-above-bp",
@@ -37,18 +53,46 @@ public final class PolicyParser {
     private PolicyParser() {
     }
 
+    /**
+     * Parses a policy file's bytes as every reader of policies does (the daemon, {@code check-rules},
+     * replay and what-if): UTF-8, a byte that is not UTF-8 read as U+FFFD, so that all of them
+     * agree on whether a file is valid.
+     */
+    public static Policy parse(String file, byte[] bytes) throws PolicyException {
+        return parse(file, new String(bytes, StandardCharsets.UTF_8));
+    }
+
     /** Parses one policy file's text; {@code file} names it in messages. */
     public static Policy parse(String file, String text) throws PolicyException {
         List<PolicyProblem> problems = new ArrayList<>();
+        if (text.length() > MAX_CODE_POINTS && text.codePointCount(0, text.length()) > MAX_CODE_POINTS) {
+            throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "the policy is " + text.codePointCount(0, text.length())
+                    + " characters long; at most " + MAX_CODE_POINTS)));
+        }
+        // A buffer that holds the whole text: snakeyaml-engine 2.10 reads past its buffer (an
+        // IndexOutOfBoundsException) when a surrogate pair, such as an emoji, straddles a buffer's end.
+        LoadSettings settings = LoadSettings.builder().setLabel(file).setCodePointLimit(MAX_CODE_POINTS)
+                .setMaxAliasesForCollections(MAX_ALIASES).setAllowRecursiveKeys(false).setBufferSize(text.length() + 1).build();
         Optional<Node> root;
         try {
-            root = new Compose(LoadSettings.builder().setLabel(file).build()).composeString(text);
+            root = new Composer(settings, new NestingLimit(new ParserImpl(settings, new StreamReader(settings, text)), MAX_DEPTH))
+                    .getSingleNode();
+        } catch (NestingLimit.TooDeep e) {
+            throw new PolicyException(List.of(new PolicyProblem(file, e.mark.map(x -> x.getLine() + 1).orElse(1),
+                    e.mark.map(x -> x.getColumn() + 1).orElse(1), "nested more than " + MAX_DEPTH + " levels deep")));
         } catch (MarkedYamlEngineException e) {
             Optional<Mark> m = e.getProblemMark().or(e::getContextMark);
             throw new PolicyException(List.of(new PolicyProblem(file, m.map(x -> x.getLine() + 1).orElse(1),
                     m.map(x -> x.getColumn() + 1).orElse(1), "not valid YAML: " + e.getProblem())));
+        } catch (ReaderException e) {
+            throw new PolicyException(List.of(at(file, text, e.getPosition(), String.format("not valid YAML: %s (U+%04X)",
+                    e.getMessage(), e.getCodePoint()))));
         } catch (YamlEngineException e) {
             throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "not valid YAML: " + e.getMessage())));
+        } catch (RuntimeException e) {
+            // a failure inside the YAML library is still an answer about this file, not a crash of the caller
+            throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "not valid YAML: the YAML reader failed on this text ("
+                    + e.getClass().getSimpleName() + ": " + e.getMessage() + ")")));
         }
         if (root.isEmpty()) {
             throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "empty policy: expected a 'watch' list")));
@@ -80,6 +124,22 @@ public final class PolicyParser {
             throw new PolicyException(problems);
         }
         return new Policy(file, watches, List.copyOf(channels.values()), alerts, models);
+    }
+
+    /** The problem at a code point's position in the text, which is all the YAML reader gives for a character it refuses. */
+    private static PolicyProblem at(String file, String text, int codePointIndex, String message) {
+        int line = 1;
+        int column = 1;
+        int end = text.offsetByCodePoints(0, Math.min(Math.max(codePointIndex, 0), text.codePointCount(0, text.length())));
+        for (int i = 0; i < end; i++) {
+            if (text.charAt(i) == '\n') {
+                line++;
+                column = 1;
+            } else if (!Character.isLowSurrogate(text.charAt(i))) {
+                column++;
+            }
+        }
+        return new PolicyProblem(file, line, column, message);
     }
 
     private static Watch watch(YamlNode item) {

@@ -130,10 +130,22 @@ final class YamlNode {
         return out;
     }
 
-    /** A plain string; null (with a problem) for anything else. */
+    /**
+     * A plain string; null (with a problem) for anything else. Control characters other than tab
+     * and line breaks (which only escapes such as {@code "\0"} can write) are refused: names and
+     * messages reach the journal, whose PostgreSQL text columns cannot hold NUL.
+     */
     String string(String what) {
         if (node instanceof ScalarNode s && !Tag.NULL.equals(s.getTag()) && !s.getValue().isBlank()) {
-            return s.getValue();
+            String value = s.getValue();
+            for (int i = 0; i < value.length(); i++) {
+                char c = value.charAt(i);
+                if (Character.isISOControl(c) && c != '\t' && c != '\n' && c != '\r') {
+                    problem(String.format("%s contains the control character U+%04X", what, (int) c));
+                    return null;
+                }
+            }
+            return value;
         }
         problem(what + " must be a non-empty text value");
         return null;

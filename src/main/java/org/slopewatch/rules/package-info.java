@@ -6,6 +6,7 @@
  * <p>Invariants: every problem in a file is reported with {@code file:line:column}; a policy
  * object exists only when its file had no problem; every probability model names a watched
  * spread and its source, and every {@code probability-above} rule covers only spreads with a
- * model. Plain Java and a YAML reader only.
+ * model; any text, however hostile, is answered with a policy or such problems, never another
+ * exception, and nothing in it is evaluated. Plain Java and a YAML reader only.
  */
 package org.slopewatch.rules;

@@ -226,6 +226,38 @@ abstract class QuotePipelineRestartChecks {
         };
     }
 
+    /**
+     * What a hostile sender writes comes back in reject details and raw input. A PostgreSQL text
+     * column refuses NUL, and a refused write used to fail the whole step (HTTP 503, and with Kafka
+     * a stopped consumer), good quotes of the same request with it: the journal now keeps NUL as
+     * U+FFFD. Texts that would be kept as they are (a quote's id, source, curve) are refused by
+     * the decoder instead, as is a market date the journal cannot store faithfully.
+     */
+    @Test
+    void hostileTextIsJournalledAsARejectAndTheGoodQuoteBesideItIsKept() {
+        AgroalDataSource ds = database("hostile");
+        QuotePipeline p = pipeline(ds);
+        QuoteDecoder decoder = new QuoteDecoder(new IngestRules(Set.of("GOVT-A"), org.slopewatch.curve.YieldBounds.DEFAULT, 3, clock));
+        QuoteBatch items = decoder.decode("test", """
+                [{"curve":"GOVT-\\u0000","tenor":"10Y","date":"2026-03-02","yield":4.2},
+                 {"curve":"GOVT-A","tenor":"10Y","date":"2026-03-02","yield":4.2,"source":"feed\\u0000"},
+                 {"curve":"GOVT-A","tenor":"10Y","date":"-9999-01-03","yield":4.2},
+                 {"curve":"GOVT-A","tenor":"10Y","date":"2026-03-02","yield":4.2,"id":"good-1"}]""");
+        QuoteBatch notJson = decoder.decode("test", "{\"curve\":\"GOVT-A\u0000\"}");
+        BatchOutcome o = p.process(List.of(items, notJson));
+
+        assertThat(o.accepted()).as("the good quote is kept").isEqualTo(1);
+        assertThat(o.rejected()).isEqualTo(4);
+        List<JournalReader.StoredReject> stored = new JournalReader(ds).rejects(10);
+        assertThat(stored).hasSize(4);
+        assertThat(stored).extracting(JournalReader.StoredReject::reason)
+                .containsExactlyInAnyOrder("unknown-curve", "malformed", "bad-date", "malformed");
+        assertThat(stored).anyMatch(r -> r.detail().equals("unknown curve 'GOVT-\uFFFD'"))
+                .anyMatch(r -> r.raw() != null && r.raw().contains("GOVT-A\uFFFD"))
+                .allMatch(r -> !r.detail().contains("\u0000") && (r.raw() == null || !r.raw().contains("\u0000")));
+        assertThat(new JournalReader(ds).quoteCount()).isEqualTo(1);
+    }
+
     private static List<String> outcomes(JournalReader journal) {
         return journal.transitions(null, LocalDate.of(1, 1, 1), LocalDate.of(9999, 1, 1), true, 100_000)
                 .stream().map(t -> t.spreadId() + " " + t.date() + " " + t.from() + "->" + t.to() + " " + t.test() + " spell "

@@ -5,5 +5,8 @@
  *
  * <p>Invariants: a test never silently skips for want of a server, it fails saying how to start
  * one; every test gets topics or databases of its own, so runs do not see each other's data.
+ *
+ * <p>Also {@link org.slopewatch.testsupport.FuzzTries}, which lets a long run give the fuzz
+ * properties more tries than CI does ({@code -Dfuzz.tries=N}).
  */
 package org.slopewatch.testsupport;
