@@ -32,8 +32,21 @@ public final class JournalEntries {
     public record SpreadValue(SpreadKey spread, Observation observation) {
     }
 
+    /**
+     * What the monitors concluded, kept in the order they reported it: a revision supersedes what
+     * was journalled before it, including earlier conclusions of the same step, and nothing after.
+     */
+    sealed interface Conclusion permits TransitionEntry, SpellEntry, RevisionEntry {
+    }
+
+    record TransitionEntry(Transition transition) implements Conclusion {
+    }
+
+    record SpellEntry(Spell spell) implements Conclusion {
+    }
+
     /** A revision with the spells of its spread as they stand after it. */
-    public record RevisionEntry(Revision revision, List<Spell> endedSpells) {
+    public record RevisionEntry(Revision revision, List<Spell> endedSpells) implements Conclusion {
     }
 
     /**
@@ -57,9 +70,8 @@ public final class JournalEntries {
     final List<AcceptedQuote> quotes = new ArrayList<>();
     final List<RejectedQuote> rejects = new ArrayList<>();
     final List<SpreadValue> observations = new ArrayList<>();
-    final List<Transition> transitions = new ArrayList<>();
-    final List<Spell> spells = new ArrayList<>();
-    final List<RevisionEntry> revisions = new ArrayList<>();
+    final List<Conclusion> conclusions = new ArrayList<>();
+    int transitionCount;
     final List<AlertEntry> alerts = new ArrayList<>();
 
     public void quote(AcceptedQuote quote) {
@@ -75,15 +87,17 @@ public final class JournalEntries {
     }
 
     public void transition(Transition t) {
-        transitions.add(t);
+        conclusions.add(new TransitionEntry(t));
+        transitionCount++;
     }
 
     public void spell(Spell s) {
-        spells.add(s);
+        conclusions.add(new SpellEntry(s));
     }
 
     public void revision(Revision r, List<Spell> endedSpellsAfter) {
-        revisions.add(new RevisionEntry(r, List.copyOf(endedSpellsAfter)));
+        conclusions.add(new RevisionEntry(r, List.copyOf(endedSpellsAfter)));
+        transitionCount += r.after().size();
     }
 
     public void alert(AlertEntry alert) {
@@ -96,7 +110,6 @@ public final class JournalEntries {
     }
 
     public boolean isEmpty() {
-        return quotes.isEmpty() && rejects.isEmpty() && observations.isEmpty() && transitions.isEmpty()
-                && spells.isEmpty() && revisions.isEmpty() && alerts.isEmpty();
+        return quotes.isEmpty() && rejects.isEmpty() && observations.isEmpty() && conclusions.isEmpty() && alerts.isEmpty();
     }
 }

@@ -9,6 +9,7 @@ import java.sql.Types;
 import java.time.Clock;
 import java.time.Instant;
 import java.time.LocalDate;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.stream.Collectors;
 import javax.sql.DataSource;
@@ -40,9 +41,7 @@ public final class JournalWriter {
                 quotes(c, e, now);
                 rejects(c, e, now);
                 observations(c, e, now);
-                revisions(c, e, now);
-                transitions(c, e.transitions, now);
-                spells(c, e.spells, now);
+                conclusions(c, e.conclusions, now);
                 AlertStore.insert(c, e.alerts, now);
                 c.commit();
             } catch (SQLException | RuntimeException ex) {
@@ -50,7 +49,7 @@ public final class JournalWriter {
                 throw ex;
             }
         } catch (SQLException ex) {
-            throw new JournalException("cannot write " + e.quotes.size() + " quotes, " + e.transitions.size()
+            throw new JournalException("cannot write " + e.quotes.size() + " quotes, " + e.transitionCount
                     + " transitions and " + e.alerts.size() + " alerts to the journal", ex);
         }
     }
@@ -124,38 +123,64 @@ public final class JournalWriter {
         }
     }
 
-    private static void revisions(Connection c, JournalEntries e, Timestamp now) throws SQLException {
-        for (JournalEntries.RevisionEntry entry : e.revisions) {
-            var r = entry.revision();
-            long revisionId;
-            try (PreparedStatement s = c.prepareStatement("INSERT INTO revision (spread_id, from_date, before_text, after_text, seq, recorded_at) "
-                    + "VALUES (?,?,?,?,?,?)", new String[] {"id"})) {
-                s.setString(1, r.spread().id());
-                s.setDate(2, Date.valueOf(r.from()));
-                s.setString(3, fit(lines(r.before()), 4000));
-                s.setString(4, fit(lines(r.after()), 4000));
-                s.setLong(5, r.sequence());
-                s.setTimestamp(6, now);
-                s.executeUpdate();
-                try (var keys = s.getGeneratedKeys()) {
-                    keys.next();
-                    revisionId = keys.getLong(1);
-                }
+    /**
+     * Transitions and spells in batches, each revision where it came: a revision marks as
+     * superseded the transitions journalled before it (earlier in this step too) and rewrites its
+     * spread's spells, so what the monitors reported after it must be written after it.
+     */
+    private static void conclusions(Connection c, List<JournalEntries.Conclusion> all, Timestamp now) throws SQLException {
+        List<Transition> transitions = new ArrayList<>();
+        List<Spell> spells = new ArrayList<>();
+        for (JournalEntries.Conclusion x : all) {
+            if (x instanceof JournalEntries.TransitionEntry t) {
+                transitions.add(t.transition());
+            } else if (x instanceof JournalEntries.SpellEntry sp) {
+                spells.add(sp.spell());
+            } else if (x instanceof JournalEntries.RevisionEntry r) {
+                flush(c, transitions, spells, now);
+                revision(c, r, now);
             }
-            try (PreparedStatement s = c.prepareStatement("UPDATE transition SET superseded_by = ? "
-                    + "WHERE spread_id = ? AND market_date >= ? AND superseded_by IS NULL")) {
-                s.setLong(1, revisionId);
-                s.setString(2, r.spread().id());
-                s.setDate(3, Date.valueOf(r.from()));
-                s.executeUpdate();
-            }
-            transitions(c, r.after(), now);
-            try (PreparedStatement s = c.prepareStatement("DELETE FROM spell WHERE spread_id = ?")) {
-                s.setString(1, r.spread().id());
-                s.executeUpdate();
-            }
-            spells(c, entry.endedSpells(), now);
         }
+        flush(c, transitions, spells, now);
+    }
+
+    private static void flush(Connection c, List<Transition> transitions, List<Spell> spells, Timestamp now) throws SQLException {
+        transitions(c, transitions, now);
+        spells(c, spells, now);
+        transitions.clear();
+        spells.clear();
+    }
+
+    private static void revision(Connection c, JournalEntries.RevisionEntry entry, Timestamp now) throws SQLException {
+        var r = entry.revision();
+        long revisionId;
+        try (PreparedStatement s = c.prepareStatement("INSERT INTO revision (spread_id, from_date, before_text, after_text, seq, recorded_at) "
+                + "VALUES (?,?,?,?,?,?)", new String[] {"id"})) {
+            s.setString(1, r.spread().id());
+            s.setDate(2, Date.valueOf(r.from()));
+            s.setString(3, fit(lines(r.before()), 4000));
+            s.setString(4, fit(lines(r.after()), 4000));
+            s.setLong(5, r.sequence());
+            s.setTimestamp(6, now);
+            s.executeUpdate();
+            try (var keys = s.getGeneratedKeys()) {
+                keys.next();
+                revisionId = keys.getLong(1);
+            }
+        }
+        try (PreparedStatement s = c.prepareStatement("UPDATE transition SET superseded_by = ? "
+                + "WHERE spread_id = ? AND market_date >= ? AND superseded_by IS NULL")) {
+            s.setLong(1, revisionId);
+            s.setString(2, r.spread().id());
+            s.setDate(3, Date.valueOf(r.from()));
+            s.executeUpdate();
+        }
+        transitions(c, r.after(), now);
+        try (PreparedStatement s = c.prepareStatement("DELETE FROM spell WHERE spread_id = ?")) {
+            s.setString(1, r.spread().id());
+            s.executeUpdate();
+        }
+        spells(c, entry.endedSpells(), now);
     }
 
     private static void transitions(Connection c, List<Transition> transitions, Timestamp now) throws SQLException {

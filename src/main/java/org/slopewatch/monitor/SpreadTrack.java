@@ -123,13 +123,28 @@ public final class SpreadTrack {
         return withRevision(List.of(), o, before);
     }
 
+    /**
+     * The events of a replacement or revision. A replacement that brings transitions where there
+     * were none reports them as they come. Otherwise transitions and spells already reported are
+     * not reported again: with the same outcomes they stand as reported, and with other outcomes
+     * (also when a late quote makes transitions where there were none) a revision carries the new
+     * ones and the spells as they now stand. Reporting them twice journalled a transition twice
+     * and clashed on a spell's key.
+     */
     private List<MonitorEvent> withRevision(List<MonitorEvent> events, Observation o, List<Transition> before) {
         List<Transition> after = transitionsFrom(o.date());
-        if (before.isEmpty() || sameOutcomes(before, after)) {
+        if (before.isEmpty() && events.containsAll(after)) {
             return events;
         }
-        List<MonitorEvent> out = new ArrayList<>(events);
-        out.add(new Revision(spread, o.date(), before, after, o.sequence()));
+        List<MonitorEvent> out = new ArrayList<>(events.size() + 1);
+        for (MonitorEvent e : events) {
+            if (!(e instanceof Transition) && !(e instanceof Spell)) {
+                out.add(e);
+            }
+        }
+        if (!sameOutcomes(before, after)) {
+            out.add(new Revision(spread, o.date(), before, after, o.sequence()));
+        }
         return out;
     }
 

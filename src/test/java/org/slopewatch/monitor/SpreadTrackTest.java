@@ -63,6 +63,30 @@ class SpreadTrackTest {
     }
 
     @Test
+    void theSameValueAgainOnTheDayASpellEndedReportsNeitherTheTransitionNorTheSpellAgain() {
+        // found by the soak test: the ended spell was reported again and clashed on its journal key
+        record("2026-03-02", -5);
+        record("2026-03-03", -5);
+        assertThat(record("2026-03-04", 5)).hasAtLeastOneElementOfType(Spell.class).hasAtLeastOneElementOfType(Transition.class);
+
+        assertThat(record("2026-03-04", 5)).noneMatch(e -> e instanceof Spell || e instanceof Transition || e instanceof Revision);
+        assertThat(track.endedSpells()).hasSize(1);
+        assertThat(track.transitions()).extracting(Transition::to).containsExactly(SpreadState.INVERTED, SpreadState.NORMAL);
+    }
+
+    @Test
+    void aLateQuoteThatMakesTransitionsWhereThereWereNoneIsReportedAsARevision() {
+        record("2026-03-02", 5);
+        record("2026-03-04", 5);
+
+        List<MonitorEvent> late = record("2026-03-03", -5);
+        assertThat(late).singleElement().isInstanceOfSatisfying(Revision.class, r -> {
+            assertThat(r.before()).isEmpty();
+            assertThat(r.after()).extracting(t -> t.date() + " " + t.to()).containsExactly("2026-03-03 INVERTED", "2026-03-04 NORMAL");
+        });
+    }
+
+    @Test
     void aRevisionThatChangesNoOutcomeIsQuiet() {
         record("2026-03-02", -1);
         record("2026-03-03", -1);
