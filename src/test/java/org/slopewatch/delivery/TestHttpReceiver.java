@@ -26,8 +26,11 @@ import org.awaitility.Awaitility;
  */
 public final class TestHttpReceiver implements AutoCloseable {
 
-    /** A request as the receiver read it. */
-    public record Request(String path, String query, String contentType, String body) {
+    /**
+     * A request as the receiver read it; {@code receivedNanos} is {@link System#nanoTime()} once its
+     * body was read, for latencies measured in the same JVM.
+     */
+    public record Request(String path, String query, String contentType, String body, long receivedNanos) {
     }
 
     /** One scripted answer; {@code status < 0} means never answer. */
@@ -98,7 +101,7 @@ public final class TestHttpReceiver implements AutoCloseable {
     private void handle(HttpExchange exchange) throws IOException {
         Request request = new Request(exchange.getRequestURI().getRawPath(), exchange.getRequestURI().getRawQuery(),
                 exchange.getRequestHeaders().getFirst("Content-Type"),
-                new String(exchange.getRequestBody().readAllBytes(), StandardCharsets.UTF_8));
+                new String(exchange.getRequestBody().readAllBytes(), StandardCharsets.UTF_8), System.nanoTime());
         requests.add(request);
         Reply reply = next();
         if (reply.status() < 0) {

@@ -97,6 +97,11 @@ public final class DaemonProcess implements AutoCloseable {
         return log;
     }
 
+    /** The process id, for {@code jcmd} and the like. */
+    public long pid() {
+        return process.pid();
+    }
+
     public boolean isAlive() {
         return process.isAlive();
     }
@@ -130,6 +135,24 @@ public final class DaemonProcess implements AutoCloseable {
             sum += Double.parseDouble(m.group(2));
         }
         return sum;
+    }
+
+    /**
+     * The sum of a metric over the series whose labels contain {@code labels}, e.g.
+     * {@code jvm_memory_used_bytes} with {@code area="heap"}; NaN when no series matches.
+     */
+    public double metric(String metric, String labels) {
+        Answer r = get("/q/metrics");
+        double sum = 0;
+        boolean any = false;
+        Matcher m = Pattern.compile("(?m)^" + Pattern.quote(metric) + "\\{([^}]*)\\} ([0-9.eE+-]+)$").matcher(r.body());
+        while (m.find()) {
+            if (m.group(1).contains(labels)) {
+                sum += Double.parseDouble(m.group(2));
+                any = true;
+            }
+        }
+        return any ? sum : Double.NaN;
     }
 
     /** SIGTERM: the daemon shuts down in order (leaves the consumer group, finishes the step in progress). */
