@@ -96,12 +96,7 @@ class CrashIT {
 
             assertThat(uninterrupted.transitions()).anyMatch(t -> t.contains(" | CONFIRMED | "));
             assertThat(last.isAlive()).isTrue();
-            assertThat(killed.quotes()).isEqualTo(quotes.size());
-            assertThat(killed.distinctQuoteIds()).isEqualTo(quotes.size());
-            assertThat(killed.transitions()).containsExactlyElementsOf(uninterrupted.transitions());
-            assertThat(killed.spells()).containsExactlyElementsOf(uninterrupted.spells());
-            assertThat(killed.alerts()).containsExactlyElementsOf(uninterrupted.alerts());
-            assertThat(killed.deliveries()).containsExactlyElementsOf(uninterrupted.deliveries());
+            KafkaRuns.assertSameJournal(killed, uninterrupted, quotes.size());
             assertThat(received.keySet()).as("every notice reached the receiver").isEqualTo(receivedUninterrupted.keySet());
             assertThat(extraPosts).as("posts beyond the first, at most one per kill").isLessThanOrEqualTo(KILLS);
         } finally {

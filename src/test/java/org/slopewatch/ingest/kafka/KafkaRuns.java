@@ -1,5 +1,7 @@
 package org.slopewatch.ingest.kafka;
 
+import static org.assertj.core.api.Assertions.assertThat;
+
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.nio.file.Path;
 import java.time.LocalDate;
@@ -129,6 +131,19 @@ final class KafkaRuns {
     static boolean settled(TestDatabase journal, int quotes) {
         JournalContents c = contents(journal);
         return c.quotes() == quotes && !c.deliveries().isEmpty() && c.deliveries().stream().noneMatch(d -> d.endsWith(" | PENDING"));
+    }
+
+    /**
+     * The check every run ends with: each quote journalled once, and the same conclusions as the
+     * undisturbed run, row for row (transitions, spells, notices, deliveries).
+     */
+    static void assertSameJournal(JournalContents actual, JournalContents undisturbed, int quotes) {
+        assertThat(actual.quotes()).isEqualTo(quotes);
+        assertThat(actual.distinctQuoteIds()).isEqualTo(quotes);
+        assertThat(actual.transitions()).containsExactlyElementsOf(undisturbed.transitions());
+        assertThat(actual.spells()).containsExactlyElementsOf(undisturbed.spells());
+        assertThat(actual.alerts()).containsExactlyElementsOf(undisturbed.alerts());
+        assertThat(actual.deliveries()).containsExactlyElementsOf(undisturbed.deliveries());
     }
 
     /** Notice id → how many times the receiver got it on {@code path}. */

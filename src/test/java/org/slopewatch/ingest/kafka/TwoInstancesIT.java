@@ -86,12 +86,7 @@ class TwoInstancesIT {
                     .as("partition assignments seen by the surviving instance").isGreaterThanOrEqualTo(2);
             assertThat(first.isAlive()).isFalse();
 
-            assertThat(pair.quotes()).isEqualTo(quotes.size());
-            assertThat(pair.distinctQuoteIds()).isEqualTo(quotes.size());
-            assertThat(pair.transitions()).containsExactlyElementsOf(single.transitions());
-            assertThat(pair.spells()).containsExactlyElementsOf(single.spells());
-            assertThat(pair.alerts()).containsExactlyElementsOf(single.alerts());
-            assertThat(pair.deliveries()).containsExactlyElementsOf(single.deliveries());
+            KafkaRuns.assertSameJournal(pair, single, quotes.size());
 
             Map<String, Long> pairSent = KafkaRuns.noticesReceived(chat, "/pair/hook");
             Map<String, Long> soloSent = KafkaRuns.noticesReceived(chat, "/solo/hook");
