@@ -12,6 +12,7 @@ import org.eclipse.microprofile.reactive.messaging.Channel;
 import org.eclipse.microprofile.reactive.messaging.Emitter;
 import org.eclipse.microprofile.reactive.messaging.Incoming;
 import org.eclipse.microprofile.reactive.messaging.Message;
+import org.eclipse.microprofile.reactive.messaging.OnOverflow;
 import org.jboss.logging.Logger;
 import org.slopewatch.ingest.kafka.PartitionOwnership;
 import org.slopewatch.journal.JournalException;
@@ -48,7 +49,8 @@ public class QuoteConsumer {
     private final Emitter<String> deadLetters;
 
     QuoteConsumer(QuotePipeline pipeline, PartitionOwnership ownership, JournalReader journal,
-                  @Channel("quotes-dead-letter") Emitter<String> deadLetters) {
+                  @Channel("quotes-dead-letter") @OnOverflow(value = OnOverflow.Strategy.BUFFER, bufferSize = 10_000)
+                  Emitter<String> deadLetters) {
         this.pipeline = pipeline;
         this.ownership = ownership;
         this.journal = journal;
@@ -108,7 +110,13 @@ public class QuoteConsumer {
         RecordHeaders headers = new RecordHeaders();
         headers.add("slopewatch-reason", reject.reason().code().getBytes(StandardCharsets.UTF_8));
         headers.add("slopewatch-detail", reject.detail().getBytes(StandardCharsets.UTF_8));
-        deadLetters.send(Message.of(reject.raw() == null ? "" : reject.raw())
-                .addMetadata(OutgoingKafkaRecordMetadata.<String>builder().withHeaders(headers).build()));
+        try {
+            deadLetters.send(Message.of(reject.raw() == null ? "" : reject.raw())
+                    .addMetadata(OutgoingKafkaRecordMetadata.<String>builder().withHeaders(headers).build()));
+        } catch (RuntimeException e) {
+            // the copy is a convenience: the reject is journalled and counted already, and failing the
+            // batch here would stop the consumer over a dead-letter producer that is not ready yet
+            LOG.warnf("reject (%s) not copied to the dead-letter topic: %s", reject.reason().code(), e.getMessage());
+        }
     }
 }

@@ -50,7 +50,9 @@ final class KafkaRuns {
         List<DemoCurve> curves = CURVES.stream()
                 .map(name -> new DemoCurve(name, template.model(), template.policy(), template.quoteNoiseBp())).toList();
         List<QuoteMessage> out = new ArrayList<>();
-        for (CurveSnapshot s : new DemoScenario(seed, LocalDate.of(2023, 1, 2), curves).snapshots(businessDays)) {
+        // the stream ends before 2026 however long it is: the daemon refuses market dates in the future
+        LocalDate start = LocalDate.of(2026, 1, 1).minusDays(businessDays * 7L / 5 + 14);
+        for (CurveSnapshot s : new DemoScenario(seed, start, curves).snapshots(businessDays)) {
             out.add(new QuoteMessage("it:" + s.curve() + ":" + s.date(), "integration-test", null, s.curve(), s.date(), s.asMap()));
         }
         return out;
