@@ -97,6 +97,11 @@ public final class DaemonProcess implements AutoCloseable {
         return log;
     }
 
+    /** The operating system's process id, e.g. for {@code jcmd}. */
+    public long pid() {
+        return process.pid();
+    }
+
     public boolean isAlive() {
         return process.isAlive();
     }
