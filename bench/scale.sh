@@ -4,7 +4,8 @@
 #   bench/scale.sh            journals (built once, kept in bench/out/scale/), memory, start-up
 #   bench/scale.sh --quick    fewer years and one round: a check that everything runs (minutes)
 # Settings (environment): SCALE_ROUNDS (start-up rounds, default 3), SCALE_JOURNALS (which
-# journals, as CURVES:YEARS words), SCALE_MEMORY (curve counts for the in-process memory bench),
+# journals, as CURVES:YEARS words; e.g. "10:40 100:40" for 40 years of daily history, which the
+# shared two-core machine could not build in the time available), SCALE_MEMORY (curve counts for the in-process memory bench),
 # SCALE_MEMORY_YEARS (its checkpoints), SCALE_SKIP_BUILD=1 (reuse target/), SCALE_REBUILD=1
 # (rebuild the journals). Raw results: bench/out/scale-*.txt; docs/benchmarks.md records them.
 set -euo pipefail
@@ -12,9 +13,9 @@ cd "$(dirname "$0")/.."
 out=bench/out
 mkdir -p "$out/scale"
 rounds=${SCALE_ROUNDS:-3}
-journals=${SCALE_JOURNALS:-"10:4 10:40 100:4 1000:0.4"}
+journals=${SCALE_JOURNALS:-"10:4 10:10 100:1 1000:0.1"}
 memory=${SCALE_MEMORY:-"10 100 1000"}
-memory_years=${SCALE_MEMORY_YEARS:-"1 10 20 40"}
+memory_years=${SCALE_MEMORY_YEARS:-"1 10 40"}
 if [ "${1:-}" = "--quick" ]; then
   rounds=1; journals="10:1 100:0.1"; memory="10 100"; memory_years="1 4"
 elif [ -n "${1:-}" ]; then
@@ -42,10 +43,10 @@ args=()
 for j in $journals; do
   curves=${j%%:*}; years=${j##*:}; dir="$out/scale/c$curves-y$years"
   if [ "${SCALE_REBUILD:-}" = 1 ]; then rm -rf "$dir"; fi
-  if [ ! -f "$dir/journal.mv.db" ]; then
+  if [ ! -f "$dir/built.txt" ]; then
     rm -rf "$dir"
     java -Xmx8g -cp "$cp" org.slopewatch.bench.ScaleJournalBuilder "$dir" "$curves" "$years" 2000 \
-      | sed "s/\$/ load=$(load | tr ' ' /)/" | tee -a "$out/scale-journals.txt"
+      | sed "s|\$| load=$(load | tr ' ' /)|" | tee -a "$out/scale-journals.txt"
   fi
   args+=("$dir:$curves")
 done
@@ -55,10 +56,15 @@ done
 for curves in $memory; do
   say "memory: $curves curves, checkpoints $memory_years years, load $(load)"
   java -Xmx12g -cp "$cp" org.slopewatch.bench.ScaleMemoryBench "$curves" $memory_years \
-      --histogram "$out/scale-histogram-$curves.txt" | sed "/^scale-memory/s/\$/ load=$(load | tr ' ' /)/" | tee -a "$out/scale-memory.txt"
+      --histogram "$out/scale-histogram-$curves.txt" | sed "/^scale-memory/s|\$| load=$(load | tr ' ' /)|" | tee -a "$out/scale-memory.txt"
 done
 
 # start-up of the packaged daemon on each journal against an empty journal (ScaleStartupBench)
 say "start-up: $rounds round(s), load $(load)"
 java -cp "$cp" org.slopewatch.bench.ScaleStartupBench "$rounds" "$out/scale/base" "${args[@]}" | tee "$out/scale-startup.txt"
+# where recovery spends its time: reading the journal alone against the whole recover(), one JVM
+: > "$out/scale-recovery.txt"
+for a in "${args[@]}"; do
+  java -cp "$cp" org.slopewatch.bench.ScaleRecoveryProfile "${a%%:*}" 3 2>/dev/null | tee -a "$out/scale-recovery.txt"
+done
 say "done, load $(load)"

@@ -66,10 +66,13 @@ public final class ScaleJournalBuilder {
         try (Stream<Path> files = Files.list(dir)) {
             bytes = files.filter(p -> p.getFileName().toString().startsWith("journal")).mapToLong(p -> p.toFile().length()).sum();
         }
-        System.out.printf(Locale.ROOT, "scale-journal dir=%s curves=%d spreads=%d years=%s business_days=%d first=%s messages=%d "
-                        + "observation_rows=%d seconds=%.1f messages_per_s=%.0f journal_bytes=%d%n",
-                dir, curves, curves * ScaleScenario.SPREADS.length, args[2], days.size(), days.isEmpty() ? "-" : days.get(0), messages,
-                messages * ScaleScenario.SPREADS.length, seconds, messages / seconds, bytes);
+        String line = String.format(Locale.ROOT, "scale-journal dir=%s curves=%d spreads=%d years=%s business_days=%d first=%s messages=%d "
+                        + "observation_rows=%d seconds=%.1f messages_per_s=%.0f journal_bytes=%d",
+                dir.getFileName(), curves, curves * ScaleScenario.SPREADS.length, args[2], days.size(), days.isEmpty() ? "-" : days.get(0),
+                messages, messages * ScaleScenario.SPREADS.length, seconds, messages / seconds, bytes);
+        // written last: a journal without it was interrupted and is built again
+        Files.writeString(dir.resolve("built.txt"), line + System.lineSeparator());
+        System.out.println(line);
     }
 
     private static int process(QuotePipeline pipeline, List<QuoteMessage> step) {

@@ -22,7 +22,8 @@ import org.slopewatch.testsupport.DaemonProcess;
  * journal and round, the baseline starts first, then the journal; each is timed from launching
  * the JVM to the first 200 of {@code /q/health/ready} (polled every 20 ms), its log gives the
  * messages replayed and the time {@code recover()} took, and {@code jcmd GC.class_histogram}
- * (a full collection first) gives the live heap once it is ready. Then it is stopped (SIGTERM).
+ * (a full collection first) gives the live heap once it is ready, and {@code /proc} the CPU time
+ * the process used to get there. Then it is stopped (SIGTERM).
  *
  * <p>Arguments: ROUNDS BASELINE_DIR JOURNAL_DIR:CURVES... Each directory holds {@code journal.mv.db}
  * and {@code scale-policy.yaml} as {@link ScaleJournalBuilder} writes them. JVM options of the
@@ -45,11 +46,12 @@ public final class ScaleStartupBench {
                 Start base = start("scale-baseline-" + curves, baseline, curves, jvm);
                 Start full = start("scale-" + dir.getFileName(), dir, curves, jvm);
                 System.out.printf(Locale.ROOT, "scale-startup round=%d journal=%s curves=%d spreads=%d messages=%d "
-                                + "ready_s=%.3f baseline_ready_s=%.3f ratio=%.2f extra_s=%.3f recover_ms=%d baseline_recover_ms=%d "
+                                + "ready_s=%.3f baseline_ready_s=%.3f ratio=%.2f extra_s=%.3f cpu_s=%.2f baseline_cpu_s=%.2f cpu_ratio=%.2f recover_ms=%d baseline_recover_ms=%d "
                                 + "messages_per_s_recover=%.0f messages_per_s_extra=%.0f heap_live_bytes=%d baseline_heap_live_bytes=%d "
                                 + "per_spread_bytes=%.0f load=%s%n",
                         round, dir.getFileName(), curves, curves * ScaleScenario.SPREADS.length, full.messages, full.readySeconds,
-                        base.readySeconds, full.readySeconds / base.readySeconds, full.readySeconds - base.readySeconds, full.recoverMillis,
+                        base.readySeconds, full.readySeconds / base.readySeconds, full.readySeconds - base.readySeconds, full.cpuSeconds,
+                        base.cpuSeconds, full.cpuSeconds / base.cpuSeconds, full.recoverMillis,
                         base.recoverMillis, full.messages / (full.recoverMillis / 1e3),
                         full.messages / (full.readySeconds - base.readySeconds), full.liveBytes, base.liveBytes,
                         (full.liveBytes - base.liveBytes) / (double) (curves * ScaleScenario.SPREADS.length), load());
@@ -57,7 +59,7 @@ public final class ScaleStartupBench {
         }
     }
 
-    private record Start(double readySeconds, long messages, long recoverMillis, long liveBytes) {
+    private record Start(double readySeconds, double cpuSeconds, long messages, long recoverMillis, long liveBytes) {
     }
 
     private static Start start(String name, Path dir, int curves, List<String> jvm) throws Exception {
@@ -79,13 +81,14 @@ public final class ScaleStartupBench {
                 Thread.sleep(20);
             }
             double seconds = (System.nanoTime() - t0) / 1e9;
+            double cpu = cpuSeconds(daemon.pid());
             Matcher m = REBUILT.matcher(daemon.logText());
             if (!m.find()) {
                 throw new IllegalStateException(name + ": no recovery line in its log:\n" + daemon.logTail());
             }
             long live = liveHeap(daemon.pid());
             daemon.stop();
-            return new Start(seconds, Long.parseLong(m.group(1)), Long.parseLong(m.group(2)), live);
+            return new Start(seconds, cpu, Long.parseLong(m.group(1)), Long.parseLong(m.group(2)), live);
         }
     }
 
@@ -108,6 +111,17 @@ public final class ScaleStartupBench {
             throw new IllegalStateException("unexpected jcmd output: " + out.substring(0, Math.min(500, out.length())));
         }
         return Long.parseLong(m.group(2));
+    }
+
+    /**
+     * CPU time the process has used (user + system, all threads: JIT, GC, H2 and the main thread),
+     * from {@code /proc/PID/stat} in clock ticks of 1/100 s. A daemon waiting for a core on a shared
+     * machine loses wall time, not CPU time, so this moves less with the neighbours' load.
+     */
+    static double cpuSeconds(long pid) throws Exception {
+        String stat = Files.readString(Path.of("/proc", Long.toString(pid), "stat"));
+        String[] f = stat.substring(stat.lastIndexOf(')') + 2).split(" ");
+        return (Long.parseLong(f[11]) + Long.parseLong(f[12])) / 100.0;
     }
 
     static String load() throws Exception {
