@@ -39,9 +39,11 @@ public class IngestBeans {
                                 PipelineListener listener, AlertStage alerts, Clock clock) {
         Policy policy = policies.policy();
         QuotePipeline pipeline = new QuotePipeline(policy.watches(), writer, reader, listener, alerts, clock);
+        long started = System.nanoTime();
         long replayed = pipeline.recover();
-        LOG.infof("watching %d spread(s) from %s on curves %s; rebuilt from %d journalled quote message(s)",
-                policy.watches().size(), config.policy(), config.curves(), replayed);
+        // the duration tells an operator what a restart costs as the journal grows
+        LOG.infof("watching %d spread(s) from %s on curves %s; rebuilt from %d journalled quote message(s) in %d ms",
+                policy.watches().size(), config.policy(), config.curves(), replayed, (System.nanoTime() - started) / 1_000_000);
         return pipeline;
     }
 }

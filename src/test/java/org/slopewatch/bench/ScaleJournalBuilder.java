@@ -1,0 +1,90 @@
+package org.slopewatch.bench;
+
+import io.agroal.api.AgroalDataSource;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Clock;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.stream.Stream;
+import org.slopewatch.ingest.PipelineListener;
+import org.slopewatch.ingest.QuoteBatch;
+import org.slopewatch.ingest.QuoteMessage;
+import org.slopewatch.ingest.QuotePipeline;
+import org.slopewatch.journal.JournalDatabase;
+import org.slopewatch.journal.JournalReader;
+import org.slopewatch.journal.JournalWriter;
+
+/**
+ * Builds a journal for the scale benchmark the way the daemon writes one: the {@link QuotePipeline}
+ * with the daemon's {@link JournalWriter} on an H2 file at {@code DIR/journal} (the URL the daemon
+ * opens for {@code slopewatch.data-dir=DIR}), fed day by day, every curve each day, in steps of
+ * many messages (as a backlog arrives). Also writes the policy to {@code DIR/scale-policy.yaml}.
+ * With 0 curves it only creates the empty, migrated journal that the baseline starts on.
+ *
+ * <p>Arguments: DIR CURVES YEARS [MESSAGES_PER_STEP]. Not a test (surefire excludes bench/).
+ */
+public final class ScaleJournalBuilder {
+
+    /** The pipeline logs every transition at INFO, as the daemon does; thousands of lines would only slow the build. */
+    private static final java.util.logging.Logger TRANSITIONS = java.util.logging.Logger.getLogger("org.slopewatch.transitions");
+
+    static {
+        TRANSITIONS.setLevel(java.util.logging.Level.WARNING);
+    }
+
+    public static void main(String[] args) throws Exception {
+        Path dir = Path.of(args[0]).toAbsolutePath();
+        int curves = Integer.parseInt(args[1]);
+        double years = Double.parseDouble(args[2]);
+        int perStep = args.length > 3 ? Integer.parseInt(args[3]) : 2_000;
+        Files.createDirectories(dir);
+        Files.writeString(dir.resolve("scale-policy.yaml"), ScaleScenario.policyYaml());
+        String url = "jdbc:h2:file:" + dir.resolve("journal") + ";DB_CLOSE_ON_EXIT=FALSE";
+        long t0 = System.nanoTime();
+        long messages = 0;
+        List<LocalDate> days = curves == 0 ? List.of() : ScaleScenario.businessDays(years);
+        try (AgroalDataSource ds = JournalDatabase.open(url, null, null, 4)) {
+            QuotePipeline pipeline = new QuotePipeline(ScaleScenario.watches(), new JournalWriter(ds, Clock.systemUTC()),
+                    new JournalReader(ds), PipelineListener.NONE, Clock.systemUTC());
+            ScaleScenario.CurveWalk[] walks = ScaleScenario.walks(curves);
+            List<QuoteMessage> step = new ArrayList<>(perStep);
+            for (LocalDate day : days) {
+                for (ScaleScenario.CurveWalk walk : walks) {
+                    step.add(walk.next(day));
+                    if (step.size() == perStep) {
+                        messages += process(pipeline, step);
+                    }
+                }
+            }
+            messages += process(pipeline, step);
+        }
+        double seconds = (System.nanoTime() - t0) / 1e9;
+        long bytes;
+        try (Stream<Path> files = Files.list(dir)) {
+            bytes = files.filter(p -> p.getFileName().toString().startsWith("journal")).mapToLong(p -> p.toFile().length()).sum();
+        }
+        String line = String.format(Locale.ROOT, "scale-journal dir=%s curves=%d spreads=%d years=%s business_days=%d first=%s messages=%d "
+                        + "observation_rows=%d seconds=%.1f messages_per_s=%.0f journal_bytes=%d",
+                dir.getFileName(), curves, curves * ScaleScenario.SPREADS.length, args[2], days.size(), days.isEmpty() ? "-" : days.get(0),
+                messages, messages * ScaleScenario.SPREADS.length, seconds, messages / seconds, bytes);
+        // written last: a journal without it was interrupted and is built again
+        Files.writeString(dir.resolve("built.txt"), line + System.lineSeparator());
+        System.out.println(line);
+    }
+
+    private static int process(QuotePipeline pipeline, List<QuoteMessage> step) {
+        if (step.isEmpty()) {
+            return 0;
+        }
+        var outcome = pipeline.process(List.of(new QuoteBatch("http", step, List.of())));
+        if (outcome.accepted() != step.size()) {
+            throw new IllegalStateException("accepted " + outcome.accepted() + " of " + step.size());
+        }
+        int n = step.size();
+        step.clear();
+        return n;
+    }
+}
