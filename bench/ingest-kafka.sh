@@ -4,6 +4,8 @@
 # Kafka consumer reading the same topic in the same run; then p50/p99 from a record's time to
 # its journalled row at a steady rate below capacity.
 #   [BENCH_POLICY=FILE] bench/ingest-kafka.sh [MESSAGES]
+#   BENCH_JOURNAL_URL=jdbc:postgresql://HOST:PORT/DB BENCH_JOURNAL_USER=U BENCH_JOURNAL_PASSWORD=P bench/ingest-kafka.sh [MESSAGES]
+#     the journal in that (fresh) PostgreSQL database instead of an H2 file
 set -euo pipefail
 cd "$(dirname "$0")/.."
 messages=${1:-100000}

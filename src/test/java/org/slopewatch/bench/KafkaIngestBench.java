@@ -53,7 +53,13 @@ public final class KafkaIngestBench {
 
         Path data = Files.createTempDirectory("slopewatch-kafka-bench-");
         String policy = System.getenv().getOrDefault("BENCH_POLICY", "alert-rules/default.yaml");
-        Process daemon = new ProcessBuilder("java", "-Xmx2g", "-Dslopewatch.home=" + home, "-Dslopewatch.data-dir=" + data,
+        // BENCH_JOURNAL_URL (a fresh PostgreSQL database) with BENCH_JOURNAL_USER and BENCH_JOURNAL_PASSWORD; default: H2 in data
+        String journalUrl = System.getenv().getOrDefault("BENCH_JOURNAL_URL", "jdbc:h2:file:" + data.resolve("journal")
+                + ";DB_CLOSE_ON_EXIT=FALSE");
+        String journalUser = System.getenv().getOrDefault("BENCH_JOURNAL_USER", "");
+        String journalPassword = System.getenv().getOrDefault("BENCH_JOURNAL_PASSWORD", "");
+        ProcessBuilder launch = new ProcessBuilder("java", "-Xmx2g", "-Dslopewatch.home=" + home, "-Dslopewatch.data-dir=" + data,
+                "-Dslopewatch.journal.url=" + journalUrl, "-Dslopewatch.journal.username=" + journalUser,
                 "-Dslopewatch.ingest.policy=" + home.resolve(policy),
                 "-Dslopewatch.ingest.max-days-ahead=36500", "-Dquarkus.http.port=" + port,
                 // quotes come from the topic; the daemon still wants a write token to start
@@ -62,7 +68,9 @@ public final class KafkaIngestBench {
                 "-D%kafka.mp.messaging.incoming.quotes.topic=" + topic, "-D%kafka.mp.messaging.incoming.quotes.group.id=bench-" + UUID.randomUUID(),
                 "-Dquarkus.log.category.\"org.slopewatch.transitions\".level=WARN",
                 "-jar", jar.toString(), "serve", "--kafka")
-                .redirectErrorStream(true).redirectOutput(home.resolve("bench/out/ingest-kafka-daemon.log").toFile()).start();
+                .redirectErrorStream(true).redirectOutput(home.resolve("bench/out/ingest-kafka-daemon.log").toFile());
+        launch.environment().put("SLOPEWATCH_JOURNAL_PASSWORD", journalPassword);
+        Process daemon = launch.start();
         HttpClient http = HttpClient.newHttpClient();
         try {
             // drain: the whole topic, from the daemon's first accepted message to the last
@@ -78,8 +86,8 @@ public final class KafkaIngestBench {
             waitForAccepted(http, port, messages + steady, Duration.ofMinutes(10));
             daemon.destroy();
             daemon.waitFor();
-            double[] latencies = latenciesMs(data, LocalDate.of(2110, 1, 1));
-            System.out.printf(Locale.ROOT, "ingest-kafka policy=" + policy + " messages=%d quotes=%d quotes_per_s=%.0f bare_consumer_quotes_per_s=%.0f ratio=%.3f "
+            double[] latencies = latenciesMs(journalUrl, journalUser, journalPassword, LocalDate.of(2110, 1, 1));
+            System.out.printf(Locale.ROOT, "ingest-kafka policy=" + policy + " journal=" + journalUrl.replaceAll("[;?].*", "") + " messages=%d quotes=%d quotes_per_s=%.0f bare_consumer_quotes_per_s=%.0f ratio=%.3f "
                             + "steady_messages=%d steady_rate_msgs_per_s=%d p50_ms=%.1f p99_ms=%.1f%n",
                     messages, (long) messages * TENORS, daemonRate, bareRate, daemonRate / bareRate, steady, perSecond,
                     latencies[0], latencies[1]);
@@ -163,9 +171,9 @@ public final class KafkaIngestBench {
     }
 
     /** p50 and p99 of (recorded_at − sent_at) in ms for the messages dated from {@code from}. */
-    static double[] latenciesMs(Path data, LocalDate from) throws Exception {
+    static double[] latenciesMs(String journalUrl, String user, String password, LocalDate from) throws Exception {
         List<Double> ms = new ArrayList<>();
-        try (Connection c = DriverManager.getConnection("jdbc:h2:file:" + data.resolve("journal"), "", "");
+        try (Connection c = DriverManager.getConnection(journalUrl, user, password);
              Statement s = c.createStatement();
              ResultSet rs = s.executeQuery("SELECT sent_at, recorded_at FROM quote WHERE market_date >= DATE '" + from + "'")) {
             while (rs.next()) {
