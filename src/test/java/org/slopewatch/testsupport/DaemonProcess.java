@@ -128,13 +128,7 @@ public final class DaemonProcess implements AutoCloseable {
 
     /** The sum of a counter over all its series in {@code /q/metrics} (Prometheus text), e.g. {@code slopewatch_quotes_accepted_total}. */
     public double counter(String metric) {
-        Answer r = get("/q/metrics");
-        double sum = 0;
-        Matcher m = Pattern.compile("(?m)^" + Pattern.quote(metric) + "(\\{[^}]*\\})? ([0-9.eE+-]+)$").matcher(r.body());
-        while (m.find()) {
-            sum += Double.parseDouble(m.group(2));
-        }
-        return sum;
+        return sum(metric, "", 0);
     }
 
     /**
@@ -142,17 +136,21 @@ public final class DaemonProcess implements AutoCloseable {
      * {@code jvm_memory_used_bytes} with {@code area="heap"}; NaN when no series matches.
      */
     public double metric(String metric, String labels) {
-        Answer r = get("/q/metrics");
+        return sum(metric, labels, Double.NaN);
+    }
+
+    /** The sum of the series of {@code metric} whose labels contain {@code labels}; {@code none} when there is none. */
+    private double sum(String metric, String labels, double none) {
+        Matcher m = Pattern.compile("(?m)^" + Pattern.quote(metric) + "(?:\\{([^}]*)\\})? ([0-9.eE+-]+)$").matcher(get("/q/metrics").body());
         double sum = 0;
         boolean any = false;
-        Matcher m = Pattern.compile("(?m)^" + Pattern.quote(metric) + "\\{([^}]*)\\} ([0-9.eE+-]+)$").matcher(r.body());
         while (m.find()) {
-            if (m.group(1).contains(labels)) {
+            if ((m.group(1) == null ? "" : m.group(1)).contains(labels)) {
                 sum += Double.parseDouble(m.group(2));
                 any = true;
             }
         }
-        return any ? sum : Double.NaN;
+        return any ? sum : none;
     }
 
     /** SIGTERM: the daemon shuts down in order (leaves the consumer group, finishes the step in progress). */

@@ -13,7 +13,6 @@ import java.util.Random;
 import java.util.TreeSet;
 import java.util.UUID;
 import org.apache.kafka.clients.producer.KafkaProducer;
-import org.awaitility.Awaitility;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.delivery.TestHttpReceiver;
 import org.slopewatch.ingest.QuoteMessage;
@@ -79,9 +78,7 @@ class CrashIT {
             DaemonProcess last = lives.get(lives.size() - 1).awaitReady(READY);
 
             // a delivery claimed by a killed life waits out its two-minute claim before the next life takes it
-            Awaitility.await("every quote journalled and every delivery settled, in both runs")
-                    .atMost(Duration.ofMinutes(6)).pollInterval(Duration.ofSeconds(2))
-                    .until(() -> KafkaRuns.settled(crashJournal, quotes.size()) && KafkaRuns.settled(soloJournal, quotes.size()));
+            KafkaRuns.awaitSettled(Duration.ofMinutes(6), quotes.size(), crashJournal, soloJournal);
 
             JournalContents killed = KafkaRuns.contents(crashJournal);
             JournalContents uninterrupted = KafkaRuns.contents(soloJournal);

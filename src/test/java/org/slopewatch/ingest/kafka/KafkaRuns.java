@@ -4,8 +4,10 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.nio.file.Path;
+import java.time.Duration;
 import java.time.LocalDate;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -19,6 +21,7 @@ import org.apache.kafka.clients.producer.KafkaProducer;
 import org.apache.kafka.clients.producer.ProducerConfig;
 import org.apache.kafka.clients.producer.ProducerRecord;
 import org.apache.kafka.common.serialization.StringSerializer;
+import org.awaitility.Awaitility;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.delivery.TestHttpReceiver;
 import org.slopewatch.ingest.QuoteMessage;
@@ -129,8 +132,14 @@ final class KafkaRuns {
         return JournalContents.read(journal.url(), journal.user(), journal.password());
     }
 
+    /** Waits until every journal holds every quote and no delivery waits any more (a run has settled). */
+    static void awaitSettled(Duration atMost, int quotes, TestDatabase... journals) {
+        Awaitility.await("every quote journalled and every delivery settled, in every run").atMost(atMost)
+                .pollInterval(Duration.ofSeconds(1)).until(() -> Arrays.stream(journals).allMatch(j -> settled(j, quotes)));
+    }
+
     /** Every quote journalled and no delivery waiting any more. */
-    static boolean settled(TestDatabase journal, int quotes) {
+    private static boolean settled(TestDatabase journal, int quotes) {
         JournalContents c = contents(journal);
         return c.quotes() == quotes && !c.deliveries().isEmpty() && c.deliveries().stream().noneMatch(d -> d.endsWith(" | PENDING"));
     }

@@ -139,9 +139,7 @@ class OutageIT {
                     mail.restore();
                 }
 
-                Awaitility.await("every quote journalled and every delivery settled, in both runs")
-                        .atMost(Duration.ofMinutes(4)).pollInterval(Duration.ofSeconds(2))
-                        .until(() -> KafkaRuns.settled(journal, quotes.size()) && KafkaRuns.settled(calmJournal, quotes.size()));
+                KafkaRuns.awaitSettled(Duration.ofMinutes(4), quotes.size(), journal, calmJournal);
 
                 JournalContents disturbed = KafkaRuns.contents(journal);
                 JournalContents undisturbed = KafkaRuns.contents(calmJournal);

@@ -71,9 +71,7 @@ class TwoInstancesIT {
             }
             producer.flush();
 
-            Awaitility.await("every quote journalled once and every delivery settled, in both runs")
-                    .atMost(Duration.ofMinutes(3)).pollInterval(Duration.ofSeconds(1))
-                    .until(() -> KafkaRuns.settled(pairJournal, quotes.size()) && KafkaRuns.settled(soloJournal, quotes.size()));
+            KafkaRuns.awaitSettled(Duration.ofMinutes(3), quotes.size(), pairJournal, soloJournal);
 
             JournalContents pair = KafkaRuns.contents(pairJournal);
             JournalContents single = KafkaRuns.contents(soloJournal);
