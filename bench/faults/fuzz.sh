@@ -2,8 +2,8 @@
 # The fuzzers with more tries than CI gives them (docs/reliability.md, "Fuzzing"):
 #   bench/faults/fuzz.sh [TRIES]       default 200000 tries per property (CI: 10000)
 # Runs QuoteDecoderFuzzTest and PolicyParserFuzzTest with -Dfuzz.tries=TRIES (read by
-# org.slopewatch.testsupport.FuzzTries) and prints each property's tries and time from the
-# surefire reports. A failure prints jqwik's shrunk sample and seed; keep it as an example test.
+# org.slopewatch.testsupport.PropertyCheck) and prints each property's tries and time from the
+# surefire reports. A failure prints the sample and the seed that repeats it; keep it as an example test.
 set -euo pipefail
 root="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 cd "$root"
@@ -16,6 +16,6 @@ for report in target/surefire-reports/TEST-org.slopewatch.ingest.QuoteDecoderFuz
   grep -o '<testcase name="[^"]*" classname="[^"]*" time="[^"]*"' "$report" \
     | sed -E 's/<testcase name="([^"]*)" classname="[^"]*\.([^".]*)" time="([^"]*)"/\2.\1: '"$tries"' tries in \3 s/'
 done
-grep -a -A12 'Shrunk Sample\|Original Error' target/fuzz.log || true
+grep -a -A12 'property failed on try' target/fuzz.log || true
 [ "$status" -eq 0 ] && echo "fuzz: no property failed" || echo "fuzz: a property failed; the full log is target/fuzz.log"
 exit "$status"

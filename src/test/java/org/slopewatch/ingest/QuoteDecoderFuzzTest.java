@@ -15,15 +15,10 @@ import java.time.ZoneOffset;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Set;
-import net.jqwik.api.Arbitraries;
-import net.jqwik.api.Arbitrary;
-import net.jqwik.api.Combinators;
-import net.jqwik.api.ForAll;
-import net.jqwik.api.Property;
-import net.jqwik.api.Provide;
-import net.jqwik.api.lifecycle.AddLifecycleHook;
+import org.junit.jupiter.api.Test;
 import org.slopewatch.curve.YieldBounds;
-import org.slopewatch.testsupport.FuzzTries;
+import org.slopewatch.testsupport.Gen;
+import org.slopewatch.testsupport.PropertyCheck;
 
 /**
  * The quote decoder answers anything it is sent: arbitrary text, arbitrary bytes read as UTF-8
@@ -36,9 +31,8 @@ import org.slopewatch.testsupport.FuzzTries;
  * {@code time} within the years a timestamp column holds.
  *
  * <p>Each property runs 10,000 tries in the suite; {@code -Dfuzz.tries=N} runs more (see
- * docs/reliability.md).
+ * docs/reliability.md). A failure prints the seed that makes its sample again ({@link PropertyCheck}).
  */
-@AddLifecycleHook(FuzzTries.class)
 class QuoteDecoderFuzzTest {
 
     private static final LocalDate TODAY = LocalDate.of(2026, 6, 15);
@@ -48,18 +42,30 @@ class QuoteDecoderFuzzTest {
     private static final QuoteDecoder DECODER = new QuoteDecoder(new IngestRules(Set.of("GOVT-A", "GOVT-B"), YieldBounds.DEFAULT,
             MAX_DAYS_AHEAD, Clock.fixed(TODAY.atStartOfDay().toInstant(ZoneOffset.UTC), ZoneOffset.UTC)));
 
-    @Property(tries = 10_000)
-    void arbitraryTextIsAnsweredItemByItem(@ForAll("texts") String body) {
-        check(body);
+    private static final int TRIES = PropertyCheck.fuzzTries(10_000);
+
+    @Test
+    void arbitraryTextIsAnsweredItemByItem() {
+        PropertyCheck.forAll(TRIES, texts(), QuoteDecoderFuzzTest::check);
     }
 
-    @Property(tries = 10_000)
-    void arbitraryBytesAreAnsweredItemByItem(@ForAll("bytes") byte[] body) {
-        check(new String(body, StandardCharsets.UTF_8));
+    @Test
+    void arbitraryBytesAreAnsweredItemByItem() {
+        PropertyCheck.forAll(TRIES, Gen.bytes(400), body -> check(new String(body, StandardCharsets.UTF_8)));
     }
 
-    @Property(tries = 10_000)
-    void mutatedQuoteMessagesAreAnsweredItemByItem(@ForAll("messages") JsonNode valid, @ForAll("mutations") List<Mutation> mutations) {
+    /** A valid message and what is done to it. */
+    record Mutated(JsonNode valid, List<Mutation> mutations) {
+    }
+
+    @Test
+    void mutatedQuoteMessagesAreAnsweredItemByItem() {
+        Gen<JsonNode> messages = messages();
+        Gen<List<Mutation>> mutations = mutations();
+        PropertyCheck.forAll(TRIES, r -> new Mutated(messages.next(r), mutations.next(r)), m -> checkMutated(m.valid(), m.mutations()));
+    }
+
+    private static void checkMutated(JsonNode valid, List<Mutation> mutations) {
         JsonNode tree = valid.deepCopy();
         String body = null;
         for (Mutation m : mutations) {
@@ -109,67 +115,68 @@ class QuoteDecoderFuzzTest {
 
     // --- arbitrary input ---
 
-    @Provide
-    Arbitrary<String> texts() {
-        Arbitrary<String> any = Arbitraries.strings().all().ofMaxLength(300);
-        Arbitrary<String> jsonish = Arbitraries.strings().withChars("{}[]:,\"\\ -.eE0123456789tfnul\u0000NaIiy").ofMaxLength(300);
-        return Arbitraries.oneOf(any, jsonish);
-    }
-
-    @Provide
-    Arbitrary<byte[]> bytes() {
-        return Arbitraries.bytes().array(byte[].class).ofMaxSize(400);
+    private static Gen<String> texts() {
+        return Gen.oneOf(Gen.strings(300), Gen.strings("{}[]:,\"\\ -.eE0123456789tfnul\u0000NaIiy", 300));
     }
 
     // --- valid messages ---
 
     private static final List<String> TENORS = List.of("4W", "13W", "26W", "52W", "1M", "3M", "6M", "1Y", "2Y", "5Y", "7Y", "10Y", "20Y", "30Y");
 
-    @Provide
-    Arbitrary<JsonNode> messages() {
-        Arbitrary<ObjectNode> item = Arbitraries.oneOf(single(), snapshot());
-        return Arbitraries.oneOf(item.map(n -> (JsonNode) n), item.list().ofMinSize(1).ofMaxSize(4).map(items -> {
+    private static Gen<JsonNode> messages() {
+        Gen<ObjectNode> item = Gen.oneOf(single(), snapshot());
+        return Gen.oneOf(item.map(n -> (JsonNode) n), item.list(1, 4).map(items -> {
             ArrayNode array = NODES.arrayNode();
             items.forEach(array::add);
             return array;
         }));
     }
 
-    private Arbitrary<ObjectNode> single() {
-        return Combinators.combine(common(), Arbitraries.of(TENORS), yields()).as((node, tenor, y) -> {
-            node.put("tenor", tenor);
-            node.put("yield", y);
+    private static Gen<ObjectNode> single() {
+        Gen<ObjectNode> common = common();
+        Gen<String> tenors = Gen.of(TENORS);
+        Gen<Double> yields = yields();
+        return r -> {
+            ObjectNode node = common.next(r);
+            node.put("tenor", tenors.next(r));
+            node.put("yield", yields.next(r));
             return node;
-        });
+        };
     }
 
-    private Arbitrary<ObjectNode> snapshot() {
-        return Combinators.combine(common(), Arbitraries.subsetOf(TENORS).ofMinSize(1), yields().list().ofSize(TENORS.size()))
-                .as((node, tenors, ys) -> {
-                    ObjectNode yields = node.putObject("yields");
-                    int i = 0;
-                    for (String t : tenors) {
-                        yields.put(t, ys.get(i++));
-                    }
-                    return node;
-                });
+    private static Gen<ObjectNode> snapshot() {
+        Gen<ObjectNode> common = common();
+        Gen<List<String>> tenorSets = Gen.subsetOf(TENORS, 1);
+        Gen<Double> yields = yields();
+        return r -> {
+            ObjectNode node = common.next(r);
+            ObjectNode values = node.putObject("yields");
+            for (String t : tenorSets.next(r)) {
+                values.put(t, yields.next(r));
+            }
+            return node;
+        };
     }
 
-    private Arbitrary<ObjectNode> common() {
-        Arbitrary<LocalDate> dates = Arbitraries.integers().between(0, 9000).map(d -> TODAY.minusDays(d));
-        return Combinators.combine(Arbitraries.of("GOVT-A", "GOVT-B"), dates, Arbitraries.of("", "percent", "bp", "decimal"),
-                Arbitraries.of("", "bond-equivalent"), Arbitraries.strings().alpha().numeric().ofMaxLength(12), Arbitraries.of("", "desk-feed"),
-                Arbitraries.of("", "2026-03-02T16:00:00Z")).as((curve, date, unit, basis, id, source, time) -> {
-                    ObjectNode node = NODES.objectNode();
-                    node.put("curve", curve);
-                    node.put("date", date.toString());
-                    optional(node, "unit", unit);
-                    optional(node, "basis", basis);
-                    optional(node, "id", id);
-                    optional(node, "source", source);
-                    optional(node, "time", time);
-                    return node;
-                });
+    private static Gen<ObjectNode> common() {
+        Gen<LocalDate> dates = Gen.ints(0, 9000).map(d -> TODAY.minusDays(d));
+        Gen<String> curves = Gen.of("GOVT-A", "GOVT-B");
+        Gen<String> units = Gen.of("", "percent", "bp", "decimal");
+        Gen<String> bases = Gen.of("", "bond-equivalent");
+        Gen<String> ids = Gen.alphanumeric(12);
+        Gen<String> sources = Gen.of("", "desk-feed");
+        Gen<String> times = Gen.of("", "2026-03-02T16:00:00Z");
+        return r -> {
+            ObjectNode node = NODES.objectNode();
+            node.put("curve", curves.next(r));
+            node.put("date", dates.next(r).toString());
+            optional(node, "unit", units.next(r));
+            optional(node, "basis", bases.next(r));
+            optional(node, "id", ids.next(r));
+            optional(node, "source", sources.next(r));
+            optional(node, "time", times.next(r));
+            return node;
+        };
     }
 
     private static void optional(ObjectNode node, String field, String value) {
@@ -178,8 +185,8 @@ class QuoteDecoderFuzzTest {
         }
     }
 
-    private Arbitrary<Double> yields() {
-        return Arbitraries.doubles().between(-4.9, 29.9).ofScale(3);
+    private static Gen<Double> yields() {
+        return Gen.doubles(-4.9, 29.9, 3);
     }
 
     // --- mutations ---
@@ -293,10 +300,11 @@ class QuoteDecoderFuzzTest {
         };
     }
 
-    @Provide
-    Arbitrary<List<Mutation>> mutations() {
-        Arbitrary<Mutation> one = Combinators.combine(Arbitraries.of(Kind.class), Arbitraries.integers().between(0, 1 << 20),
-                Arbitraries.oneOf(Arbitraries.of(HOSTILE), Arbitraries.strings().all().ofMaxLength(8))).as(Mutation::new);
-        return one.list().ofMinSize(1).ofMaxSize(4);
+    private static Gen<List<Mutation>> mutations() {
+        Gen<Kind> kinds = Gen.of(Kind.class);
+        Gen<Integer> places = Gen.ints(0, 1 << 20);
+        Gen<String> hostile = Gen.oneOf(Gen.of(HOSTILE), Gen.strings(8));
+        Gen<Mutation> one = r -> new Mutation(kinds.next(r), places.next(r), hostile.next(r));
+        return one.list(1, 4);
     }
 }

@@ -7,27 +7,32 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import net.jqwik.api.Arbitraries;
-import net.jqwik.api.Arbitrary;
-import net.jqwik.api.Combinators;
-import net.jqwik.api.ForAll;
-import net.jqwik.api.Property;
-import net.jqwik.api.Provide;
 import org.assertj.core.data.Offset;
+import org.junit.jupiter.api.Test;
 import org.slopewatch.spread.SpreadKey;
+import org.slopewatch.testsupport.Gen;
+import org.slopewatch.testsupport.PropertyCheck;
 
 /**
  * The monitor's quarter averages equal a brute-force recomputation (group by calendar quarter,
- * sum, divide) for random daily series with gaps of up to three weeks, whatever the rules.
+ * sum, divide) for random daily series with gaps of up to three weeks, whatever the rules:
+ * 300 random samples a run ({@link PropertyCheck}, which prints the seed of a failing one).
  */
 class QuarterAveragePropertyTest {
 
     record Step(int gapDays, double valueBp) {
     }
 
-    @Property(tries = 300)
-    void quarterAveragesMatchBruteForce(@ForAll("starts") LocalDate start, @ForAll("series") List<Step> steps,
-                                        @ForAll("definitions") MonitorDefinition rules) {
+    record Sample(LocalDate start, List<Step> steps, MonitorDefinition rules) {
+    }
+
+    @Test
+    void quarterAveragesMatchBruteForce() {
+        Gen<Sample> samples = r -> new Sample(starts().next(r), series().next(r), definitions().next(r));
+        PropertyCheck.forAll(300, samples, s -> check(s.start(), s.steps(), s.rules()));
+    }
+
+    private static void check(LocalDate start, List<Step> steps, MonitorDefinition rules) {
         InversionMonitor monitor = new InversionMonitor(rules);
         MonitorState state = monitor.newState(new SpreadKey("TEST", "10Y-3M"));
         Map<Quarter, Double> reported = new LinkedHashMap<>();
@@ -68,29 +73,31 @@ class QuarterAveragePropertyTest {
         }
     }
 
-    @Provide
-    Arbitrary<LocalDate> starts() {
-        return Arbitraries.integers().between(0, 20_000).map(d -> LocalDate.of(1970, 1, 1).plusDays(d));
+    private static Gen<LocalDate> starts() {
+        return Gen.ints(0, 20_000).map(d -> LocalDate.of(1970, 1, 1).plusDays(d));
     }
 
-    @Provide
-    Arbitrary<List<Step>> series() {
-        Arbitrary<Integer> gaps = Arbitraries.frequencyOf(
-                net.jqwik.api.Tuple.of(8, Arbitraries.integers().between(1, 3)),
-                net.jqwik.api.Tuple.of(1, Arbitraries.integers().between(4, 21)));
-        Arbitrary<Double> values = Arbitraries.doubles().between(-300, 300).ofScale(2);
-        return Combinators.combine(gaps, values).as(Step::new).list().ofMinSize(1).ofMaxSize(600);
+    private static Gen<List<Step>> series() {
+        Gen<Integer> gaps = Gen.frequency(8, Gen.ints(1, 3), 1, Gen.ints(4, 21));
+        Gen<Double> values = Gen.doubles(-300, 300, 2);
+        Gen<Step> step = r -> new Step(gaps.next(r), values.next(r));
+        return step.list(1, 600);
     }
 
-    @Provide
-    Arbitrary<MonitorDefinition> definitions() {
-        Arbitrary<PersistenceTest> tests = Arbitraries.oneOf(
-                Arbitraries.integers().between(-50, 50).map(QuarterAverage::new),
-                Arbitraries.integers().between(1, 200).map(DaysInverted::new),
-                Arbitraries.integers().between(1, 120).map(w -> new RollingAverage(w, 0)),
-                Arbitraries.integers().between(1, 120).map(w -> new ShareInverted(w, 0.75)));
-        return Combinators.combine(Arbitraries.integers().between(-30, 0), Arbitraries.integers().between(0, 30),
-                        Arbitraries.integers().between(1, 3), Arbitraries.integers().between(0, 200), tests.list().ofMinSize(1).ofMaxSize(3))
-                .as((entry, band, exits, hold, t) -> new MonitorDefinition(entry, entry + band, exits, hold, t));
+    private static Gen<MonitorDefinition> definitions() {
+        Gen<PersistenceTest> tests = Gen.oneOf(
+                Gen.ints(-50, 50).map(QuarterAverage::new),
+                Gen.ints(1, 200).map(DaysInverted::new),
+                Gen.ints(1, 120).map(w -> new RollingAverage(w, 0)),
+                Gen.ints(1, 120).map(w -> new ShareInverted(w, 0.75)));
+        Gen<Integer> entries = Gen.ints(-30, 0);
+        Gen<Integer> bands = Gen.ints(0, 30);
+        Gen<Integer> exits = Gen.ints(1, 3);
+        Gen<Integer> holds = Gen.ints(0, 200);
+        Gen<List<PersistenceTest>> testLists = tests.list(1, 3);
+        return r -> {
+            int entry = entries.next(r);
+            return new MonitorDefinition(entry, entry + bands.next(r), exits.next(r), holds.next(r), testLists.next(r));
+        };
     }
 }

@@ -11,17 +11,12 @@ import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
-import net.jqwik.api.Arbitraries;
-import net.jqwik.api.Arbitrary;
-import net.jqwik.api.Combinators;
-import net.jqwik.api.ForAll;
-import net.jqwik.api.Property;
-import net.jqwik.api.Provide;
-import net.jqwik.api.lifecycle.AddLifecycleHook;
+import org.junit.jupiter.api.Test;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.Tenor;
 import org.slopewatch.monitor.SignalEngine;
-import org.slopewatch.testsupport.FuzzTries;
+import org.slopewatch.testsupport.Gen;
+import org.slopewatch.testsupport.PropertyCheck;
 
 /**
  * The policy parser answers any text with a policy or a {@link PolicyException} whose every
@@ -33,21 +28,26 @@ import org.slopewatch.testsupport.FuzzTries;
  * snapshots and its alert rules build an engine without an exception.
  *
  * <p>Each property runs 10,000 tries in the suite; {@code -Dfuzz.tries=N} runs more (see
- * docs/reliability.md).
+ * docs/reliability.md). A failure prints the seed that makes its sample again ({@link PropertyCheck}).
  */
-@AddLifecycleHook(FuzzTries.class)
 class PolicyParserFuzzTest {
 
     private static final String FILE = "fuzz.yaml";
     private static final List<String> DEFAULT_LINES = defaultPolicy().lines().toList();
 
-    @Property(tries = 10_000)
-    void arbitraryTextIsAPolicyOrProblemsWithPositions(@ForAll("texts") String text) {
-        check(text);
+    private static final int TRIES = PropertyCheck.fuzzTries(10_000);
+
+    @Test
+    void arbitraryTextIsAPolicyOrProblemsWithPositions() {
+        PropertyCheck.forAll(TRIES, texts(), PolicyParserFuzzTest::check);
     }
 
-    @Property(tries = 10_000)
-    void mutatedDefaultPolicyIsAPolicyOrProblemsWithPositions(@ForAll("mutations") List<Mutation> mutations) {
+    @Test
+    void mutatedDefaultPolicyIsAPolicyOrProblemsWithPositions() {
+        PropertyCheck.forAll(TRIES, mutations(), PolicyParserFuzzTest::checkMutated);
+    }
+
+    private static void checkMutated(List<Mutation> mutations) {
         List<String> lines = new ArrayList<>(DEFAULT_LINES);
         String text = null;
         for (Mutation m : mutations) {
@@ -87,11 +87,8 @@ class PolicyParserFuzzTest {
 
     // --- arbitrary text ---
 
-    @Provide
-    Arbitrary<String> texts() {
-        Arbitrary<String> any = Arbitraries.strings().all().ofMaxLength(300);
-        Arbitrary<String> yamlish = Arbitraries.strings().withChars("-:[]{},&*!|>'\"#%@`?\\ \t\n.0123456789abwtchspredY~").ofMaxLength(300);
-        return Arbitraries.oneOf(any, yamlish);
+    private static Gen<String> texts() {
+        return Gen.oneOf(Gen.strings(300), Gen.strings("-:[]{},&*!|>'\"#%@`?\\ \t\n.0123456789abwtchspredY~", 300));
     }
 
     // --- mutations of the shipped policy ---
@@ -166,11 +163,12 @@ class PolicyParserFuzzTest {
                     + "e: &e [*d,*d,*d,*d,*d,*d,*d,*d,*d]\nf: &f [*e,*e,*e,*e,*e,*e,*e,*e,*e]",
             "---\nwatch: []", "%YAML 1.1\n---", "\t- tab", "\uFEFF", "\u0085", "\u2028");
 
-    @Provide
-    Arbitrary<List<Mutation>> mutations() {
-        Arbitrary<Mutation> one = Combinators.combine(Arbitraries.of(Kind.class), Arbitraries.integers().between(0, 1 << 20),
-                Arbitraries.oneOf(Arbitraries.of(HOSTILE), Arbitraries.strings().all().ofMaxLength(6))).as(Mutation::new);
-        return one.list().ofMinSize(1).ofMaxSize(4);
+    private static Gen<List<Mutation>> mutations() {
+        Gen<Kind> kinds = Gen.of(Kind.class);
+        Gen<Integer> places = Gen.ints(0, 1 << 20);
+        Gen<String> hostile = Gen.oneOf(Gen.of(HOSTILE), Gen.strings(6));
+        Gen<Mutation> one = r -> new Mutation(kinds.next(r), places.next(r), hostile.next(r));
+        return one.list(1, 4);
     }
 
     private static String defaultPolicy() {
