@@ -4,6 +4,8 @@ import io.quarkus.runtime.Quarkus;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
@@ -20,8 +22,9 @@ final class DemoCommand implements Callable<Integer> {
             + "run again with the same DIR to resume where the demo stopped.")
     Path data;
 
-    @Option(names = "--port", paramLabel = "PORT", defaultValue = "8080", description = "HTTP port (default: ${DEFAULT-VALUE}).")
-    int port;
+    @Option(names = "--port", paramLabel = "PORT", description = "HTTP port (default: the configured one, quarkus.http.port or "
+            + "QUARKUS_HTTP_PORT, else 8080).")
+    Integer port;
 
     @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "Scenario seed (default: ${DEFAULT-VALUE}).")
     long seed;
@@ -32,25 +35,47 @@ final class DemoCommand implements Callable<Integer> {
         return "demo-" + java.util.Base64.getUrlEncoder().withoutPadding().encodeToString(bytes);
     }
 
+    /**
+     * What the demo sets on top of the configuration. The HTTP port only when {@code --port} is
+     * given, so that {@code quarkus.http.port} and {@code QUARKUS_HTTP_PORT} apply as they do to
+     * {@code serve}.
+     */
+    Map<String, String> settings(Path dir, String token) {
+        Map<String, String> settings = new LinkedHashMap<>();
+        settings.put("slopewatch.data-dir", dir.toAbsolutePath().toString());
+        settings.put("slopewatch.demo.enabled", "true");
+        settings.put("slopewatch.demo.seed", Long.toString(seed));
+        // the scenario's market clock runs ahead of the calendar: its dates are not "too far in the future"
+        settings.put("slopewatch.ingest.max-days-ahead", "36500");
+        settings.put("slopewatch.ingest.curves", "GOVT-A,GOVT-B");
+        if (port != null) {
+            settings.put("quarkus.http.port", port.toString());
+        }
+        // a local demo: anyone on this machine may read; changing anything (posting quotes,
+        // acknowledging, muting) takes the token printed here, made afresh for each run
+        settings.put("slopewatch.security.write-tokens", token);
+        settings.put("slopewatch.security.open-reads", "true");
+        return settings;
+    }
+
+    /** The port the daemon will listen on, in the order the configuration reads it (8080 is the shipped default). */
+    int announcedPort() {
+        if (port != null) {
+            return port;
+        }
+        String configured = System.getProperty("quarkus.http.port", System.getenv("QUARKUS_HTTP_PORT"));
+        return configured == null || configured.isBlank() ? 8080 : Integer.parseInt(configured.strip());
+    }
+
     @Override
     public Integer call() throws IOException {
         Path dir = data != null ? data : Files.createTempDirectory("slopewatch-demo-");
         Files.createDirectories(dir);
-        System.setProperty("slopewatch.data-dir", dir.toAbsolutePath().toString());
-        System.setProperty("slopewatch.demo.enabled", "true");
-        System.setProperty("slopewatch.demo.seed", Long.toString(seed));
-        // the scenario's market clock runs ahead of the calendar: its dates are not "too far in the future"
-        System.setProperty("slopewatch.ingest.max-days-ahead", "36500");
-        System.setProperty("slopewatch.ingest.curves", "GOVT-A,GOVT-B");
-        System.setProperty("quarkus.http.port", Integer.toString(port));
-        // a local demo: anyone on this machine may read; changing anything (posting quotes,
-        // acknowledging, muting) takes the token printed here, made afresh for each run
         String token = newToken();
-        System.setProperty("slopewatch.security.write-tokens", token);
-        System.setProperty("slopewatch.security.open-reads", "true");
+        settings(dir, token).forEach(System::setProperty);
         System.out.println("slopewatch demo: journal in " + dir.toAbsolutePath());
         System.out.println("slopewatch demo: write token for this run (POST /api/quotes, acknowledge, mute): " + token);
-        System.out.println("  e.g. curl -H 'Authorization: Bearer " + token + "' -X POST localhost:" + port + "/api/policy/reload");
+        System.out.println("  e.g. curl -H 'Authorization: Bearer " + token + "' -X POST localhost:" + announcedPort() + "/api/policy/reload");
         Quarkus.run(DaemonApplication.class, (code, failure) -> {
             if (failure != null) {
                 System.err.println("slopewatch demo: could not start: " + ServeCommand.rootMessage(failure));
