@@ -106,6 +106,7 @@ check(c.get("args", [])[:2] == ["serve", "--kafka"], "the container runs 'serve 
 probes = {p: c.get(p, {}).get("httpGet", {}).get("path") for p in ("livenessProbe", "readinessProbe", "startupProbe")}
 check(probes["livenessProbe"] == "/q/health/live", "liveness probe on /q/health/live")
 check(probes["readinessProbe"] == "/q/health/ready", "readiness probe on /q/health/ready")
+check(probes["startupProbe"] == "/q/health/started", "startup probe on /q/health/started")
 startup = c.get("startupProbe", {})
 check(startup.get("periodSeconds", 10) * startup.get("failureThreshold", 3) >= 300,
       "the startup probe allows at least 5 minutes for journal recovery")
