@@ -14,8 +14,9 @@ import org.jboss.logging.Logger;
  * Applies the {@link AccessRule} to every HTTP request, on its raw path, before the API, the
  * metrics or the dashboard's files see it: a matrix parameter is 400, no token or an unknown one
  * is 401, a read token asking to write is 403. Answers say why in a few words and never repeat the
- * token. With security on and no write token configured, start-up stops: a daemon nobody can feed
- * is a misconfiguration, not a mode.
+ * token, and are counted in the HTTP metrics under one label ({@link RefusedRequests}). With
+ * security on and no write token configured, start-up stops: a daemon nobody can feed is a
+ * misconfiguration, not a mode.
  */
 @Startup
 @Singleton
@@ -84,6 +85,7 @@ public class AccessFilter {
     }
 
     private static void refuse(RoutingContext rc, int status, String reason) {
+        RefusedRequests.label(rc);
         var response = rc.response().setStatusCode(status).putHeader("Content-Type", "application/json");
         if (status == 401) {
             response.putHeader("WWW-Authenticate", "Bearer realm=\"slopewatch\"");

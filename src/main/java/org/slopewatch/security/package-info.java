@@ -10,6 +10,7 @@
  * unless closed), or, with open reads, an API path already in normal form
  * ({@link org.slopewatch.security.RawPath}). Every other request needs the read role (GET, HEAD,
  * OPTIONS) or the write role (any other method), whatever layer would answer it. A path with a
- * matrix parameter is refused with 400. Refusals never repeat the token.
+ * matrix parameter is refused with 400. Refusals never repeat the token and are counted in the HTTP
+ * metrics under one {@code uri} label ({@link org.slopewatch.security.RefusedRequests}).
  */
 package org.slopewatch.security;
