@@ -1,7 +1,10 @@
 #!/usr/bin/env python3
 """The long form of HostileInputTest: the bad-input corpus against a daemon that is already running.
 
-Posts every quote file of bench/faults/corpus/quotes (in name order) to POST /api/quotes, checks
+First sends every API route under odd spellings of its path (matrix parameters, escapes, dot
+segments, doubled slashes, case, a backslash, the absolute form) without a token, each of which
+must be refused (400, 401 or 404), as AccessPathSpellingTest does in the build; then posts
+every quote file of bench/faults/corpus/quotes (in name order) to POST /api/quotes, checks
 each answer against expected-quotes.tsv (status, accepted, duplicates, reasons, first detail), checks
 after every file that the daemon still answers /q/health/live, then sends the oversized requests
 (a body past the 16M limit, a batch of 20,001 quotes), runs `./slopewatch check-rules` on the policy
@@ -147,6 +150,111 @@ def reload(base, token, policy_file):
     return failures + (0 if code == 200 else 1)
 
 
+# The API's reads and writes for the path check (AccessPathSpellingTest walks every route of the
+# compiled resources; this list is the same kind of walk for a daemon that is already running).
+READ_ROUTES = [("/api/spreads", ""), ("/api/alerts", ""), ("/api/transitions", ""), ("/api/rejects", ""), ("/api/curves", ""),
+               ("/api/mutes", ""), ("/api/export/observations", ""), ("/api/export/transitions", ""), ("/api/export/alerts", ""),
+               ("/api/spreads/GOVT-A:10Y-3M", ""), ("/api/spreads/GOVT-A:10Y-3M/history", ""),
+               ("/api/spreads/GOVT-A:10Y-3M/timeline", ""), ("/api/curves/GOVT-A", "?on_or_before=2099-12-31"),
+               ("/api/report", "?spread=GOVT-A:10Y-3M"), ("/q/openapi", "")]
+WRITE_ROUTES = [("POST", "/api/quotes"), ("POST", "/api/policy/reload"), ("POST", "/api/mutes"), ("POST", "/api/what-if"),
+                ("POST", "/api/alerts/no-such-id/ack"), ("DELETE", "/api/mutes/999999")]
+
+
+def spellings(port):
+    """The spellings of src/test/java/org/slopewatch/security/PathSpellings.java, by the same names."""
+    def first(p):
+        return p[1:].split("/", 1)[0]
+
+    def rest(p):
+        return p[1:].split("/", 1)[1]
+
+    return [
+        ("canonical", lambda p: p),
+        ("matrix on the first segment", lambda p: "/" + first(p) + ";x/" + rest(p)),
+        ("matrix on the last segment", lambda p: p + ";x"),
+        ("empty matrix on the first segment", lambda p: "/" + first(p) + ";/" + rest(p)),
+        ("escaped semicolon", lambda p: "/" + first(p) + "%3Bx/" + rest(p)),
+        ("leading double slash", lambda p: "/" + p),
+        ("inner double slash", lambda p: "/" + first(p) + "//" + rest(p)),
+        ("escaped first letter", lambda p: "/%%%02X" % ord(first(p)[0]) + first(p)[1:] + "/" + rest(p)),
+        ("escaped slash", lambda p: "/" + first(p) + "%2F" + rest(p)),
+        ("escaped letter of the second segment", lambda p: "/" + first(p) + "/%%%02X" % ord(rest(p)[0]) + rest(p)[1:]),
+        ("climb out of the health path", lambda p: "/q/health/../.." + p),
+        ("climb out of a made-up segment", lambda p: "/x/.." + p),
+        ("dot segment", lambda p: "/" + first(p) + "/./" + rest(p)),
+        ("leading dot segment", lambda p: "/." + p),
+        ("escaped dot segments", lambda p: "/q/health/%2e%2e/%2E%2E" + p),
+        ("dot segments with empty matrix", lambda p: "/q/health/..;/..;" + p),
+        ("upper case", lambda p: p.upper()),
+        ("capitalised segments", lambda p: "/" + "/".join(x[:1].upper() + x[1:] for x in p[1:].split("/"))),
+        ("trailing slash", lambda p: p + "/"),
+        ("backslash", lambda p: "/" + first(p) + "\\" + rest(p)),
+        ("climb out of the dashboard page", lambda p: "/index.html/.." + p),
+        ("climb out of a dashboard file with a matrix", lambda p: "/dashboard.js;/.." + p),
+        ("climb out of a dashboard file with an escaped dot segment", lambda p: "/dashboard.js/%2e%2e" + p),
+        ("absolute form", lambda p: "http://127.0.0.1:%d%s" % (port, p)),
+        ("absolute form with a matrix", lambda p: "http://127.0.0.1:%d/%s;x/%s" % (port, first(p), rest(p))),
+        ("fragment", lambda p: p + "#x"),
+    ]
+
+
+def raw(base, method, target, token=None, body=None):
+    """One request with the target sent byte for byte (urllib would normalise it); returns (status, text)."""
+    u = urllib.parse.urlsplit(base)
+    conn = http.client.HTTPConnection(u.hostname, u.port or 80, timeout=60)
+    try:
+        conn.putrequest(method, target, skip_host=True, skip_accept_encoding=True)
+        conn.putheader("Host", "%s:%d" % (u.hostname, u.port or 80))
+        if token:
+            conn.putheader("Authorization", "Bearer " + token)
+        if body is not None:
+            conn.putheader("Content-Type", "application/json")
+            conn.putheader("Content-Length", str(len(body)))
+        conn.endheaders(body)
+        r = conn.getresponse()
+        return r.status, r.read().decode("utf-8", "replace")
+    finally:
+        conn.close()
+
+
+def paths(base, token):
+    """Every route under every spelling without a token: 400, 401 or 404, never an answer; with the
+    token the canonical reads answer and a matrix parameter is 400. With open reads (the demo) a
+    read by its canonical path, or in absolute form, answers without a token, as it should."""
+    port = urllib.parse.urlsplit(base).port or 80
+    open_reads = raw(base, "GET", "/api/spreads")[0] == 200
+    failures = 0
+    sent = 0
+    started = time.monotonic()
+    targets = [("GET", p, q) for p, q in READ_ROUTES] + [(m, p, "") for m, p in WRITE_ROUTES]
+    for method, path, query in targets:
+        for name, spell in spellings(port):
+            if open_reads and method == "GET" and (path.startswith("/api/") or path == "/q/openapi") and name in ("canonical", "absolute form"):
+                continue
+            code, text = raw(base, method, spell(path) + query, None, None if method == "GET" else b"{}")
+            sent += 1
+            if code not in (400, 401, 404):
+                failures += 1
+                print("FAIL no token, %-55s %s %s -> HTTP %d %s" % (name, method, spell(path) + query, code, text[:120].replace("\n", " ")))
+    print("%-4s paths: %d requests without a token (%d routes, %d spellings%s), %d answered; %.2f s" % (
+        "ok" if failures == 0 else "FAIL", sent, len(targets), len(spellings(port)), ", open reads" if open_reads else "",
+        failures, time.monotonic() - started))
+    if token:
+        wrong = 0
+        for path, query in READ_ROUTES:
+            code, _ = raw(base, "GET", path + query, token)
+            matrix, _ = raw(base, "GET", path + ";x" + query, token)
+            ok = code in (200, 404) and matrix == 400
+            wrong += 0 if ok else 1
+            if not ok:
+                print("FAIL with the token: GET %s -> HTTP %d, GET %s;x -> HTTP %d (expected 200 and 400)" % (path + query, code, path, matrix))
+        print("%-4s paths with the token: %d reads by their canonical path, each with a matrix parameter too; %d answered otherwise" % (
+            "ok" if wrong == 0 else "FAIL", len(READ_ROUTES), wrong))
+        failures += wrong
+    return failures
+
+
 def main():
     p = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     p.add_argument("url", nargs="?", default="http://localhost:8080", help="the daemon (default http://localhost:8080)")
@@ -157,7 +265,7 @@ def main():
     import os
     token = a.token or os.environ.get("SLOPEWATCH_TOKEN")
     base = a.url.rstrip("/")
-    failures = quotes(base, token) + policies(a.launcher)
+    failures = paths(base, token) + quotes(base, token) + policies(a.launcher)
     if a.policy_file:
         failures += reload(base, token, a.policy_file)
     code, _, _ = request(base + "/q/health/ready", None)

@@ -11,10 +11,12 @@ import java.util.Optional;
 import org.jboss.logging.Logger;
 
 /**
- * Applies the {@link AccessRule} to every HTTP request, before the API, the metrics or the
- * dashboard's files see it: no token or an unknown one is 401, a read token asking to write is
- * 403. Answers say why in a few words and never repeat the token. With security on and no write
- * token configured, start-up stops: a daemon nobody can feed is a misconfiguration, not a mode.
+ * Applies the {@link AccessRule} to every HTTP request, on its raw path, before the API, the
+ * metrics or the dashboard's files see it: a matrix parameter is 400, no token or an unknown one
+ * is 401, a read token asking to write is 403. Answers say why in a few words and never repeat the
+ * token, and are counted in the HTTP metrics under one label ({@link RefusedRequests}). With
+ * security on and no write token configured, start-up stops: a daemon nobody can feed is a
+ * misconfiguration, not a mode.
  */
 @Startup
 @Singleton
@@ -55,21 +57,27 @@ public class AccessFilter {
             rc.next();
             return;
         }
-        Optional<Role> needed = rule.needed(rc.request().method().name(), rc.normalizedPath());
-        if (needed.isEmpty()) {
+        // the raw path: what the client sent, before any layer decodes or normalises it
+        Access needed = rule.needed(rc.request().method().name(), rc.request().path());
+        if (needed instanceof Access.Open) {
             rc.next();
             return;
         }
+        if (needed instanceof Access.Malformed malformed) {
+            refuse(rc, 400, malformed.reason());
+            return;
+        }
+        Role role = ((Access.Token) needed).role();
         String header = rc.request().getHeader("Authorization");
-        String what = needed.get() == Role.WRITE ? "a token with the write role" : "a token with the read role";
+        String what = role == Role.WRITE ? "a token with the write role" : "a token with the read role";
         if (header == null || !header.regionMatches(true, 0, "Bearer ", 0, 7) || header.length() <= 7) {
             refuse(rc, 401, "this request needs " + what + " (Authorization: Bearer <token>)");
             return;
         }
-        Optional<Role> role = tokens.roleOf(header.substring(7).strip());
-        if (role.isEmpty()) {
+        Optional<Role> presented = tokens.roleOf(header.substring(7).strip());
+        if (presented.isEmpty()) {
             refuse(rc, 401, "the bearer token is not valid");
-        } else if (!role.get().covers(needed.get())) {
+        } else if (!presented.get().covers(role)) {
             refuse(rc, 403, "this token may read but not change anything; this request needs " + what);
         } else {
             rc.next();
@@ -77,6 +85,7 @@ public class AccessFilter {
     }
 
     private static void refuse(RoutingContext rc, int status, String reason) {
+        RefusedRequests.label(rc);
         var response = rc.response().setStatusCode(status).putHeader("Content-Type", "application/json");
         if (status == 401) {
             response.putHeader("WWW-Authenticate", "Bearer realm=\"slopewatch\"");

@@ -19,11 +19,11 @@ public interface SecurityConfig {
     /** Tokens with the write role (they may read too). */
     Optional<List<String>> writeTokens();
 
-    /** Reads of the API without a token, for a trusted network. */
+    /** Reads of the API ({@code /api/...}, {@code /q/openapi}, paths in normal form) without a token, for a trusted network. */
     @WithDefault("false")
     boolean openReads();
 
-    /** {@code /q/metrics} without a token (Prometheus can also send one). */
+    /** {@code /q/metrics}, spelled exactly so, without a token (Prometheus can also send one). */
     @WithDefault("true")
     boolean openMetrics();
 }

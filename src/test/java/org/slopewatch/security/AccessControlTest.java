@@ -2,8 +2,10 @@ package org.slopewatch.security;
 
 import static io.restassured.RestAssured.given;
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.hamcrest.Matchers.anyOf;
 import static org.hamcrest.Matchers.containsString;
 import static org.hamcrest.Matchers.equalTo;
+import static org.hamcrest.Matchers.is;
 import static org.hamcrest.Matchers.not;
 
 import io.quarkus.test.junit.QuarkusTest;
@@ -20,7 +22,8 @@ import org.slopewatch.delivery.LogCapture;
 
 /**
  * Every access rule on a running daemon with access control on: no token, a wrong one, the read
- * role and the write role, for reads, writes, health, metrics and the dashboard; the 413 limits;
+ * role and the write role, for reads, writes, health, metrics and the dashboard; every open path
+ * answering without a token and its neighbours not; the 413 limits;
  * and no token in any answer or log line. The write token is configured as its SHA-256 only,
  * computed here with the JDK's MessageDigest, so the daemon never sees it in plain text.
  */
@@ -91,6 +94,21 @@ class AccessControlTest {
         as(READ).get("/q/metrics").then().statusCode(200).body(containsString("slopewatch_alert_backlog"));
         as(null).get("/").then().statusCode(200).body(containsString("Caution"));
         as(null).get("/dashboard.js").then().statusCode(200);
+    }
+
+    @Test
+    void everyOpenPathAnswersWithoutATokenAndNothingElseDoes() {
+        // the open list names real endpoints: each answers with no token (so the list has no stale
+        // entry); a health check may be DOWN, which SmallRye Health answers 503 (MicroProfile Health 4.0)
+        for (String path : new AccessRule(false, false).openPaths()) {
+            as(null).get(path).then().statusCode(AccessRule.HEALTH.contains(path) ? anyOf(is(200), is(503)) : is(200));
+        }
+        // and a path next to them that the list does not name is closed (deny by default)
+        as(null).get("/q/health/group").then().statusCode(401).header("WWW-Authenticate", containsString("Bearer"));
+        as(null).get("/favicon.ico").then().statusCode(401);
+        as(null).get("/q/openapi").then().statusCode(401);
+        as(READ).get("/q/openapi").then().statusCode(200);
+        as(READ).get("/api;x/spreads").then().statusCode(400).body("error", containsString("matrix parameters"));
     }
 
     @Test

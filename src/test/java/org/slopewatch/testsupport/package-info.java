@@ -7,6 +7,8 @@
  * one; every test gets topics or databases of its own, so runs do not see each other's data.
  *
  * <p>Also {@link org.slopewatch.testsupport.FuzzTries}, which lets a long run give the fuzz
- * properties more tries than CI does ({@code -Dfuzz.tries=N}).
+ * properties more tries than CI does ({@code -Dfuzz.tries=N}), and
+ * {@link org.slopewatch.testsupport.RawHttp}, which writes an HTTP request on a plain socket so
+ * that its path reaches the server exactly as given.
  */
 package org.slopewatch.testsupport;
