@@ -14,7 +14,8 @@ import org.jboss.logging.Logger;
  * Applies the {@link AccessRule} to every HTTP request, on its raw path, before the API, the
  * metrics or the dashboard's files see it: a matrix parameter is 400, no token or an unknown one
  * is 401, a read token asking to write is 403. Answers say why in a few words and never repeat the
- * token, and are counted in the HTTP metrics under one label ({@link RefusedRequests}). With
+ * token, and are counted in the HTTP metrics under one label ({@link RefusedRequests}). Changes
+ * that pass are logged with the token's fingerprint ({@link WriteAudit}). With
  * security on and no write token configured, start-up stops: a daemon nobody can feed is a
  * misconfiguration, not a mode.
  */
@@ -74,12 +75,16 @@ public class AccessFilter {
             refuse(rc, 401, "this request needs " + what + " (Authorization: Bearer <token>)");
             return;
         }
-        Optional<Role> presented = tokens.roleOf(header.substring(7).strip());
+        String token = header.substring(7).strip();
+        Optional<Role> presented = tokens.roleOf(token);
         if (presented.isEmpty()) {
             refuse(rc, 401, "the bearer token is not valid");
         } else if (!presented.get().covers(role)) {
             refuse(rc, 403, "this token may read but not change anything; this request needs " + what);
         } else {
+            if (role == Role.WRITE) {
+                WriteAudit.record(rc, token);
+            }
             rc.next();
         }
     }
