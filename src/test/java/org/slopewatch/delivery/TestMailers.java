@@ -12,6 +12,7 @@ import jakarta.inject.Inject;
 public class TestMailers {
 
     static final String[] SCRIPTED = {"scripted-rejects", "scripted-busy", "scripted-echo"};
+    static final String[] SCRIPTED_LOGIN = {"scripted-login", "scripted-login-quiet"};
 
     @Inject
     @MailerName("wrong-password")
@@ -32,6 +33,14 @@ public class TestMailers {
     @Inject
     @MailerName("scripted-echo")
     Mailer scriptedEcho;
+
+    @Inject
+    @MailerName("scripted-login")
+    Mailer scriptedLogin;
+
+    @Inject
+    @MailerName("scripted-login-quiet")
+    Mailer scriptedLoginQuiet;
 
     Mailer wrongPassword() {
         return wrongPassword;
@@ -54,5 +63,15 @@ public class TestMailers {
     /** The scripted server, for the reply that repeats the password. */
     Mailer scriptedEcho() {
         return scriptedEcho;
+    }
+
+    /** The scripted server that refuses the login with a reply repeating the password. */
+    Mailer scriptedLogin() {
+        return scriptedLogin;
+    }
+
+    /** The same server through a mailer of its own, for the case at the configured log levels. */
+    Mailer scriptedLoginQuiet() {
+        return scriptedLoginQuiet;
     }
 }
