@@ -141,7 +141,7 @@ class SecretsNeverLeakTest {
         attemptKeepsSecrets("delivered after logging in", configured, () -> configured.deliver(alert), DeliveryOutcome.Delivered.class,
                 SmtpTestResource.PASSWORD, plainAuth);
 
-        AlertChannel wrong = emailVia(mailers.wrongPassword(),
+        AlertChannel wrong = emailVia(mailers.wrongPasswordForSecrets(),
                 SmtpTestResource.WRONG_PASSWORD);
         attemptKeepsSecrets("password refused", wrong, () -> wrong.deliver(alert), DeliveryOutcome.FailedForGood.class,
                 SmtpTestResource.WRONG_PASSWORD, wrongPlainAuth);

@@ -19,6 +19,10 @@ public class TestMailers {
     Mailer wrongPassword;
 
     @Inject
+    @MailerName("wrong-password-secrets")
+    Mailer wrongPasswordForSecrets;
+
+    @Inject
     @MailerName("refused")
     Mailer refused;
 
@@ -44,6 +48,11 @@ public class TestMailers {
 
     Mailer wrongPassword() {
         return wrongPassword;
+    }
+
+    /** A wrong password of its own for {@link SecretsNeverLeakTest}, so that no other test's refused login precedes its attempt. */
+    Mailer wrongPasswordForSecrets() {
+        return wrongPasswordForSecrets;
     }
 
     Mailer refused() {
