@@ -8,9 +8,13 @@ every quote file of bench/faults/corpus/quotes (in name order) to POST /api/quot
 each answer against expected-quotes.tsv (status, accepted, duplicates, reasons, first detail), checks
 after every file that the daemon still answers /q/health/live, then sends the oversized requests
 (a body past the 16M limit, a batch of 20,001 quotes), runs `./slopewatch check-rules` on the policy
-corpus against expected-policies.tsv and, with --policy-file, tries a few hostile policies through
-the live reload and puts the file back. Prints one line per input and a summary with timings; exits
-1 when an answer differs from its expectation. Standard library only (python3).
+corpus against expected-policies.tsv, sends every policy file as a what-if's policy (POST
+/api/what-if: the same first problem, in an answer of at most 128 KiB), sends the mute, lift and
+acknowledgement bodies of bench/faults/corpus/alerting against expected-alerting.tsv (the accepted
+mutes last a minute; acknowledgements go to the newest alert, and are skipped when there is none)
+and, with --policy-file, tries a few hostile policies through the live reload and puts the file
+back. Prints one line per input and a summary with timings; exits 1 when an answer differs from
+its expectation. Standard library only (python3).
 
 The corpus's message ids ("corpus-…") get a suffix of this run, so that a second run against the
 same daemon finds them unseen, as the duplicate files expect.
@@ -29,7 +33,8 @@ import urllib.request
 ROOT = pathlib.Path(__file__).resolve().parents[2]
 CORPUS = ROOT / "bench" / "faults" / "corpus"
 RELOAD_FILES = ["p19-billion-laughs.yaml", "p12-deep-flow-nesting.yaml", "p27-expression-in-message.yaml",
-                "p30-nul-escape-in-message.yaml", "p37-webhook-url-in-policy.yaml"]
+                "p30-nul-escape-in-message.yaml", "p37-webhook-url-in-policy.yaml", "p39-aliases-of-a-long-text.yaml"]
+MAX_ANSWER = 128 * 1024
 
 
 def table(name):
@@ -129,6 +134,67 @@ def policies(launcher):
         print("%-4s %-50s %-13s %s" % ("ok" if ok else "FAIL", f, category, "accepted" if outcome == "accepted" else position + " " + message))
     print("policies: %d files through check-rules in %.2f s (exit code %d, expected 2), %d answered otherwise than expected" % (
         len(rows), seconds, run.returncode, failures))
+    return failures
+
+
+def whatif(base, token):
+    rows = table("expected-policies.tsv")
+    failures = 0
+    for f, category, outcome, position, message in rows:
+        text = (CORPUS / f).read_bytes().decode("utf-8", "replace")
+        code, answer, seconds = request(base + "/api/what-if", token, "POST", json.dumps({"policy": text}).encode(), "application/json")
+        if outcome == "accepted":
+            ok = code in (202, 429)
+        elif not text.strip():
+            ok = code == 400 and "give the policy to try" in answer
+        else:
+            try:
+                first = (json.loads(answer).get("problems") or [""])[0]
+            except ValueError:
+                first = ""
+            ok = code == 400 and first.startswith("policy:" + position + ": ") and message in first
+        ok = ok and len(answer) <= MAX_ANSWER
+        failures += 0 if ok else 1
+        print("%-4s what-if %-42s HTTP %d, %d characters in %.0f ms" % ("ok" if ok else "FAIL", f, code, len(answer), seconds * 1000))
+    print("what-if: %d policies, %d answered otherwise than expected" % (len(rows), failures))
+    return failures
+
+
+def alerting(base, token):
+    rows = table("expected-alerting.tsv")
+    code, text, _ = request(base + "/api/mutes", token, "POST", json.dumps(
+        {"rule": "stale-feed", "duration": "PT1M", "reason": "hostile-input run: to be lifted", "by": "hostile-input"}).encode(),
+        "application/json")
+    mute = json.loads(text)["id"] if code == 201 else None
+    code, text, _ = request(base + "/api/alerts?limit=1", token)
+    recent = json.loads(text).get("recent", []) if code == 200 else []
+    alert = recent[0]["id"] if recent else None
+    failures = 0
+    for f, category, kind, status, error in rows:
+        body = (CORPUS / f).read_bytes()
+        if kind == "mute":
+            code, answer, seconds = request(base + "/api/mutes", token, "POST", body, "application/json")
+        elif kind == "ack":
+            if alert is None:
+                print("skip %-45s no alert to acknowledge yet" % f)
+                continue
+            code, answer, seconds = request(base + "/api/alerts/" + urllib.parse.quote(alert, safe="~:") + "/ack", token, "POST", body,
+                                            "application/json")
+        else:
+            if mute is None:
+                print("skip %-45s no mute of this run to lift" % f)
+                continue
+            by = urllib.parse.quote(json.loads(body)["by"])
+            code, answer, seconds = request(base + "/api/mutes/%d?by=%s" % (mute, by), token, "DELETE")
+        try:
+            said = json.loads(answer).get("error", "") if answer.startswith("{") else ""
+        except ValueError:
+            said = ""
+        ok = code == int(status) and (error == "-" or error in said) and len(answer) <= MAX_ANSWER
+        failures += 0 if ok else 1
+        print("%-4s %-45s %-12s %-4s HTTP %d %6.0f ms%s" % ("ok" if ok else "FAIL", f, category, kind, code, seconds * 1000,
+                                                             "" if ok else "  expected %s %r; got %s" % (status, error, answer[:300])))
+    print("alerting: %d bodies, %d answered otherwise than expected" % (len(rows), failures))
     return failures
 
 
@@ -265,7 +331,7 @@ def main():
     import os
     token = a.token or os.environ.get("SLOPEWATCH_TOKEN")
     base = a.url.rstrip("/")
-    failures = paths(base, token) + quotes(base, token) + policies(a.launcher)
+    failures = paths(base, token) + quotes(base, token) + policies(a.launcher) + whatif(base, token) + alerting(base, token)
     if a.policy_file:
         failures += reload(base, token, a.policy_file)
     code, _, _ = request(base + "/q/health/ready", None)

@@ -70,6 +70,17 @@ class ArchitectureTest {
     }
 
     @Test
+    void outsideTextRulesArePlainJavaAtTheBottom() {
+        // the engine quotes input through them, so they may depend on nothing of slopewatch and on no framework
+        noClasses().that().resideInAPackage("org.slopewatch.text..")
+                .should().dependOnClassesThat().resideInAnyPackage("io.quarkus..", "jakarta..", "javax.inject..", "io.smallrye..",
+                        "io.vertx..", "java.sql..", "javax.sql..", "org.eclipse.microprofile..")
+                .orShould().dependOnClassesThat(com.tngtech.archunit.base.DescribedPredicate.describe("slopewatch outside text",
+                        c -> c.getPackageName().startsWith("org.slopewatch") && !c.getPackageName().startsWith("org.slopewatch.text")))
+                .check(classes);
+    }
+
+    @Test
     void layersDependOnlyDownwards() {
         noClasses().that().resideInAPackage("org.slopewatch.curve..")
                 .should().dependOnClassesThat().resideInAnyPackage("org.slopewatch.spread..", "org.slopewatch.monitor..",

@@ -22,7 +22,6 @@ import org.slopewatch.rules.AlertCondition;
 import org.slopewatch.rules.AlertConditions;
 import org.slopewatch.rules.AlertDecision;
 import org.slopewatch.rules.AlertEngine;
-import org.slopewatch.rules.AlertRule;
 import org.slopewatch.rules.ChannelDeclaration;
 import org.slopewatch.rules.Policy;
 
@@ -226,10 +225,5 @@ public class AlertDesk implements AlertStage {
     /** The episodes whose condition holds now, by {@code rule|subject}. */
     public synchronized Map<String, AlertEngine.Episode> openEpisodes() {
         return engine.openEpisodes();
-    }
-
-    /** The rules in force, for validation of mute targets. */
-    public List<AlertRule> rules() {
-        return policies.policy().alerts();
     }
 }

@@ -82,7 +82,7 @@ public class PolicyReloader {
         try {
             bytes = Files.readAllBytes(Path.of(file));
         } catch (IOException e) {
-            return reject(file, "unreadable:" + file, "cannot read " + file + ": " + e.getMessage());
+            return reject(file, "unreadable:" + file, List.of("cannot read " + file + ": " + e.getMessage()));
         }
         String hash = PolicyHash.of(bytes);
         if (hash.equals(current.hash())) {
@@ -95,13 +95,13 @@ public class PolicyReloader {
         try {
             next = PolicyHolder.read(file);
         } catch (IOException e) {
-            return reject(file, hash, "cannot read " + file + ": " + e.getMessage());
+            return reject(file, hash, List.of("cannot read " + file + ": " + e.getMessage()));
         } catch (PolicyException e) {
-            return reject(file, hash, e.getMessage());
+            return reject(file, hash, e.lines());
         }
         List<String> problems = desk.checkChannels(next.policy());
         if (!problems.isEmpty()) {
-            return reject(file, hash, String.join(System.lineSeparator(), problems));
+            return reject(file, hash, problems);
         }
         policies.replace(next);
         if (!next.policy().watches().equals(current.policy().watches())) {
@@ -118,11 +118,20 @@ public class PolicyReloader {
         return new Outcome("applied", hash, "reloaded");
     }
 
-    private Outcome reject(String file, String hash, String why) {
+    /**
+     * @param problems one line each; the parser lists at most a hundred, each a few hundred
+     *                 characters at most, so neither the answer nor the log grows with the file
+     */
+    private Outcome reject(String file, String hash, List<String> problems) {
+        String why = String.join(System.lineSeparator(), problems);
         lastRejectedHash = hash;
         metrics.reload("rejected");
         store.policyVersion(hash, file, "rejected", why);
-        LOG.errorf("policy %s rejected, the previous policy keeps running:%n%s", file, why);
+        // one log line per problem: a record never spans lines (the log guard escapes line breaks)
+        LOG.errorf("policy %s rejected, the previous policy keeps running; %d line(s) of problems follow", file, problems.size());
+        for (String problem : problems) {
+            LOG.errorf("policy rejected: %s", problem);
+        }
         return new Outcome("rejected", hash, why);
     }
 

@@ -33,6 +33,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
+import org.slopewatch.text.Excerpt;
 
 /** {@code slopewatch fit FILE}: the probit recession model fitted to a spread's history. */
 @Command(name = "fit", mixinStandardHelpOptions = true, sortOptions = false,
@@ -135,7 +136,7 @@ final class FitCommand implements Callable<Integer> {
         return switch (text.strip().toLowerCase(Locale.ROOT)) {
             case "model", "model-based" -> CovarianceKind.MODEL_BASED;
             case "newey-west" -> CovarianceKind.NEWEY_WEST;
-            default -> throw new IllegalArgumentException("unknown covariance '" + text + "' (known: model, newey-west)");
+            default -> throw new IllegalArgumentException("unknown covariance " + Excerpt.quoted(text) + " (known: model, newey-west)");
         };
     }
 

@@ -35,6 +35,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
+import org.slopewatch.text.Excerpt;
 
 /** {@code slopewatch replay FILE}: history through the engine, a report out. */
 @Command(name = "replay", mixinStandardHelpOptions = true, sortOptions = false,
@@ -192,7 +193,7 @@ final class ReplayCommand implements Callable<Integer> {
     }
 
     private static PersistenceTest bad(String text) {
-        throw new IllegalArgumentException("unknown persistence test '" + text + "' (expected quarter-average, days-inverted:DAYS, "
+        throw new IllegalArgumentException("unknown persistence test " + Excerpt.quoted(text) + " (expected quarter-average, days-inverted:DAYS, "
                 + "rolling-average:DAYS or share-inverted:DAYS:SHARE)");
     }
 }

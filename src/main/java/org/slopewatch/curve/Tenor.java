@@ -3,6 +3,7 @@ package org.slopewatch.curve;
 import java.util.Locale;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.slopewatch.text.Excerpt;
 
 /**
  * A point on the curve: a count of weeks (bills), months or years.
@@ -51,7 +52,7 @@ public record Tenor(int count, Period period) implements Comparable<Tenor> {
         }
         Matcher m = SYNTAX.matcher(text.strip().toUpperCase(Locale.ROOT));
         if (!m.matches()) {
-            throw new IllegalArgumentException("unknown tenor '" + text + "' (accepted: 1W-52W, 1M-24M, 1Y-30Y)");
+            throw new IllegalArgumentException("unknown tenor " + Excerpt.quoted(text) + " (accepted: 1W-52W, 1M-24M, 1Y-30Y)");
         }
         int count = Integer.parseInt(m.group(1));
         Period period = switch (m.group(2).charAt(0)) {
@@ -60,7 +61,7 @@ public record Tenor(int count, Period period) implements Comparable<Tenor> {
             default -> Period.YEAR;
         };
         if (count < 1 || count > period.maxCount) {
-            throw new IllegalArgumentException("unknown tenor '" + text + "' (accepted: 1W-52W, 1M-24M, 1Y-30Y)");
+            throw new IllegalArgumentException("unknown tenor " + Excerpt.quoted(text) + " (accepted: 1W-52W, 1M-24M, 1Y-30Y)");
         }
         return new Tenor(count, period);
     }

@@ -1,6 +1,7 @@
 package org.slopewatch.curve;
 
 import java.util.Locale;
+import org.slopewatch.text.Excerpt;
 
 /**
  * How a yield was quoted. Everything inside the engine is in basis points, so that yields and
@@ -35,6 +36,6 @@ public enum YieldUnit {
                 return unit;
             }
         }
-        throw new IllegalArgumentException("unknown yield unit '" + text + "' (accepted: percent, bp, decimal)");
+        throw new IllegalArgumentException("unknown yield unit " + Excerpt.quoted(text) + " (accepted: percent, bp, decimal)");
     }
 }

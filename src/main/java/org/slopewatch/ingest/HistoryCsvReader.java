@@ -19,6 +19,7 @@ import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.Tenor;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
+import org.slopewatch.text.Excerpt;
 
 /**
  * Reads yield history from CSV into curve snapshots, in date order.
@@ -201,7 +202,7 @@ public final class HistoryCsvReader {
                 continue;
             }
             if (!pending.computeIfAbsent(curve, c -> new CurveQuotes()).put(tenor, v)) {
-                throw new HistoryFormatException(source, line, "second quote for " + curve + " " + tenor + " on " + date);
+                throw new HistoryFormatException(source, line, "second quote for " + Excerpt.of(curve) + " " + tenor + " on " + date);
             }
             quotes++;
         }
@@ -268,7 +269,7 @@ public final class HistoryCsvReader {
     private int column(List<String> names, String name, long headerLine) throws HistoryFormatException {
         int at = names.indexOf(name);
         if (at < 0) {
-            throw new HistoryFormatException(source, headerLine, "missing column '" + name + "': a long file has columns date,curve,tenor,yield");
+            throw new HistoryFormatException(source, headerLine, "missing column " + Excerpt.quoted(name) + ": a long file has columns date,curve,tenor,yield");
         }
         return at;
     }
@@ -292,7 +293,7 @@ public final class HistoryCsvReader {
     private LocalDate date(String text, long line) throws HistoryFormatException {
         LocalDate d = Dates.parse(text);
         if (d == null) {
-            throw new HistoryFormatException(source, line, "unparsable date '" + text + "' (expected YYYY-MM-DD or YYYY-MM)");
+            throw new HistoryFormatException(source, line, "unparsable date " + Excerpt.quoted(text) + " (expected YYYY-MM-DD or YYYY-MM)");
         }
         return d;
     }
@@ -306,7 +307,7 @@ public final class HistoryCsvReader {
         try {
             raw = Double.parseDouble(t);
         } catch (NumberFormatException e) {
-            throw new HistoryFormatException(source, line, "unparsable number '" + text + "' for " + tenor);
+            throw new HistoryFormatException(source, line, "unparsable number " + Excerpt.quoted(text) + " for " + tenor);
         }
         try {
             return options.bounds().toBasisPoints(raw, options.unit());

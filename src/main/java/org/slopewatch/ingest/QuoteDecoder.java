@@ -21,6 +21,8 @@ import java.util.TreeMap;
 import org.slopewatch.curve.BillConversion;
 import org.slopewatch.curve.Tenor;
 import org.slopewatch.curve.YieldUnit;
+import org.slopewatch.text.Excerpt;
+import org.slopewatch.text.FieldText;
 
 /**
  * Decodes and validates quote messages in JSON: a single quote
@@ -75,7 +77,7 @@ public final class QuoteDecoder {
             root = JSON.readTree(body);
         } catch (JsonProcessingException e) {
             return new QuoteBatch(origin, List.of(), List.of(new Reject(RejectReason.MALFORMED,
-                    "not valid JSON: " + e.getOriginalMessage(), -1, body)));
+                    "not valid JSON: " + Excerpt.of(e.getOriginalMessage()), -1, body)));
         }
         if (root == null || root.isMissingNode()) {
             return new QuoteBatch(origin, List.of(), List.of(new Reject(RejectReason.MALFORMED, "empty body", -1, body)));
@@ -136,7 +138,7 @@ public final class QuoteDecoder {
         for (Iterator<String> it = node.fieldNames(); it.hasNext(); ) {
             String f = it.next();
             if (!allowed.contains(f)) {
-                throw new Rejection(RejectReason.MALFORMED, "unknown field '" + f + "'" + (snapshot && (f.equals("tenor") || f.equals("yield"))
+                throw new Rejection(RejectReason.MALFORMED, "unknown field " + Excerpt.quoted(f) + (snapshot && (f.equals("tenor") || f.equals("yield"))
                         ? " (a snapshot carries its tenors in 'yields')" : ""));
             }
         }
@@ -162,8 +164,8 @@ public final class QuoteDecoder {
                 Tenor tenor = tenor(e.getKey());
                 String before = spelt.put(tenor, e.getKey());
                 if (before != null) {
-                    throw new Rejection(RejectReason.MALFORMED, "tenor " + tenor + " appears twice in 'yields' (as '" + before + "' and '"
-                            + e.getKey() + "')");
+                    throw new Rejection(RejectReason.MALFORMED, "tenor " + tenor + " appears twice in 'yields' (as " + Excerpt.quoted(before) + " and "
+                            + Excerpt.quoted(e.getKey()) + ")");
                 }
                 yields.put(tenor, yieldBp(e.getValue(), tenor, unit, discount));
             }
@@ -188,41 +190,27 @@ public final class QuoteDecoder {
             return null;
         }
         if (!v.isTextual() || v.asText().isBlank()) {
-            throw new Rejection(RejectReason.MALFORMED, "'" + field + "' must be a non-empty string, got " + v);
+            throw new Rejection(RejectReason.MALFORMED, "'" + field + "' must be a non-empty string, got " + Excerpt.of(v.toString()));
         }
         return v.asText().strip();
     }
 
     /**
-     * A text the journal keeps must fit its column and be stored as sent: no control character
-     * (PostgreSQL text cannot hold NUL) and no half of a surrogate pair; null passes.
+     * A text the journal keeps must fit its column and be stored as sent ({@link FieldText}: no
+     * control character, since PostgreSQL text cannot hold NUL and a line break would reach the
+     * log, and no half of a surrogate pair); null passes.
      */
     private static String keptText(String field, String text) throws Rejection {
-        if (text == null) {
-            return null;
-        }
-        int width = KEPT_TEXT.get(field);
-        if (text.length() > width) {
-            throw new Rejection(RejectReason.MALFORMED, "'" + field + "' is " + text.length() + " characters long; at most " + width);
-        }
-        for (int i = 0; i < text.length(); i++) {
-            char c = text.charAt(i);
-            if (Character.isISOControl(c)) {
-                throw new Rejection(RejectReason.MALFORMED, String.format("'%s' contains the control character U+%04X", field, (int) c));
-            }
-            // half of a surrogate pair is no character: PostgreSQL would store '?' in its place
-            boolean paired = Character.isHighSurrogate(c) ? i + 1 < text.length() && Character.isLowSurrogate(text.charAt(++i))
-                    : !Character.isLowSurrogate(c);
-            if (!paired) {
-                throw new Rejection(RejectReason.MALFORMED, String.format("'%s' contains an unpaired surrogate U+%04X", field, (int) c));
-            }
+        String problem = FieldText.problem(field, text, KEPT_TEXT.get(field));
+        if (problem != null) {
+            throw new Rejection(RejectReason.MALFORMED, problem);
         }
         return text;
     }
 
     private String curve(String curve) throws Rejection {
         if (!rules.knowsCurve(curve)) {
-            throw new Rejection(RejectReason.UNKNOWN_CURVE, "unknown curve '" + curve + "'");
+            throw new Rejection(RejectReason.UNKNOWN_CURVE, "unknown curve " + Excerpt.quoted(curve));
         }
         return keptText("curve", curve);
     }
@@ -232,7 +220,7 @@ public final class QuoteDecoder {
         try {
             date = LocalDate.parse(text);
         } catch (DateTimeParseException e) {
-            throw new Rejection(RejectReason.BAD_DATE, "unparsable date '" + text + "' (expected YYYY-MM-DD)");
+            throw new Rejection(RejectReason.BAD_DATE, "unparsable date " + Excerpt.quoted(text) + " (expected YYYY-MM-DD)");
         }
         return dateInRange(date);
     }
@@ -264,12 +252,12 @@ public final class QuoteDecoder {
         if (basis.equals("discount")) {
             return true;
         }
-        throw new Rejection(RejectReason.BAD_BASIS, "unknown basis '" + basis + "' (accepted: bond-equivalent, discount)");
+        throw new Rejection(RejectReason.BAD_BASIS, "unknown basis " + Excerpt.quoted(basis) + " (accepted: bond-equivalent, discount)");
     }
 
     private double yieldBp(JsonNode value, Tenor tenor, YieldUnit unit, boolean discount) throws Rejection {
         if (!value.isNumber()) {
-            throw new Rejection(RejectReason.MALFORMED, "yield for " + tenor + " must be a number, got " + value);
+            throw new Rejection(RejectReason.MALFORMED, "yield for " + tenor + " must be a number, got " + Excerpt.of(value.toString()));
         }
         double raw = value.asDouble();
         if (!Double.isFinite(raw)) {
@@ -302,10 +290,10 @@ public final class QuoteDecoder {
         try {
             time = Instant.parse(text);
         } catch (DateTimeParseException e) {
-            throw new Rejection(RejectReason.MALFORMED, "unparsable time '" + text + "' (expected e.g. 2026-03-02T16:00:00Z)");
+            throw new Rejection(RejectReason.MALFORMED, "unparsable time " + Excerpt.quoted(text) + " (expected e.g. 2026-03-02T16:00:00Z)");
         }
         if (time.isBefore(EARLIEST_TIME) || time.isAfter(LATEST_TIME)) {
-            throw new Rejection(RejectReason.MALFORMED, "time " + text + " is outside the years " + EARLIEST_DATE.getYear() + " to 9999");
+            throw new Rejection(RejectReason.MALFORMED, "time " + Excerpt.of(text) + " is outside the years " + EARLIEST_DATE.getYear() + " to 9999");
         }
         return time;
     }

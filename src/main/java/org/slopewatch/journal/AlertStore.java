@@ -67,6 +67,14 @@ public final class AlertStore {
     public record Due(Alert alert, Delivery delivery) {
     }
 
+    /** What the journal's columns hold (V2__alerts.sql): who acts, an acknowledgement's note, a mute's reason and target. */
+    public static final int BY_CHARS = 100;
+    public static final int NOTE_CHARS = 400;
+    public static final int REASON_CHARS = 400;
+    public static final int TARGET_CHARS = 120;
+    /** {@code alert.muted_by}: the mute that silenced a notice, described with its reason, can be longer. */
+    static final int MUTED_BY_CHARS = 400;
+
     private static final String ALERT_COLUMNS = "a.id, a.rule, a.subject, a.episode_since, a.notice, a.kind, a.severity, a.market_date, "
             + "a.state, a.title, a.body, a.facts, a.dashboard, a.muted_by, a.policy_hash, a.created_at, a.recorded_at";
     private static final String DELIVERY_COLUMNS = "d.alert_id, d.channel, d.status, d.attempts, d.next_attempt_at, d.first_attempt_at, "
@@ -112,7 +120,7 @@ public final class AlertStore {
                 a.setString(11, JournalWriter.fit(alert.text(), 8000));
                 a.setString(12, JournalWriter.fit(FactsText.write(alert.facts()), 4000));
                 a.setString(13, alert.dashboard());
-                a.setString(14, e.mutedBy());
+                a.setString(14, JournalWriter.fit(e.mutedBy(), MUTED_BY_CHARS));
                 a.setString(15, e.policyHash());
                 if (e.seq() == null) {
                     a.setNull(16, java.sql.Types.BIGINT);
@@ -404,8 +412,8 @@ public final class AlertStore {
         inTransaction(c -> {
             try (PreparedStatement s = c.prepareStatement("INSERT INTO alert_ack (alert_id, acked_by, note, recorded_at) VALUES (?,?,?,?)")) {
                 s.setString(1, alertId);
-                s.setString(2, JournalWriter.fit(by, 100));
-                s.setString(3, JournalWriter.fit(note, 400));
+                s.setString(2, JournalWriter.fit(by, BY_CHARS));
+                s.setString(3, JournalWriter.fit(note, NOTE_CHARS));
                 s.setTimestamp(4, now);
                 s.executeUpdate();
             }
@@ -420,10 +428,10 @@ public final class AlertStore {
             try (PreparedStatement s = c.prepareStatement("INSERT INTO mute (target_kind, target, until_at, reason, muted_by, recorded_at) "
                     + "VALUES (?,?,?,?,?,?)", new String[] {"id"})) {
                 s.setString(1, kind);
-                s.setString(2, target);
+                s.setString(2, JournalWriter.fit(target, TARGET_CHARS));
                 s.setTimestamp(3, Timestamp.from(until));
-                s.setString(4, JournalWriter.fit(reason, 400));
-                s.setString(5, JournalWriter.fit(by, 100));
+                s.setString(4, JournalWriter.fit(reason, REASON_CHARS));
+                s.setString(5, JournalWriter.fit(by, BY_CHARS));
                 s.setTimestamp(6, Timestamp.from(now));
                 s.executeUpdate();
                 try (ResultSet keys = s.getGeneratedKeys()) {
@@ -442,7 +450,7 @@ public final class AlertStore {
         inTransaction(c -> {
             try (PreparedStatement s = c.prepareStatement("UPDATE mute SET lifted_at = ?, lifted_by = ? WHERE id = ? AND lifted_at IS NULL")) {
                 s.setTimestamp(1, now);
-                s.setString(2, JournalWriter.fit(by, 100));
+                s.setString(2, JournalWriter.fit(by, BY_CHARS));
                 s.setLong(3, id);
                 n[0] = s.executeUpdate();
             }

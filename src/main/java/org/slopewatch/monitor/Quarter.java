@@ -1,6 +1,7 @@
 package org.slopewatch.monitor;
 
 import java.time.LocalDate;
+import org.slopewatch.text.Excerpt;
 
 /** A calendar quarter, written {@code 1966Q1}. */
 public record Quarter(int year, int quarter) implements Comparable<Quarter> {
@@ -21,7 +22,7 @@ public record Quarter(int year, int quarter) implements Comparable<Quarter> {
         } catch (IllegalArgumentException e) {
             // reported below
         }
-        throw new IllegalArgumentException("unparsable quarter '" + text + "' (expected e.g. 1966Q1)");
+        throw new IllegalArgumentException("unparsable quarter " + Excerpt.quoted(text) + " (expected e.g. 1966Q1)");
     }
 
     public static Quarter of(LocalDate date) {

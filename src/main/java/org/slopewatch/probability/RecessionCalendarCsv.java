@@ -11,6 +11,7 @@ import java.time.YearMonth;
 import java.time.format.DateTimeParseException;
 import java.util.ArrayList;
 import java.util.List;
+import org.slopewatch.text.Excerpt;
 
 /**
  * Reads a recession calendar from CSV: a header line {@code peak,trough}, then one recession a
@@ -50,7 +51,7 @@ public final class RecessionCalendarCsv {
             }
             if (!headerSeen) {
                 if (!text.replace(" ", "").equalsIgnoreCase(HEADER)) {
-                    throw error(source, lineNo, "expected the header '" + HEADER + "', found '" + text + "'");
+                    throw error(source, lineNo, "expected the header '" + HEADER + "', found " + Excerpt.quoted(text));
                 }
                 headerSeen = true;
                 continue;
@@ -72,7 +73,7 @@ public final class RecessionCalendarCsv {
     private static Recession parseRow(String text, String source, int lineNo) {
         String[] cells = text.split(",", -1);
         if (cells.length != 2) {
-            throw error(source, lineNo, "expected 2 columns 'peak,trough', found " + cells.length + ": '" + text + "'");
+            throw error(source, lineNo, "expected 2 columns 'peak,trough', found " + cells.length + ": " + Excerpt.quoted(text));
         }
         YearMonth peak = parseMonth(cells[0].strip(), "peak", source, lineNo);
         YearMonth trough = parseMonth(cells[1].strip(), "trough", source, lineNo);
@@ -88,12 +89,12 @@ public final class RecessionCalendarCsv {
         }
         // YearMonth.parse also accepts signed and five-digit years; insist on the plain form.
         if (!cell.matches("\\d{4}-\\d{2}")) {
-            throw error(source, lineNo, column + " '" + cell + "' is not a month in the form YYYY-MM");
+            throw error(source, lineNo, column + " " + Excerpt.quoted(cell) + " is not a month in the form YYYY-MM");
         }
         try {
             return YearMonth.parse(cell);
         } catch (DateTimeParseException e) {
-            throw error(source, lineNo, column + " '" + cell + "' is not a valid month");
+            throw error(source, lineNo, column + " " + Excerpt.quoted(cell) + " is not a valid month");
         }
     }
 

@@ -14,6 +14,7 @@ import org.slopewatch.ingest.HistoryCsvReader;
 import org.slopewatch.ingest.HistoryFormatException;
 import org.slopewatch.probability.SpreadObservation;
 import org.slopewatch.spread.SpreadDefinition;
+import org.slopewatch.text.Excerpt;
 
 /**
  * Reads the series of one spread from a history file with the replay's reader, so the layouts,
@@ -69,7 +70,7 @@ public final class SpreadSeriesReader {
         }
         if (curve != null) {
             if (!curves.containsKey(curve)) {
-                throw new IllegalArgumentException(source + ": no curve '" + curve + "' in the file (curves: "
+                throw new IllegalArgumentException(source + ": no curve " + Excerpt.quoted(curve) + " in the file (curves: "
                         + String.join(", ", curves.keySet()) + ")");
             }
             return curve;

@@ -27,6 +27,7 @@ import org.slopewatch.rules.AlertRule;
 import org.slopewatch.rules.AlertTrigger;
 import org.slopewatch.rules.Policy;
 import org.slopewatch.spread.SpreadKey;
+import org.slopewatch.text.Excerpt;
 
 /**
  * What another policy would have fired on stored history: quotes go through a fresh curve book,
@@ -182,7 +183,7 @@ public final class WhatIf {
         List<String> ids = spreadIds();
         for (String entry : filter.entries()) {
             if (ids.stream().noneMatch(id -> id.equals(entry) || id.endsWith(":" + entry))) {
-                out.add("'" + entry + "' matched no spread with values: this policy watches "
+                out.add(Excerpt.quoted(entry) + " matched no spread with values: this policy watches "
                         + String.join(", ", candidate.policy().watches().stream().map(w -> w.spread().name()).distinct().toList())
                         + (curves.isEmpty() ? "" : "; curves in the history: " + String.join(", ", curves)) + ".");
             }

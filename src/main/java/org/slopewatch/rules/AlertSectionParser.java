@@ -11,6 +11,8 @@ import java.util.Set;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.slopewatch.monitor.SpreadState;
+import org.slopewatch.text.Excerpt;
+import org.slopewatch.text.FieldText;
 
 /** Reads the alerting part of a policy: {@code channels} and {@code alerts}. Problems go to the shared list. */
 final class AlertSectionParser {
@@ -24,6 +26,9 @@ final class AlertSectionParser {
     private static final Pattern DURATION = Pattern.compile("(\\d+)\\s*([smhd])");
     private static final Pattern PLACEHOLDER = Pattern.compile("\\{([^{}]*)}");
 
+    /** Rule and channel names go into the journal's {@code alert.rule} and {@code delivery.channel}, 100 characters each. */
+    static final int MAX_NAME = 100;
+
     private AlertSectionParser() {
     }
 
@@ -36,23 +41,33 @@ final class AlertSectionParser {
         }
         Set<String> anyName = new NameSet();
         for (Map.Entry<String, YamlNode> e : node.mapping("'channels'", anyName).entrySet()) {
-            Map<String, YamlNode> keys = e.getValue().mapping("channel '" + e.getKey() + "'", CHANNEL_KEYS);
+            Map<String, YamlNode> keys = e.getValue().mapping("channel " + Excerpt.quoted(e.getKey()), CHANNEL_KEYS);
             YamlNode typeNode = keys.get("type");
             if (typeNode == null) {
                 if (e.getValue().isMapping()) {
-                    e.getValue().problem("channel '" + e.getKey() + "' needs 'type' (one of " + String.join(", ", ChannelDeclaration.TYPES) + ")");
+                    e.getValue().problem("channel " + Excerpt.quoted(e.getKey()) + " needs 'type' (one of " + String.join(", ", ChannelDeclaration.TYPES) + ")");
                 }
                 continue;
             }
             String type = typeNode.string("'type'");
             if (type != null && !ChannelDeclaration.TYPES.contains(type)) {
-                typeNode.problem("unknown channel type '" + type + "' for channel '" + e.getKey() + "' (known: "
+                typeNode.problem("unknown channel type " + Excerpt.quoted(type) + " for channel " + Excerpt.quoted(e.getKey()) + " (known: "
                         + String.join(", ", ChannelDeclaration.TYPES) + ")");
-            } else if (type != null) {
+            } else if (type != null && name(e.getValue(), "channel name", e.getKey()) != null) {
                 out.put(e.getKey(), new ChannelDeclaration(e.getKey(), type));
             }
         }
         return out;
+    }
+
+    /** The name if the journal can keep it (and a log line repeat it), else null with a problem at {@code node}. */
+    private static String name(YamlNode node, String what, String name) {
+        String problem = FieldText.problem(what, name, MAX_NAME);
+        if (problem != null) {
+            node.problem(problem);
+            return null;
+        }
+        return name;
     }
 
     /**
@@ -69,7 +84,7 @@ final class AlertSectionParser {
             AlertRule rule = rule(item, spreadNames, channelNames, modelled);
             if (rule != null) {
                 if (!names.add(rule.name())) {
-                    item.problem("alert rule name '" + rule.name() + "' is used twice");
+                    item.problem("alert rule name " + Excerpt.quoted(rule.name()) + " is used twice");
                 } else {
                     out.add(rule);
                 }
@@ -83,7 +98,8 @@ final class AlertSectionParser {
         if (!item.isMapping()) {
             return null;
         }
-        String name = required(keys, "name", item, "an alert rule needs 'name'") == null ? null : keys.get("name").string("'name'");
+        String name = required(keys, "name", item, "an alert rule needs 'name'") == null ? null
+                : name(keys.get("name"), "name", keys.get("name").string("'name'"));
         AlertTrigger when = keys.containsKey("when") ? trigger(keys.get("when")) : missing(item, "an alert rule needs 'when' (one of "
                 + String.join(", ", TRIGGER_KEYS) + ")");
         Set<String> spreads = new LinkedHashSet<>();
@@ -91,9 +107,9 @@ final class AlertSectionParser {
             for (YamlNode s : keys.get("spreads").sequence("'spreads'")) {
                 String spread = s.string("a spread name");
                 if (spread != null && !spreadNames.contains(spread)) {
-                    s.problem("unknown spread '" + spread + "': not watched by this policy (watched: " + String.join(", ", spreadNames) + ")");
+                    s.problem("unknown spread " + Excerpt.quoted(spread) + ": not watched by this policy (watched: " + String.join(", ", spreadNames) + ")");
                 } else if (spread != null && when instanceof AlertTrigger.ProbabilityAbove && !modelled.contains(spread)) {
-                    s.problem("'probability-above' needs a probability model for spread '" + spread + "': add one under"
+                    s.problem("'probability-above' needs a probability model for spread " + Excerpt.quoted(spread) + ": add one under"
                             + " 'probability' (models: " + names(modelled) + ")");
                 } else if (spread != null) {
                     spreads.add(spread);
@@ -116,7 +132,7 @@ final class AlertSectionParser {
             try {
                 severity = text == null ? null : Severity.valueOf(text.toUpperCase(Locale.ROOT));
             } catch (IllegalArgumentException e) {
-                sev.problem("unknown severity '" + text + "' (known: info, warning, critical)");
+                sev.problem("unknown severity " + Excerpt.quoted(text) + " (known: info, warning, critical)");
             }
         }
         List<String> channels = new ArrayList<>();
@@ -126,7 +142,7 @@ final class AlertSectionParser {
             for (YamlNode c : listed) {
                 String channel = c.string("a channel name");
                 if (channel != null && !channelNames.contains(channel)) {
-                    c.problem("unknown channel '" + channel + "' (declared: " + String.join(", ", channelNames) + ")");
+                    c.problem("unknown channel " + Excerpt.quoted(channel) + " (declared: " + String.join(", ", channelNames) + ")");
                 } else if (channel != null) {
                     channels.add(channel);
                 }
@@ -160,7 +176,7 @@ final class AlertSectionParser {
                 try {
                     return state == null ? null : new AlertTrigger.EntersState(SpreadState.valueOf(state.toUpperCase(Locale.ROOT)));
                 } catch (IllegalArgumentException ex) {
-                    v.problem("unknown state '" + state + "' (known: NORMAL, INVERTED, CONFIRMED, RESTEEPENING)");
+                    v.problem("unknown state " + Excerpt.quoted(state) + " (known: NORMAL, INVERTED, CONFIRMED, RESTEEPENING)");
                     return null;
                 }
             }
@@ -207,7 +223,7 @@ final class AlertSectionParser {
         }
         Matcher m = DURATION.matcher(text.strip());
         if (!m.matches()) {
-            node.problem("'repeat-every' must be a duration such as 30s, 30m, 4h or 1d (0 for never), got '" + text + "'");
+            node.problem("'repeat-every' must be a duration such as 30s, 30m, 4h or 1d (0 for never), got " + Excerpt.quoted(text));
             return null;
         }
         try {
@@ -219,7 +235,7 @@ final class AlertSectionParser {
                 default -> Duration.ofDays(n);
             };
         } catch (ArithmeticException | NumberFormatException e) {
-            node.problem("'repeat-every' is too long to be a duration, got '" + text + "'");
+            node.problem("'repeat-every' is too long to be a duration, got " + Excerpt.quoted(text));
             return null;
         }
     }

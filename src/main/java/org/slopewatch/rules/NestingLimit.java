@@ -1,8 +1,6 @@
 package org.slopewatch.rules;
 
-import java.util.Optional;
 import org.snakeyaml.engine.v2.events.Event;
-import org.snakeyaml.engine.v2.exceptions.Mark;
 import org.snakeyaml.engine.v2.parser.Parser;
 
 /**
@@ -12,16 +10,6 @@ import org.snakeyaml.engine.v2.parser.Parser;
  * stops it first.
  */
 final class NestingLimit implements Parser {
-
-    /** Thrown from {@link #next()}, which may not throw a checked exception; the parser turns it into a problem. */
-    static final class TooDeep extends RuntimeException {
-        final transient Optional<Mark> mark;
-
-        TooDeep(Optional<Mark> mark) {
-            super(null, null, false, false);
-            this.mark = mark;
-        }
-    }
 
     private final Parser events;
     private final int maxDepth;
@@ -38,7 +26,7 @@ final class NestingLimit implements Parser {
         Event.ID id = e.getEventId();
         if (id == Event.ID.SequenceStart || id == Event.ID.MappingStart) {
             if (++depth > maxDepth) {
-                throw new TooDeep(e.getStartMark());
+                throw new ComposeLimit(e.getStartMark(), "nested more than " + maxDepth + " levels deep");
             }
         } else if (id == Event.ID.SequenceEnd || id == Event.ID.MappingEnd) {
             depth--;

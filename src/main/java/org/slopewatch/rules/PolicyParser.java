@@ -15,6 +15,7 @@ import org.slopewatch.monitor.RollingAverage;
 import org.slopewatch.monitor.ShareInverted;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.spread.SpreadDefinition;
+import org.slopewatch.text.Excerpt;
 import org.snakeyaml.engine.v2.api.LoadSettings;
 import org.snakeyaml.engine.v2.composer.Composer;
 import org.snakeyaml.engine.v2.exceptions.Mark;
@@ -32,8 +33,11 @@ import org.snakeyaml.engine.v2.scanner.StreamReader;
  * <p>The YAML is composed into nodes and never constructed into objects, so tags name no class
  * and nothing is looked up or evaluated: {@code ${…}}, {@code !include} and the like stay text.
  * Hostile files end fast with a problem: more than {@link #MAX_CODE_POINTS} code points, more than
- * {@link #MAX_ALIASES} aliases of lists and mappings (an alias bomb), or nesting deeper than
- * {@link #MAX_DEPTH} ({@link NestingLimit}: it would otherwise overflow the composer's stack).
+ * {@link #MAX_ALIASES} aliases of lists and mappings (an alias bomb), aliases that expand the
+ * document past {@link #MAX_EXPANDED} nodes and characters ({@link ExpansionLimit}: thousands of
+ * aliases of one long text), or nesting deeper than {@link #MAX_DEPTH} ({@link NestingLimit}: it
+ * would otherwise overflow the composer's stack). Values quoted in problems are excerpts
+ * ({@link Excerpt}), and at most {@link Problems#MAX_LISTED} problems are listed.
  */
 public final class PolicyParser {
 
@@ -42,6 +46,11 @@ public final class PolicyParser {
     static final int MAX_ALIASES = 50;
     /** The shipped policy nests six levels deep. */
     static final int MAX_DEPTH = 64;
+    /**
+     * Nodes plus scalar characters with every alias counted as a copy ({@link ExpansionLimit}); a
+     * file without aliases stays about as large as its text, which {@link #MAX_CODE_POINTS} bounds.
+     */
+    static final long MAX_EXPANDED = MAX_CODE_POINTS;
 
     static final Set<String> TOP_KEYS = ordered("watch", "probability", "channels", "alerts");
     static final Set<String> WATCH_KEYS = ordered("spread", "curves", "enter-below-bp", "exit-at-or-above-bp",
@@ -64,7 +73,7 @@ public final class PolicyParser {
 
     /** Parses one policy file's text; {@code file} names it in messages. */
     public static Policy parse(String file, String text) throws PolicyException {
-        List<PolicyProblem> problems = new ArrayList<>();
+        Problems problems = new Problems();
         if (text.length() > MAX_CODE_POINTS && text.codePointCount(0, text.length()) > MAX_CODE_POINTS) {
             throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "the policy is " + text.codePointCount(0, text.length())
                     + " characters long; at most " + MAX_CODE_POINTS)));
@@ -75,24 +84,25 @@ public final class PolicyParser {
                 .setMaxAliasesForCollections(MAX_ALIASES).setAllowRecursiveKeys(false).setBufferSize(text.length() + 1).build();
         Optional<Node> root;
         try {
-            root = new Composer(settings, new NestingLimit(new ParserImpl(settings, new StreamReader(settings, text)), MAX_DEPTH))
-                    .getSingleNode();
-        } catch (NestingLimit.TooDeep e) {
+            root = new Composer(settings, new ExpansionLimit(new NestingLimit(new ParserImpl(settings, new StreamReader(settings, text)),
+                    MAX_DEPTH), MAX_EXPANDED)).getSingleNode();
+        } catch (ComposeLimit e) {
             throw new PolicyException(List.of(new PolicyProblem(file, e.mark.map(x -> x.getLine() + 1).orElse(1),
-                    e.mark.map(x -> x.getColumn() + 1).orElse(1), "nested more than " + MAX_DEPTH + " levels deep")));
+                    e.mark.map(x -> x.getColumn() + 1).orElse(1), e.getMessage())));
         } catch (MarkedYamlEngineException e) {
+            // the YAML reader's messages may quote the text (an undefined alias, for one), hence the excerpt
             Optional<Mark> m = e.getProblemMark().or(e::getContextMark);
             throw new PolicyException(List.of(new PolicyProblem(file, m.map(x -> x.getLine() + 1).orElse(1),
-                    m.map(x -> x.getColumn() + 1).orElse(1), "not valid YAML: " + e.getProblem())));
+                    m.map(x -> x.getColumn() + 1).orElse(1), "not valid YAML: " + Excerpt.of(e.getProblem()))));
         } catch (ReaderException e) {
             throw new PolicyException(List.of(at(file, text, e.getPosition(), String.format("not valid YAML: %s (U+%04X)",
-                    e.getMessage(), e.getCodePoint()))));
+                    Excerpt.of(e.getMessage()), e.getCodePoint()))));
         } catch (YamlEngineException e) {
-            throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "not valid YAML: " + e.getMessage())));
+            throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "not valid YAML: " + Excerpt.of(e.getMessage()))));
         } catch (RuntimeException e) {
             // a failure inside the YAML library is still an answer about this file, not a crash of the caller
             throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "not valid YAML: the YAML reader failed on this text ("
-                    + e.getClass().getSimpleName() + ": " + e.getMessage() + ")")));
+                    + e.getClass().getSimpleName() + ": " + Excerpt.of(e.getMessage()) + ")")));
         }
         if (root.isEmpty()) {
             throw new PolicyException(List.of(new PolicyProblem(file, 1, 1, "empty policy: expected a 'watch' list")));
@@ -121,7 +131,7 @@ public final class PolicyParser {
         Map<String, ChannelDeclaration> channels = AlertSectionParser.channels(top.get("channels"));
         List<AlertRule> alerts = AlertSectionParser.alerts(top.get("alerts"), spreadNames, channels.keySet(), models.spreads());
         if (!problems.isEmpty()) {
-            throw new PolicyException(problems);
+            throw problems.exception();
         }
         return new Policy(file, watches, List.copyOf(channels.values()), alerts, models);
     }
@@ -230,7 +240,7 @@ public final class PolicyParser {
                 return null;
             }
             if (!TEST_KEYS.contains(name)) {
-                t.problem("unknown persistence test '" + name + "' (known: " + String.join(", ", TEST_KEYS) + ")");
+                t.problem("unknown persistence test " + Excerpt.quoted(name) + " (known: " + String.join(", ", TEST_KEYS) + ")");
                 return null;
             }
         }

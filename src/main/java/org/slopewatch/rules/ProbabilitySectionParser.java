@@ -11,6 +11,7 @@ import java.util.stream.Collectors;
 import org.slopewatch.probability.Covariance;
 import org.slopewatch.probability.ProbitModel;
 import org.slopewatch.rules.SpreadProbabilityModel.Averaging;
+import org.slopewatch.text.Excerpt;
 
 /**
  * Reads the {@code probability} part of a policy: per watched spread, the probit coefficients,
@@ -36,7 +37,7 @@ final class ProbabilitySectionParser {
         Map<String, SpreadProbabilityModel> out = new LinkedHashMap<>();
         for (YamlNode.Entry e : node.entries("'probability'")) {
             if (!watched.contains(e.key())) {
-                e.keyNode().problem("unknown spread '" + e.key() + "' in 'probability': not watched by this policy (watched: "
+                e.keyNode().problem("unknown spread " + Excerpt.quoted(e.key()) + " in 'probability': not watched by this policy (watched: "
                         + String.join(", ", watched) + ")");
                 continue;
             }
@@ -114,7 +115,7 @@ final class ProbabilitySectionParser {
                 return a;
             }
         }
-        node.problem("unknown average '" + text + "' (known: " + Arrays.stream(Averaging.values()).map(Averaging::key)
+        node.problem("unknown average " + Excerpt.quoted(text) + " (known: " + Arrays.stream(Averaging.values()).map(Averaging::key)
                 .collect(Collectors.joining(", ")) + ")");
         return null;
     }

@@ -15,6 +15,7 @@ import org.snakeyaml.engine.v2.nodes.NodeTuple;
 import org.snakeyaml.engine.v2.nodes.ScalarNode;
 import org.snakeyaml.engine.v2.nodes.SequenceNode;
 import org.snakeyaml.engine.v2.nodes.Tag;
+import org.slopewatch.text.Excerpt;
 
 /**
  * Typed, position-aware reading of a composed YAML tree. Every failed expectation is recorded
@@ -28,9 +29,9 @@ final class YamlNode {
 
     private final String file;
     private final Node node;
-    private final List<PolicyProblem> problems;
+    private final Problems problems;
 
-    YamlNode(String file, Node node, List<PolicyProblem> problems) {
+    YamlNode(String file, Node node, Problems problems) {
         this.file = file;
         this.node = node;
         this.problems = problems;
@@ -75,11 +76,11 @@ final class YamlNode {
             }
             String key = k.getValue();
             if (!allowed.contains(key)) {
-                problems.add(at(k, "unknown key '" + key + "' in " + what + (allowed.isEmpty() ? "" : " (known: " + String.join(", ", allowed) + ")")));
+                problems.add(at(k, "unknown key " + Excerpt.quoted(key) + " in " + what + (allowed.isEmpty() ? "" : " (known: " + String.join(", ", allowed) + ")")));
                 continue;
             }
             if (out.containsKey(key)) {
-                problems.add(at(k, "key '" + key + "' appears twice in " + what));
+                problems.add(at(k, "key " + Excerpt.quoted(key) + " appears twice in " + what));
                 continue;
             }
             out.put(key, new YamlNode(file, t.getValueNode(), problems));
@@ -109,7 +110,7 @@ final class YamlNode {
                 continue;
             }
             if (!seen.add(k.getValue())) {
-                problems.add(at(k, "key '" + k.getValue() + "' appears twice in " + what));
+                problems.add(at(k, "key " + Excerpt.quoted(k.getValue()) + " appears twice in " + what));
                 continue;
             }
             out.add(new Entry(k.getValue(), new YamlNode(file, k, problems), new YamlNode(file, t.getValueNode(), problems)));
@@ -202,7 +203,7 @@ final class YamlNode {
 
     private String describe() {
         if (node instanceof ScalarNode s) {
-            return "'" + s.getValue() + "'";
+            return Excerpt.quoted(s.getValue());
         }
         return node instanceof SequenceNode ? "a list" : "a mapping";
     }

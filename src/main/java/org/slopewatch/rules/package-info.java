@@ -7,6 +7,8 @@
  * object exists only when its file had no problem; every probability model names a watched
  * spread and its source, and every {@code probability-above} rule covers only spreads with a
  * model; any text, however hostile, is answered with a policy or such problems, never another
- * exception, and nothing in it is evaluated. Plain Java and a YAML reader only.
+ * exception, and nothing in it is evaluated; the answer stays small whatever the text (limits on
+ * length, nesting and expansion through aliases, quoted values as excerpts, at most a hundred
+ * problems listed). Plain Java and a YAML reader only.
  */
 package org.slopewatch.rules;

@@ -2,6 +2,7 @@ package org.slopewatch.spread;
 
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.Tenor;
+import org.slopewatch.text.Excerpt;
 
 /**
  * How one spread is computed from a curve snapshot, in basis points.
@@ -30,8 +31,8 @@ public sealed interface SpreadDefinition permits TermSpread, NearTermForwardSpre
         String body = interpolate ? name.substring(0, name.length() - 1) : name;
         int dash = body.indexOf('-');
         if (dash <= 0 || dash == body.length() - 1) {
-            throw new IllegalArgumentException("unknown spread '" + text
-                    + "' (expected LONG-SHORT such as 10Y-3M, or " + NearTermForwardSpread.NAME + ")");
+            throw new IllegalArgumentException("unknown spread " + Excerpt.quoted(text)
+                    + " (expected LONG-SHORT such as 10Y-3M, or " + NearTermForwardSpread.NAME + ")");
         }
         Tenor longLeg = Tenor.parse(body.substring(0, dash));
         Tenor shortLeg = Tenor.parse(body.substring(dash + 1));

@@ -1,6 +1,7 @@
 package org.slopewatch.spread;
 
 import java.util.Objects;
+import org.slopewatch.text.Excerpt;
 
 /**
  * One watched series: a spread on a curve. {@link #id()} is its stable identifier in reports,
@@ -21,7 +22,7 @@ public record SpreadKey(String curve, String spread) {
     public static SpreadKey parse(String id) {
         int colon = id.lastIndexOf(':');
         if (colon <= 0 || colon == id.length() - 1) {
-            throw new IllegalArgumentException("spread id must be CURVE:SPREAD, got '" + id + "'");
+            throw new IllegalArgumentException("spread id must be CURVE:SPREAD, got " + Excerpt.quoted(id));
         }
         return new SpreadKey(id.substring(0, colon), id.substring(colon + 1));
     }

@@ -12,18 +12,21 @@ import jakarta.ws.rs.QueryParam;
 import jakarta.ws.rs.core.MediaType;
 import jakarta.ws.rs.core.Response;
 import java.time.Clock;
+import java.time.DateTimeException;
 import java.time.Duration;
 import java.time.Instant;
-import java.time.format.DateTimeParseException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.slopewatch.alerting.AlertDesk;
+import org.slopewatch.alerting.PolicyHolder;
 import org.slopewatch.alerting.PolicyReloader;
 import org.slopewatch.delivery.Alert;
+import org.slopewatch.ingest.IngestRules;
 import org.slopewatch.journal.AlertStore;
 import org.slopewatch.rules.AlertEngine;
+import org.slopewatch.text.Excerpt;
 
 /** Alerts for people: the list with deliveries, acknowledgements, mutes, and a policy reload on demand. */
 @Path("/api")
@@ -38,13 +41,18 @@ public class AlertResource {
     private final PolicyReloader reloader;
     private final Clock clock;
     private final RuleSetAt ruleSets;
+    private final PolicyHolder policies;
+    private final IngestRules ingest;
 
-    AlertResource(AlertDesk desk, AlertStore store, PolicyReloader reloader, Clock clock, RuleSetAt ruleSets) {
+    AlertResource(AlertDesk desk, AlertStore store, PolicyReloader reloader, Clock clock, RuleSetAt ruleSets, PolicyHolder policies,
+                  IngestRules ingest) {
         this.desk = desk;
         this.store = store;
         this.reloader = reloader;
         this.clock = clock;
         this.ruleSets = ruleSets;
+        this.policies = policies;
+        this.ingest = ingest;
     }
 
     /** One open episode: a rule whose condition holds for a subject. */
@@ -121,7 +129,7 @@ public class AlertResource {
     @Operation(summary = "One alert with its deliveries, acknowledgements and every delivery attempt")
     public Response alert(@PathParam("id") String id) {
         AlertStore.AlertView v = store.find(id);
-        return v == null ? error(Response.Status.NOT_FOUND, "no alert " + id)
+        return v == null ? error(Response.Status.NOT_FOUND, "no alert " + Excerpt.of(id))
                 : Response.ok(new AlertDetail(AlertView.of(v), store.attempts(id))).build();
     }
 
@@ -133,9 +141,15 @@ public class AlertResource {
         if (request == null || blank(request.by())) {
             return error(Response.Status.BAD_REQUEST, "say who acknowledges: {\"by\": \"name\", \"note\": \"optional\"}");
         }
-        return desk.acknowledge(id, request.by().strip(), request.note())
+        String by = request.by().strip();
+        String note = request.note() == null ? null : request.note().strip();
+        String problem = AlertRequests.ack(by, note);
+        if (problem != null) {
+            return error(Response.Status.BAD_REQUEST, problem);
+        }
+        return desk.acknowledge(id, by, note)
                 .map(v -> Response.ok(AlertView.of(v)).build())
-                .orElseGet(() -> error(Response.Status.NOT_FOUND, "no alert " + id));
+                .orElseGet(() -> error(Response.Status.NOT_FOUND, "no alert " + Excerpt.of(id)));
     }
 
     @GET
@@ -158,21 +172,28 @@ public class AlertResource {
         if (blank(r.rule()) == blank(r.spread())) {
             return error(Response.Status.BAD_REQUEST, "name exactly one of rule or spread");
         }
-        if (!blank(r.rule()) && desk.rules().stream().noneMatch(rule -> rule.name().equals(r.rule()))) {
-            return error(Response.Status.BAD_REQUEST, "no alert rule " + r.rule() + " in the policy in force");
+        String rule = blank(r.rule()) ? null : r.rule().strip();
+        String spread = blank(r.spread()) ? null : r.spread().strip();
+        String reason = r.reason().strip();
+        String by = r.by().strip();
+        String problem = new AlertRequests(policies.policy(), ingest.curves()).mute(rule, spread, reason, by);
+        if (problem != null) {
+            return error(Response.Status.BAD_REQUEST, problem);
         }
         Instant now = clock.instant();
         Instant until;
         try {
-            until = !blank(r.until()) ? Instant.parse(r.until()) : !blank(r.duration()) ? now.plus(Duration.parse(r.duration())) : null;
-        } catch (DateTimeParseException e) {
-            return error(Response.Status.BAD_REQUEST, "duration must be ISO-8601 (e.g. PT4H) and until an instant (e.g. 2026-07-01T08:00:00Z)");
+            until = !blank(r.until()) ? Instant.parse(r.until().strip())
+                    : !blank(r.duration()) ? now.plus(Duration.parse(r.duration().strip())) : null;
+        } catch (DateTimeException | ArithmeticException e) {
+            // a duration too long for an instant overflows rather than failing to parse
+            return error(Response.Status.BAD_REQUEST, "duration must be ISO-8601 (e.g. PT4H) and until an instant (e.g. 2026-07-01T08:00:00Z), "
+                    + "ending within " + LONGEST_MUTE.toDays() + " days");
         }
         if (until == null || !until.isAfter(now) || until.isAfter(now.plus(LONGEST_MUTE))) {
             return error(Response.Status.BAD_REQUEST, "a mute must end in the future and within " + LONGEST_MUTE.toDays() + " days");
         }
-        String kind = blank(r.rule()) ? "spread" : "rule";
-        AlertStore.Mute m = desk.mute(kind, blank(r.rule()) ? r.spread().strip() : r.rule().strip(), until, r.reason().strip(), r.by().strip());
+        AlertStore.Mute m = rule != null ? desk.mute("rule", rule, until, reason, by) : desk.mute("spread", spread, until, reason, by);
         return Response.status(Response.Status.CREATED).entity(Map.of("id", m.id(), "kind", m.kind(), "target", m.target(),
                 "until", m.until(), "reason", m.reason(), "by", m.by())).build();
     }
@@ -183,6 +204,10 @@ public class AlertResource {
     public Response lift(@PathParam("id") long id, @QueryParam("by") String by) {
         if (blank(by)) {
             return error(Response.Status.BAD_REQUEST, "say who lifts the mute: ?by=name");
+        }
+        String problem = AlertRequests.lift(by.strip());
+        if (problem != null) {
+            return error(Response.Status.BAD_REQUEST, problem);
         }
         return desk.lift(id, by.strip()) ? Response.noContent().build()
                 : error(Response.Status.NOT_FOUND, "no active mute " + id);

@@ -21,6 +21,7 @@ import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.RowSink;
 import org.slopewatch.spread.SpreadKey;
+import org.slopewatch.text.Excerpt;
 
 /**
  * Exports of observations, transitions and alerts as CSV or JSON, for spreadsheets and
@@ -90,7 +91,7 @@ public class ExportResource {
         LocalDate fromDate = QueryParams.date(from, QueryParams.EARLIEST);
         LocalDate toDate = QueryParams.date(to, QueryParams.LATEST);
         if (!"csv".equals(format) && !"json".equals(format)) {
-            throw QueryParams.bad("format must be csv or json, not '" + format + "'");
+            throw QueryParams.bad("format must be csv or json, not " + Excerpt.quoted(format));
         }
         return new Request(new JournalRange(key == null ? null : key.id(), fromDate, toDate, at), "csv".equals(format), ruleSets.hash(at));
     }

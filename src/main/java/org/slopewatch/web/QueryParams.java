@@ -8,6 +8,7 @@ import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.util.Map;
 import org.slopewatch.spread.SpreadKey;
+import org.slopewatch.text.Excerpt;
 
 /** The query parameters the history endpoints share, checked the same way everywhere (400 with what was expected). */
 final class QueryParams {
@@ -26,7 +27,7 @@ final class QueryParams {
         try {
             return Instant.parse(text.strip());
         } catch (DateTimeParseException e) {
-            throw bad("unparsable asOf '" + text + "' (expected an ISO-8601 instant such as 2026-04-01T17:30:00Z; "
+            throw bad("unparsable asOf " + Excerpt.quoted(text) + " (expected an ISO-8601 instant such as 2026-04-01T17:30:00Z; "
                     + "write + in an offset as %2B)");
         }
     }
@@ -38,7 +39,7 @@ final class QueryParams {
         try {
             return LocalDate.parse(text);
         } catch (DateTimeParseException e) {
-            throw bad("unparsable date '" + text + "' (expected YYYY-MM-DD)");
+            throw bad("unparsable date " + Excerpt.quoted(text) + " (expected YYYY-MM-DD)");
         }
     }
 

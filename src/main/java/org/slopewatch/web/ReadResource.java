@@ -22,6 +22,7 @@ import org.slopewatch.journal.JournalReader;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.rules.ProbabilityModels;
 import org.slopewatch.spread.SpreadKey;
+import org.slopewatch.text.Excerpt;
 
 /**
  * The read API: curves, spreads, their history, transitions and rejects. The history endpoints
@@ -61,7 +62,7 @@ public class ReadResource {
     public ApiViews.CurveView curve(@PathParam("curve") String curve, @PathParam("date") String date) {
         var snapshot = pipeline.curve(curve, date(date, null));
         if (snapshot == null) {
-            throw new NotFoundException("no quotes for " + curve + " on " + date);
+            throw new NotFoundException("no quotes for " + Excerpt.of(curve) + " on " + Excerpt.of(date));
         }
         return ApiViews.CurveView.of(snapshot);
     }
@@ -75,7 +76,7 @@ public class ReadResource {
         }
         var snapshot = pipeline.curveOnOrBefore(curve, date(onOrBefore, null));
         if (snapshot == null) {
-            throw new NotFoundException("no quotes for " + curve + " on or before " + onOrBefore);
+            throw new NotFoundException("no quotes for " + Excerpt.of(curve) + " on or before " + Excerpt.of(onOrBefore));
         }
         return ApiViews.CurveView.of(snapshot);
     }
@@ -99,7 +100,7 @@ public class ReadResource {
         }
         SpreadStatus s = pipeline.spread(key(id));
         if (s == null) {
-            throw new NotFoundException("no spread " + id);
+            throw new NotFoundException("no spread " + Excerpt.of(id));
         }
         return ApiViews.SpreadView.of(s, policies.policy().probability());
     }
@@ -168,7 +169,7 @@ public class ReadResource {
         try {
             return LocalDate.parse(text);
         } catch (DateTimeParseException e) {
-            throw new BadRequestException("unparsable date '" + text + "' (expected YYYY-MM-DD)");
+            throw new BadRequestException("unparsable date " + Excerpt.quoted(text) + " (expected YYYY-MM-DD)");
         }
     }
 }

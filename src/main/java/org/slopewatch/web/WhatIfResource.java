@@ -27,9 +27,9 @@ import org.slopewatch.replay.CandidatePolicy;
 import org.slopewatch.replay.SpreadFilter;
 import org.slopewatch.replay.WhatIfReport;
 import org.slopewatch.rules.PolicyException;
-import org.slopewatch.rules.PolicyProblem;
 import org.slopewatch.whatif.WhatIfJob;
 import org.slopewatch.whatif.WhatIfJobs;
+import org.slopewatch.text.Excerpt;
 
 /**
  * {@code POST /api/what-if}: another policy's alert rules on the stored history (or on a history
@@ -93,7 +93,7 @@ public class WhatIfResource {
             filter = SpreadFilter.of(request.spreads());
         } catch (PolicyException e) {
             return error(Response.Status.BAD_REQUEST, "the policy has problems; nothing was run",
-                    e.problems().stream().map(PolicyProblem::toString).toList());
+                    e.lines());
         } catch (IllegalArgumentException e) {
             return error(Response.Status.BAD_REQUEST, e.getMessage(), List.of());
         }
@@ -127,7 +127,7 @@ public class WhatIfResource {
     @Operation(summary = "A what-if's state (running, done or failed), progress in quote messages, and its report when done")
     public Response job(@PathParam("id") String id) {
         return jobs.find(id).map(j -> Response.ok(JobView.of(j)).build())
-                .orElseGet(() -> error(Response.Status.NOT_FOUND, "no what-if " + id + " (finished ones are kept for a while)", List.of()));
+                .orElseGet(() -> error(Response.Status.NOT_FOUND, "no what-if " + Excerpt.of(id) + " (finished ones are kept for a while)", List.of()));
     }
 
     private static Response error(Response.Status status, String message, List<String> problems) {

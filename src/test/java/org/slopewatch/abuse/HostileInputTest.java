@@ -35,6 +35,7 @@ import org.junit.jupiter.api.Order;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.TestMethodOrder;
 import org.slopewatch.cli.SlopewatchMain;
+import org.slopewatch.delivery.LogCapture;
 import org.slopewatch.rules.Policy;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyParser;
@@ -46,7 +47,9 @@ import org.slopewatch.rules.PolicyProblem;
  * counts and the reasons listed for it, and what the answers say was taken is exactly what the
  * journal took, nothing more; every policy file gets its outcome, with the position and message
  * of its first problem, from the parser, from {@code check-rules} and, for a few, from the live
- * reload, which rejects them while the policy in force keeps running. A policy whose hostile-looking
+ * reload, which rejects them while the policy in force keeps running, and from the what-if API; every
+ * mute, acknowledgement and lift body gets its answer, and only the accepted ones are kept. Every answer
+ * and every log line about bad input stays small and on one line. A policy whose hostile-looking
  * text is plain text is applied, and its alert carries that text as written, evaluated nowhere.
  * After all of it the daemon answers its health check and takes a good quote.
  *
@@ -63,6 +66,12 @@ class HostileInputTest {
     /** A hang guard, not a speed target: the corpus takes a few seconds (docs/reliability.md has the figures). */
     private static final Duration HANG = Duration.ofSeconds(60);
     static Path policyFile;
+    /** A reject's detail: what was wrong, with an excerpt of the input (at most 200 characters) and its length. */
+    private static final int MAX_DETAIL = 500;
+    /** An answer about a bad input: at most a hundred problems of a few hundred characters each. */
+    private static final int MAX_ANSWER = 128 * 1024;
+    /** A log record as the console writes it. */
+    private static final int MAX_LOG_LINE = 2_000;
 
     @TestHTTPResource("/api/quotes")
     URI quotes;
@@ -103,6 +112,13 @@ class HostileInputTest {
         }
     }
 
+    /** One line of expected-alerting.tsv. */
+    record AlertCase(String file, String category, String request, int status, String error) {
+        static AlertCase of(String[] f) {
+            return new AlertCase(f[0], f[1], f[2], Integer.parseInt(f[3]), f[4]);
+        }
+    }
+
     @Test
     @Order(1)
     void everyQuoteFileIsAnsweredWithItsReasonAndOnlyWhatWasAcceptedIsJournalled() throws IOException {
@@ -123,6 +139,11 @@ class HostileInputTest {
             List<String> reasons = new ArrayList<>();
             answer.get("errors").forEach(e -> reasons.add(e.get("reason").asText()));
             String first = reasons.isEmpty() ? "-" : answer.get("errors").get(0).get("detail").asText();
+            answer.get("errors").forEach(e -> {
+                if (e.get("detail").asText().length() > MAX_DETAIL) {
+                    wrong.add(c.file() + ": a reject detail of " + e.get("detail").asText().length() + " characters: " + shorten(e.get("detail").asText()));
+                }
+            });
             if (r.statusCode() != c.status() || answer.get("accepted").asInt() != c.accepted()
                     || answer.get("duplicates").asInt() != c.duplicates()
                     || !reasons.equals(c.reasons()) || !(c.detail().equals("-") ? first.equals("-") : first.contains(c.detail()))) {
@@ -169,6 +190,7 @@ class HostileInputTest {
     @Test
     @Order(3)
     void everyPolicyFileGetsItsOutcomeWithThePositionOfItsFirstProblem() throws IOException {
+        // from the parser, and from the what-if API (POST /api/what-if with the file as its policy)
         List<PolicyCase> cases = table("expected-policies.tsv").stream().map(PolicyCase::of).toList();
         List<String> wrong = new ArrayList<>();
         for (PolicyCase c : cases) {
@@ -177,6 +199,22 @@ class HostileInputTest {
             String expected = c.accepted() ? "accepted" : c.file() + ":" + c.position() + ": ";
             if (!outcome.startsWith(expected) || !c.accepted() && !outcome.contains(c.message())) {
                 wrong.add(c.file() + ": expected " + expected + c.message() + "\n    got " + shorten(outcome));
+            }
+            // the same text as a what-if's policy: the same first problem, named 'policy', in a small answer, never a 5xx
+            Response r = assertTimeoutPreemptively(HANG, () -> given().contentType(ContentType.JSON)
+                    .body(Map.of("policy", new String(bytes, java.nio.charset.StandardCharsets.UTF_8))).post("/api/what-if"));
+            String answer = r.asString();
+            JsonNode problems = r.statusCode() == 400 ? JSON.readTree(answer).get("problems") : null;
+            String first = problems == null || problems.isEmpty() ? "" : problems.get(0).asText();
+            boolean blank = new String(bytes, java.nio.charset.StandardCharsets.UTF_8).isBlank();
+            boolean asExpected = c.accepted() ? r.statusCode() == 202 || r.statusCode() == 429
+                    // an empty policy is refused before it is parsed
+                    : blank ? r.statusCode() == 400 && answer.contains("give the policy to try")
+                    : r.statusCode() == 400 && first.startsWith("policy:" + c.position() + ": ") && first.contains(c.message());
+            if (!asExpected || answer.length() > MAX_ANSWER) {
+                wrong.add(c.file() + " as a what-if: expected " + (c.accepted() ? "202" : "400 policy:" + c.position() + ": " + c.message())
+                        + " in at most " + MAX_ANSWER + " characters\n    got HTTP " + r.statusCode() + ", " + answer.length() + " characters: "
+                        + shorten(answer));
             }
         }
         assertThat(wrong).as("files answered otherwise than expected-policies.tsv says").isEmpty();
@@ -211,16 +249,24 @@ class HostileInputTest {
     @Order(5)
     void theLiveReloadRejectsHostileFilesWhileThePolicyInForceKeepsRunning() throws IOException {
         String original = Files.readString(policyFile);
-        for (String name : List.of("p19-billion-laughs.yaml", "p12-deep-flow-nesting.yaml", "p27-expression-in-message.yaml",
-                "p30-nul-escape-in-message.yaml", "p37-webhook-url-in-policy.yaml")) {
-            PolicyCase c = table("expected-policies.tsv").stream().map(PolicyCase::of).filter(p -> p.file().endsWith(name)).findFirst()
-                    .orElseThrow();
-            Files.write(policyFile, Files.readAllBytes(CORPUS.resolve(c.file())));
-            assertTimeoutPreemptively(HANG, () -> given().post("/api/policy/reload").then().statusCode(422)
-                    .body("result", equalTo("rejected"))
-                    .body("detail", containsString(policyFile + ":" + c.position() + ": "))
-                    .body("detail", containsString(c.message())));
+        List<LogCapture.Line> lines;
+        try (LogCapture logs = LogCapture.everything()) {
+            for (String name : List.of("p19-billion-laughs.yaml", "p12-deep-flow-nesting.yaml", "p27-expression-in-message.yaml",
+                    "p30-nul-escape-in-message.yaml", "p37-webhook-url-in-policy.yaml", "p39-aliases-of-a-long-text.yaml")) {
+                PolicyCase c = table("expected-policies.tsv").stream().map(PolicyCase::of).filter(p -> p.file().endsWith(name)).findFirst()
+                        .orElseThrow();
+                Files.write(policyFile, Files.readAllBytes(CORPUS.resolve(c.file())));
+                String detail = assertTimeoutPreemptively(HANG, () -> given().post("/api/policy/reload").then().statusCode(422)
+                        .body("result", equalTo("rejected"))
+                        .body("detail", containsString(policyFile + ":" + c.position() + ": "))
+                        .body("detail", containsString(c.message())).extract().path("detail"));
+                assertThat(detail.length()).as(name + ": the reload's answer").isLessThan(MAX_ANSWER);
+            }
+            lines = logs.lines();
         }
+        // the rejections are logged, each record one line of a few hundred characters at most, whatever the file held
+        assertThat(lines).anySatisfy(l -> assertThat(l.message()).contains("rejected"));
+        assertThat(lines).allSatisfy(l -> assertThat(l.message()).doesNotContain("\n").doesNotContain("\r").hasSizeLessThan(MAX_LOG_LINE));
         Files.writeString(policyFile, original);
         given().post("/api/policy/reload").then().statusCode(200).body("result", equalTo("unchanged"));
     }
@@ -242,6 +288,53 @@ class HostileInputTest {
 
     @Test
     @Order(7)
+    void everyMuteAcknowledgementAndLiftIsCheckedBeforeAnythingIsKept() throws IOException {
+        List<AlertCase> cases = table("expected-alerting.tsv").stream().map(AlertCase::of).toList();
+        assertThat(cases).as("the corpus is read").hasSizeGreaterThan(30);
+        // the notice of the previous test, and a mute of this test's own to lift
+        String alert = "/api/alerts/first-inversion~GOVT-B:10Y-3M~2026-05-07~1";
+        int acksBefore = given().get(alert).then().statusCode(200).extract().jsonPath().getList("alert.acks").size();
+        long mute = given().contentType(ContentType.JSON).body(Map.of("rule", "stale-feed", "duration", "PT1H", "reason", "to be lifted",
+                "by", "ops")).post("/api/mutes").then().statusCode(201).extract().jsonPath().getLong("id");
+        int mutesBefore = given().get("/api/mutes").then().statusCode(200).extract().jsonPath().getList("$").size();
+
+        List<String> wrong = new ArrayList<>();
+        int accepted = 0;
+        for (AlertCase c : cases) {
+            byte[] body = Files.readAllBytes(CORPUS.resolve(c.file()));
+            Response r = assertTimeoutPreemptively(HANG, () -> switch (c.request()) {
+                case "mute" -> given().contentType(ContentType.JSON).body(body).post("/api/mutes");
+                case "ack" -> given().contentType(ContentType.JSON).body(body).post(alert + "/ack");
+                default -> given().queryParam("by", JSON.readTree(body).get("by").asText()).delete("/api/mutes/" + mute);
+            });
+            JsonNode errorNode = r.asString().startsWith("{") ? JSON.readTree(r.asString()).get("error") : null;
+            String error = errorNode == null ? "" : errorNode.asText();
+            if (r.statusCode() != c.status() || !c.error().equals("-") && !error.contains(c.error()) || r.asString().length() > MAX_ANSWER) {
+                wrong.add(c.file() + ": expected " + c.status() + " " + c.error() + "\n    got HTTP " + r.statusCode() + " " + shorten(r.asString()));
+            }
+            accepted += c.request().equals("mute") && c.status() == 201 ? 1 : 0;
+        }
+        // a reason of a megabyte: refused by its length, which the answer states without repeating it
+        Response huge = given().contentType(ContentType.JSON).body(Map.of("spread", "10Y-3M", "duration", "PT1H",
+                "reason", "r".repeat(1 << 20), "by", "ops")).post("/api/mutes");
+        if (huge.statusCode() != 400 || huge.asString().length() > 200) {
+            wrong.add("a reason of 1048576 characters: expected a short 400\n    got HTTP " + huge.statusCode() + ", "
+                    + huge.asString().length() + " characters: " + shorten(huge.asString()));
+        }
+        assertThat(wrong).as("mute, acknowledgement and lift bodies answered otherwise than expected-alerting.tsv says").isEmpty();
+
+        // only what was accepted was kept, and the mute lifted is no longer active
+        List<Map<String, Object>> mutes = given().get("/api/mutes").then().statusCode(200).extract().jsonPath().getList("$");
+        assertThat(mutes).hasSize(mutesBefore + accepted);
+        assertThat(mutes).filteredOn(m -> ((Number) m.get("id")).longValue() == mute).singleElement()
+                .satisfies(m -> assertThat(m.get("active")).isEqualTo(false));
+        assertThat(given().get(alert).then().statusCode(200).extract().jsonPath().getList("alert.acks")).hasSize(acksBefore + 1);
+        assertThat(given().get("/api/mutes").then().extract().asString() + given().get(alert).then().extract().asString())
+                .doesNotContain("risk-officer").doesNotContain("forged");
+    }
+
+    @Test
+    @Order(8)
     void afterAllOfItTheDaemonIsHealthyAndTakesAGoodQuote() {
         given().get("/q/health/live").then().statusCode(200);
         given().get("/q/health/ready").then().statusCode(200);

@@ -18,8 +18,10 @@ import java.util.concurrent.Executors;
 
 /**
  * A small SMTP server on 127.0.0.1 that answers RCPT with a reply the test chooses, for the
- * rejections GreenMail does not make (550 unknown mailbox, 450 mailbox busy). It speaks just
- * enough SMTP for a real client: greeting, EHLO, MAIL, RCPT, DATA, RSET, NOOP, QUIT.
+ * rejections GreenMail does not make (550 unknown mailbox, 450 mailbox busy), and, once told to
+ * ({@link #refuseLoginWith}), offers AUTH PLAIN and LOGIN and refuses every login with a reply of
+ * the test's. It speaks just enough SMTP for a real client: greeting, EHLO, AUTH, MAIL, RCPT,
+ * DATA, RSET, NOOP, QUIT.
  */
 final class ScriptedSmtpServer implements AutoCloseable {
 
@@ -27,6 +29,7 @@ final class ScriptedSmtpServer implements AutoCloseable {
     private final ExecutorService threads = Executors.newCachedThreadPool();
     private final List<String> commands = new CopyOnWriteArrayList<>();
     private volatile String rcptReply = "250 2.1.5 OK";
+    private volatile String authReply;
 
     private ScriptedSmtpServer(ServerSocket server) {
         this.server = server;
@@ -48,6 +51,15 @@ final class ScriptedSmtpServer implements AutoCloseable {
     /** From now on every RCPT gets this reply, e.g. {@code 550 5.1.1 no such mailbox}. */
     void answerRcptWith(String reply) {
         rcptReply = reply;
+    }
+
+    /**
+     * From now on EHLO offers AUTH PLAIN LOGIN and every AUTH gets this reply, e.g.
+     * {@code 535 5.7.8 authentication failed}; two methods, so that a client tries the second
+     * after the first was refused (the mail client logs the first refusal before it does).
+     */
+    void refuseLoginWith(String reply) {
+        authReply = reply;
     }
 
     /** The commands received so far, in order. */
@@ -76,7 +88,8 @@ final class ScriptedSmtpServer implements AutoCloseable {
                 commands.add(line);
                 String verb = line.length() < 4 ? line.toUpperCase(Locale.ROOT) : line.substring(0, 4).toUpperCase(Locale.ROOT);
                 switch (verb) {
-                    case "EHLO", "HELO" -> reply(out, "250 scripted.test");
+                    case "EHLO", "HELO" -> reply(out, authReply == null ? "250 scripted.test" : "250-scripted.test\r\n250 AUTH PLAIN LOGIN");
+                    case "AUTH" -> reply(out, authReply == null ? "502 5.5.1 not implemented" : authReply);
                     case "MAIL" -> reply(out, "250 2.1.0 OK");
                     case "RCPT" -> reply(out, rcptReply);
                     case "DATA" -> {

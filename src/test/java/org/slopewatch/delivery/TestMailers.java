@@ -12,10 +12,15 @@ import jakarta.inject.Inject;
 public class TestMailers {
 
     static final String[] SCRIPTED = {"scripted-rejects", "scripted-busy", "scripted-echo"};
+    static final String[] SCRIPTED_LOGIN = {"scripted-login", "scripted-login-quiet"};
 
     @Inject
     @MailerName("wrong-password")
     Mailer wrongPassword;
+
+    @Inject
+    @MailerName("wrong-password-secrets")
+    Mailer wrongPasswordForSecrets;
 
     @Inject
     @MailerName("refused")
@@ -33,8 +38,21 @@ public class TestMailers {
     @MailerName("scripted-echo")
     Mailer scriptedEcho;
 
+    @Inject
+    @MailerName("scripted-login")
+    Mailer scriptedLogin;
+
+    @Inject
+    @MailerName("scripted-login-quiet")
+    Mailer scriptedLoginQuiet;
+
     Mailer wrongPassword() {
         return wrongPassword;
+    }
+
+    /** A wrong password of its own for {@link SecretsNeverLeakTest}, so that no other test's refused login precedes its attempt. */
+    Mailer wrongPasswordForSecrets() {
+        return wrongPasswordForSecrets;
     }
 
     Mailer refused() {
@@ -54,5 +72,15 @@ public class TestMailers {
     /** The scripted server, for the reply that repeats the password. */
     Mailer scriptedEcho() {
         return scriptedEcho;
+    }
+
+    /** The scripted server that refuses the login with a reply repeating the password. */
+    Mailer scriptedLogin() {
+        return scriptedLogin;
+    }
+
+    /** The same server through a mailer of its own, for the case at the configured log levels. */
+    Mailer scriptedLoginQuiet() {
+        return scriptedLoginQuiet;
     }
 }

@@ -48,11 +48,15 @@ abstract class AlertStoreChecks {
     }
 
     private static JournalEntries notice(String id, int notice, Alert.Kind kind) {
+        return notice(id, notice, kind, null);
+    }
+
+    private static JournalEntries notice(String id, int notice, Alert.Kind kind, String mutedBy) {
         Alert alert = new Alert(id, "inversion-confirmed", Severity.CRITICAL, kind, "GOVT-A:10Y-3M", LocalDate.of(2026, 9, 30),
                 "CONFIRMED", "[CRITICAL] GOVT-A 10Y-3M CONFIRMED", "confirmed\n\n" + Alert.CAUTION,
                 List.of(new Alert.Fact("days inverted", "92"), new Alert.Fact("tab\there", "line\nbreak")), "http://localhost:8080/", T0);
         JournalEntries e = new JournalEntries();
-        e.alert(new JournalEntries.AlertEntry(alert, "GOVT-A:10Y-3M", LocalDate.of(2026, 9, 30), notice, null, "abc123", 42L,
+        e.alert(new JournalEntries.AlertEntry(alert, "GOVT-A:10Y-3M", LocalDate.of(2026, 9, 30), notice, mutedBy, "abc123", 42L,
                 List.of(new JournalEntries.Outbox("log", null), new JournalEntries.Outbox("desk-chat", "channel desk-chat is not configured"))));
         return e;
     }
@@ -128,6 +132,21 @@ abstract class AlertStoreChecks {
                 .as("read before instance-2's attempt was recorded: stale").isFalse();
         AlertStore.Delivery fresh = first.due("log", T0.plusSeconds(200), 10).get(0).delivery();
         assertThat(first.claim(fresh, "instance-1", T0.plusSeconds(200), T0.plusSeconds(320))).as("recording the attempt freed it").isTrue();
+    }
+
+    @Test
+    void aNoticeMutedByTheLongestMuteIsStored() {
+        // The desk describes the mute that silenced a notice as "KIND TARGET muted by BY until UNTIL (REASON)"; with a
+        // rule of 100 characters, by of 100 and a reason of 400 (what the mute table holds, V2__alerts.sql) that is
+        // about 650 characters, and alert.muted_by holds 400: the write of the notice, and with it the whole
+        // pipeline step, failed.
+        AgroalDataSource ds = database();
+        String id = "inversion-confirmed~GOVT-A:10Y-3M~2026-09-30~1";
+        String mutedBy = "rule " + "r".repeat(100) + " muted by " + "b".repeat(100) + " until " + T0.plusSeconds(3600) + " ("
+                + "x".repeat(400) + ")";
+        new JournalWriter(ds, clock).write(notice(id, 1, Alert.Kind.FIRING, mutedBy));
+        String stored = new AlertStore(ds, clock).find(id).stored().mutedBy();
+        assertThat(stored).hasSize(400).startsWith("rule " + "r".repeat(100) + " muted by ").endsWith("…");
     }
 
     @Test

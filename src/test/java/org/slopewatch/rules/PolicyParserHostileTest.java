@@ -2,10 +2,13 @@ package org.slopewatch.rules;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.catchThrowableOfType;
+import static org.junit.jupiter.api.Assertions.assertTimeoutPreemptively;
 
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.time.Duration;
+import java.util.Collections;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -81,6 +84,56 @@ class PolicyParserHostileTest {
         PolicyException e = problems("# " + "x".repeat(4_000_000) + "\n" + DEFAULT);
         assertThat(e.getMessage()).isEqualTo("p.yaml:1:1: the policy is " + (4_000_003 + DEFAULT.length())
                 + " characters long; at most 1048576");
+    }
+
+    @Test
+    void aliasesOfALongTextAreRefusedByWhatTheyExpandTo() {
+        // was: the YAML reader limits only aliases of lists and mappings (50), so 7,000 aliases of one 5,000-character
+        // text passed, and each became a problem quoting the whole text: 35 MB of message from a 33 kB file
+        String text = "x: &x \"" + "y".repeat(5_000) + "\"\nwatch:\n  - spread: 10Y-3M\n    confirm: ["
+                + String.join(", ", Collections.nCopies(7_000, "*x")) + "]\n";
+        PolicyException e = assertTimeoutPreemptively(Duration.ofSeconds(10), () -> problems(text));
+        // Counted by hand, one per node plus the characters of each text: the top mapping 1, 'x' 2, the text 5,001,
+        // 'watch' 6, its list 1, the entry 1, 'spread' 7, '10Y-3M' 7, 'confirm' 8, its list 1: 5,035; each alias
+        // adds 5,001, so the 209th passes 1,048,576 (5,035 + 209 x 5,001 = 1,050,244). "    confirm: [" is 14
+        // characters and the aliases 4 apart: the 209th is at column 15 + 208 x 4 = 847.
+        assertThat(e.getMessage()).isEqualTo("p.yaml:4:847: with its aliases expanded the policy is larger than the limit of 1048576 "
+                + "characters and nodes");
+    }
+
+    @Test
+    void aLongValueIsQuotedAsAnExcerptWithItsLength() {
+        // was: the whole value quoted, here 300,000 characters of message for one problem
+        PolicyException e = problems("watch:\n  - spread: 10Y-3M\n    confirm: [" + "q".repeat(300_000) + "]\n");
+        assertThat(e.getMessage()).isEqualTo("p.yaml:3:15: unknown persistence test '" + "q".repeat(200) + "…' (300000 characters) "
+                + "(known: quarter-average, days-inverted, rolling-average, share-inverted)");
+    }
+
+    @Test
+    void aHundredProblemsAreListedAndTheRestCounted() {
+        // was: every problem listed, so a list of 5,000 unknown names answered with 5,000 lines (and a megabyte-long
+        // list of them with hundreds of thousands)
+        PolicyException e = problems("watch:\n  - spread: 10Y-3M\n    confirm: [" + String.join(", ", Collections.nCopies(5_000, "weekly"))
+                + "]\n");
+        assertThat(e.problems()).hasSize(100);
+        assertThat(e.getMessage().split(System.lineSeparator())).hasSize(101);
+        assertThat(e.getMessage()).startsWith("p.yaml:3:15: unknown persistence test 'weekly'").endsWith("p.yaml: 4900 more problems not listed");
+    }
+
+    @Test
+    void aLineBreakInAQuotedValueIsEscapedSoEachProblemIsOneLine() {
+        // was: a value holding a line break was quoted as it is, and its problem spread over two lines of the message
+        PolicyException e = problems("watch:\n  - spread: 10Y-3M\n    confirm: [\"weekly\\nstate: CONFIRMED\"]\n");
+        assertThat(e.getMessage()).isEqualTo("p.yaml:3:15: unknown persistence test 'weekly\\nstate: CONFIRMED' (known: quarter-average, "
+                + "days-inverted, rolling-average, share-inverted)");
+    }
+
+    @Test
+    void aRuleOrChannelNameLongerThanTheJournalHoldsIsAProblem() {
+        // was: accepted; alert.rule and delivery.channel hold 100 characters, so every notice of the rule failed its write
+        String longName = "n".repeat(101);
+        assertThat(problems(DEFAULT.replace("name: first-inversion", "name: " + longName)).getMessage())
+                .isEqualTo("p.yaml:63:11: 'name' is 101 characters long; at most 100");
     }
 
     private static String read(String file) {
