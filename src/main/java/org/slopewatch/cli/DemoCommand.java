@@ -4,8 +4,7 @@ import io.quarkus.runtime.Quarkus;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.LinkedHashMap;
-import java.util.Map;
+import java.util.Properties;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
@@ -40,21 +39,21 @@ final class DemoCommand implements Callable<Integer> {
      * given, so that {@code quarkus.http.port} and {@code QUARKUS_HTTP_PORT} apply as they do to
      * {@code serve}.
      */
-    Map<String, String> settings(Path dir, String token) {
-        Map<String, String> settings = new LinkedHashMap<>();
-        settings.put("slopewatch.data-dir", dir.toAbsolutePath().toString());
-        settings.put("slopewatch.demo.enabled", "true");
-        settings.put("slopewatch.demo.seed", Long.toString(seed));
+    Properties settings(Path dir, String token) {
+        Properties settings = new Properties();
+        settings.setProperty("slopewatch.data-dir", dir.toAbsolutePath().toString());
+        settings.setProperty("slopewatch.demo.enabled", "true");
+        settings.setProperty("slopewatch.demo.seed", Long.toString(seed));
         // the scenario's market clock runs ahead of the calendar: its dates are not "too far in the future"
-        settings.put("slopewatch.ingest.max-days-ahead", "36500");
-        settings.put("slopewatch.ingest.curves", "GOVT-A,GOVT-B");
+        settings.setProperty("slopewatch.ingest.max-days-ahead", "36500");
+        settings.setProperty("slopewatch.ingest.curves", "GOVT-A,GOVT-B");
         if (port != null) {
-            settings.put("quarkus.http.port", port.toString());
+            settings.setProperty("quarkus.http.port", port.toString());
         }
         // a local demo: anyone on this machine may read; changing anything (posting quotes,
         // acknowledging, muting) takes the token printed here, made afresh for each run
-        settings.put("slopewatch.security.write-tokens", token);
-        settings.put("slopewatch.security.open-reads", "true");
+        settings.setProperty("slopewatch.security.write-tokens", token);
+        settings.setProperty("slopewatch.security.open-reads", "true");
         return settings;
     }
 
@@ -72,7 +71,7 @@ final class DemoCommand implements Callable<Integer> {
         Path dir = data != null ? data : Files.createTempDirectory("slopewatch-demo-");
         Files.createDirectories(dir);
         String token = newToken();
-        settings(dir, token).forEach(System::setProperty);
+        settings(dir, token).forEach((key, value) -> System.setProperty((String) key, (String) value));
         System.out.println("slopewatch demo: journal in " + dir.toAbsolutePath());
         System.out.println("slopewatch demo: write token for this run (POST /api/quotes, acknowledge, mute): " + token);
         System.out.println("  e.g. curl -H 'Authorization: Bearer " + token + "' -X POST localhost:" + announcedPort() + "/api/policy/reload");
