@@ -1,17 +1,26 @@
 package org.slopewatch.ingest;
 
-/** Bad input in a history file, with the place it was found: {@code file:line: what is wrong}. */
+/**
+ * Bad input in a history file, with the place it was found: {@code file:line:column: what is
+ * wrong}, line and column counted from 1 (columns in characters).
+ */
 public final class HistoryFormatException extends Exception {
 
     private final String source;
     private final long line;
+    private final int column;
     private final String problem;
 
-    public HistoryFormatException(String source, long line, String problem) {
-        super(source + ":" + line + ": " + problem);
+    public HistoryFormatException(String source, long line, int column, String problem) {
+        super(source + ":" + line + ":" + column + ": " + problem);
         this.source = source;
         this.line = line;
+        this.column = column;
         this.problem = problem;
+    }
+
+    HistoryFormatException(String source, TextPosition at, String problem) {
+        this(source, at.line(), at.column(), problem);
     }
 
     public String source() {
@@ -20,6 +29,10 @@ public final class HistoryFormatException extends Exception {
 
     public long line() {
         return line;
+    }
+
+    public int column() {
+        return column;
     }
 
     public String problem() {

@@ -90,7 +90,7 @@ class QuoteIngestTest {
                 .queryParam("curve", "GOVT-A").post("/api/quotes").then().statusCode(200).body("accepted", equalTo(2));
         given().contentType("text/csv").body("date,curve,tenor,yield\n2026-04-03,GOVT-A,10Y,4.4\n2026-04-01,GOVT-A,2Y,4.7\n")
                 .post("/api/quotes").then().statusCode(400)
-                .body("errors[0].detail", equalTo("request:3: dates out of order: 2026-04-01 after 2026-04-03"));
+                .body("errors[0].detail", equalTo("request:3:1: dates out of order: 2026-04-01 after 2026-04-03"));
         given().get("/api/spreads/GOVT-A:10Y-2Y/history?from=2026-04-01&to=2026-04-02").then().statusCode(200)
                 .body("", hasSize(2)).body("value_bp", equalTo(java.util.List.of(-10.0f, -20.0f)));
         given().get("/api/transitions?spread=GOVT-A:10Y-2Y").then().statusCode(200).body("size()", greaterThanOrEqualTo(1));
