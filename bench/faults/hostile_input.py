@@ -1,8 +1,9 @@
 #!/usr/bin/env python3
 """The long form of HostileInputTest: the bad-input corpus against a daemon that is already running.
 
-Posts every quote file of bench/faults/corpus/quotes (in name order) to POST /api/quotes, checks
-each answer against expected-quotes.tsv (status, accepted, duplicates, reasons, first detail), checks
+Posts every quote file of bench/faults/corpus/quotes (in the table's order, with the content type the
+table gives) to POST /api/quotes, checks each answer against expected-quotes.tsv (status, accepted,
+duplicates, reasons, first detail), checks
 after every file that the daemon still answers /q/health/live, then sends the oversized requests
 (a body past the 16M limit, a batch of 20,001 quotes), runs `./slopewatch check-rules` on the policy
 corpus against expected-policies.tsv and, with --policy-file, tries a few hostile policies through
@@ -74,9 +75,8 @@ def quotes(base, token):
     total = 0.0
     slowest = (0.0, "")
     rows = table("expected-quotes.tsv")
-    for f, category, status, accepted, duplicates, reasons, detail in rows:
+    for f, kind, category, status, accepted, duplicates, reasons, detail in rows:
         body = (CORPUS / f).read_bytes().replace(b'"corpus-', b'"' + run)
-        kind = "text/csv" if f.endswith(".csv") else "application/json"
         code, text, seconds = request(base + "/api/quotes", token, "POST", body, kind)
         total += seconds
         slowest = max(slowest, (seconds, f))
