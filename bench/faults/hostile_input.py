@@ -4,8 +4,9 @@
 First sends every API route under odd spellings of its path (matrix parameters, escapes, dot
 segments, doubled slashes, case, a backslash, the absolute form) without a token, each of which
 must be refused (400, 401 or 404), as AccessPathSpellingTest does in the build; then posts
-every quote file of bench/faults/corpus/quotes (in name order) to POST /api/quotes, checks
-each answer against expected-quotes.tsv (status, accepted, duplicates, reasons, first detail), checks
+every quote file of bench/faults/corpus/quotes (in the table's order, with the content type the
+table gives) to POST /api/quotes, checks each answer against expected-quotes.tsv (status, accepted,
+duplicates, reasons, first detail), checks
 after every file that the daemon still answers /q/health/live, then sends the oversized requests
 (a body past the 16M limit, a batch of 20,001 quotes), runs `./slopewatch check-rules` on the policy
 corpus against expected-policies.tsv, sends every policy file as a what-if's policy (POST
@@ -82,9 +83,8 @@ def quotes(base, token):
     total = 0.0
     slowest = (0.0, "")
     rows = table("expected-quotes.tsv")
-    for f, category, status, accepted, duplicates, reasons, detail in rows:
+    for f, kind, category, status, accepted, duplicates, reasons, detail in rows:
         body = (CORPUS / f).read_bytes().replace(b'"corpus-', b'"' + run)
-        kind = "text/csv" if f.endswith(".csv") else "application/json"
         code, text, seconds = request(base + "/api/quotes", token, "POST", body, kind)
         total += seconds
         slowest = max(slowest, (seconds, f))

@@ -34,6 +34,12 @@ public class IngestBeans {
 
     @Produces
     @Singleton
+    CsvQuoteDecoder csvQuoteDecoder(QuoteDecoder decoder, IngestRules rules) {
+        return new CsvQuoteDecoder(decoder, rules);
+    }
+
+    @Produces
+    @Singleton
     @Startup
     QuotePipeline quotePipeline(IngestConfig config, PolicyHolder policies, JournalWriter writer, JournalReader reader,
                                 PipelineListener listener, AlertStage alerts, Clock clock) {

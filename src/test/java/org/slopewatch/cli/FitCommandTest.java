@@ -283,7 +283,23 @@ class FitCommandTest {
         Files.write(file, lines);
         CliRun run = fit(file);
         assertThat(run.exitCode()).isEqualTo(2);
-        assertThat(run.err()).contains(file + ":5: 10Y: yield is not a finite number: NaN");
+        int column = lines.get(4).lastIndexOf(',') + 2; // the last field, 10Y, begins after the last comma
+        assertThat(run.err()).contains(file + ":5:" + column + ": 10Y: yield is not a finite number: NaN");
+        assertThat(run.out()).isEmpty();
+    }
+
+    @Test
+    void aFileThatIsNotCsvStopsAtItsLineAndColumn() throws IOException {
+        Path file = slice("quoted.csv", "1970-01", "1979-12");
+        List<String> lines = new ArrayList<>(Files.readAllLines(file));
+        int comma = lines.get(2).lastIndexOf(',');
+        lines.set(2, lines.get(2).substring(0, comma + 1) + "\"" + lines.get(2).substring(comma + 1) + "\"%"); // line 3: text after a closing quote
+        Files.write(file, lines);
+        CliRun run = fit(file);
+        assertThat(run.exitCode()).as(run.err()).isEqualTo(2);
+        // the quoted field begins after the last comma; the % follows its closing quote
+        int column = comma + 2 + lines.get(2).substring(comma + 1).length() - 1;
+        assertThat(run.err()).contains(file + ":3:" + column + ": text after the closing quote of a field: '%'");
         assertThat(run.out()).isEmpty();
     }
 
