@@ -252,7 +252,8 @@ abstract class QuotePipelineRestartChecks {
         assertThat(stored).hasSize(4);
         assertThat(stored).extracting(JournalReader.StoredReject::reason)
                 .containsExactlyInAnyOrder("unknown-curve", "malformed", "bad-date", "malformed");
-        assertThat(stored).anyMatch(r -> r.detail().equals("unknown curve 'GOVT-\uFFFD'"))
+        // the detail quotes the curve as an excerpt, its NUL escaped; the raw text keeps it as U+FFFD
+        assertThat(stored).anyMatch(r -> r.detail().equals("unknown curve 'GOVT-\\u0000'"))
                 .anyMatch(r -> r.raw() != null && r.raw().contains("GOVT-A\uFFFD"))
                 .allMatch(r -> !r.detail().contains("\u0000") && (r.raw() == null || !r.raw().contains("\u0000")));
         assertThat(new JournalReader(ds).quoteCount()).isEqualTo(1);
