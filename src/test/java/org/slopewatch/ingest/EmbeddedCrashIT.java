@@ -23,6 +23,7 @@ import java.util.UUID;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.stream.Collectors;
+import org.assertj.core.api.SoftAssertions;
 import org.awaitility.Awaitility;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.delivery.TestHttpReceiver;
@@ -143,20 +144,25 @@ class EmbeddedCrashIT {
             Set<String> lost = afterKills.stream().flatMap(k -> k.lost().stream()).collect(Collectors.toCollection(TreeSet::new));
             String figures = String.format("kills=%d seed=%d messages=%d requests=%d acknowledged_before_each_kill=%s "
                             + "lost_at_each_kill=%s resent_accepted=%d resent_duplicates=%d journalled=%d distinct=%d missing_after_resend=%d "
-                            + "transitions=%d spells=%d notices=%d posts=%d posts_undisturbed=%d", KILLS, SEED, quotes.size(), requests.size(),
+                            + "transitions=%d (undisturbed %d) spells=%d (%d) notices=%d (%d) posts=%d posts_undisturbed=%d", KILLS, SEED,
+                    quotes.size(), requests.size(),
                     afterKills.stream().map(k -> Integer.toString(k.acknowledged())).toList(),
                     afterKills.stream().map(k -> Integer.toString(k.lost().size())).toList(), resent[0], resent[1], killed.quotes(),
-                    killed.distinctQuoteIds(), missing.size(), killed.transitions().size(), killed.spells().size(), killed.alerts().size(),
-                    posts, postsUndisturbed);
+                    killed.distinctQuoteIds(), missing.size(), killed.transitions().size(), undisturbed.transitions().size(),
+                    killed.spells().size(), undisturbed.spells().size(), killed.alerts().size(), undisturbed.alerts().size(), posts,
+                    postsUndisturbed);
             System.out.println("embedded crash test: " + figures);
             report(figures);
 
             assertThat(undisturbed.transitions()).as("the scenario confirms an inversion").anyMatch(t -> t.contains(" | CONFIRMED | "));
-            assertThat(lost).as("messages answered 200 before a kill and missing from the journal after it").isEmpty();
-            assertThat(missing).as("messages missing from the journal after everything was sent again").isEmpty();
+            SoftAssertions promises = new SoftAssertions();
+            promises.assertThat(lost).as("messages answered 200 before a kill and missing from the journal after it").isEmpty();
+            promises.assertThat(missing).as("messages missing from the journal after everything was sent again").isEmpty();
+            promises.assertThat(received.keySet()).as("every notice reached the receiver").isEqualTo(receivedUndisturbed.keySet());
+            promises.assertThat(posts - postsUndisturbed).as("posts beyond the undisturbed run's, at most one per kill")
+                    .isLessThanOrEqualTo(KILLS);
+            promises.assertAll();
             killed.assertEndsAs(undisturbed, quotes.size());
-            assertThat(received.keySet()).as("every notice reached the receiver").isEqualTo(receivedUndisturbed.keySet());
-            assertThat(posts - postsUndisturbed).as("posts beyond the undisturbed run's, at most one per kill").isLessThanOrEqualTo(KILLS);
         }
     }
 
