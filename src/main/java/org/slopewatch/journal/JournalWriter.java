@@ -17,8 +17,9 @@ import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.Transition;
 
 /**
- * Writes {@link JournalEntries} in one transaction with batched statements. Every row carries
- * the time it was recorded, read from the injected clock.
+ * Writes {@link JournalEntries} in one transaction with batched statements, and returns once the
+ * transaction is on disk ({@link JournalDurability#commit}). Every row carries the time it was
+ * recorded, read from the injected clock.
  */
 public final class JournalWriter {
 
@@ -43,7 +44,7 @@ public final class JournalWriter {
                 observations(c, e, now);
                 conclusions(c, e.conclusions, now);
                 AlertStore.insert(c, e.alerts, now);
-                c.commit();
+                JournalDurability.commit(c);
             } catch (SQLException | RuntimeException ex) {
                 c.rollback();
                 throw ex;
