@@ -23,12 +23,22 @@ import org.slopewatch.monitor.Transition;
  */
 public final class JournalWriter {
 
+    /** Commits between two compactions of an embedded H2 journal's file ({@link JournalCompaction}). */
+    public static final int COMPACT_EVERY = 50;
+
     private final DataSource dataSource;
     private final Clock clock;
+    private final JournalCompaction compaction;
 
     public JournalWriter(DataSource dataSource, Clock clock) {
+        this(dataSource, clock, COMPACT_EVERY);
+    }
+
+    /** @param compactEvery commits between two compactions of an embedded H2 journal's file; 0 never (for measurements) */
+    public JournalWriter(DataSource dataSource, Clock clock, int compactEvery) {
         this.dataSource = dataSource;
         this.clock = clock;
+        this.compaction = new JournalCompaction(compactEvery);
     }
 
     public void write(JournalEntries e) {
@@ -49,6 +59,7 @@ public final class JournalWriter {
                 c.rollback();
                 throw ex;
             }
+            compaction.afterCommit(c);
         } catch (SQLException ex) {
             throw new JournalException("cannot write " + e.quotes.size() + " quotes, " + e.transitionCount
                     + " transitions and " + e.alerts.size() + " alerts to the journal", ex);
