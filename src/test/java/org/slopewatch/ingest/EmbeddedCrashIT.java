@@ -69,7 +69,7 @@ class EmbeddedCrashIT {
      * What the journal held after one kill, against what had been answered 200 before it; {@code lost}
      * are the messages acknowledged and missing that were not missing after an earlier kill already.
      */
-    record AfterKill(int requestsAnswered, int acknowledged, int journalled, Set<String> lost) {
+    record AfterKill(int requestsAnswered, int acknowledged, int journalled, Set<String> lost, Set<String> seenWithoutQuote) {
     }
 
     @Test
@@ -111,7 +111,8 @@ class EmbeddedCrashIT {
                     Set<String> lost = new TreeSet<>(acknowledged);
                     lost.removeAll(journalled);
                     afterKills.forEach(earlier -> lost.removeAll(earlier.lost()));
-                    afterKills.add(new AfterKill(feed.answered(), acknowledged.size(), journalled.size(), lost));
+                    afterKills.add(new AfterKill(feed.answered(), acknowledged.size(), journalled.size(), lost,
+                            JournalContents.seenWithoutQuote(h2Url(killedData), "", "")));
                     System.out.printf("embedded crash test: kill %d after %d request(s) answered: %d message(s) acknowledged in all, "
                             + "%d journalled, %d acknowledged since the last kill but not journalled%n", afterKills.size(),
                             feed.answered(), acknowledged.size(), journalled.size(), lost.size());
@@ -142,12 +143,17 @@ class EmbeddedCrashIT {
             long posts = received.values().stream().mapToLong(Long::longValue).sum();
             long postsUndisturbed = receivedUndisturbed.values().stream().mapToLong(Long::longValue).sum();
             Set<String> lost = afterKills.stream().flatMap(k -> k.lost().stream()).collect(Collectors.toCollection(TreeSet::new));
+            Set<String> seenWithoutQuote = afterKills.stream().flatMap(k -> k.seenWithoutQuote().stream())
+                    .collect(Collectors.toCollection(TreeSet::new));
+            seenWithoutQuote.addAll(JournalContents.seenWithoutQuote(h2Url(killedData), "", ""));
             String figures = String.format("kills=%d seed=%d messages=%d requests=%d acknowledged_before_each_kill=%s "
-                            + "lost_at_each_kill=%s resent_accepted=%d resent_duplicates=%d journalled=%d distinct=%d missing_after_resend=%d "
-                            + "transitions=%d (undisturbed %d) spells=%d (%d) notices=%d (%d) posts=%d posts_undisturbed=%d", KILLS, SEED,
+                            + "lost_at_each_kill=%s seen_without_quote=%d resent_accepted=%d resent_duplicates=%d journalled=%d "
+                            + "distinct=%d missing_after_resend=%d transitions=%d (undisturbed %d) spells=%d (%d) notices=%d (%d) posts=%d "
+                            + "posts_undisturbed=%d", KILLS, SEED,
                     quotes.size(), requests.size(),
                     afterKills.stream().map(k -> Integer.toString(k.acknowledged())).toList(),
-                    afterKills.stream().map(k -> Integer.toString(k.lost().size())).toList(), resent[0], resent[1], killed.quotes(),
+                    afterKills.stream().map(k -> Integer.toString(k.lost().size())).toList(), seenWithoutQuote.size(), resent[0], resent[1],
+                    killed.quotes(),
                     killed.distinctQuoteIds(), missing.size(), killed.transitions().size(), undisturbed.transitions().size(),
                     killed.spells().size(), undisturbed.spells().size(), killed.alerts().size(), undisturbed.alerts().size(), posts,
                     postsUndisturbed);
@@ -157,6 +163,7 @@ class EmbeddedCrashIT {
             assertThat(undisturbed.transitions()).as("the scenario confirms an inversion").anyMatch(t -> t.contains(" | CONFIRMED | "));
             SoftAssertions promises = new SoftAssertions();
             promises.assertThat(lost).as("messages answered 200 before a kill and missing from the journal after it").isEmpty();
+            promises.assertThat(seenWithoutQuote).as("ids journalled as seen, after a kill or at the end, without their quote").isEmpty();
             promises.assertThat(missing).as("messages missing from the journal after everything was sent again").isEmpty();
             promises.assertThat(received.keySet()).as("every notice reached the receiver").isEqualTo(receivedUndisturbed.keySet());
             promises.assertThat(posts - postsUndisturbed).as("posts beyond the undisturbed run's, at most one per kill")

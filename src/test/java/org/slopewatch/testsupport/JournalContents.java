@@ -55,6 +55,21 @@ public record JournalContents(long quotes, long distinctQuoteIds, List<String> t
         }
     }
 
+    /** Ids journalled as seen (table {@code seen_message}) whose quote message the journal does not hold. */
+    public static Set<String> seenWithoutQuote(String url, String user, String password) {
+        try (Connection c = DriverManager.getConnection(url, user, password); Statement s = c.createStatement();
+             ResultSet rs = s.executeQuery("SELECT m.message_id FROM seen_message m WHERE NOT EXISTS "
+                     + "(SELECT 1 FROM quote q WHERE q.message_id = m.message_id)")) {
+            Set<String> out = new TreeSet<>();
+            while (rs.next()) {
+                out.add(rs.getString(1));
+            }
+            return out;
+        } catch (SQLException e) {
+            throw new AssertionError("cannot read the journal at " + url + ": " + e.getMessage(), e);
+        }
+    }
+
     /**
      * The check every fault run ends with: each of {@code quotes} messages journalled once, and the
      * same conclusions as the undisturbed run, row for row (transitions, spells, notices, deliveries).
