@@ -28,8 +28,9 @@ import org.slopewatch.journal.JournalException;
  * journals the attempt and the new schedule together. Because the schedule lives in the journal,
  * pending deliveries resume after a restart; because a delivery is marked done in the same
  * transaction that records its successful attempt, a restart repeats at most the attempt in
- * flight when the process died. Each attempt is preceded by a claim on the outbox row (a two-minute
- * lease), so that several daemons on one journal never send the same delivery at once.
+ * flight when the process died. Each attempt is preceded by a claim on the outbox row (a lease of
+ * {@code slopewatch.alerts.delivery-claim}, two minutes by default), so that several daemons on
+ * one journal never send the same delivery at once.
  *
  * <p>A channel with a long outage holds up only its own queue. Workers poll at
  * {@code slopewatch.alerts.delivery-poll} and are woken at once when new alerts are stored.
@@ -40,15 +41,14 @@ public class AlertDispatcher {
 
     private static final Logger LOG = Logger.getLogger(AlertDispatcher.class);
     private static final int BATCH = 50;
-    // how long a claimed delivery is this instance's alone: longer than any attempt can take (a
-    // channel's time-out is seconds), short enough that a row left by a dead instance is soon retried
-    private static final Duration CLAIM = Duration.ofMinutes(2);
 
     private final ChannelRegistry channels;
     private final AlertStore store;
     private final RetryPolicy retry;
     private final AlertMetrics metrics;
     private final Clock clock;
+    // how long a claimed delivery is this instance's alone (slopewatch.alerts.delivery-claim)
+    private final Duration claim;
     private final ScheduledExecutorService workers;
     // names this process in outbox claims; only equality matters
     private final String instance = ProcessHandle.current().pid() + "@" + UUID.randomUUID();
@@ -60,6 +60,7 @@ public class AlertDispatcher {
         this.retry = retry;
         this.metrics = metrics;
         this.clock = clock;
+        this.claim = config.deliveryClaim();
         this.workers = Executors.newScheduledThreadPool(Math.max(1, channels.all().size()), r -> {
             Thread t = new Thread(r, "slopewatch-delivery");
             t.setDaemon(true);
@@ -120,7 +121,7 @@ public class AlertDispatcher {
 
         private void deliver(AlertStore.Due d) {
             Instant attemptedAt = clock.instant();
-            if (!store.claim(d.delivery(), instance, attemptedAt, attemptedAt.plus(CLAIM))) {
+            if (!store.claim(d.delivery(), instance, attemptedAt, attemptedAt.plus(claim))) {
                 return; // another instance is sending it, or has just sent it
             }
             DeliveryOutcome outcome;

@@ -16,6 +16,14 @@ public interface AlertsConfig {
     @WithDefault("1s")
     Duration deliveryPoll();
 
+    /**
+     * How long a delivery claimed by an instance is that instance's alone: longer than any attempt
+     * can take, short enough that a delivery left by an instance that died is soon taken by another
+     * (or by the same daemon started again).
+     */
+    @WithDefault("2m")
+    Duration deliveryClaim();
+
     /** How often the policy file is checked for changes (hot reload); 0 turns reloading off. */
     @WithDefault("5s")
     Duration reloadCheck();

@@ -34,8 +34,9 @@ import org.slopewatch.spread.SpreadKey;
  * spreads and monitors, journal everything of the step in one transaction, then tell the
  * listeners. One writer: calls are serialised.
  *
- * <p>If the journal write fails, the in-memory state is rebuilt from the journal before the
- * failure is passed on, so memory never runs ahead of what was recorded; if the journal cannot be
+ * <p>If a step fails before its transaction is committed (deciding or writing), the in-memory
+ * state is rebuilt from the journal before the failure is passed on, so memory never runs ahead
+ * of what was recorded (an id is taken as seen only with its quote); if the journal cannot be
  * read either, the rebuild is done before the next step, which fails until it can.
  */
 public final class QuotePipeline {
@@ -119,8 +120,8 @@ public final class QuotePipeline {
         }
     }
 
-    /** After a failed write: memory goes back to what the journal holds, now or, if it cannot be read, before the next step. */
-    private void recoverAfterFailedWrite(RuntimeException failure) {
+    /** After a failed step: memory goes back to what the journal holds, now or, if it cannot be read, before the next step. */
+    private void recoverAfterFailedStep(RuntimeException failure) {
         try {
             recover();
         } catch (RuntimeException again) {
@@ -147,15 +148,16 @@ public final class QuotePipeline {
     public synchronized void tick(Map<String, LocalDate> staleCurves, CurveOwnership owned) {
         recoverIfNeeded();
         JournalEntries journal = new JournalEntries();
-        List<SpreadStatus> ownSpreads = engine.tracks().stream().filter(t -> owned.owns(t.spread().curve())).map(SpreadStatus::of).toList();
-        alerts.onTick(ownSpreads, staleCurves, journal);
-        if (journal.isEmpty()) {
-            return;
-        }
         try {
+            List<SpreadStatus> ownSpreads = engine.tracks().stream().filter(t -> owned.owns(t.spread().curve())).map(SpreadStatus::of)
+                    .toList();
+            alerts.onTick(ownSpreads, staleCurves, journal);
+            if (journal.isEmpty()) {
+                return;
+            }
             writer.write(journal);
         } catch (RuntimeException e) {
-            recoverAfterFailedWrite(e);
+            recoverAfterFailedStep(e);
             throw e;
         }
         alerts.written(journal.alerts());
@@ -179,57 +181,63 @@ public final class QuotePipeline {
         int duplicates = 0;
         Map<String, int[]> acceptedByOrigin = new HashMap<>();
         Map<String, int[]> duplicatesByOrigin = new HashMap<>();
-        for (QuoteBatch batch : batches) {
-            for (Reject r : batch.rejects()) {
-                journal.reject(new JournalEntries.RejectedQuote(batch.origin(), r.reason().code(), r.detail(), r.item(), r.raw()));
-                rejects.add(r);
-            }
-            for (QuoteMessage m : batch.messages()) {
-                if (m.id() != null && !seenIds.add(m.id())) {
-                    duplicates++;
-                    duplicatesByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
-                    continue;
-                }
-                long seq = ++sequence;
-                accepted++;
-                acceptedByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
-                lastReceived.put(m.curve(), Instant.now(clock));
-                journal.quote(new JournalEntries.AcceptedQuote(seq, batch.origin(), m.id(), m.source(), m.time(), m.curve(),
-                        m.date(), m.yieldsBp()));
-                CurveSnapshot snapshot = book.apply(m.curve(), m.date(), m.yieldsBp());
-                stepSpreads.clear();
-                List<MonitorEvent> events = engine.onSnapshot(snapshot, seq, (key, observation) -> {
-                    journal.observation(key, observation);
-                    SpreadTrack track = touched.computeIfAbsent(key, engine::track);
-                    if (track != null && !stepSpreads.contains(track)) {
-                        stepSpreads.add(track);
-                    }
-                });
-                for (MonitorEvent e : events) {
-                    record(e, journal, transitions);
-                }
-                // alerts are decided after each message, on the status it left, not once per batch: a
-                // notice must not depend on how many messages a poll happened to bring (a backlog after
-                // a restart comes in large batches, live quotes in small ones)
-                if (!stepSpreads.isEmpty()) {
-                    alerts.onStep(stepSpreads.stream().map(SpreadStatus::of).toList(), seq, journal);
-                }
-            }
-        }
-        List<SpreadStatus> changed = new ArrayList<>(touched.size());
-        for (SpreadTrack t : touched.values()) {
-            if (t != null) {
-                changed.add(SpreadStatus.of(t));
-            }
-        }
-        long beforeWrite = System.nanoTime();
+        List<SpreadStatus> changed = new ArrayList<>();
+        long beforeWrite;
+        long written;
+        // the whole step or nothing: a failure anywhere before the commit (deciding as well as
+        // writing) leaves memory ahead of the journal (ids taken as seen, monitors moved on), so it
+        // goes back to what the journal holds; otherwise the quotes sent again would be dropped as
+        // duplicates of quotes that were never journalled
         try {
+            for (QuoteBatch batch : batches) {
+                for (Reject r : batch.rejects()) {
+                    journal.reject(new JournalEntries.RejectedQuote(batch.origin(), r.reason().code(), r.detail(), r.item(), r.raw()));
+                    rejects.add(r);
+                }
+                for (QuoteMessage m : batch.messages()) {
+                    if (m.id() != null && !seenIds.add(m.id())) {
+                        duplicates++;
+                        duplicatesByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
+                        continue;
+                    }
+                    long seq = ++sequence;
+                    accepted++;
+                    acceptedByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
+                    lastReceived.put(m.curve(), Instant.now(clock));
+                    journal.quote(new JournalEntries.AcceptedQuote(seq, batch.origin(), m.id(), m.source(), m.time(), m.curve(),
+                            m.date(), m.yieldsBp()));
+                    CurveSnapshot snapshot = book.apply(m.curve(), m.date(), m.yieldsBp());
+                    stepSpreads.clear();
+                    List<MonitorEvent> events = engine.onSnapshot(snapshot, seq, (key, observation) -> {
+                        journal.observation(key, observation);
+                        SpreadTrack track = touched.computeIfAbsent(key, engine::track);
+                        if (track != null && !stepSpreads.contains(track)) {
+                            stepSpreads.add(track);
+                        }
+                    });
+                    for (MonitorEvent e : events) {
+                        record(e, journal, transitions);
+                    }
+                    // alerts are decided after each message, on the status it left, not once per batch: a
+                    // notice must not depend on how many messages a poll happened to bring (a backlog after
+                    // a restart comes in large batches, live quotes in small ones)
+                    if (!stepSpreads.isEmpty()) {
+                        alerts.onStep(stepSpreads.stream().map(SpreadStatus::of).toList(), seq, journal);
+                    }
+                }
+            }
+            for (SpreadTrack t : touched.values()) {
+                if (t != null) {
+                    changed.add(SpreadStatus.of(t));
+                }
+            }
+            beforeWrite = System.nanoTime();
             writer.write(journal);
+            written = System.nanoTime();
         } catch (RuntimeException e) {
-            recoverAfterFailedWrite(e);
+            recoverAfterFailedStep(e);
             throw e;
         }
-        long written = System.nanoTime();
         acceptedByOrigin.forEach((origin, n) -> listener.accepted(origin, n[0]));
         duplicatesByOrigin.forEach((origin, n) -> listener.duplicates(origin, n[0]));
         for (QuoteBatch batch : batches) {

@@ -557,12 +557,16 @@ public final class AlertStore {
         }
     }
 
+    /**
+     * Runs {@code work} in one transaction and returns once it is on disk, so that an attempt
+     * recorded as made is not made again after a crash.
+     */
     private void inTransaction(Work work) {
         try (Connection c = dataSource.getConnection()) {
             c.setAutoCommit(false);
             try {
                 work.run(c);
-                c.commit();
+                JournalDurability.commit(c);
             } catch (SQLException | RuntimeException e) {
                 c.rollback();
                 throw e;

@@ -10,16 +10,25 @@ import java.time.Duration;
 import org.flywaydb.core.Flyway;
 
 /**
- * Opens the journal database (H2 embedded or PostgreSQL shared, told apart by the JDBC URL) and
- * brings its schema up to date with the Flyway migrations in {@code db/journal}.
+ * Opens the journal database (H2 embedded or PostgreSQL shared, told apart by the JDBC URL),
+ * configured so that a commit is on disk when it returns ({@link JournalDurability}), and brings
+ * its schema up to date with the Flyway migrations in {@code db/journal}.
  */
 public final class JournalDatabase {
 
     private JournalDatabase() {
     }
 
-    /** A pooled data source on a migrated journal. The URL is never logged with its credentials. */
+    /**
+     * A pooled data source on a migrated journal whose commits are durable. The URL is never logged
+     * with its credentials.
+     *
+     * @throws IllegalArgumentException for a URL of another database, or one that asks for commits
+     *         that are not durable (H2's {@code WRITE_DELAY} other than 0)
+     * @throws IllegalStateException when the opened database would not make commits durable
+     */
     public static AgroalDataSource open(String jdbcUrl, String username, String password, int maxConnections) {
+        String url = JournalDurability.url(jdbcUrl);
         AgroalDataSource ds;
         try {
             ds = AgroalDataSource.from(new AgroalDataSourceConfigurationSupplier()
@@ -34,7 +43,11 @@ public final class JournalDatabase {
                             .connectionValidator(AgroalConnectionPoolConfiguration.ConnectionValidator.defaultValidatorWithTimeout(5))
                             .idleValidationTimeout(Duration.ofSeconds(5))
                             .connectionFactoryConfiguration(cf -> {
-                                cf.jdbcUrl(jdbcUrl).connectionProviderClass(driverFor(jdbcUrl));
+                                cf.jdbcUrl(url).connectionProviderClass(driverFor(url));
+                                String sessionSql = JournalDurability.sessionSql(url);
+                                if (sessionSql != null) {
+                                    cf.initialSql(sessionSql);
+                                }
                                 if (username != null && !username.isBlank()) {
                                     cf.principal(new NamePrincipal(username));
                                 }
@@ -47,8 +60,9 @@ public final class JournalDatabase {
             throw new JournalException("cannot open the journal at " + withoutCredentials(jdbcUrl), e);
         }
         try {
-            migrate(ds, jdbcUrl);
-        } catch (JournalException e) {
+            migrate(ds, url);
+            JournalDurability.check(ds, url);
+        } catch (RuntimeException e) {
             ds.close();
             throw e;
         }

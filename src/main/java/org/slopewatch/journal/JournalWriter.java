@@ -17,17 +17,28 @@ import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.Transition;
 
 /**
- * Writes {@link JournalEntries} in one transaction with batched statements. Every row carries
- * the time it was recorded, read from the injected clock.
+ * Writes {@link JournalEntries} in one transaction with batched statements, and returns once the
+ * transaction is on disk ({@link JournalDurability#commit}). Every row carries the time it was
+ * recorded, read from the injected clock.
  */
 public final class JournalWriter {
 
+    /** Commits between two compactions of an embedded H2 journal's file ({@link JournalCompaction}). */
+    public static final int COMPACT_EVERY = 50;
+
     private final DataSource dataSource;
     private final Clock clock;
+    private final JournalCompaction compaction;
 
     public JournalWriter(DataSource dataSource, Clock clock) {
+        this(dataSource, clock, COMPACT_EVERY);
+    }
+
+    /** @param compactEvery commits between two compactions of an embedded H2 journal's file; 0 never (for measurements) */
+    public JournalWriter(DataSource dataSource, Clock clock, int compactEvery) {
         this.dataSource = dataSource;
         this.clock = clock;
+        this.compaction = new JournalCompaction(compactEvery);
     }
 
     public void write(JournalEntries e) {
@@ -43,11 +54,12 @@ public final class JournalWriter {
                 observations(c, e, now);
                 conclusions(c, e.conclusions, now);
                 AlertStore.insert(c, e.alerts, now);
-                c.commit();
+                JournalDurability.commit(c);
             } catch (SQLException | RuntimeException ex) {
                 c.rollback();
                 throw ex;
             }
+            compaction.afterCommit(c);
         } catch (SQLException ex) {
             throw new JournalException("cannot write " + e.quotes.size() + " quotes, " + e.transitionCount
                     + " transitions and " + e.alerts.size() + " alerts to the journal", ex);

@@ -1,5 +1,7 @@
 package org.slopewatch.delivery;
 
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
 import com.sun.net.httpserver.HttpExchange;
 import com.sun.net.httpserver.HttpServer;
 import java.io.IOException;
@@ -12,6 +14,8 @@ import java.time.Duration;
 import java.util.ArrayDeque;
 import java.util.Deque;
 import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
 import java.util.concurrent.CopyOnWriteArrayList;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.ExecutorService;
@@ -36,6 +40,8 @@ public final class TestHttpReceiver implements AutoCloseable {
     /** One scripted answer; {@code status < 0} means never answer. */
     private record Reply(int status, Function<Request, String> body) {
     }
+
+    private static final ObjectMapper JSON = new ObjectMapper();
 
     private final Deque<Reply> script = new ArrayDeque<>();
     private final List<Request> requests = new CopyOnWriteArrayList<>();
@@ -134,6 +140,25 @@ public final class TestHttpReceiver implements AutoCloseable {
     /** The requests answered with 2xx: what the chat service actually took. */
     public List<Request> accepted() {
         return List.copyOf(accepted);
+    }
+
+    /**
+     * Notice id → how many times a notice was posted to {@code path}, for a channel posting alert
+     * JSON ({@code format=alert-json}), whatever the answer.
+     */
+    public Map<String, Long> noticesReceived(String path) {
+        Map<String, Long> out = new TreeMap<>();
+        for (Request r : requests) {
+            if (r.path().equals(path)) {
+                try {
+                    JsonNode notice = JSON.readTree(r.body());
+                    out.merge(notice.path("id").asText(), 1L, Long::sum);
+                } catch (IOException e) {
+                    throw new UncheckedIOException("not alert JSON on " + path + ": " + r.body(), e);
+                }
+            }
+        }
+        return out;
     }
 
     /** Closes the port: from now on connections are refused. */

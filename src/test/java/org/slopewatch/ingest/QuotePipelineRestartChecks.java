@@ -1,6 +1,7 @@
 package org.slopewatch.ingest;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import io.agroal.api.AgroalDataSource;
 import java.time.Clock;
@@ -146,6 +147,51 @@ abstract class QuotePipelineRestartChecks {
         BatchOutcome afterRestart = pipeline(ds).process(List.of(new QuoteBatch("test", List.of(m), List.of())));
         assertThat(afterRestart.accepted()).isZero();
         assertThat(afterRestart.duplicates()).isEqualTo(1);
+    }
+
+    /**
+     * A step that fails before its transaction commits, here while deciding its alerts, took
+     * nothing: the same message sent again is accepted and journalled, not dropped as a duplicate
+     * of one the journal never got.
+     */
+    @Test
+    void aStepThatFailsBeforeItsCommitTakesNoIdAsSeen() {
+        AgroalDataSource ds = database("failed-step");
+        boolean[] failNext = {true};
+        AlertStage failingOnce = new AlertStage() {
+            @Override
+            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
+                if (failNext[0]) {
+                    failNext[0] = false;
+                    throw new IllegalStateException("the alert stage failed");
+                }
+            }
+
+            @Override
+            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
+            }
+
+            @Override
+            public void written(List<JournalEntries.AlertEntry> alerts) {
+            }
+
+            @Override
+            public void rebuild() {
+            }
+        };
+        QuotePipeline p = new QuotePipeline(WATCHES, new JournalWriter(ds, clock), new JournalReader(ds), PipelineListener.NONE,
+                failingOnce, clock);
+        p.recover();
+        QuoteBatch batch = new QuoteBatch("test", List.of(new QuoteMessage("sent-twice", "test", null, "GOVT-A", LocalDate.of(2026, 3, 2),
+                new java.util.TreeMap<>(Map.of(Tenor.years(10), 400.0, Tenor.months(3), 410.0, Tenor.years(2), 405.0)))), List.of());
+
+        assertThatThrownBy(() -> p.process(List.of(batch))).hasMessageContaining("the alert stage failed");
+        BatchOutcome again = p.process(List.of(batch));
+
+        assertThat(again.accepted()).as("the message sent again after the failed step is accepted").isEqualTo(1);
+        assertThat(again.duplicates()).as("and not taken for a duplicate").isZero();
+        assertThat(new JournalReader(ds).quoteCount()).as("quote messages journalled").isEqualTo(1);
+        assertThat(p.spreads()).as("the monitors saw the quote once").isEqualTo(pipeline(ds).spreads());
     }
 
     @Test

@@ -11,21 +11,25 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
+import java.util.UUID;
 import java.util.concurrent.TimeUnit;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
 /**
  * The packaged daemon ({@code target/quarkus-app/quarkus-run.jar}, built by {@code package}) run as
- * a separate JVM, as an operator runs it: {@code serve --kafka} with its settings as system
+ * a separate JVM, as an operator runs it: {@code serve --kafka} ({@link #start(String, Map, Map)})
+ * or {@code serve} on the embedded defaults ({@link #startEmbedded}), with its settings as system
  * properties. For the integration tests (failsafe, after {@code package}) that need more than one
  * instance at once or must kill one, which a {@code @QuarkusTest} in the test JVM cannot do.
  */
 public final class DaemonProcess implements AutoCloseable {
 
+    private static final String WRITE_TOKENS = "slopewatch.security.write-tokens";
     private static final HttpClient HTTP = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(2)).build();
 
     private final String name;
@@ -49,6 +53,39 @@ public final class DaemonProcess implements AutoCloseable {
      */
     public static DaemonProcess start(String name, Map<String, String> settings, Map<String, String> environment) {
         return start(name, TEST_JVM, List.of("serve", "--kafka"), settings, environment);
+    }
+
+    /**
+     * Starts an instance with {@code serve} alone: the embedded transport (HTTP into the in-process
+     * channel) and, unless {@code settings} name another, the H2 journal under {@code slopewatch.data-dir}.
+     */
+    public static DaemonProcess startEmbedded(String name, Map<String, String> settings) {
+        return start(name, TEST_JVM, List.of("serve"), settings, Map.of());
+    }
+
+    /**
+     * The settings the fault tests' daemons share, whatever the transport: the shipped default
+     * policy, {@code dataDir} for the data, the curves taken, a chat channel posting alert JSON to
+     * {@code chatUrl} (on the loopback address), clock-driven rules evaluated every second, and a
+     * write token of its own ({@link #writeToken}). A mutable map, for the caller's additions.
+     */
+    public static Map<String, String> scenarioSettings(Path dataDir, List<String> curves, String chatUrl) {
+        Map<String, String> s = new LinkedHashMap<>();
+        s.put("slopewatch.home", Path.of("").toAbsolutePath().toString());
+        s.put("slopewatch.data-dir", dataDir.toString());
+        s.put("slopewatch.ingest.curves", String.join(",", curves));
+        s.put("slopewatch.channels.desk-chat.type", "chat-webhook");
+        s.put("slopewatch.channels.desk-chat.url", chatUrl);
+        s.put("slopewatch.channels.desk-chat.format", "alert-json");
+        s.put("slopewatch.delivery.allowed-hosts", "127.0.0.1");
+        s.put("slopewatch.alerts.evaluate-every", "1s");
+        s.put(WRITE_TOKENS, UUID.randomUUID().toString());
+        return s;
+    }
+
+    /** The first write token among {@code settings}, for {@code Authorization: Bearer}. */
+    public static String writeToken(Map<String, String> settings) {
+        return settings.get(WRITE_TOKENS).split(",")[0].trim();
     }
 
     /** JVM options of the tests' instances: a small heap, and a quick start rather than peak speed. */

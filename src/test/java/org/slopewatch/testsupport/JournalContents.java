@@ -1,5 +1,7 @@
 package org.slopewatch.testsupport;
 
+import static org.assertj.core.api.Assertions.assertThat;
+
 import java.sql.Connection;
 import java.sql.DriverManager;
 import java.sql.ResultSet;
@@ -8,6 +10,8 @@ import java.sql.SQLException;
 import java.sql.Statement;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Set;
+import java.util.TreeSet;
 
 /**
  * What a journal concluded, read over JDBC in a form two runs can be compared by: every row of
@@ -35,6 +39,48 @@ public record JournalContents(long quotes, long distinctQuoteIds, List<String> t
         } catch (SQLException e) {
             throw new AssertionError("cannot read the journal at " + url + ": " + e.getMessage(), e);
         }
+    }
+
+    /** The ids of the journalled quote messages. */
+    public static Set<String> quoteIds(String url, String user, String password) {
+        try (Connection c = DriverManager.getConnection(url, user, password); Statement s = c.createStatement();
+             ResultSet rs = s.executeQuery("SELECT message_id FROM quote WHERE message_id IS NOT NULL")) {
+            Set<String> out = new TreeSet<>();
+            while (rs.next()) {
+                out.add(rs.getString(1));
+            }
+            return out;
+        } catch (SQLException e) {
+            throw new AssertionError("cannot read the journal at " + url + ": " + e.getMessage(), e);
+        }
+    }
+
+    /** Ids journalled as seen (table {@code seen_message}) whose quote message the journal does not hold. */
+    public static Set<String> seenWithoutQuote(String url, String user, String password) {
+        try (Connection c = DriverManager.getConnection(url, user, password); Statement s = c.createStatement();
+             ResultSet rs = s.executeQuery("SELECT m.message_id FROM seen_message m WHERE NOT EXISTS "
+                     + "(SELECT 1 FROM quote q WHERE q.message_id = m.message_id)")) {
+            Set<String> out = new TreeSet<>();
+            while (rs.next()) {
+                out.add(rs.getString(1));
+            }
+            return out;
+        } catch (SQLException e) {
+            throw new AssertionError("cannot read the journal at " + url + ": " + e.getMessage(), e);
+        }
+    }
+
+    /**
+     * The check every fault run ends with: each of {@code quotes} messages journalled once, and the
+     * same conclusions as the undisturbed run, row for row (transitions, spells, notices, deliveries).
+     */
+    public void assertEndsAs(JournalContents undisturbed, long quotes) {
+        assertThat(quotes()).as("quote messages journalled").isEqualTo(quotes);
+        assertThat(distinctQuoteIds()).as("distinct message ids journalled").isEqualTo(quotes);
+        assertThat(transitions()).as("transitions").containsExactlyElementsOf(undisturbed.transitions());
+        assertThat(spells()).as("spells").containsExactlyElementsOf(undisturbed.spells());
+        assertThat(alerts()).as("notices").containsExactlyElementsOf(undisturbed.alerts());
+        assertThat(deliveries()).as("deliveries").containsExactlyElementsOf(undisturbed.deliveries());
     }
 
     private static long single(Statement s, String sql) throws SQLException {

@@ -7,14 +7,14 @@ import org.slopewatch.curve.Tenor;
 import org.slopewatch.ingest.QuoteMessage;
 
 /** Writes an accepted message back as a quote message in the canonical form (snapshot, basis points). */
-final class QuoteJson {
+public final class QuoteJson {
 
     private static final ObjectMapper JSON = new ObjectMapper();
 
     private QuoteJson() {
     }
 
-    static String encode(QuoteMessage m) {
+    public static String encode(QuoteMessage m) {
         ObjectNode node = JSON.createObjectNode();
         node.put("curve", m.curve());
         node.put("date", m.date().toString());

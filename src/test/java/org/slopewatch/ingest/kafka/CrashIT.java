@@ -82,8 +82,8 @@ class CrashIT {
 
             JournalContents killed = KafkaRuns.contents(crashJournal);
             JournalContents uninterrupted = KafkaRuns.contents(soloJournal);
-            Map<String, Long> received = KafkaRuns.noticesReceived(chat, "/killed/hook");
-            Map<String, Long> receivedUninterrupted = KafkaRuns.noticesReceived(chat, "/solo/hook");
+            Map<String, Long> received = chat.noticesReceived("/killed/hook");
+            Map<String, Long> receivedUninterrupted = chat.noticesReceived("/solo/hook");
             long extraPosts = received.values().stream().mapToLong(n -> n - 1).sum();
             String figures = String.format("kills=%d seed=%d quotes=%d transitions=%d spells=%d notices=%d posts=%d extra_posts=%d "
                             + "restarts_rebuilt_from=%s", KILLS, SEED, quotes.size(), killed.transitions().size(), killed.spells().size(),
@@ -93,7 +93,7 @@ class CrashIT {
 
             assertThat(uninterrupted.transitions()).anyMatch(t -> t.contains(" | CONFIRMED | "));
             assertThat(last.isAlive()).isTrue();
-            KafkaRuns.assertSameJournal(killed, uninterrupted, quotes.size());
+            killed.assertEndsAs(uninterrupted, quotes.size());
             assertThat(received.keySet()).as("every notice reached the receiver").isEqualTo(receivedUninterrupted.keySet());
             assertThat(extraPosts).as("posts beyond the first, at most one per kill").isLessThanOrEqualTo(KILLS);
         } finally {

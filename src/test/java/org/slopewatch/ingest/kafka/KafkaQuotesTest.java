@@ -9,6 +9,8 @@ import io.quarkus.test.junit.QuarkusTest;
 import io.quarkus.test.junit.QuarkusTestProfile;
 import io.quarkus.test.junit.TestProfile;
 import io.restassured.http.ContentType;
+import io.smallrye.reactive.messaging.kafka.KafkaClientService;
+import jakarta.inject.Inject;
 import java.nio.charset.StandardCharsets;
 import java.time.Duration;
 import java.time.LocalDate;
@@ -29,6 +31,7 @@ import org.apache.kafka.clients.producer.ProducerRecord;
 import org.apache.kafka.common.header.Header;
 import org.apache.kafka.common.serialization.StringDeserializer;
 import org.apache.kafka.common.serialization.StringSerializer;
+import org.eclipse.microprofile.config.ConfigProvider;
 import org.eclipse.microprofile.config.inject.ConfigProperty;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.testsupport.KafkaBroker;
@@ -161,6 +164,27 @@ class KafkaQuotesTest {
                 .statusCode(202).body("processed", equalTo(false)).body("accepted", equalTo(1));
         await("GOVT-B on 2025-09-01 processed from the topic").atMost(PATIENCE).untilAsserted(() ->
                 given().get("/api/curves/GOVT-B/2025-09-01").then().statusCode(200).body("yields_bp.'10Y'", equalTo(425.0f)));
+    }
+
+    @Inject
+    KafkaClientService kafkaClients;
+
+    /**
+     * A 202 promises that the quotes are on the topic: the gateway answers once the publisher's
+     * message is acknowledged, which the connector does after the broker's answer
+     * ({@code waitForWriteCompletion}, default true), and the producer asks for {@code acks=all}:
+     * "the leader will wait for the full set of in-sync replicas to acknowledge the record"
+     * (Apache Kafka documentation, producer configuration {@code acks}). The connector's own
+     * default is {@code acks=1}, the leader alone.
+     */
+    @Test
+    void publishingWaitsForEveryInSyncReplica() {
+        for (String channel : List.of("quotes-publish", "quotes-dead-letter")) {
+            assertThat(kafkaClients.getProducer(channel).configuration().get(ProducerConfig.ACKS_CONFIG))
+                    .as("acks of the producer of " + channel).hasToString("all");
+            assertThat(ConfigProvider.getConfig().getOptionalValue("mp.messaging.outgoing." + channel + ".waitForWriteCompletion",
+                    Boolean.class)).as("waitForWriteCompletion of " + channel).isNotEqualTo(java.util.Optional.of(false));
+        }
     }
 
     private void produce(List<ProducerRecord<String, String>> records) throws InterruptedException, ExecutionException, TimeoutException {

@@ -1,19 +1,12 @@
 package org.slopewatch.ingest.kafka;
 
-import static org.assertj.core.api.Assertions.assertThat;
-
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.nio.file.Path;
 import java.time.Duration;
-import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Properties;
-import java.util.TreeMap;
-import java.util.UUID;
 import org.apache.kafka.clients.admin.Admin;
 import org.apache.kafka.clients.admin.AdminClientConfig;
 import org.apache.kafka.clients.admin.NewTopic;
@@ -22,19 +15,19 @@ import org.apache.kafka.clients.producer.ProducerConfig;
 import org.apache.kafka.clients.producer.ProducerRecord;
 import org.apache.kafka.common.serialization.StringSerializer;
 import org.awaitility.Awaitility;
-import org.slopewatch.curve.CurveSnapshot;
-import org.slopewatch.delivery.TestHttpReceiver;
 import org.slopewatch.ingest.QuoteMessage;
-import org.slopewatch.ingest.demo.DemoCurve;
-import org.slopewatch.ingest.demo.DemoScenario;
 import org.slopewatch.testsupport.DaemonProcess;
 import org.slopewatch.testsupport.JournalContents;
 import org.slopewatch.testsupport.KafkaBroker;
+import org.slopewatch.testsupport.ScenarioQuotes;
 import org.slopewatch.testsupport.PostgresServer.TestDatabase;
 
 /**
- * What the integration tests with packaged daemons on Kafka share: the quotes of a scenario, a
- * daemon's settings for one topic and journal, topics, a producer, and the checks of a run's end.
+ * What the integration tests with packaged daemons on Kafka share: the scenario on six curves, a
+ * daemon's settings for one topic and journal, topics, a producer, and the wait for a run's end.
+ * What is not about Kafka is shared with the embedded runs: {@link ScenarioQuotes},
+ * {@link DaemonProcess#scenarioSettings}, {@link JournalContents#assertEndsAs} and
+ * {@code TestHttpReceiver.noticesReceived}.
  */
 final class KafkaRuns {
 
@@ -42,23 +35,12 @@ final class KafkaRuns {
     static final List<String> CURVES = List.of("GOVT-A", "GOVT-B", "GOVT-C", "GOVT-D", "GOVT-E", "GOVT-F");
     static final int PARTITIONS = 6;
 
-    private static final ObjectMapper JSON = new ObjectMapper();
-
     private KafkaRuns() {
     }
 
-    /** The curves through the demo's tightening cycle, each with its own random stream, in market-date order. */
+    /** The curves through the demo's tightening cycle ({@link ScenarioQuotes}), on the six curves. */
     static List<QuoteMessage> scenarioQuotes(long seed, int businessDays) {
-        DemoCurve template = DemoCurve.tightening();
-        List<DemoCurve> curves = CURVES.stream()
-                .map(name -> new DemoCurve(name, template.model(), template.policy(), template.quoteNoiseBp())).toList();
-        List<QuoteMessage> out = new ArrayList<>();
-        // the stream ends before 2026 however long it is: the daemon refuses market dates in the future
-        LocalDate start = LocalDate.of(2026, 1, 1).minusDays(businessDays * 7L / 5 + 14);
-        for (CurveSnapshot s : new DemoScenario(seed, start, curves).snapshots(businessDays)) {
-            out.add(new QuoteMessage("it:" + s.curve() + ":" + s.date(), "integration-test", null, s.curve(), s.date(), s.asMap()));
-        }
-        return out;
+        return ScenarioQuotes.tightening(CURVES, seed, businessDays);
     }
 
     /**
@@ -67,13 +49,9 @@ final class KafkaRuns {
      * (the broker's least session time-out) rather than 45 s, so that a restart after a kill resumes soon.
      */
     static Map<String, String> settings(String topic, TestDatabase journal, String chatUrl) {
-        Path home = Path.of("").toAbsolutePath();
-        Map<String, String> s = new LinkedHashMap<>();
-        s.put("slopewatch.home", home.toString());
-        s.put("slopewatch.data-dir", home.resolve("target/it-data/" + topic).toString());
+        Map<String, String> s = DaemonProcess.scenarioSettings(Path.of("target/it-data/" + topic).toAbsolutePath(), CURVES, chatUrl);
         s.put("slopewatch.journal.url", journal.url());
         s.put("slopewatch.journal.username", journal.user());
-        s.put("slopewatch.ingest.curves", String.join(",", CURVES));
         s.put("kafka.bootstrap.servers", KafkaBroker.bootstrapServers());
         s.put("mp.messaging.incoming.quotes.topic", topic);
         s.put("mp.messaging.incoming.quotes.group.id", topic);
@@ -82,12 +60,6 @@ final class KafkaRuns {
         s.put("mp.messaging.outgoing.quotes-publish.topic", topic);
         s.put("mp.messaging.outgoing.quotes-dead-letter.topic", topic + ".dead-letter");
         s.put("mp.messaging.outgoing.alerts-out.topic", topic + ".alerts");
-        s.put("slopewatch.channels.desk-chat.type", "chat-webhook");
-        s.put("slopewatch.channels.desk-chat.url", chatUrl);
-        s.put("slopewatch.channels.desk-chat.format", "alert-json");
-        s.put("slopewatch.delivery.allowed-hosts", "127.0.0.1");
-        s.put("slopewatch.alerts.evaluate-every", "1s");
-        s.put("slopewatch.security.write-tokens", UUID.randomUUID().toString());
         return s;
     }
 
@@ -142,29 +114,5 @@ final class KafkaRuns {
     private static boolean settled(TestDatabase journal, int quotes) {
         JournalContents c = contents(journal);
         return c.quotes() == quotes && !c.deliveries().isEmpty() && c.deliveries().stream().noneMatch(d -> d.endsWith(" | PENDING"));
-    }
-
-    /**
-     * The check every run ends with: each quote journalled once, and the same conclusions as the
-     * undisturbed run, row for row (transitions, spells, notices, deliveries).
-     */
-    static void assertSameJournal(JournalContents actual, JournalContents undisturbed, int quotes) {
-        assertThat(actual.quotes()).isEqualTo(quotes);
-        assertThat(actual.distinctQuoteIds()).isEqualTo(quotes);
-        assertThat(actual.transitions()).containsExactlyElementsOf(undisturbed.transitions());
-        assertThat(actual.spells()).containsExactlyElementsOf(undisturbed.spells());
-        assertThat(actual.alerts()).containsExactlyElementsOf(undisturbed.alerts());
-        assertThat(actual.deliveries()).containsExactlyElementsOf(undisturbed.deliveries());
-    }
-
-    /** Notice id → how many times the receiver got it on {@code path}. */
-    static Map<String, Long> noticesReceived(TestHttpReceiver chat, String path) throws Exception {
-        Map<String, Long> out = new TreeMap<>();
-        for (TestHttpReceiver.Request r : chat.requests()) {
-            if (r.path().equals(path)) {
-                out.merge(JSON.readTree(r.body()).path("id").asText(), 1L, Long::sum);
-            }
-        }
-        return out;
     }
 }

@@ -143,7 +143,7 @@ class OutageIT {
 
                 JournalContents disturbed = KafkaRuns.contents(journal);
                 JournalContents undisturbed = KafkaRuns.contents(calmJournal);
-                Map<String, Long> chatPosts = KafkaRuns.noticesReceived(chat, "/outages/hook");
+                Map<String, Long> chatPosts = chat.noticesReceived("/outages/hook");
                 Set<String> mailed = subjects(smtp);
                 String figures = String.format("outage_seconds=%d quotes=%d transitions=%d notices=%d chat_posts=%d mails=%d "
                                 + "not_ready_seen=%s journal_waits_logged=%d", OUTAGE_SECONDS, quotes.size(), disturbed.transitions().size(),
@@ -156,10 +156,10 @@ class OutageIT {
 
                 assertThat(daemon.isAlive()).isTrue();
                 assertThat(sawNotReady).as("not ready while the journal was out of reach").isTrue();
-                KafkaRuns.assertSameJournal(disturbed, undisturbed, quotes.size());
+                disturbed.assertEndsAs(undisturbed, quotes.size());
                 assertThat(disturbed.deliveries()).noneMatch(d -> d.endsWith(" | FAILED"));
                 assertThat(chatPosts.keySet()).as("every notice reached the chat receiver")
-                        .isEqualTo(KafkaRuns.noticesReceived(calmChat, "/calm/hook").keySet());
+                        .isEqualTo(calmChat.noticesReceived("/calm/hook").keySet());
                 assertThat(mailed).as("every notice for the mail channel arrived").isEqualTo(subjects(calmSmtp))
                         .isEqualTo(expectedMailTitles(undisturbed)).isNotEmpty();
             }

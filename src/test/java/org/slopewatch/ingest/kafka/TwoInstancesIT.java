@@ -84,10 +84,10 @@ class TwoInstancesIT {
                     .as("partition assignments seen by the surviving instance").isGreaterThanOrEqualTo(2);
             assertThat(first.isAlive()).isFalse();
 
-            KafkaRuns.assertSameJournal(pair, single, quotes.size());
+            pair.assertEndsAs(single, quotes.size());
 
-            Map<String, Long> pairSent = KafkaRuns.noticesReceived(chat, "/pair/hook");
-            Map<String, Long> soloSent = KafkaRuns.noticesReceived(chat, "/solo/hook");
+            Map<String, Long> pairSent = chat.noticesReceived("/pair/hook");
+            Map<String, Long> soloSent = chat.noticesReceived("/solo/hook");
             assertThat(pairSent).as("notice id → posts the chat receiver got from the pair").isNotEmpty()
                     .allSatisfy((id, n) -> assertThat(n).as(id).isEqualTo(1L));
             assertThat(pairSent.keySet()).isEqualTo(soloSent.keySet());
