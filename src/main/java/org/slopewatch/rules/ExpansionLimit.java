@@ -22,9 +22,8 @@ import org.snakeyaml.engine.v2.parser.Parser;
  * Without aliases the size cannot much exceed the file's length, so the limit only bites on
  * expansion.
  */
-final class ExpansionLimit implements Parser {
+final class ExpansionLimit extends CheckedEvents {
 
-    private final Parser events;
     private final long maxSize;
     private final Map<String, Long> anchored = new HashMap<>();
     private final Deque<Open> open = new ArrayDeque<>();
@@ -35,13 +34,12 @@ final class ExpansionLimit implements Parser {
     }
 
     ExpansionLimit(Parser events, long maxSize) {
-        this.events = events;
+        super(events);
         this.maxSize = maxSize;
     }
 
     @Override
-    public Event next() {
-        Event e = events.next();
+    void check(Event e) {
         if (e instanceof ScalarEvent s) {
             long own = 1 + s.getValue().codePointCount(0, s.getValue().length());
             size += own;
@@ -62,21 +60,5 @@ final class ExpansionLimit implements Parser {
             throw new ComposeLimit(e.getStartMark(), "with its aliases expanded the policy is larger than the limit of " + maxSize
                     + " characters and nodes");
         }
-        return e;
-    }
-
-    @Override
-    public boolean checkEvent(Event.ID choice) {
-        return events.checkEvent(choice);
-    }
-
-    @Override
-    public Event peekEvent() {
-        return events.peekEvent();
-    }
-
-    @Override
-    public boolean hasNext() {
-        return events.hasNext();
     }
 }

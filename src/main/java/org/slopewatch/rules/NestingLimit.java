@@ -9,20 +9,18 @@ import org.snakeyaml.engine.v2.parser.Parser;
  * level, so ten thousand {@code [} overflowed the thread's stack; counting the events it takes
  * stops it first.
  */
-final class NestingLimit implements Parser {
+final class NestingLimit extends CheckedEvents {
 
-    private final Parser events;
     private final int maxDepth;
     private int depth;
 
     NestingLimit(Parser events, int maxDepth) {
-        this.events = events;
+        super(events);
         this.maxDepth = maxDepth;
     }
 
     @Override
-    public Event next() {
-        Event e = events.next();
+    void check(Event e) {
         Event.ID id = e.getEventId();
         if (id == Event.ID.SequenceStart || id == Event.ID.MappingStart) {
             if (++depth > maxDepth) {
@@ -31,21 +29,5 @@ final class NestingLimit implements Parser {
         } else if (id == Event.ID.SequenceEnd || id == Event.ID.MappingEnd) {
             depth--;
         }
-        return e;
-    }
-
-    @Override
-    public boolean checkEvent(Event.ID choice) {
-        return events.checkEvent(choice);
-    }
-
-    @Override
-    public Event peekEvent() {
-        return events.peekEvent();
-    }
-
-    @Override
-    public boolean hasNext() {
-        return events.hasNext();
     }
 }
