@@ -40,11 +40,17 @@ public final class ChannelFactory {
      */
     public static ChannelFactory standard(Supplier<Mailer> mailer, Redactor smtpSecrets, Emitter<String> stream,
                                           HostAllowlist webhookHosts) {
+        return standard(mailer, smtpSecrets, stream, webhookHosts, StreamChannel.DEFAULT_SOURCE);
+    }
+
+    /** As {@link #standard(Supplier, Redactor, Emitter, HostAllowlist)}, with the CloudEvents source of stream channels. */
+    public static ChannelFactory standard(Supplier<Mailer> mailer, Redactor smtpSecrets, Emitter<String> stream,
+                                          HostAllowlist webhookHosts, String eventSource) {
         Map<String, Maker> makers = new LinkedHashMap<>();
         makers.put(ChatWebhookChannel.TYPE, (name, s) -> chatWebhook(name, s, webhookHosts));
         makers.put(EmailChannel.TYPE, (name, s) -> new EmailChannel(name, mailer.get(), s.to(), smtpSecrets));
         makers.put(LogChannel.TYPE, (name, s) -> new LogChannel(name));
-        makers.put(StreamChannel.TYPE, (name, s) -> new StreamChannel(name, stream, s.timeout()));
+        makers.put(StreamChannel.TYPE, (name, s) -> new StreamChannel(name, stream, s.timeout(), eventSource));
         return new ChannelFactory(makers);
     }
 

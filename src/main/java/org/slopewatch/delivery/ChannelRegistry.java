@@ -43,7 +43,7 @@ public class ChannelRegistry {
                     origin(rawConfig, "slopewatch.channels." + e.getKey() + ".type")));
         }
         ChannelFactory factory = ChannelFactory.standard(() -> mailer, Redactor.of(smtpPassword.stream().toList()), stream,
-                new HostAllowlist(delivery.allowedHosts().orElse(List.of())));
+                new HostAllowlist(delivery.allowedHosts().orElse(List.of())), delivery.cloudEventsSource());
         this.channels = factory.createAll(settings);
         LOG.infof("delivery channels: %s", summary(channels.values()));
     }

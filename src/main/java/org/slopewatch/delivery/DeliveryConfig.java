@@ -18,6 +18,13 @@ public interface DeliveryConfig {
      */
     Optional<List<String>> allowedHosts();
 
+    /**
+     * The CloudEvents {@code source} of the events stream channels send: a URI reference naming
+     * this deployment, so that consumers of several desks' alerts can tell them apart.
+     */
+    @WithDefault(StreamChannel.DEFAULT_SOURCE)
+    String cloudEventsSource();
+
     /** See {@link RetryPolicy}. */
     interface Retry {
 

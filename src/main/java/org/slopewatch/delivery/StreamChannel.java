@@ -17,7 +17,8 @@ import org.eclipse.microprofile.reactive.messaging.Message;
 /**
  * Sends each alert on the outgoing messaging channel {@code alerts-out} as a CloudEvents 1.0
  * event in structured mode: the whole event is the JSON payload ({@code specversion}, {@code id}
- * = the alert id, {@code source} {@code slopewatch}, {@code type}
+ * = the alert id, {@code source} as configured ({@code slopewatch.delivery.cloud-events-source},
+ * {@value #DEFAULT_SOURCE} by default), {@code type}
  * {@code org.slopewatch.alert.firing|repeat|resolved}, {@code subject} = the spread,
  * {@code time}, {@code datacontenttype} and {@code data} = {@link AlertJson}). On Kafka the
  * record is keyed by spread, so that a spread's alerts stay in order, and carries the
@@ -30,17 +31,37 @@ public final class StreamChannel implements AlertChannel {
 
     public static final String TYPE = "stream";
     public static final String CHANNEL = "alerts-out";
-    public static final String SOURCE = "slopewatch";
+    public static final String DEFAULT_SOURCE = "slopewatch";
     public static final String CONTENT_TYPE = "application/cloudevents+json; charset=UTF-8";
 
     private final String name;
     private final Emitter<String> emitter;
     private final Duration timeout;
+    private final String source;
 
     public StreamChannel(String name, Emitter<String> emitter, Duration timeout) {
+        this(name, emitter, timeout, DEFAULT_SOURCE);
+    }
+
+    /** @param source the events' CloudEvents {@code source}, a URI reference naming this deployment */
+    public StreamChannel(String name, Emitter<String> emitter, Duration timeout, String source) {
+        this.source = checkedSource(source);
         this.name = Objects.requireNonNull(name, "name");
         this.emitter = Objects.requireNonNull(emitter, "emitter");
         this.timeout = Objects.requireNonNull(timeout, "timeout");
+    }
+
+    /** CloudEvents 1.0: {@code source} is a non-empty URI reference. */
+    static String checkedSource(String source) {
+        if (source == null || source.isBlank()) {
+            throw new IllegalArgumentException("the CloudEvents source must not be empty");
+        }
+        try {
+            new java.net.URI(source);
+        } catch (java.net.URISyntaxException e) {
+            throw new IllegalArgumentException("the CloudEvents source must be a URI reference: " + e.getMessage());
+        }
+        return source;
     }
 
     @Override
@@ -58,12 +79,17 @@ public final class StreamChannel implements AlertChannel {
         return "org.slopewatch.alert." + alert.kind().name().toLowerCase(Locale.ROOT);
     }
 
-    /** The alert as a structured-mode CloudEvent. */
+    /** The alert as a structured-mode CloudEvent from the default source. */
     public static ObjectNode event(Alert alert) {
+        return event(alert, DEFAULT_SOURCE);
+    }
+
+    /** The alert as a structured-mode CloudEvent. */
+    public static ObjectNode event(Alert alert, String source) {
         ObjectNode e = AlertJson.MAPPER.createObjectNode();
         e.put("specversion", "1.0");
         e.put("id", alert.id());
-        e.put("source", SOURCE);
+        e.put("source", source);
         e.put("type", eventType(alert));
         if (alert.spreadId() != null) {
             e.put("subject", alert.spreadId());
@@ -81,7 +107,7 @@ public final class StreamChannel implements AlertChannel {
         CompletableFuture<Void> answered = new CompletableFuture<>();
         RecordHeaders headers = new RecordHeaders();
         headers.add("content-type", CONTENT_TYPE.getBytes(StandardCharsets.UTF_8));
-        Message<String> message = Message.of(event(alert).toString())
+        Message<String> message = Message.of(event(alert, source).toString())
                 .addMetadata(OutgoingKafkaRecordMetadata.<String>builder().withKey(alert.spreadId()).withHeaders(headers).build())
                 .withAck(() -> {
                     answered.complete(null);

@@ -47,6 +47,19 @@ class ChannelFactoryTest {
                         + "); known types: chat-webhook, email, log, stream");
     }
 
+    /** CloudEvents 1.0 (the specification's "source" attribute): a non-empty URI reference (RFC 3986). */
+    @Test
+    void aStreamChannelsEventSourceMustBeAUriReference() {
+        for (String bad : new String[] {"", " ", "desk one", "urn:desk:%zz"}) {
+            ChannelFactory withSource = ChannelFactory.standard(() -> null, Redactor.none(), null, HostAllowlist.NONE, bad);
+            assertThatThrownBy(() -> withSource.create("alerts-topic", ChannelSettings.ofType("stream").withOrigin(FILE)))
+                    .as("source '%s'", bad)
+                    .isInstanceOf(ChannelConfigException.class)
+                    .hasMessageContaining("CloudEvents source")
+                    .hasMessageContaining("(configured in " + FILE + ")");
+        }
+    }
+
     @Test
     void settingsATypeCannotUseAreRefused() {
         assertThatThrownBy(() -> factory.create("desk-chat", ChannelSettings.ofType("chat-webhook").withOrigin(FILE)))

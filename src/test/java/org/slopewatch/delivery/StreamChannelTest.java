@@ -49,7 +49,8 @@ class StreamChannelTest {
         JsonNode event = JSON.readTree(message.getPayload());
         assertThat(event.get("specversion").asText()).isEqualTo("1.0");
         assertThat(event.get("id").asText()).as("the event id is the alert id, so consumers can drop repeats").isEqualTo(alert.id());
-        assertThat(event.get("source").asText()).isEqualTo("slopewatch");
+        assertThat(event.get("source").asText()).as("slopewatch.delivery.cloud-events-source of the test profile")
+                .isEqualTo("urn:slopewatch:test-desk");
         assertThat(event.get("type").asText()).isEqualTo("org.slopewatch.alert.firing");
         assertThat(event.get("subject").asText()).isEqualTo("GOVT-A:10Y-3M");
         assertThat(event.get("time").asText()).isEqualTo("2026-06-30T21:05:00Z");
