@@ -1,6 +1,7 @@
 package org.slopewatch.ingest;
 
 import java.time.Duration;
+import java.util.Set;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.monitor.Transition;
 
@@ -23,6 +24,10 @@ public interface PipelineListener {
     }
 
     default void spreadChanged(SpreadStatus status) {
+    }
+
+    /** After a rebuild (start-up, a new policy, a journal back): the spreads watched from now on; what is kept about others may go. */
+    default void watching(Set<String> spreadIds) {
     }
 
     default void processed(Duration processing, Duration journalWrite) {

@@ -98,6 +98,7 @@ public final class QuotePipeline {
             }
             engine.onSnapshot(book.apply(q.curve(), q.date(), q.yieldsBp()), q.seq());
         });
+        listener.watching(engine.tracks().stream().map(t -> t.spread().id()).collect(java.util.stream.Collectors.toUnmodifiableSet()));
         for (SpreadTrack t : engine.tracks()) {
             listener.spreadChanged(SpreadStatus.of(t));
         }

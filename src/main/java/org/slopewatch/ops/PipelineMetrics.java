@@ -2,11 +2,15 @@ package org.slopewatch.ops;
 
 import io.micrometer.core.instrument.Counter;
 import io.micrometer.core.instrument.Gauge;
+import io.micrometer.core.instrument.Meter;
 import io.micrometer.core.instrument.MeterRegistry;
 import io.micrometer.core.instrument.Timer;
 import jakarta.enterprise.context.ApplicationScoped;
 import java.time.Duration;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
 import org.slopewatch.alerting.PolicyHolder;
 import org.slopewatch.ingest.PipelineListener;
@@ -19,9 +23,12 @@ import org.slopewatch.monitor.Transition;
 /**
  * The pipeline's metrics, under {@code slopewatch.}: quotes accepted, rejected by reason and
  * duplicated (by origin); per spread the latest value, the state as a number
- * ({@link SpreadState#code()}: 0 normal, 1 inverted, 2 confirmed, 3 re-steepening), days
- * inverted and the quarter-to-date average; transitions; processing and journal-write timers.
- * Tag values are bounded: origins, reasons, spread ids and states.
+ * ({@link SpreadState#code()}: 0 normal, 1 inverted, 2 confirmed, 3 re-steepening) and as one
+ * series per state (1 for the state the spread is in, 0 for the others), days inverted and the
+ * quarter-to-date average; transitions; processing and journal-write timers with histogram
+ * buckets; and {@code slopewatch.info}, 1 with the build's version and the policy's hash as tags.
+ * A spread the policy no longer watches loses its series at the rebuild that follows a reload.
+ * Tag values are bounded: origins, reasons, spread ids, states, one version and one policy hash.
  */
 @ApplicationScoped
 public class PipelineMetrics implements PipelineListener {
@@ -35,6 +42,7 @@ public class PipelineMetrics implements PipelineListener {
 
     /** The latest figures of one spread, read by its gauges at scrape time. */
     static final class SpreadGauges {
+        final List<Meter> meters = new ArrayList<>();
         volatile double valueBp = Double.NaN;
         volatile double state;
         volatile double daysInverted;
@@ -43,13 +51,16 @@ public class PipelineMetrics implements PipelineListener {
     }
 
     private final PolicyHolder policies;
+    private Meter info;
+    private String infoPolicyHash;
 
     PipelineMetrics(MeterRegistry registry, PolicyHolder policies) {
         this.registry = registry;
         this.policies = policies;
         this.processing = Timer.builder("slopewatch.processing").description("Time to run a step through curves, spreads and monitors")
-                .register(registry);
-        this.journalWrite = Timer.builder("slopewatch.journal.write").description("Time to write a step to the journal").register(registry);
+                .publishPercentileHistogram().register(registry);
+        this.journalWrite = Timer.builder("slopewatch.journal.write").description("Time to write a step to the journal")
+                .publishPercentileHistogram().register(registry);
         // counters exist at zero from the start, so that a rate over them is defined before the first event
         for (String origin : ORIGINS) {
             accepted(origin).increment(0);
@@ -107,18 +118,44 @@ public class PipelineMetrics implements PipelineListener {
 
     private SpreadGauges register(String spreadId) {
         SpreadGauges g = new SpreadGauges();
-        Gauge.builder("slopewatch.spread.value", g, x -> x.valueBp).baseUnit("bp").description("Latest spread value")
-                .tag("spread", spreadId).register(registry);
-        Gauge.builder("slopewatch.spread.state", g, x -> x.state)
-                .description("Monitor state: 0 NORMAL, 1 INVERTED, 2 CONFIRMED, 3 RESTEEPENING").tag("spread", spreadId).register(registry);
-        Gauge.builder("slopewatch.spread.inverted", g, x -> x.daysInverted).baseUnit("days")
-                .description("Calendar days continuously below the entry threshold").tag("spread", spreadId).register(registry);
-        Gauge.builder("slopewatch.spread.quarter.average", g, x -> x.quarterToDateBp).baseUnit("bp")
-                .description("Average of the current calendar quarter so far").tag("spread", spreadId).register(registry);
-        Gauge.builder("slopewatch.spread.recession.probability", g, x -> x.probability)
+        g.meters.add(Gauge.builder("slopewatch.spread.value", g, x -> x.valueBp).baseUnit("bp").description("Latest spread value")
+                .tag("spread", spreadId).register(registry));
+        g.meters.add(Gauge.builder("slopewatch.spread.state", g, x -> x.state)
+                .description("Monitor state: 0 NORMAL, 1 INVERTED, 2 CONFIRMED, 3 RESTEEPENING").tag("spread", spreadId).register(registry));
+        for (SpreadState state : SpreadState.values()) {
+            g.meters.add(Gauge.builder("slopewatch.spread.in.state", g, x -> x.state == state.code() ? 1 : 0)
+                    .description("1 for the state the spread is in, 0 for the others").tag("spread", spreadId).tag("state", state.name())
+                    .register(registry));
+        }
+        g.meters.add(Gauge.builder("slopewatch.spread.inverted", g, x -> x.daysInverted).baseUnit("days")
+                .description("Calendar days continuously below the entry threshold").tag("spread", spreadId).register(registry));
+        g.meters.add(Gauge.builder("slopewatch.spread.quarter.average", g, x -> x.quarterToDateBp).baseUnit("bp")
+                .description("Average of the current calendar quarter so far").tag("spread", spreadId).register(registry));
+        g.meters.add(Gauge.builder("slopewatch.spread.recession.probability", g, x -> x.probability)
                 .description("Recession probability from the policy's probit model on this month's average so far (0 to 1; "
-                        + "absent model: NaN)").tag("spread", spreadId).register(registry);
+                        + "absent model: NaN)").tag("spread", spreadId).register(registry));
         return g;
+    }
+
+    /** A rebuild: spreads no longer watched lose their series; the info metric names the policy now in force. */
+    @Override
+    public synchronized void watching(Set<String> spreadIds) {
+        spreads.keySet().removeIf(id -> {
+            if (spreadIds.contains(id)) {
+                return false;
+            }
+            spreads.get(id).meters.forEach(registry::remove);
+            return true;
+        });
+        String hash = policies.current().hash();
+        if (!hash.equals(infoPolicyHash)) {
+            if (info != null) {
+                registry.remove(info);
+            }
+            info = Gauge.builder("slopewatch.info", () -> 1).description("The build's version and the hash of the policy in force")
+                    .tag("version", BuildInfo.version()).tag("policy", hash).register(registry);
+            infoPolicyHash = hash;
+        }
     }
 
     @Override
