@@ -64,6 +64,7 @@ public class AlertDesk implements AlertStage {
                     + String.join(System.lineSeparator(), problems));
         }
         warnUnconfigured(policies.policy());
+        metrics.expect(policies.policy(), channels.names());
         this.engine = new AlertEngine(policies.policy().alerts());
     }
 
@@ -97,6 +98,7 @@ public class AlertDesk implements AlertStage {
     /** A new policy: rules change, open episodes of rules kept by name carry over. */
     synchronized void replaceRules(Policy policy) {
         warnUnconfigured(policy);
+        metrics.expect(policy, channels.names());
         engine = engine.withRules(policy.alerts());
     }
 

@@ -44,6 +44,31 @@ class PipelineMetricsTest {
         }
     }
 
+    /** Before anything happened, every series the policy can move is there at zero. */
+    @Test
+    void alertCountersExistAtZeroFromTheStart() throws Exception {
+        List<String> metrics = metrics();
+        // the rule names and severities as written in the policy file, read here with a plain pattern
+        java.util.regex.Matcher rule = java.util.regex.Pattern.compile("- name: (\\S+)\\n(?:.*\\n)*?\\s+severity: (\\w+)")
+                .matcher(Files.readString(Path.of("alert-rules/default.yaml")));
+        int rules = 0;
+        while (rule.find()) {
+            rules++;
+            String name = rule.group(1);
+            String severity = rule.group(2);
+            for (String kind : new String[] {"firing", "repeat", "resolved"}) {
+                assertThat(metrics).as("notices of %s, %s", name, kind).contains("slopewatch_alerts_total{kind=\"" + kind
+                        + "\",muted=\"true\",rule=\"" + name + "\",severity=\"" + severity + "\"} 0.0");
+            }
+            assertThat(metrics).contains("slopewatch_alert_attempts_total{channel=\"log\",outcome=\"failed\",rule=\"" + name
+                    + "\",severity=\"" + severity + "\"} 0.0");
+        }
+        assertThat(rules).as("rules found in the shipped policy").isEqualTo(4);
+        assertThat(metrics).contains("slopewatch_alert_deliveries_total{channel=\"risk-email\",outcome=\"failed\"} 0.0",
+                "slopewatch_alert_deliveries_total{channel=\"log\",outcome=\"skipped\"} 0.0",
+                "slopewatch_policy_reloads_total{outcome=\"rejected\"} 0.0");
+    }
+
     @Test
     void spreadsStatesBuildAndPolicyAreExportedAndDroppedSpreadsGo() throws Exception {
         for (int day = 2; day <= 6; day++) {
