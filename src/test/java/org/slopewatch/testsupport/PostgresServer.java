@@ -92,10 +92,32 @@ public final class PostgresServer {
             return name;
         }
 
-        /** Drops the database, closing any connection still open to it. */
+        /**
+         * Drops the database, closing any connection still open to it. An autovacuum worker on it
+         * belongs to the server's superuser, which the test role may not end ("must be a member of
+         * the role whose process is being terminated"): such a worker is done within moments, so
+         * the drop is tried again for up to ten seconds.
+         */
         @Override
         public void close() {
-            execute(admin, "DROP DATABASE IF EXISTS " + name + " WITH (FORCE)");
+            String drop = "DROP DATABASE IF EXISTS " + name + " WITH (FORCE)";
+            for (int attempt = 1; ; attempt++) {
+                try {
+                    execute(admin, drop);
+                    return;
+                } catch (IllegalStateException e) {
+                    boolean notOurs = e.getCause() instanceof SQLException sql && "42501".equals(sql.getSQLState());
+                    if (!notOurs || attempt == 100) {
+                        throw e;
+                    }
+                    try {
+                        Thread.sleep(100);
+                    } catch (InterruptedException interrupted) {
+                        Thread.currentThread().interrupt();
+                        throw e;
+                    }
+                }
+            }
         }
     }
 
