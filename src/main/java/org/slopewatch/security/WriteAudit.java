@@ -3,6 +3,7 @@ package org.slopewatch.security;
 import io.vertx.ext.web.RoutingContext;
 import java.util.HexFormat;
 import org.jboss.logging.Logger;
+import org.slopewatch.text.Excerpt;
 
 /**
  * One log line per change made through the API (acknowledgements, mutes, lifts, reloads,
@@ -15,7 +16,6 @@ import org.jboss.logging.Logger;
 final class WriteAudit {
 
     private static final Logger LOG = Logger.getLogger(WriteAudit.class);
-    private static final int PATH_SHOWN = 200;
 
     private WriteAudit() {
     }
@@ -29,7 +29,7 @@ final class WriteAudit {
         String method = rc.request().method().name();
         String who = fingerprint(token);
         String from = rc.request().remoteAddress() == null ? "?" : rc.request().remoteAddress().hostAddress();
-        String shown = path.length() <= PATH_SHOWN ? path : path.substring(0, PATH_SHOWN) + "…";
+        String shown = Excerpt.cut(path, Excerpt.MAX_CHARS);
         rc.addBodyEndHandler(v -> LOG.infof("api change %s %s by token sha256:%s… from %s answered %d", method, shown, who, from,
                 rc.response().getStatusCode()));
     }

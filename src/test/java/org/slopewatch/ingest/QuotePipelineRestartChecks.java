@@ -310,4 +310,30 @@ abstract class QuotePipelineRestartChecks {
                 .stream().map(t -> t.spreadId() + " " + t.date() + " " + t.from() + "->" + t.to() + " " + t.test() + " spell "
                         + t.spellId() + " seq " + t.seq() + (t.supersededBy() == null ? "" : " superseded")).toList();
     }
+
+    /** What a step hands the alert stage. */
+    interface StepWatcher {
+        void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal);
+    }
+
+    /** An alert stage that only watches steps: no clock, nothing written, nothing to rebuild. */
+    static AlertStage onStepOnly(StepWatcher watcher) {
+        return new AlertStage() {
+            @Override
+            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
+                watcher.onStep(changed, sequence, journal);
+            }
+            @Override
+            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
+            }
+
+            @Override
+            public void written(List<JournalEntries.AlertEntry> alerts) {
+            }
+
+            @Override
+            public void rebuild() {
+            }
+        };
+    }
 }

@@ -43,23 +43,18 @@ public record JournalContents(long quotes, long distinctQuoteIds, List<String> t
 
     /** The ids of the journalled quote messages. */
     public static Set<String> quoteIds(String url, String user, String password) {
-        try (Connection c = DriverManager.getConnection(url, user, password); Statement s = c.createStatement();
-             ResultSet rs = s.executeQuery("SELECT message_id FROM quote WHERE message_id IS NOT NULL")) {
-            Set<String> out = new TreeSet<>();
-            while (rs.next()) {
-                out.add(rs.getString(1));
-            }
-            return out;
-        } catch (SQLException e) {
-            throw new AssertionError("cannot read the journal at " + url + ": " + e.getMessage(), e);
-        }
+        return column(url, user, password, "SELECT message_id FROM quote WHERE message_id IS NOT NULL");
     }
 
     /** Ids journalled as seen (table {@code seen_message}) whose quote message the journal does not hold. */
     public static Set<String> seenWithoutQuote(String url, String user, String password) {
+        return column(url, user, password, "SELECT m.message_id FROM seen_message m WHERE NOT EXISTS "
+                + "(SELECT 1 FROM quote q WHERE q.message_id = m.message_id)");
+    }
+
+    private static Set<String> column(String url, String user, String password, String query) {
         try (Connection c = DriverManager.getConnection(url, user, password); Statement s = c.createStatement();
-             ResultSet rs = s.executeQuery("SELECT m.message_id FROM seen_message m WHERE NOT EXISTS "
-                     + "(SELECT 1 FROM quote q WHERE q.message_id = m.message_id)")) {
+             ResultSet rs = s.executeQuery(query)) {
             Set<String> out = new TreeSet<>();
             while (rs.next()) {
                 out.add(rs.getString(1));
