@@ -11,13 +11,12 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.jboss.logging.Logger;
-import org.slopewatch.delivery.Alert;
 import org.slopewatch.delivery.AlertChannel;
 import org.slopewatch.delivery.ChannelRegistry;
-import org.slopewatch.ingest.AlertStage;
 import org.slopewatch.journal.AlertStore;
 import org.slopewatch.journal.JournalEntries;
 import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertCondition;
 import org.slopewatch.rules.AlertConditions;
 import org.slopewatch.rules.AlertDecision;
@@ -74,7 +73,7 @@ public class AlertDesk implements AlertStage {
      * is allowed (its deliveries are recorded as skipped), so that the shipped policy runs on a
      * machine with no chat or mail server.
      */
-    List<String> checkChannels(Policy policy) {
+    public List<String> checkChannels(Policy policy) {
         List<String> problems = new ArrayList<>();
         for (ChannelDeclaration declared : policy.channels()) {
             Optional<AlertChannel> configured = channels.channel(declared.name());
@@ -96,7 +95,7 @@ public class AlertDesk implements AlertStage {
     }
 
     /** A new policy: rules change, open episodes of rules kept by name carry over. */
-    synchronized void replaceRules(Policy policy) {
+    public synchronized void replaceRules(Policy policy) {
         warnUnconfigured(policy);
         metrics.expect(policy, channels.names());
         engine = engine.withRules(policy.alerts());

@@ -13,8 +13,8 @@ import java.util.Set;
 import java.util.concurrent.Callable;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
-import org.slopewatch.ingest.HistoryCsvReader;
-import org.slopewatch.ingest.HistoryFormatException;
+import org.slopewatch.history.HistoryCsvReader;
+import org.slopewatch.history.HistoryFormatException;
 import org.slopewatch.monitor.DaysInverted;
 import org.slopewatch.monitor.MonitorDefinition;
 import org.slopewatch.monitor.PersistenceTest;
@@ -29,13 +29,13 @@ import org.slopewatch.replay.ReplayReport;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyParser;
 import org.slopewatch.spread.SpreadDefinition;
+import org.slopewatch.text.Excerpt;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
-import picocli.CommandLine.Spec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
-import org.slopewatch.text.Excerpt;
+import picocli.CommandLine.Spec;
 
 /** {@code slopewatch replay FILE}: history through the engine, a report out. */
 @Command(name = "replay", mixinStandardHelpOptions = true, sortOptions = false,

@@ -16,7 +16,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import javax.sql.DataSource;
-import org.slopewatch.delivery.Alert;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.Severity;
 
 /**

@@ -21,10 +21,10 @@ import java.util.Map;
 import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.slopewatch.alerting.AlertDesk;
 import org.slopewatch.alerting.PolicyHolder;
-import org.slopewatch.alerting.PolicyReloader;
-import org.slopewatch.delivery.Alert;
 import org.slopewatch.ingest.IngestRules;
 import org.slopewatch.journal.AlertStore;
+import org.slopewatch.pipeline.PolicyReloader;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertEngine;
 import org.slopewatch.text.Excerpt;
 

@@ -3,7 +3,6 @@ package org.slopewatch.whatif;
 import java.util.EnumSet;
 import java.util.List;
 import java.util.function.LongConsumer;
-import org.slopewatch.delivery.Alert;
 import org.slopewatch.journal.AlertStore;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.replay.CandidatePolicy;
@@ -11,6 +10,7 @@ import org.slopewatch.replay.LiveNotice;
 import org.slopewatch.replay.SpreadFilter;
 import org.slopewatch.replay.WhatIf;
 import org.slopewatch.replay.WhatIfReport;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertDecision;
 
 /**

@@ -13,7 +13,7 @@ import java.util.Collections;
 import java.util.List;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
-import org.slopewatch.delivery.Alert;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.Severity;
 
 /**

@@ -56,7 +56,7 @@ class PipelineMetricsTest {
             rules++;
             String name = rule.group(1);
             String severity = rule.group(2);
-            for (String kind : java.util.Arrays.stream(org.slopewatch.delivery.Alert.Kind.values())
+            for (String kind : java.util.Arrays.stream(org.slopewatch.rules.Alert.Kind.values())
                     .map(k -> k.name().toLowerCase(java.util.Locale.ROOT)).toList()) {
                 assertThat(metrics).as("notices of %s, %s", name, kind).contains("slopewatch_alerts_total{kind=\"" + kind
                         + "\",muted=\"true\",rule=\"" + name + "\",severity=\"" + severity + "\"} 0.0");
