@@ -47,6 +47,11 @@ public class FeedFreshness {
         return assess(ingest.curves(), pipeline.lastReceived(), started, Instant.now(clock), feeds.staleAfterBusinessHours(), ownership);
     }
 
+    /** When the curve's latest accepted quote was journalled, or null before its first. */
+    public Instant lastQuote(String curve) {
+        return pipeline.lastReceived(curve);
+    }
+
     /**
      * The rule itself: each curve's quiet time runs from its last quote, or from {@code started}
      * when it has none, in business hours; an owned curve quiet for longer than the limit is stale.

@@ -1,15 +1,14 @@
 package org.slopewatch.pipeline;
 
 import io.quarkus.runtime.Startup;
-import jakarta.annotation.PreDestroy;
+import io.quarkus.scheduler.Scheduled.ConcurrentExecution;
+import io.quarkus.scheduler.Scheduler;
 import jakarta.inject.Singleton;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.time.Duration;
 import java.util.List;
-import java.util.concurrent.Executors;
-import java.util.concurrent.ScheduledExecutorService;
-import java.util.concurrent.TimeUnit;
 import org.jboss.logging.Logger;
 import org.slopewatch.alerting.AlertDesk;
 import org.slopewatch.alerting.AlertMetrics;
@@ -44,15 +43,10 @@ public class PolicyReloader {
     private final AlertDesk desk;
     private final AlertStore store;
     private final AlertMetrics metrics;
-    private final ScheduledExecutorService timer = Executors.newSingleThreadScheduledExecutor(r -> {
-        Thread t = new Thread(r, "slopewatch-policy-reload");
-        t.setDaemon(true);
-        return t;
-    });
     private String lastRejectedHash;
 
     PolicyReloader(PolicyHolder policies, QuotePipeline pipeline, AlertDesk desk, AlertStore store, AlertMetrics metrics,
-                   AlertsConfig config) {
+                   AlertsConfig config, Scheduler scheduler) {
         this.policies = policies;
         this.pipeline = pipeline;
         this.desk = desk;
@@ -63,9 +57,10 @@ public class PolicyReloader {
             store.policyVersion(current.hash(), current.source(), "applied", "loaded at start-up");
         }
         LOG.infof("policy %s in force (sha256 %s)", current.source(), current.hash());
-        long every = config.reloadCheck().toMillis();
-        if (every > 0) {
-            timer.scheduleWithFixedDelay(this::checkQuietly, every, every, TimeUnit.MILLISECONDS);
+        Duration every = config.reloadCheck();
+        if (!every.isZero() && !every.isNegative()) {
+            scheduler.newJob("slopewatch-policy-reload").setInterval(every.toString()).setDelayed(every.toString())
+                    .setConcurrentExecution(ConcurrentExecution.SKIP).setTask(execution -> checkQuietly()).schedule();
         }
     }
 
@@ -136,10 +131,5 @@ public class PolicyReloader {
             LOG.errorf("policy rejected: %s", problem);
         }
         return new Outcome("rejected", hash, why);
-    }
-
-    @PreDestroy
-    void stop() {
-        timer.shutdownNow();
     }
 }

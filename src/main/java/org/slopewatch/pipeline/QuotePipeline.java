@@ -11,6 +11,7 @@ import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
 import java.util.Set;
 import org.jboss.logging.Logger;
 import org.jboss.logging.MDC;
@@ -56,7 +57,8 @@ public final class QuotePipeline {
     private Set<String> seenIds;
     private long sequence;
     private boolean recovered;
-    private final Map<String, Instant> lastReceived = new HashMap<>();
+    // concurrent: the metrics read one curve's entry at scrape time without waiting for a step's lock
+    private final Map<String, Instant> lastReceived = new ConcurrentHashMap<>();
 
     public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, Clock clock) {
         this(watches, writer, reader, listener, AlertStage.NONE, clock);
@@ -314,6 +316,11 @@ public final class QuotePipeline {
     /** When a quote for each curve was last journalled: by this process, or as the journal said at the last rebuild. */
     public synchronized Map<String, Instant> lastReceived() {
         return Map.copyOf(lastReceived);
+    }
+
+    /** When a quote for this curve was last journalled, or null; without waiting for a step in progress. */
+    public Instant lastReceived(String curve) {
+        return lastReceived.get(curve);
     }
 
     public List<Watch> watches() {

@@ -100,6 +100,22 @@ class PipelineMetricsTest {
                 .filteredOn(l -> l.startsWith("slopewatch_info{")).hasSize(1);
     }
 
+    /** The age of each curve's latest quote, against the test's own clock readings around the post. */
+    @Test
+    void eachCurveSaysHowOldItsLatestQuoteIs() {
+        // GOVT-B gets no quote in this test class: its age is not a number until one arrives
+        assertThat(metrics()).contains("slopewatch_curve_last_quote_age_seconds{curve=\"GOVT-B\"} NaN");
+        long before = System.nanoTime();
+        given().contentType("application/json")
+                .body("{\"curve\":\"GOVT-A\",\"date\":\"2026-03-09\",\"unit\":\"bp\",\"yields\":{\"3M\":500,\"10Y\":480}}")
+                .post("/api/quotes").then().statusCode(200);
+        String line = metrics().stream().filter(l -> l.startsWith("slopewatch_curve_last_quote_age_seconds{curve=\"GOVT-A\"}"))
+                .findFirst().orElseThrow();
+        double elapsed = (System.nanoTime() - before) / 1e9;
+        double age = Double.parseDouble(line.substring(line.lastIndexOf(' ') + 1));
+        assertThat(age).as(line).isBetween(0.0, elapsed + 0.001);
+    }
+
     private static List<String> metrics() {
         return given().get("/q/metrics").then().statusCode(200).extract().asString().lines().toList();
     }
