@@ -12,7 +12,7 @@ import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
 import org.jboss.logging.Logger;
 import org.slopewatch.ingest.QuotePipeline;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.PolicyVersions;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyHash;
 
@@ -39,7 +39,7 @@ public class PolicyReloader {
     private final PolicyHolder policies;
     private final QuotePipeline pipeline;
     private final AlertDesk desk;
-    private final AlertStore store;
+    private final PolicyVersions store;
     private final AlertMetrics metrics;
     private final ScheduledExecutorService timer = Executors.newSingleThreadScheduledExecutor(r -> {
         Thread t = new Thread(r, "slopewatch-policy-reload");
@@ -48,7 +48,7 @@ public class PolicyReloader {
     });
     private String lastRejectedHash;
 
-    PolicyReloader(PolicyHolder policies, QuotePipeline pipeline, AlertDesk desk, AlertStore store, AlertMetrics metrics,
+    PolicyReloader(PolicyHolder policies, QuotePipeline pipeline, AlertDesk desk, PolicyVersions store, AlertMetrics metrics,
                    AlertsConfig config) {
         this.policies = policies;
         this.pipeline = pipeline;

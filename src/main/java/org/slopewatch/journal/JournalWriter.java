@@ -53,7 +53,7 @@ public final class JournalWriter {
                 rejects(c, e, now);
                 observations(c, e, now);
                 conclusions(c, e.conclusions, now);
-                AlertStore.insert(c, e.alerts, now);
+                AlertRows.insert(c, e.alerts, now);
                 JournalDurability.commit(c);
             } catch (SQLException | RuntimeException ex) {
                 c.rollback();
