@@ -73,7 +73,37 @@ public class JournalBeans {
 
     @Produces
     @Singleton
-    AlertStore alertStore(AgroalDataSource ds, Clock clock) {
-        return new AlertStore(ds, clock);
+    AlertHistory alertHistory(AgroalDataSource ds) {
+        return new AlertHistory(ds);
+    }
+
+    @Produces
+    @Singleton
+    DeliveryOutbox deliveryOutbox(AgroalDataSource ds, Clock clock) {
+        return new DeliveryOutbox(ds, clock);
+    }
+
+    @Produces
+    @Singleton
+    DeliveryAttempts deliveryAttempts(AgroalDataSource ds) {
+        return new DeliveryAttempts(ds);
+    }
+
+    @Produces
+    @Singleton
+    Acknowledgements acknowledgements(AgroalDataSource ds, Clock clock) {
+        return new Acknowledgements(ds, clock);
+    }
+
+    @Produces
+    @Singleton
+    MuteBook muteBook(AgroalDataSource ds, Clock clock) {
+        return new MuteBook(ds, clock);
+    }
+
+    @Produces
+    @Singleton
+    PolicyVersions policyVersions(AgroalDataSource ds, Clock clock) {
+        return new PolicyVersions(ds, clock);
     }
 }

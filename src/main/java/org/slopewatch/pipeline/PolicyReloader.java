@@ -14,7 +14,7 @@ import org.slopewatch.alerting.AlertDesk;
 import org.slopewatch.alerting.AlertMetrics;
 import org.slopewatch.alerting.AlertsConfig;
 import org.slopewatch.alerting.PolicyHolder;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.PolicyVersions;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyHash;
 
@@ -41,11 +41,11 @@ public class PolicyReloader {
     private final PolicyHolder policies;
     private final QuotePipeline pipeline;
     private final AlertDesk desk;
-    private final AlertStore store;
+    private final PolicyVersions store;
     private final AlertMetrics metrics;
     private String lastRejectedHash;
 
-    PolicyReloader(PolicyHolder policies, QuotePipeline pipeline, AlertDesk desk, AlertStore store, AlertMetrics metrics,
+    PolicyReloader(PolicyHolder policies, QuotePipeline pipeline, AlertDesk desk, PolicyVersions store, AlertMetrics metrics,
                    AlertsConfig config, Scheduler scheduler) {
         this.policies = policies;
         this.pipeline = pipeline;

@@ -22,7 +22,9 @@ import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.slopewatch.alerting.AlertDesk;
 import org.slopewatch.alerting.PolicyHolder;
 import org.slopewatch.ingest.IngestRules;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
+import org.slopewatch.journal.DeliveryAttempts;
+import org.slopewatch.journal.MuteBook;
 import org.slopewatch.pipeline.PolicyReloader;
 import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertEngine;
@@ -37,17 +39,19 @@ public class AlertResource {
     private static final Duration LONGEST_MUTE = Duration.ofDays(90);
 
     private final AlertDesk desk;
-    private final AlertStore store;
+    private final AlertHistory store;
+    private final DeliveryAttempts deliveryAttempts;
     private final PolicyReloader reloader;
     private final Clock clock;
     private final RuleSetAt ruleSets;
     private final PolicyHolder policies;
     private final IngestRules ingest;
 
-    AlertResource(AlertDesk desk, AlertStore store, PolicyReloader reloader, Clock clock, RuleSetAt ruleSets, PolicyHolder policies,
-                  IngestRules ingest) {
+    AlertResource(AlertDesk desk, AlertHistory store, DeliveryAttempts deliveryAttempts, PolicyReloader reloader, Clock clock,
+                  RuleSetAt ruleSets, PolicyHolder policies, IngestRules ingest) {
         this.desk = desk;
         this.store = store;
+        this.deliveryAttempts = deliveryAttempts;
         this.reloader = reloader;
         this.clock = clock;
         this.ruleSets = ruleSets;
@@ -72,7 +76,7 @@ public class AlertResource {
                             String title, String text, List<Alert.Fact> facts, String dashboard, String mutedBy, String policyHash,
                             Instant createdAt, List<DeliveryView> deliveries, List<AckView> acks) {
 
-        static AlertView of(AlertStore.AlertView v) {
+        static AlertView of(AlertHistory.AlertView v) {
             Alert a = v.stored().alert();
             return new AlertView(a.id(), a.rule(), a.severity().name(), a.kind().name(), v.stored().subject(),
                     a.marketDate() == null ? null : a.marketDate().toString(), a.state(), a.subject(), a.text(), a.facts(), a.dashboard(),
@@ -92,7 +96,7 @@ public class AlertResource {
     }
 
     /** One alert with every delivery attempt, for a post-mortem. */
-    public record AlertDetail(AlertView alert, List<AlertStore.Attempt> attempts) {
+    public record AlertDetail(AlertView alert, List<DeliveryAttempts.Attempt> attempts) {
     }
 
     public record AckRequest(String by, String note) {
@@ -128,9 +132,9 @@ public class AlertResource {
     @Path("/alerts/{id}")
     @Operation(summary = "One alert with its deliveries, acknowledgements and every delivery attempt")
     public Response alert(@PathParam("id") String id) {
-        AlertStore.AlertView v = store.find(id);
+        AlertHistory.AlertView v = store.find(id);
         return v == null ? error(Response.Status.NOT_FOUND, "no alert " + Excerpt.of(id))
-                : Response.ok(new AlertDetail(AlertView.of(v), store.attempts(id))).build();
+                : Response.ok(new AlertDetail(AlertView.of(v), deliveryAttempts.attempts(id))).build();
     }
 
     @POST
@@ -193,7 +197,7 @@ public class AlertResource {
         if (until == null || !until.isAfter(now) || until.isAfter(now.plus(LONGEST_MUTE))) {
             return error(Response.Status.BAD_REQUEST, "a mute must end in the future and within " + LONGEST_MUTE.toDays() + " days");
         }
-        AlertStore.Mute m = rule != null ? desk.mute("rule", rule, until, reason, by) : desk.mute("spread", spread, until, reason, by);
+        MuteBook.Mute m = rule != null ? desk.mute("rule", rule, until, reason, by) : desk.mute("spread", spread, until, reason, by);
         return Response.status(Response.Status.CREATED).entity(Map.of("id", m.id(), "kind", m.kind(), "target", m.target(),
                 "until", m.until(), "reason", m.reason(), "by", m.by())).build();
     }

@@ -4,7 +4,8 @@ import java.time.Instant;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
+import org.slopewatch.journal.DeliveryAttempts;
 import org.slopewatch.journal.JournalReader;
 
 /**
@@ -26,11 +27,11 @@ final class SpreadTimeline {
     }
 
     static List<TimelineItem> merge(List<JournalReader.StoredObservation> observations, List<JournalReader.StoredTransition> transitions,
-                                    List<AlertStore.AlertView> alerts, List<AlertStore.StoredAttempt> attempts) {
+                                    List<AlertHistory.AlertView> alerts, List<DeliveryAttempts.StoredAttempt> attempts) {
         List<Entry> entries = new ArrayList<>();
         observations.forEach(o -> entries.add(new Entry(TimelineItem.ObservationItem.of(o), 0, o.id(), "")));
         transitions.forEach(t -> entries.add(new Entry(TimelineItem.TransitionItem.of(t), 1, t.id(), "")));
-        for (AlertStore.AlertView a : alerts) {
+        for (AlertHistory.AlertView a : alerts) {
             entries.add(new Entry(TimelineItem.AlertItem.of(a), 2, a.stored().alert().createdAt().toEpochMilli(), a.stored().alert().id()));
             a.acks().forEach(k -> entries.add(new Entry(TimelineItem.AckItem.of(k), 4, 0, k.alertId() + "|" + k.by())));
         }

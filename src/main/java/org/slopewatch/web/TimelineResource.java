@@ -10,7 +10,8 @@ import java.time.Instant;
 import java.time.LocalDate;
 import java.util.List;
 import org.eclipse.microprofile.openapi.annotations.Operation;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
+import org.slopewatch.journal.DeliveryAttempts;
 import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
 
@@ -31,12 +32,14 @@ public class TimelineResource {
     }
 
     private final JournalReader journal;
-    private final AlertStore alerts;
+    private final AlertHistory alerts;
+    private final DeliveryAttempts deliveryAttempts;
     private final RuleSetAt ruleSets;
 
-    TimelineResource(JournalReader journal, AlertStore alerts, RuleSetAt ruleSets) {
+    TimelineResource(JournalReader journal, AlertHistory alerts, DeliveryAttempts deliveryAttempts, RuleSetAt ruleSets) {
         this.journal = journal;
         this.alerts = alerts;
+        this.deliveryAttempts = deliveryAttempts;
         this.ruleSets = ruleSets;
     }
 
@@ -54,10 +57,11 @@ public class TimelineResource {
                 toDate == null ? QueryParams.LATEST : toDate, at);
         List<JournalReader.StoredObservation> observations = journal.observations(range, MAX_PER_KIND + 1);
         List<JournalReader.StoredTransition> transitions = journal.transitions(range, true, MAX_PER_KIND + 1);
-        List<AlertStore.AlertView> notices = alerts.forSubject(range, MAX_PER_KIND + 1);
+        List<AlertHistory.AlertView> notices = alerts.forSubject(range, MAX_PER_KIND + 1);
         boolean truncated = observations.size() > MAX_PER_KIND || transitions.size() > MAX_PER_KIND || notices.size() > MAX_PER_KIND;
         notices = notices.subList(0, Math.min(notices.size(), MAX_PER_KIND));
-        List<AlertStore.StoredAttempt> attempts = alerts.attempts(notices.stream().map(v -> v.stored().alert().id()).toList(), at);
+        List<DeliveryAttempts.StoredAttempt> attempts =
+                deliveryAttempts.attempts(notices.stream().map(v -> v.stored().alert().id()).toList(), at);
         List<TimelineItem> items = SpreadTimeline.merge(observations.subList(0, Math.min(observations.size(), MAX_PER_KIND)),
                 transitions.subList(0, Math.min(transitions.size(), MAX_PER_KIND)), notices, attempts);
         return new TimelineView(spread, fromDate, toDate, at, ruleSets.hash(at), truncated, items);

@@ -18,11 +18,15 @@ import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.curve.Tenor;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.Acknowledgements;
+import org.slopewatch.journal.AlertHistory;
+import org.slopewatch.journal.DeliveryAttempts;
+import org.slopewatch.journal.DeliveryOutbox;
 import org.slopewatch.journal.JournalEntries;
 import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
+import org.slopewatch.journal.PolicyVersions;
 import org.slopewatch.monitor.MonitorDefinition;
 import org.slopewatch.monitor.QuarterAverage;
 import org.slopewatch.monitor.SpreadStatus;
@@ -64,7 +68,8 @@ abstract class AsOfJournalChecks {
     private AgroalDataSource ds;
     private QuotePipeline pipeline;
     private JournalReader reader;
-    private AlertStore store;
+    private PolicyVersions policies;
+    private AlertHistory history;
     private SpreadStatus liveAtT1;
     private int businessDays;
 
@@ -89,10 +94,11 @@ abstract class AsOfJournalChecks {
     void writeTheScenario() {
         ds = database();
         reader = new JournalReader(ds);
-        store = new AlertStore(ds, clock);
+        policies = new PolicyVersions(ds, clock);
+        history = new AlertHistory(ds);
         pipeline = new QuotePipeline(WATCHES, new JournalWriter(ds, clock), reader, PipelineListener.NONE, clock);
         pipeline.recover();
-        store.policyVersion("rules-one", "policy.yaml", "applied", "loaded at start-up");
+        policies.policyVersion("rules-one", "policy.yaml", "applied", "loaded at start-up");
 
         clock.set(T1);
         List<QuoteMessage> quarter = new ArrayList<>();
@@ -107,11 +113,11 @@ abstract class AsOfJournalChecks {
 
         clock.set(T2);
         pipeline.process(List.of(new QuoteBatch("test", List.of(), List.of(new Reject(RejectReason.MALFORMED, "not valid JSON", 0, "{")))));
-        store.policyVersion("rules-broken", "policy.yaml", "rejected", "policy.yaml:3:1: unknown key");
+        policies.policyVersion("rules-broken", "policy.yaml", "rejected", "policy.yaml:3:1: unknown key");
 
         clock.set(T3);
         pipeline.process(List.of(new QuoteBatch("test", List.of(snapshot(LocalDate.of(2026, 1, 2), 30)), List.of())));
-        store.policyVersion("rules-two", "policy.yaml", "applied", "reloaded");
+        policies.policyVersion("rules-two", "policy.yaml", "applied", "reloaded");
     }
 
     private static QuoteMessage snapshot(LocalDate date, double spreadBp) {
@@ -177,10 +183,10 @@ abstract class AsOfJournalChecks {
     void rejectsAndTheRuleSetInForceAreReadAsOfTheMoment() {
         assertThat(reader.rejects(10, BETWEEN)).isEmpty();
         assertThat(reader.rejects(10, T2)).extracting(JournalReader.StoredReject::detail).containsExactly("not valid JSON");
-        assertThat(store.policyHashAt(T1.minus(Duration.ofHours(2)))).as("before the first policy was journalled").isNull();
-        assertThat(store.policyHashAt(BETWEEN)).isEqualTo("rules-one");
-        assertThat(store.policyHashAt(T2)).as("a rejected policy never comes into force").isEqualTo("rules-one");
-        assertThat(store.policyHashAt(T3)).isEqualTo("rules-two");
+        assertThat(policies.policyHashAt(T1.minus(Duration.ofHours(2)))).as("before the first policy was journalled").isNull();
+        assertThat(policies.policyHashAt(BETWEEN)).isEqualTo("rules-one");
+        assertThat(policies.policyHashAt(T2)).as("a rejected policy never comes into force").isEqualTo("rules-one");
+        assertThat(policies.policyHashAt(T3)).isEqualTo("rules-two");
     }
 
     @Test
@@ -211,44 +217,45 @@ abstract class AsOfJournalChecks {
         new JournalWriter(ds, clock).write(e);
         Instant tried = T1.plus(Duration.ofMinutes(10));
         Instant delivered = T1.plus(Duration.ofMinutes(40));
-        AlertStore.Delivery pending = store.due("desk-chat", T1.plusSeconds(1), 10).get(0).delivery();
+        DeliveryOutbox outbox = new DeliveryOutbox(ds, clock);
+        DeliveryOutbox.Delivery pending = outbox.due("desk-chat", T1.plusSeconds(1), 10).get(0).delivery();
         clock.set(tried);
-        store.attempt(pending, tried, "retry", "HTTP 503", "retry in 30m", AlertStore.Status.PENDING, delivered);
+        outbox.attempt(pending, tried, "retry", "HTTP 503", "retry in 30m", DeliveryOutbox.Status.PENDING, delivered);
         clock.set(delivered);
-        store.attempt(store.due("desk-chat", delivered, 10).get(0).delivery(), delivered, "delivered", "HTTP 200", "delivered on attempt 2",
-                AlertStore.Status.DELIVERED, null);
+        outbox.attempt(outbox.due("desk-chat", delivered, 10).get(0).delivery(), delivered, "delivered", "HTTP 200",
+                "delivered on attempt 2", DeliveryOutbox.Status.DELIVERED, null);
         clock.set(delivered.plus(Duration.ofMinutes(10)));
-        store.ack(id, "desk-lead", "seen");
+        new Acknowledgements(ds, clock).ack(id, "desk-lead", "seen");
 
-        assertThat(store.recent(10, T1)).as("not recorded yet at T1").isEmpty();
-        assertThat(chat(store.recent(10, T1.plusSeconds(1)).get(0)))
+        assertThat(history.recent(10, T1)).as("not recorded yet at T1").isEmpty();
+        assertThat(chat(history.recent(10, T1.plusSeconds(1)).get(0)))
                 .as("as written: due at once, never tried")
-                .isEqualTo(new AlertStore.Delivery(id, "desk-chat", AlertStore.Status.PENDING, 0, T1, null, null, T1.plusSeconds(1)));
-        assertThat(chat(store.recent(10, BETWEEN).get(0)))
+                .isEqualTo(new DeliveryOutbox.Delivery(id, "desk-chat", DeliveryOutbox.Status.PENDING, 0, T1, null, null, T1.plusSeconds(1)));
+        assertThat(chat(history.recent(10, BETWEEN).get(0)))
                 .as("after the 503: pending, one attempt; when the retry was due is kept only in the current row")
-                .isEqualTo(new AlertStore.Delivery(id, "desk-chat", AlertStore.Status.PENDING, 1, null, tried, "retry in 30m", tried));
-        AlertStore.AlertView later = store.recent(10, delivered.plus(Duration.ofMinutes(5))).get(0);
-        assertThat(chat(later)).as("replayed to the end it is the stored row").isEqualTo(chat(store.find(id)));
-        assertThat(later.deliveries()).filteredOn(d -> d.channel().equals("risk-email")).extracting(AlertStore.Delivery::status)
-                .containsExactly(AlertStore.Status.SKIPPED);
+                .isEqualTo(new DeliveryOutbox.Delivery(id, "desk-chat", DeliveryOutbox.Status.PENDING, 1, null, tried, "retry in 30m", tried));
+        AlertHistory.AlertView later = history.recent(10, delivered.plus(Duration.ofMinutes(5))).get(0);
+        assertThat(chat(later)).as("replayed to the end it is the stored row").isEqualTo(chat(history.find(id)));
+        assertThat(later.deliveries()).filteredOn(d -> d.channel().equals("risk-email")).extracting(DeliveryOutbox.Delivery::status)
+                .containsExactly(DeliveryOutbox.Status.SKIPPED);
         assertThat(later.acks()).as("acknowledged afterwards").isEmpty();
-        assertThat(store.recent(10, Instant.parse("2030-01-01T00:00:00Z")).get(0).acks()).extracting(AlertStore.Ack::by)
+        assertThat(history.recent(10, Instant.parse("2030-01-01T00:00:00Z")).get(0).acks()).extracting(AlertHistory.Ack::by)
                 .containsExactly("desk-lead");
 
-        assertThat(store.forSubject(range(BETWEEN), 10)).extracting(v -> v.stored().alert().id()).containsExactly(id);
-        assertThat(store.forSubject(new JournalRange(KEY.id(), LocalDate.of(2026, 5, 1), LocalDate.of(2026, 5, 31), null), 10))
+        assertThat(history.forSubject(range(BETWEEN), 10)).extracting(v -> v.stored().alert().id()).containsExactly(id);
+        assertThat(history.forSubject(new JournalRange(KEY.id(), LocalDate.of(2026, 5, 1), LocalDate.of(2026, 5, 31), null), 10))
                 .as("outside the market-date range").isEmpty();
-        assertThat(store.attempts(List.of(id), BETWEEN)).extracting(AlertStore.StoredAttempt::outcome).containsExactly("retry");
+        assertThat(new DeliveryAttempts(ds).attempts(List.of(id), BETWEEN)).extracting(DeliveryAttempts.StoredAttempt::outcome).containsExactly("retry");
         List<String> exported = new ArrayList<>();
         try {
-            store.eachAlert(range(null), a -> exported.add(a.alert().text()));
+            history.eachAlert(range(null), a -> exported.add(a.alert().text()));
         } catch (IOException ex) {
             throw new AssertionError(ex);
         }
         assertThat(exported).containsExactly(alert.text());
     }
 
-    private static AlertStore.Delivery chat(AlertStore.AlertView v) {
+    private static DeliveryOutbox.Delivery chat(AlertHistory.AlertView v) {
         return v.deliveries().stream().filter(d -> d.channel().equals("desk-chat")).findFirst().orElseThrow();
     }
 }
