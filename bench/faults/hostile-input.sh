@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # The long form of the bad-input checks (docs/reliability.md, "Bad input"): the corpus under
 # bench/faults/corpus against a daemon that is already running, with its answers, timings and
-# a health check after every file; then check-rules on the policy corpus.
+# a health check after every file; then vet-policy on the policy corpus.
 #   bench/faults/hostile-input.sh [URL [TOKEN]] [--policy-file FILE]
 #     URL    the daemon (default http://localhost:8080); TOKEN a write token (default $SLOPEWATCH_TOKEN)
 #     --policy-file FILE  the daemon's policy file: also try hostile policies through the live

@@ -8,7 +8,7 @@ every quote file of bench/faults/corpus/quotes (in the table's order, with the c
 table gives) to POST /api/quotes, checks each answer against expected-quotes.tsv (status, accepted,
 duplicates, reasons, first detail), checks
 after every file that the daemon still answers /q/health/live, then sends the oversized requests
-(a body past the 16M limit, a batch of 20,001 quotes), runs `./slopewatch check-rules` on the policy
+(a body past the 16M limit, a batch of 20,001 quotes), runs `./slopewatch vet-policy` on the policy
 corpus against expected-policies.tsv, sends every policy file as a what-if's policy (POST
 /api/what-if: the same first problem, in an answer of at most 128 KiB), sends the mute, lift and
 acknowledgement bodies of bench/faults/corpus/alerting against expected-alerting.tsv (the accepted
@@ -123,7 +123,7 @@ def quotes(base, token):
 def policies(launcher):
     rows = table("expected-policies.tsv")
     started = time.monotonic()
-    run = subprocess.run([launcher, "check-rules", str(CORPUS / "policies")], capture_output=True, text=True, cwd=ROOT)
+    run = subprocess.run([launcher, "vet-policy", str(CORPUS / "policies")], capture_output=True, text=True, cwd=ROOT)
     seconds = time.monotonic() - started
     failures = 0 if run.returncode == 2 else 1
     for f, category, outcome, position, message in rows:
@@ -132,7 +132,7 @@ def policies(launcher):
             any(line.startswith(path + ":" + position + ": ") and message in line for line in run.stderr.splitlines())
         failures += 0 if ok else 1
         print("%-4s %-50s %-13s %s" % ("ok" if ok else "FAIL", f, category, "accepted" if outcome == "accepted" else position + " " + message))
-    print("policies: %d files through check-rules in %.2f s (exit code %d, expected 2), %d answered otherwise than expected" % (
+    print("policies: %d files through vet-policy in %.2f s (exit code %d, expected 2), %d answered otherwise than expected" % (
         len(rows), seconds, run.returncode, failures))
     return failures
 
@@ -162,7 +162,7 @@ def whatif(base, token):
 
 def alerting(base, token):
     rows = table("expected-alerting.tsv")
-    code, text, _ = request(base + "/api/mutes", token, "POST", json.dumps(
+    code, text, _ = request(base + "/api/quiet-periods", token, "POST", json.dumps(
         {"rule": "stale-feed", "duration": "PT1M", "reason": "hostile-input run: to be lifted", "by": "hostile-input"}).encode(),
         "application/json")
     mute = json.loads(text)["id"] if code == 201 else None
@@ -173,7 +173,7 @@ def alerting(base, token):
     for f, category, kind, status, error in rows:
         body = (CORPUS / f).read_bytes()
         if kind == "mute":
-            code, answer, seconds = request(base + "/api/mutes", token, "POST", body, "application/json")
+            code, answer, seconds = request(base + "/api/quiet-periods", token, "POST", body, "application/json")
         elif kind == "ack":
             if alert is None:
                 print("skip %-45s no alert to acknowledge yet" % f)
@@ -185,7 +185,7 @@ def alerting(base, token):
                 print("skip %-45s no mute of this run to lift" % f)
                 continue
             by = urllib.parse.quote(json.loads(body)["by"])
-            code, answer, seconds = request(base + "/api/mutes/%d?by=%s" % (mute, by), token, "DELETE")
+            code, answer, seconds = request(base + "/api/quiet-periods/%d?by=%s" % (mute, by), token, "DELETE")
         try:
             said = json.loads(answer).get("error", "") if answer.startswith("{") else ""
         except ValueError:
@@ -219,12 +219,12 @@ def reload(base, token, policy_file):
 # The API's reads and writes for the path check (AccessPathSpellingTest walks every route of the
 # compiled resources; this list is the same kind of walk for a daemon that is already running).
 READ_ROUTES = [("/api/spreads", ""), ("/api/alerts", ""), ("/api/transitions", ""), ("/api/rejects", ""), ("/api/curves", ""),
-               ("/api/mutes", ""), ("/api/export/observations", ""), ("/api/export/transitions", ""), ("/api/export/alerts", ""),
+               ("/api/quiet-periods", ""), ("/api/export/observations", ""), ("/api/export/transitions", ""), ("/api/export/alerts", ""),
                ("/api/spreads/GOVT-A:10Y-3M", ""), ("/api/spreads/GOVT-A:10Y-3M/history", ""),
                ("/api/spreads/GOVT-A:10Y-3M/timeline", ""), ("/api/curves/GOVT-A", "?on_or_before=2099-12-31"),
                ("/api/report", "?spread=GOVT-A:10Y-3M"), ("/q/openapi", "")]
-WRITE_ROUTES = [("POST", "/api/quotes"), ("POST", "/api/policy/reload"), ("POST", "/api/mutes"), ("POST", "/api/what-if"),
-                ("POST", "/api/alerts/no-such-id/ack"), ("DELETE", "/api/mutes/999999")]
+WRITE_ROUTES = [("POST", "/api/quotes"), ("POST", "/api/policy/reload"), ("POST", "/api/quiet-periods"), ("POST", "/api/what-if"),
+                ("POST", "/api/alerts/no-such-id/ack"), ("DELETE", "/api/quiet-periods/999999")]
 
 
 def spellings(port):
@@ -326,7 +326,7 @@ def main():
     p.add_argument("url", nargs="?", default="http://localhost:8080", help="the daemon (default http://localhost:8080)")
     p.add_argument("token", nargs="?", default=None, help="a write token (default: $SLOPEWATCH_TOKEN)")
     p.add_argument("--policy-file", help="the daemon's policy file: try hostile policies through the live reload, then restore it")
-    p.add_argument("--launcher", default=str(ROOT / "slopewatch"), help="the launcher for check-rules (default ./slopewatch)")
+    p.add_argument("--launcher", default=str(ROOT / "slopewatch"), help="the launcher for vet-policy (default ./slopewatch)")
     a = p.parse_args()
     import os
     token = a.token or os.environ.get("SLOPEWATCH_TOKEN")

@@ -30,7 +30,7 @@ final class AlertComposer {
      */
     Alert compose(AlertDecision d, SpreadStatus status, Instant now) {
         Alert.Kind kind = Alert.Kind.valueOf(d.notice().name());
-        String state = status == null ? (d.notice() == AlertDecision.Notice.RESOLVED ? "FRESH" : "STALE") : status.state().name();
+        String state = status == null ? (d.notice() == Alert.Kind.CLOSING ? "FRESH" : "STALE") : status.state().name();
         return new Alert(d.id(), d.rule().name(), d.rule().severity(), kind, d.subject(), status == null ? null : status.date(), state,
                 subject(d, status, state), text(d, status), facts(d, status), link(d, status), now);
     }
@@ -38,9 +38,9 @@ final class AlertComposer {
     private static String subject(AlertDecision d, SpreadStatus status, String state) {
         String what = status == null ? d.subject() + " feed" : status.curve() + " " + status.spread();
         return switch (d.notice()) {
-            case FIRING -> "[" + d.rule().severity() + "] " + what + " " + state;
-            case REPEAT -> "[" + d.rule().severity() + "] " + what + " " + state + " (reminder " + (d.number() - 1) + ")";
-            case RESOLVED -> "[RESOLVED] " + what + ": " + d.rule().name() + " no longer holds (now " + state + ")";
+            case OPENING -> "[" + d.rule().severity() + "] " + what + " " + state;
+            case STANDING -> "[" + d.rule().severity() + "] " + what + " " + state + " (reminder " + (d.number() - 1) + ")";
+            case CLOSING -> "[CLOSING] " + what + ": " + d.rule().name() + " no longer holds (now " + state + ")";
         };
     }
 

@@ -16,7 +16,7 @@ import org.slopewatch.delivery.ChannelRegistry;
 import org.slopewatch.journal.Acknowledgements;
 import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalEntries;
-import org.slopewatch.journal.MuteBook;
+import org.slopewatch.journal.QuietPeriodBook;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertCondition;
@@ -29,10 +29,10 @@ import org.slopewatch.rules.Policy;
 /**
  * The rule engine in the daemon: decides notices as the pipeline steps and the clock ticks, adds
  * them with their outbox rows to the step's journal transaction, and keeps acknowledgements and
- * mutes. Its memory (open episodes, mutes) is rebuilt from the journal on start and after a
- * failed write, so a restart neither repeats a first notice nor forgets a resolve.
+ * quiet periods. Its memory (open episodes, quiet periods) is rebuilt from the journal on start and
+ * after a failed write, so a restart neither sends a second opening notice nor forgets a closing one.
  *
- * <p>Synchronised: the pipeline calls it under its own lock, the API for acks and mutes does not.
+ * <p>Synchronised: the pipeline calls it under its own lock, the API for acks and quiet periods does not.
  */
 @Singleton
 public class AlertDesk implements AlertStage {
@@ -42,7 +42,7 @@ public class AlertDesk implements AlertStage {
     private final PolicyHolder policies;
     private final AlertHistory history;
     private final Acknowledgements acks;
-    private final MuteBook muteBook;
+    private final QuietPeriodBook quietPeriodBook;
     private final ChannelRegistry channels;
     private final AlertDispatcher dispatcher;
     private final AlertMetrics metrics;
@@ -50,14 +50,14 @@ public class AlertDesk implements AlertStage {
     private final Clock clock;
 
     private AlertEngine engine;
-    private List<MuteBook.Mute> mutes = List.of();
+    private List<QuietPeriodBook.QuietPeriod> quietPeriods = List.of();
 
-    AlertDesk(PolicyHolder policies, AlertHistory history, Acknowledgements acks, MuteBook muteBook, ChannelRegistry channels,
+    AlertDesk(PolicyHolder policies, AlertHistory history, Acknowledgements acks, QuietPeriodBook quietPeriodBook, ChannelRegistry channels,
               AlertDispatcher dispatcher, AlertMetrics metrics, AlertsConfig config, Clock clock) {
         this.policies = policies;
         this.history = history;
         this.acks = acks;
-        this.muteBook = muteBook;
+        this.quietPeriodBook = quietPeriodBook;
         this.channels = channels;
         this.dispatcher = dispatcher;
         this.metrics = metrics;
@@ -136,27 +136,31 @@ public class AlertDesk implements AlertStage {
         String hash = policies.current().hash();
         for (AlertDecision d : decisions) {
             Alert alert = composer.compose(d, byId.get(d.subject()), now);
-            String mutedBy = mutedBy(d, now);
+            String quietedBy = quietedBy(d, now);
             List<JournalEntries.Outbox> outbox = new ArrayList<>();
             for (String channel : d.rule().channels()) {
-                String skipped = mutedBy != null ? "muted: " + mutedBy
+                String skipped = quietedBy != null ? "held back: " + quietedBy
                         : channels.channel(channel).isEmpty() ? "channel " + channel + " is not configured" : null;
                 outbox.add(new JournalEntries.Outbox(channel, skipped));
             }
-            journal.alert(new JournalEntries.AlertEntry(alert, d.subject(), d.since(), d.number(), mutedBy, hash, sequence, outbox));
+            journal.alert(new JournalEntries.AlertEntry(alert, d.subject(), d.since(), d.number(), quietedBy, hash, sequence, outbox));
         }
     }
 
-    /** The mute that silences a decision, described, or null. A spread mute matches the spread id or its name. */
-    private String mutedBy(AlertDecision d, Instant now) {
-        for (MuteBook.Mute m : mutes) {
-            if (!m.activeAt(now)) {
+    /**
+     * The quiet period that holds a decision back, described, or null. A quiet period of a spread
+     * matches the spread id or its name.
+     */
+    private String quietedBy(AlertDecision d, Instant now) {
+        for (QuietPeriodBook.QuietPeriod q : quietPeriods) {
+            if (!q.activeAt(now)) {
                 continue;
             }
-            boolean hit = "rule".equals(m.kind()) ? m.target().equals(d.rule().name())
-                    : m.target().equals(d.subject()) || d.subject().endsWith(":" + m.target());
+            boolean hit = "rule".equals(q.kind()) ? q.target().equals(d.rule().name())
+                    : q.target().equals(d.subject()) || d.subject().endsWith(":" + q.target());
             if (hit) {
-                return m.kind() + " " + m.target() + " muted by " + m.by() + " until " + m.until() + " (" + m.reason() + ")";
+                return "quiet period " + q.id() + " on " + q.kind() + " " + q.target() + ", set by " + q.setBy() + " until " + q.until()
+                        + " (" + q.note() + ")";
             }
         }
         return null;
@@ -168,10 +172,10 @@ public class AlertDesk implements AlertStage {
             return;
         }
         for (JournalEntries.AlertEntry e : alerts) {
-            metrics.decided(e.alert(), e.mutedBy() != null);
+            metrics.decided(e.alert(), e.quietedBy() != null);
             e.outbox().stream().filter(o -> o.skipped() != null).forEach(o -> metrics.finished(o.channel(), "skipped"));
             LOG.infof("alert id=%s rule=%s severity=%s kind=%s subject=%s: %s", e.alert().id(), e.alert().rule(), e.alert().severity(),
-                    e.alert().kind(), e.alert().subject(), e.mutedBy() == null ? "queued" : "muted (" + e.mutedBy() + ")");
+                    e.alert().kind().label(), e.alert().subject(), e.quietedBy() == null ? "queued" : "held back (" + e.quietedBy() + ")");
         }
         dispatcher.wake();
     }
@@ -180,7 +184,7 @@ public class AlertDesk implements AlertStage {
     public synchronized void rebuild() {
         AlertEngine fresh = new AlertEngine(policies.policy().alerts());
         for (AlertHistory.StoredAlert a : history.latestPerEpisode()) {
-            if (a.alert().kind() == Alert.Kind.RESOLVED || a.episodeSince() == null) {
+            if (a.alert().kind() == Alert.Kind.CLOSING || a.episodeSince() == null) {
                 continue;
             }
             fresh.restore(a.alert().rule(), a.subject(), new AlertEngine.Episode(a.episodeSince(), a.alert().createdAt(), a.notice()));
@@ -189,11 +193,11 @@ public class AlertDesk implements AlertStage {
             }
         }
         engine = fresh;
-        mutes = muteBook.mutes();
+        quietPeriods = quietPeriodBook.all();
     }
 
     /**
-     * Acknowledges an alert: its episode sends no more repeats (a resolve notice still comes).
+     * Acknowledges an alert: its episode sends no more standing notices (a closing notice still comes).
      *
      * @return the alert as it stands, or empty when there is no such alert
      */
@@ -208,25 +212,26 @@ public class AlertDesk implements AlertStage {
         return Optional.ofNullable(history.find(alertId));
     }
 
-    /** Mutes a rule or a spread until a time; journalled with who and why. */
-    public synchronized MuteBook.Mute mute(String kind, String target, Instant until, String reason, String by) {
-        MuteBook.Mute m = muteBook.mute(kind, target, until, reason, by);
-        mutes = muteBook.mutes();
-        LOG.infof("%s %s muted by %s until %s: %s", kind, target, by, until, reason);
-        return m;
+    /** Sets a quiet period on a rule or a spread until a time; journalled with who set it and why. */
+    public synchronized QuietPeriodBook.QuietPeriod setQuietPeriod(String kind, String target, Instant until, String note, String setBy) {
+        QuietPeriodBook.QuietPeriod q = quietPeriodBook.add(kind, target, until, note, setBy);
+        quietPeriods = quietPeriodBook.all();
+        LOG.infof("quiet period %d on %s %s set by %s until %s: %s", q.id(), kind, target, setBy, until, note);
+        return q;
     }
 
-    public synchronized boolean lift(long muteId, String by) {
-        boolean lifted = muteBook.lift(muteId, by);
-        mutes = muteBook.mutes();
+    /** Lifts a quiet period early; false when there is no such quiet period or it was lifted already. */
+    public synchronized boolean lift(long periodId, String liftedBy) {
+        boolean lifted = quietPeriodBook.lift(periodId, liftedBy);
+        quietPeriods = quietPeriodBook.all();
         if (lifted) {
-            LOG.infof("mute %d lifted by %s", muteId, by);
+            LOG.infof("quiet period %d lifted by %s", periodId, liftedBy);
         }
         return lifted;
     }
 
-    public synchronized List<MuteBook.Mute> mutes() {
-        return mutes;
+    public synchronized List<QuietPeriodBook.QuietPeriod> quietPeriods() {
+        return quietPeriods;
     }
 
     /** The episodes whose condition holds now, by {@code rule|subject}. */

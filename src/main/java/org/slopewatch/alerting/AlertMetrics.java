@@ -41,7 +41,7 @@ public class AlertMetrics {
     /**
      * Every series a policy can move, at zero before anything happened, so that a rate or an
      * increase over it is defined from the start (and alerting rules need not guard against a
-     * missing series): per rule, each kind muted or not and each attempt outcome on each of its
+     * missing series): per rule, each kind held back by a quiet period or not and each attempt outcome on each of its
      * channels; per channel, named in the policy or configured, each final outcome.
      */
     void expect(Policy policy, Collection<String> configuredChannels) {
@@ -49,8 +49,8 @@ public class AlertMetrics {
         for (AlertRule rule : policy.alerts()) {
             String severity = lower(rule.severity());
             for (Alert.Kind kind : Alert.Kind.values()) {
-                for (boolean muted : new boolean[] {false, true}) {
-                    alerts(rule.name(), severity, lower(kind), muted).increment(0);
+                for (boolean quieted : new boolean[] {false, true}) {
+                    alerts(rule.name(), severity, lower(kind), quieted).increment(0);
                 }
             }
             for (String channel : rule.channels()) {
@@ -68,8 +68,8 @@ public class AlertMetrics {
         }
     }
 
-    void decided(Alert alert, boolean muted) {
-        alerts(alert.rule(), lower(alert.severity()), lower(alert.kind()), muted).increment();
+    void decided(Alert alert, boolean quieted) {
+        alerts(alert.rule(), lower(alert.severity()), lower(alert.kind()), quieted).increment();
     }
 
     /** @param outcome {@code delivered}, {@code retry} or {@code failed} */
@@ -82,9 +82,9 @@ public class AlertMetrics {
         deliveries(channel, outcome).increment();
     }
 
-    private Counter alerts(String rule, String severity, String kind, boolean muted) {
+    private Counter alerts(String rule, String severity, String kind, boolean quieted) {
         return Counter.builder("slopewatch.alerts").description("notices decided by the rule engine")
-                .tag("rule", rule).tag("severity", severity).tag("kind", kind).tag("muted", Boolean.toString(muted)).register(registry);
+                .tag("rule", rule).tag("severity", severity).tag("kind", kind).tag("quieted", Boolean.toString(quieted)).register(registry);
     }
 
     private Counter attempts(String channel, String rule, String severity, String outcome) {

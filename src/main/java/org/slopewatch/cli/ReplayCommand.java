@@ -27,6 +27,7 @@ import org.slopewatch.probability.RecessionCalendarCsv;
 import org.slopewatch.replay.Replay;
 import org.slopewatch.replay.ReplayReport;
 import org.slopewatch.rules.PolicyException;
+import org.slopewatch.rules.Policy;
 import org.slopewatch.rules.PolicyParser;
 import org.slopewatch.spread.SpreadDefinition;
 import org.slopewatch.text.Excerpt;
@@ -109,7 +110,7 @@ final class ReplayCommand implements Callable<Integer> {
             return whatIfExit;
         }
         try {
-            List<Watch> watches = watches();
+            List<Watch> watches = watches(err);
             LeadTimeAnalysis leads = null;
             if (recessions != null) {
                 try (Reader r = Files.newBufferedReader(recessions, StandardCharsets.UTF_8)) {
@@ -155,12 +156,14 @@ final class ReplayCommand implements Callable<Integer> {
         return dot > 0 ? name.substring(0, dot) : name;
     }
 
-    private List<Watch> watches() throws IOException, PolicyException {
+    private List<Watch> watches(PrintWriter err) throws IOException, PolicyException {
         if (policy != null) {
             if (!spreads.isEmpty() || !persistence.isEmpty()) {
                 throw new IllegalArgumentException("give either --policy or --spread/--persistence, not both");
             }
-            return PolicyParser.parse(policy.toString(), Files.readAllBytes(policy)).watches();
+            Policy parsed = PolicyParser.parse(policy.toString(), Files.readAllBytes(policy));
+            parsed.warnings().forEach(err::println);
+            return parsed.watches();
         }
         if (spreads.isEmpty()) {
             throw new IllegalArgumentException("nothing to watch: give --spread (e.g. --spread 10Y-3M) or --policy FILE");

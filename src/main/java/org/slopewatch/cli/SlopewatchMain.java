@@ -7,7 +7,7 @@ import picocli.CommandLine;
 /**
  * The launcher's entry point.
  *
- * <p>Offline commands ({@code replay}, {@code fit}, {@code check-rules}) run as plain
+ * <p>Offline commands ({@code replay}, {@code fit}, {@code vet-policy}) run as plain
  * Java through picocli: they open no ports and start no container. Only the daemon commands
  * boot Quarkus.
  */

@@ -109,7 +109,7 @@ final class WhatIfOptions {
 
     /** The policy tried: the file, or the one policy file in a directory (policies are tried whole, never merged). */
     static CandidatePolicy policy(Path path) throws IOException, PolicyException {
-        List<Path> files = CheckRulesCommand.policyFiles(path);
+        List<Path> files = VetPolicyCommand.policyFiles(path);
         if (files.isEmpty()) {
             throw new IllegalArgumentException("no policy file (*.yaml, *.yml) in " + path);
         }

@@ -37,7 +37,7 @@ final class WhatIfText {
     }
 
     private void wouldFire(List<WhatIfReport.Notice> notices) {
-        out.println("  would fire (first notices and resolve notices, by market date)");
+        out.println("  would send (opening and closing notices, by market date)");
         if (notices.isEmpty()) {
             out.println("    nothing");
             return;

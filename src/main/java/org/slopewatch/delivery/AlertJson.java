@@ -23,7 +23,7 @@ public final class AlertJson {
         node.put("id", a.id());
         node.put("rule", a.rule());
         node.put("severity", a.severity().name().toLowerCase(Locale.ROOT));
-        node.put("kind", a.kind().name().toLowerCase(Locale.ROOT));
+        node.put("kind", a.kind().label());
         node.put("spread_id", a.spreadId());
         node.put("market_date", a.marketDate() == null ? null : a.marketDate().toString());
         node.put("state", a.state());

@@ -70,7 +70,7 @@ public final class LogChannel implements AlertChannel {
         return new DeliveryOutcome.Delivered("log '" + name + "': written to " + CATEGORY);
     }
 
-    /** The line itself, e.g. {@code alert id=… kind=firing severity=critical rule=… spread=GOVT-A:10Y-3M …}. */
+    /** The line itself, e.g. {@code alert id=… kind=opening severity=critical rule=… spread=GOVT-A:10Y-3M …}. */
     static String line(Alert a) {
         StringBuilder out = new StringBuilder("alert");
         field(out, "id", a.id());

@@ -20,7 +20,7 @@ import org.slopewatch.rules.Alert;
  * event in structured mode: the whole event is the JSON payload ({@code specversion}, {@code id}
  * = the alert id, {@code source} as configured ({@code slopewatch.delivery.cloud-events-source},
  * {@value #DEFAULT_SOURCE} by default), {@code type}
- * {@code org.slopewatch.alert.firing|repeat|resolved}, {@code subject} = the spread,
+ * {@code org.slopewatch.alert.opening|standing|closing}, {@code subject} = the spread,
  * {@code time}, {@code datacontenttype} and {@code data} = {@link AlertJson}). On Kafka the
  * record is keyed by spread, so that a spread's alerts stay in order, and carries the
  * structured-mode content type header.
@@ -77,7 +77,7 @@ public final class StreamChannel implements AlertChannel {
 
     /** The CloudEvents type of an alert's kind. */
     public static String eventType(Alert alert) {
-        return "org.slopewatch.alert." + alert.kind().name().toLowerCase(Locale.ROOT);
+        return "org.slopewatch.alert." + alert.kind().label();
     }
 
     /** The alert as a structured-mode CloudEvent from the default source. */

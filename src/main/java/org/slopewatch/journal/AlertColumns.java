@@ -6,16 +6,16 @@ package org.slopewatch.journal;
  */
 public final class AlertColumns {
 
-    /** Who acts: {@code alert_ack.acked_by}, {@code mute.muted_by}, {@code mute.lifted_by}. */
+    /** Who acts: {@code alert_ack.acked_by}, {@code mute.muted_by} (who set a quiet period), {@code mute.lifted_by}. */
     public static final int BY_CHARS = 100;
     /** {@code alert_ack.note}. */
     public static final int NOTE_CHARS = 400;
-    /** {@code mute.reason}. */
-    public static final int REASON_CHARS = 400;
+    /** {@code mute.reason}: a quiet period's note (the journal's table keeps its first name). */
+    public static final int QUIET_NOTE_CHARS = 400;
     /** {@code mute.target}: a rule's name or a spread. */
     public static final int TARGET_CHARS = 120;
-    /** {@code alert.muted_by}: the mute that silenced a notice, described with its reason, can be longer. */
-    static final int MUTED_BY_CHARS = 400;
+    /** {@code alert.muted_by}: the quiet period that held a notice back, described with its note, can be longer. */
+    static final int QUIETED_BY_CHARS = 400;
 
     private AlertColumns() {
     }

@@ -21,7 +21,7 @@ import org.slopewatch.rules.Alert;
 public final class AlertHistory {
 
     /** A stored notice with what the rule engine needs to pick up its episode after a restart. */
-    public record StoredAlert(Alert alert, String subject, LocalDate episodeSince, int notice, String mutedBy, String policyHash,
+    public record StoredAlert(Alert alert, String subject, LocalDate episodeSince, int notice, String quietedBy, String policyHash,
                               Instant recordedAt) {
     }
 
@@ -107,7 +107,8 @@ public final class AlertHistory {
         if (kinds.isEmpty()) {
             return out;
         }
-        List<String> names = kinds.stream().map(Enum::name).sorted().toList();
+        // a journal written before the present names also holds the old ones
+        List<String> names = kinds.stream().flatMap(k -> k.storedNames().stream()).sorted().toList();
         sql.query("SELECT " + AlertRows.ALERT_COLUMNS + " FROM alert a WHERE a.kind IN (" + JournalSql.placeholders(names.size())
                 + ") ORDER BY a.created_at, a.id", s -> JournalSql.bind(s, names), rs -> out.add(AlertRows.alert(rs)), "alerts");
         return out;

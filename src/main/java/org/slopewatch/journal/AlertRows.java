@@ -58,7 +58,7 @@ final class AlertRows {
                 a.setString(11, JournalWriter.fit(alert.text(), 8000));
                 a.setString(12, JournalWriter.fit(FactsText.write(alert.facts()), 4000));
                 a.setString(13, alert.dashboard());
-                a.setString(14, JournalWriter.fit(e.mutedBy(), AlertColumns.MUTED_BY_CHARS));
+                a.setString(14, JournalWriter.fit(e.quietedBy(), AlertColumns.QUIETED_BY_CHARS));
                 a.setString(15, e.policyHash());
                 if (e.seq() == null) {
                     a.setNull(16, Types.BIGINT);
@@ -87,7 +87,7 @@ final class AlertRows {
     static AlertHistory.StoredAlert alert(ResultSet rs) throws SQLException {
         Date since = rs.getDate(4);
         Date market = rs.getDate(8);
-        Alert alert = new Alert(rs.getString(1), rs.getString(2), Severity.valueOf(rs.getString(7)), Alert.Kind.valueOf(rs.getString(6)),
+        Alert alert = new Alert(rs.getString(1), rs.getString(2), Severity.valueOf(rs.getString(7)), Alert.Kind.fromStored(rs.getString(6)),
                 rs.getString(3), market == null ? null : market.toLocalDate(), rs.getString(9), rs.getString(10), rs.getString(11),
                 FactsText.read(rs.getString(12)), rs.getString(13), JournalSql.instant(rs, 16));
         return new AlertHistory.StoredAlert(alert, rs.getString(3), since == null ? null : since.toLocalDate(), rs.getInt(5),

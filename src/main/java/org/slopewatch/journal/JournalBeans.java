@@ -97,8 +97,8 @@ public class JournalBeans {
 
     @Produces
     @Singleton
-    MuteBook muteBook(AgroalDataSource ds, Clock clock) {
-        return new MuteBook(ds, clock);
+    QuietPeriodBook quietPeriodBook(AgroalDataSource ds, Clock clock) {
+        return new QuietPeriodBook(ds, clock);
     }
 
     @Produces

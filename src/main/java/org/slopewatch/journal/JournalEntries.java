@@ -51,12 +51,12 @@ public final class JournalEntries {
 
     /**
      * A notice and its outbox rows: one per channel, pending unless {@code skipped} gives a
-     * reason not to deliver (channel not configured, alert muted).
+     * reason not to deliver (channel not configured, notice held back by a quiet period).
      *
      * @param episodeSince the market date the rule's condition started to hold (names the episode)
-     * @param mutedBy      the mute that silenced it, or null
+     * @param quietedBy    the quiet period that held it back, described, or null
      */
-    public record AlertEntry(Alert alert, String subject, LocalDate episodeSince, int notice, String mutedBy, String policyHash,
+    public record AlertEntry(Alert alert, String subject, LocalDate episodeSince, int notice, String quietedBy, String policyHash,
                              Long seq, List<Outbox> outbox) {
         public AlertEntry {
             outbox = List.copyOf(outbox);

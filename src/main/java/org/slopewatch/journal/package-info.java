@@ -1,11 +1,11 @@
 /**
  * The journal: accepted quotes, rejects, spread observations, transitions, spells and revisions,
- * and the alert tables (notices, their outbox and attempts, acknowledgements, mutes, policy
+ * and the alert tables (notices, their outbox and attempts, acknowledgements, quiet periods, policy
  * versions) in one schema (Flyway migrations in {@code db/journal}) for H2 and PostgreSQL, written
  * with plain batched JDBC. {@link org.slopewatch.journal.JournalWriter} writes a step, its notices
  * with their outbox rows included ({@code AlertRows}); each alert table is read and written
  * through a store with one job ({@code AlertHistory}, {@code DeliveryOutbox},
- * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code MuteBook}, {@code PolicyVersions});
+ * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code QuietPeriodBook}, {@code PolicyVersions});
  * all of them go through {@code JournalSql}, the one JDBC helper.
  *
  * <p>Invariants: one processing step is one transaction, on disk when the write returns

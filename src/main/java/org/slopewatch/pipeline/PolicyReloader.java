@@ -57,6 +57,7 @@ public class PolicyReloader {
             store.policyVersion(current.hash(), current.source(), "applied", "loaded at start-up");
         }
         LOG.infof("policy %s in force (sha256 %s)", current.source(), current.hash());
+        warn(current);
         Duration every = config.reloadCheck();
         if (!every.isZero() && !every.isNegative()) {
             scheduler.newJob("slopewatch-policy-reload").setInterval(every.toString()).setDelayed(every.toString())
@@ -113,7 +114,13 @@ public class PolicyReloader {
         lastRejectedHash = null;
         LOG.infof("policy %s reloaded (sha256 %s): %d watch(es), %d alert rule(s)", file, hash, next.policy().watches().size(),
                 next.policy().alerts().size());
+        warn(next);
         return new Outcome("applied", hash, "reloaded");
+    }
+
+    /** One log line per warning of a policy put in force (a deprecated key, with the key that replaces it). */
+    private static void warn(PolicyHolder.Loaded loaded) {
+        loaded.policy().warnings().forEach(w -> LOG.warnf("policy warning: %s", w));
     }
 
     /**

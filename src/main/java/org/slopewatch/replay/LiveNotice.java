@@ -1,6 +1,7 @@
 package org.slopewatch.replay;
 
 import java.time.LocalDate;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertDecision;
 
 /**
@@ -12,7 +13,7 @@ import org.slopewatch.rules.AlertDecision;
  * @param marketDate   the spread's latest market date when the notice was decided
  * @param policyHash   the content hash of the policy it was decided under, or null
  */
-public record LiveNotice(String rule, String subject, AlertDecision.Notice kind, LocalDate episodeSince, LocalDate marketDate,
+public record LiveNotice(String rule, String subject, Alert.Kind kind, LocalDate episodeSince, LocalDate marketDate,
                          String policyHash) {
 
     /** Rules about a feed name a curve; spread ids always carry {@code CURVE:SPREAD}. */

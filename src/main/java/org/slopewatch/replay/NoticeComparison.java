@@ -12,7 +12,7 @@ import java.util.TreeSet;
 
 /**
  * Compares first notices: those that fired live with those a policy tried would fire, episode by
- * episode, matched by rule name and subject and paired by {@link EpisodePairing}. Repeats are left
+ * episode, matched by rule name and subject and paired by {@link EpisodePairing}. Standing notices are left
  * out on both sides because their timing is wall-clock time, not market time.
  */
 final class NoticeComparison {

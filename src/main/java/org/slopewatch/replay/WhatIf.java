@@ -21,6 +21,7 @@ import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.monitor.SpreadTrack;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.rules.AlertConditions;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertDecision;
 import org.slopewatch.rules.AlertEngine;
 import org.slopewatch.rules.AlertRule;
@@ -36,7 +37,7 @@ import org.slopewatch.text.Excerpt;
  * after each quote's step, as the daemon evaluates them after each batch.
  *
  * <p>Feed rules do not apply (a stale feed is about when quotes arrived, which stored market data
- * does not say) and repeats are not kept (their intervals are wall-clock time). Not thread-safe:
+ * does not say) and standing notices are not kept (their intervals are wall-clock time). Not thread-safe:
  * one run feeds one instance.
  */
 public final class WhatIf {
@@ -98,11 +99,11 @@ public final class WhatIf {
         List<AlertDecision> decisions = alerts.decide(AlertConditions.of(rules, changed, Map.of(),
                 policy.probability().currentBySpreadId(changed)), clock(date));
         for (AlertDecision d : decisions) {
-            if (d.notice() == AlertDecision.Notice.REPEAT) {
+            if (d.notice() == Alert.Kind.STANDING) {
                 continue;
             }
             notices.add(new WhatIfReport.Notice(d.rule().name(), d.subject(), d.rule().severity().name().toLowerCase(Locale.ROOT),
-                    d.notice().name(), d.since(), byId.get(d.subject()).date()));
+                    d.notice().label(), d.since(), byId.get(d.subject()).date()));
         }
     }
 
@@ -129,12 +130,12 @@ public final class WhatIf {
     public WhatIfReport report(String source, List<LiveNotice> live) {
         List<WhatIfReport.Notice> wouldFire = new ArrayList<>(notices);
         wouldFire.sort(Comparator.comparing(WhatIfReport.Notice::marketDate)); // stable: decision order within a date
-        List<WhatIfReport.Notice> firstNotices = wouldFire.stream().filter(n -> n.kind().equals(AlertDecision.Notice.FIRING.name())).toList();
+        List<WhatIfReport.Notice> firstNotices = wouldFire.stream().filter(n -> n.kind().equals(Alert.Kind.OPENING.label())).toList();
         List<String> notes = new ArrayList<>();
         notes.add("Market dates are the clock: each " + (live == null ? "snapshot (a curve on a date)" : "quote message")
                 + " is one step, taken in recorded order, and the rules are evaluated after each step.");
-        notes.add("Repeats are not evaluated: their intervals are wall-clock time, which an offline run does not have; first notices"
-                + (live == null ? "" : " (compared with what fired)") + " and resolve notices are listed.");
+        notes.add("Standing notices are not evaluated: their intervals are wall-clock time, which an offline run does not have; opening notices"
+                + (live == null ? "" : " (compared with what fired)") + " and closing notices are listed.");
         if (!feedRules.isEmpty()) {
             notes.add("Feed rules (" + String.join(", ", feedRules) + ") do not apply offline: a stale feed is about when quotes"
                     + " arrived, which market data does not record.");
@@ -149,8 +150,8 @@ public final class WhatIf {
             int aboutFeeds = 0;
             for (LiveNotice n : live) {
                 if (!n.aboutSpread()) {
-                    aboutFeeds += n.kind() == AlertDecision.Notice.FIRING ? 1 : 0;
-                } else if (n.kind() == AlertDecision.Notice.FIRING && filter.matches(n.subject())) {
+                    aboutFeeds += n.kind() == Alert.Kind.OPENING ? 1 : 0;
+                } else if (n.kind() == Alert.Kind.OPENING && filter.matches(n.subject())) {
                     compared.add(n);
                     if (n.policyHash() != null && !hashes.contains(n.policyHash())) {
                         hashes.add(n.policyHash());
@@ -163,7 +164,7 @@ public final class WhatIf {
                     + " cleared inside one batch shows here but never fired live, and a notice is dated on the batch's last date.");
             notes.add("Episodes of one rule and subject are paired in date order, as close as possible and never more than "
                     + NoticeComparison.PAIRING_WINDOW_DAYS + " days apart; a notice left unpaired is not-at-all (live) or extra"
-                    + " (tried). Live notices include muted ones, which are journalled but not sent.");
+                    + " (tried). Live notices include those held back by a quiet period, which are journalled but not sent.");
             if (aboutFeeds > 0) {
                 notes.add(aboutFeeds + " live first notice(s) about feeds are left out of the comparison.");
             }
@@ -213,7 +214,7 @@ public final class WhatIf {
 
     private static WhatIfReport.Counts counts(List<WhatIfReport.Notice> wouldFire, int liveFirst, List<WhatIfReport.Comparison> rows) {
         Map<String, Long> by = rows.stream().collect(Collectors.groupingBy(WhatIfReport.Comparison::difference, Collectors.counting()));
-        int firing = (int) wouldFire.stream().filter(n -> n.kind().equals(AlertDecision.Notice.FIRING.name())).count();
+        int firing = (int) wouldFire.stream().filter(n -> n.kind().equals(Alert.Kind.OPENING.label())).count();
         return new WhatIfReport.Counts(firing, wouldFire.size() - firing, liveFirst, count(by, Difference.SAME),
                 count(by, Difference.EARLIER), count(by, Difference.LATER), count(by, Difference.NOT_AT_ALL), count(by, Difference.EXTRA));
     }
@@ -222,7 +223,7 @@ public final class WhatIf {
         return by.getOrDefault(d.label(), 0L).intValue();
     }
 
-    /** The instant a market date stands for in the rule engine; only repeat intervals read it, and repeats are dropped. */
+    /** The instant a market date stands for in the rule engine; only standing intervals read it, and standing notices are dropped. */
     private static Instant clock(LocalDate date) {
         return date.atStartOfDay(ZoneOffset.UTC).toInstant();
     }

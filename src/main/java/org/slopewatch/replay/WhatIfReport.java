@@ -14,7 +14,7 @@ import java.util.List;
  * @param quotes       quote messages (or snapshots of a file) run through the engine
  * @param spreads      the spread ids evaluated, in the order they were first seen
  * @param compared     whether there was a record of live notices to compare with (not for a file)
- * @param wouldFire    first notices and resolve notices the policy tried would have sent, by market date
+ * @param wouldFire    opening and closing notices the policy tried would have sent, by market date
  * @param comparison   one row per episode, live and tried paired by rule and subject; empty when not compared
  * @param livePolicyHashes the content hashes of the policies the compared live notices were decided under
  * @param notes        what the reader must know to read the numbers: what an offline run cannot do
@@ -36,7 +36,7 @@ public record WhatIfReport(String source, String policy, String policySha256, Li
     /**
      * A notice the policy tried would have sent.
      *
-     * @param kind         {@code FIRING} (first notice) or {@code RESOLVED}
+     * @param kind         {@code opening} or {@code closing}
      * @param episodeSince the market date the condition began (names the episode, as in live alert ids)
      * @param marketDate   the market date the notice would have been decided on
      */

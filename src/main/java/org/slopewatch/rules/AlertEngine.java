@@ -11,8 +11,9 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
 /**
- * Turns conditions into notices: a first notice when a condition starts to hold, repeats at the
- * rule's interval while it holds, and a resolve notice when it stops (if the rule asks for one).
+ * Turns conditions into notices: an opening notice when a condition starts to hold, standing
+ * notices at the rule's interval while it holds, and a closing notice when it stops (if the rule
+ * asks for one).
  * The decision is a pure function of the conditions, the time passed in and the state kept here,
  * which is small and can be rebuilt from the journal's alerts.
  */
@@ -39,7 +40,7 @@ public final class AlertEngine {
     /**
      * Decides, for each condition, whether a notice is due now.
      *
-     * @param now the wall-clock time the decision is made at (repeat intervals are wall-clock time)
+     * @param now the wall-clock time the decision is made at (standing intervals are wall-clock time)
      */
     public List<AlertDecision> decide(List<AlertCondition> conditions, Instant now) {
         List<AlertDecision> out = new ArrayList<>();
@@ -52,28 +53,28 @@ public final class AlertEngine {
             Episode episode = open.get(key);
             if (c.holds() && episode == null) {
                 open.put(key, new Episode(c.since(), now, 1));
-                out.add(decision(rule, c, c.since(), AlertDecision.Notice.FIRING, 1, "first notice"));
-            } else if (c.holds() && !rule.repeatEvery().isZero()
-                    && Duration.between(episode.lastNotice(), now).compareTo(rule.repeatEvery()) >= 0) {
+                out.add(decision(rule, c, c.since(), Alert.Kind.OPENING, 1, "the condition now holds"));
+            } else if (c.holds() && !rule.standingEvery().isZero()
+                    && Duration.between(episode.lastNotice(), now).compareTo(rule.standingEvery()) >= 0) {
                 int n = episode.notices() + 1;
                 open.put(key, new Episode(episode.since(), now, n));
-                out.add(decision(rule, c, episode.since(), AlertDecision.Notice.REPEAT, n, "repeat interval of " + rule.repeatEvery() + " elapsed"));
+                out.add(decision(rule, c, episode.since(), Alert.Kind.STANDING, n, "standing interval of " + rule.standingEvery() + " elapsed"));
             } else if (!c.holds() && episode != null) {
                 open.remove(key);
-                if (rule.resolveNotice()) {
-                    out.add(decision(rule, c, episode.since(), AlertDecision.Notice.RESOLVED, episode.notices() + 1, "condition cleared"));
+                if (rule.closingNotice()) {
+                    out.add(decision(rule, c, episode.since(), Alert.Kind.CLOSING, episode.notices() + 1, "the condition no longer holds"));
                 }
             }
         }
         return out;
     }
 
-    /** Forgets an episode's repeat schedule, e.g. after an acknowledgement: no more repeats, still a resolve notice. */
+    /** Forgets an episode's standing schedule, e.g. after an acknowledgement: no more standing notices, still a closing notice. */
     public void silence(String rule, String subject) {
         open.computeIfPresent(rule + "|" + subject, (k, e) -> new Episode(e.since(), Instant.MAX, e.notices()));
     }
 
-    private static AlertDecision decision(AlertRule rule, AlertCondition c, LocalDate since, AlertDecision.Notice notice, int n,
+    private static AlertDecision decision(AlertRule rule, AlertCondition c, LocalDate since, Alert.Kind notice, int n,
                                           String why) {
         String id = id(rule.name(), c.subject(), since, n);
         return new AlertDecision(id, rule, c.subject(), since, n, notice, why, fill(rule.message(), rule, c), c);
@@ -87,14 +88,14 @@ public final class AlertEngine {
         return rule + "~" + subject + "~" + since + "~" + notice;
     }
 
-    /** Puts back an episode read from the journal (after a restart), so that repeats and resolves continue. */
+    /** Puts back an episode read from the journal (after a restart), so that standing and closing notices continue. */
     public void restore(String rule, String subject, Episode episode) {
         open.put(rule + "|" + subject, episode);
     }
 
     /**
      * An engine with new rules that keeps the open episodes of rules still present by name, so
-     * that reloading a policy neither repeats a first notice nor forgets a resolve.
+     * that reloading a policy neither sends a second opening notice nor forgets a closing one.
      */
     public AlertEngine withRules(List<AlertRule> newRules) {
         AlertEngine next = new AlertEngine(newRules);

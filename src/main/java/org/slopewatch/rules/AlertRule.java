@@ -9,13 +9,14 @@ import java.util.Set;
  *
  * @param spreads        spread names it applies to (empty: every watched spread)
  * @param channels       channel names the alert goes to
- * @param repeatEvery    how often to repeat while it stays true ({@link Duration#ZERO}: never)
- * @param resolveNotice  whether to send a notice when it stops being true
+ * @param standingEvery  how often a standing notice follows the opening one while it stays true
+ *                       ({@link Duration#ZERO}: never)
+ * @param closingNotice  whether to send a closing notice when it stops being true
  * @param message        template; {@code {curve}}, {@code {spread}}, {@code {state}}, {@code {value}},
  *                       {@code {reason}}, {@code {days}}, {@code {date}} are filled in
  */
 public record AlertRule(String name, AlertTrigger when, Set<String> spreads, Severity severity, List<String> channels,
-                        Duration repeatEvery, boolean resolveNotice, String message) {
+                        Duration standingEvery, boolean closingNotice, String message) {
 
     public AlertRule {
         spreads = Set.copyOf(spreads);

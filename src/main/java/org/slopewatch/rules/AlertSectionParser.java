@@ -17,7 +17,7 @@ import org.slopewatch.text.FieldText;
 /** Reads the alerting part of a policy: {@code channels} and {@code alerts}. Problems go to the shared list. */
 final class AlertSectionParser {
 
-    static final Set<String> RULE_KEYS = ordered("name", "when", "spreads", "severity", "channels", "repeat-every", "resolve-notice",
+    static final Set<String> RULE_KEYS = ordered("name", "when", "spreads", "severity", "channels", "standing-every", "closing-notice",
             "message");
     static final Set<String> TRIGGER_KEYS = ordered("enters-state", "inverted-for-days", "probability-above", "feed-stale", "spread-below-bp");
     static final Set<String> CHANNEL_KEYS = ordered("type");
@@ -94,7 +94,7 @@ final class AlertSectionParser {
     }
 
     private static AlertRule rule(YamlNode item, Set<String> spreadNames, Set<String> channelNames, Set<String> modelled) {
-        Map<String, YamlNode> keys = item.mapping("an alert rule", RULE_KEYS);
+        Map<String, YamlNode> keys = item.mapping("an alert rule", RULE_KEYS, DeprecatedNames.RULE_KEYS, DeprecatedNames::keyWarning);
         if (!item.isMapping()) {
             return null;
         }
@@ -151,13 +151,13 @@ final class AlertSectionParser {
                 ch.problem("'channels' lists no channel");
             }
         }
-        Duration repeat = keys.containsKey("repeat-every") ? duration(keys.get("repeat-every")) : Duration.ZERO;
-        boolean resolve = keys.containsKey("resolve-notice") && bool(keys.get("resolve-notice"), "'resolve-notice'");
+        Duration standing = keys.containsKey("standing-every") ? duration(keys.get("standing-every")) : Duration.ZERO;
+        boolean closing = keys.containsKey("closing-notice") && bool(keys.get("closing-notice"), "'closing-notice'");
         String message = keys.containsKey("message") ? template(keys.get("message")) : "{rule}: {curve} {spread} {state} on {date}: {reason}";
-        if (name == null || when == null || severity == null || channels.isEmpty() || repeat == null || message == null) {
+        if (name == null || when == null || severity == null || channels.isEmpty() || standing == null || message == null) {
             return null;
         }
-        return new AlertRule(name, when, spreads, severity, channels, repeat, resolve, message);
+        return new AlertRule(name, when, spreads, severity, channels, standing, closing, message);
     }
 
     private static AlertTrigger trigger(YamlNode when) {
@@ -212,18 +212,18 @@ final class AlertSectionParser {
 
     private static Duration duration(YamlNode node) {
         if (node.isScalarInteger()) {
-            int n = node.integer("'repeat-every'");
+            int n = node.integer("'standing-every'");
             if (n == 0) {
                 return Duration.ZERO;
             }
         }
-        String text = node.string("'repeat-every'");
+        String text = node.string("'standing-every'");
         if (text == null) {
             return null;
         }
         Matcher m = DURATION.matcher(text.strip());
         if (!m.matches()) {
-            node.problem("'repeat-every' must be a duration such as 30s, 30m, 4h or 1d (0 for never), got " + Excerpt.quoted(text));
+            node.problem("'standing-every' must be a duration such as 30s, 30m, 4h or 1d (0 for never), got " + Excerpt.quoted(text));
             return null;
         }
         try {
@@ -235,7 +235,7 @@ final class AlertSectionParser {
                 default -> Duration.ofDays(n);
             };
         } catch (ArithmeticException | NumberFormatException e) {
-            node.problem("'repeat-every' is too long to be a duration, got " + Excerpt.quoted(text));
+            node.problem("'standing-every' is too long to be a duration, got " + Excerpt.quoted(text));
             return null;
         }
     }

@@ -10,15 +10,24 @@ import org.slopewatch.monitor.Watch;
  * @param source      where it was read from, for messages
  * @param probability the probit models by spread; every {@code probability-above} rule refers
  *                    only to spreads that have one
+ * @param warnings    what the file says in a way that still works but should change (a deprecated
+ *                    key), as {@code file:line:column: message}; every reader of policies shows them
  */
 public record Policy(String source, List<Watch> watches, List<ChannelDeclaration> channels, List<AlertRule> alerts,
-                     ProbabilityModels probability) {
+                     ProbabilityModels probability, List<PolicyProblem> warnings) {
 
     public Policy {
         watches = List.copyOf(watches);
         channels = List.copyOf(channels);
         alerts = List.copyOf(alerts);
         probability = probability == null ? ProbabilityModels.NONE : probability;
+        warnings = warnings == null ? List.of() : List.copyOf(warnings);
+    }
+
+    /** A policy without warnings. */
+    public Policy(String source, List<Watch> watches, List<ChannelDeclaration> channels, List<AlertRule> alerts,
+                  ProbabilityModels probability) {
+        this(source, watches, channels, alerts, probability, List.of());
     }
 
     /** A policy without probability models. */

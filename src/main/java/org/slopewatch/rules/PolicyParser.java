@@ -63,7 +63,7 @@ public final class PolicyParser {
     }
 
     /**
-     * Parses a policy file's bytes as every reader of policies does (the daemon, {@code check-rules},
+     * Parses a policy file's bytes as every reader of policies does (the daemon, {@code vet-policy},
      * replay and what-if): UTF-8, a byte that is not UTF-8 read as U+FFFD, so that all of them
      * agree on whether a file is valid.
      */
@@ -133,7 +133,7 @@ public final class PolicyParser {
         if (!problems.isEmpty()) {
             throw problems.exception();
         }
-        return new Policy(file, watches, List.copyOf(channels.values()), alerts, models);
+        return new Policy(file, watches, List.copyOf(channels.values()), alerts, models, problems.warnings());
     }
 
     /** The problem at a code point's position in the text, which is all the YAML reader gives for a character it refuses. */

@@ -13,7 +13,19 @@ final class Problems {
     static final int MAX_LISTED = 100;
 
     private final List<PolicyProblem> listed = new ArrayList<>();
+    private final List<PolicyProblem> warnings = new ArrayList<>();
     private int omitted;
+
+    /** Something the file may say but should say otherwise (an old key); it does not stop the file from being used. */
+    void warn(PolicyProblem warning) {
+        if (warnings.size() < MAX_LISTED) {
+            warnings.add(warning);
+        }
+    }
+
+    List<PolicyProblem> warnings() {
+        return List.copyOf(warnings);
+    }
 
     void add(PolicyProblem problem) {
         if (listed.size() < MAX_LISTED) {

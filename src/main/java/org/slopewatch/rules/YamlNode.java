@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.function.BinaryOperator;
 import java.util.regex.Pattern;
 import org.snakeyaml.engine.v2.exceptions.Mark;
 import org.snakeyaml.engine.v2.nodes.MappingNode;
@@ -64,6 +65,15 @@ final class YamlNode {
      * and duplicate keys. Empty (with a problem recorded) if this is not a mapping.
      */
     Map<String, YamlNode> mapping(String what, Set<String> allowed) {
+        return mapping(what, allowed, Map.of(), null);
+    }
+
+    /**
+     * As {@link #mapping(String, Set)}, reading a key of {@code renamed} (old name → new name) as
+     * its new name, with the warning {@code warning} makes of the two names; the old and the new
+     * name of one key together are the same key twice.
+     */
+    Map<String, YamlNode> mapping(String what, Set<String> allowed, Map<String, String> renamed, BinaryOperator<String> warning) {
         Map<String, YamlNode> out = new LinkedHashMap<>();
         if (!(node instanceof MappingNode m)) {
             problem(what + " must be a mapping of keys to values");
@@ -75,6 +85,11 @@ final class YamlNode {
                 continue;
             }
             String key = k.getValue();
+            String newer = renamed.get(key);
+            if (newer != null) {
+                problems.warn(at(k, warning.apply(key, newer)));
+                key = newer;
+            }
             if (!allowed.contains(key)) {
                 problems.add(at(k, "unknown key " + Excerpt.quoted(key) + " in " + what + (allowed.isEmpty() ? "" : " (known: " + String.join(", ", allowed) + ")")));
                 continue;

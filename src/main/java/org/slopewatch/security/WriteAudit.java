@@ -6,7 +6,7 @@ import org.jboss.logging.Logger;
 import org.slopewatch.text.Excerpt;
 
 /**
- * One log line per change made through the API (acknowledgements, mutes, lifts, reloads,
+ * One log line per change made through the API (acknowledgements, quiet periods, lifts, reloads,
  * what-if jobs), saying which token made it, from where, and what was answered, so that a
  * post-mortem can tell who changed the desk's state. A token is named by the first 12 hex digits
  * of its SHA-256, which an operator finds at the start of the {@code sha256:…} form of the

@@ -13,19 +13,20 @@ import org.slopewatch.text.Excerpt;
 import org.slopewatch.text.FieldText;
 
 /**
- * What a mute, a mute's lift and an acknowledgement must satisfy before anything is kept: every
+ * What a quiet period, its lift and an acknowledgement must satisfy before anything is kept: every
  * text fits its journal column ({@link AlertColumns#BY_CHARS} and the like) and holds no control
- * character ({@link FieldText}), and what a mute names exists in the policy in force, so that a
- * typo is an error rather than a mute of nothing. Each check answers with what is wrong, or null.
+ * character ({@link FieldText}), and what a quiet period names exists in the policy in force, so
+ * that a typo is an error rather than a quiet period of nothing. Each check answers with what is
+ * wrong, or null.
  *
  * @param curves the curves the daemon takes quotes for (empty: any)
  */
 record AlertRequests(Policy policy, Set<String> curves) {
 
-    /** The problem with a mute, or null; {@code rule} and {@code spread} stripped, exactly one of them given. */
-    String mute(String rule, String spread, String reason, String by) {
-        String problem = first(FieldText.problem("by", by, AlertColumns.BY_CHARS),
-                FieldText.problem("reason", reason, AlertColumns.REASON_CHARS),
+    /** The problem with a quiet period, or null; {@code rule} and {@code spread} stripped, exactly one of them given. */
+    String quietPeriod(String rule, String spread, String note, String setBy) {
+        String problem = first(FieldText.problem("set_by", setBy, AlertColumns.BY_CHARS),
+                FieldText.problem("note", note, AlertColumns.QUIET_NOTE_CHARS),
                 FieldText.problem("rule", rule, AlertColumns.TARGET_CHARS),
                 FieldText.problem("spread", spread, AlertColumns.TARGET_CHARS));
         if (problem != null) {
@@ -39,9 +40,9 @@ record AlertRequests(Policy policy, Set<String> curves) {
         return first(FieldText.problem("by", by, AlertColumns.BY_CHARS), FieldText.problem("note", note, AlertColumns.NOTE_CHARS));
     }
 
-    /** The problem with who lifts a mute, or null. */
-    static String lift(String by) {
-        return FieldText.problem("by", by, AlertColumns.BY_CHARS);
+    /** The problem with who lifts a quiet period, or null. */
+    static String lift(String liftedBy) {
+        return FieldText.problem("lifted_by", liftedBy, AlertColumns.BY_CHARS);
     }
 
     private String knownRule(String rule) {

@@ -1,7 +1,6 @@
 package org.slopewatch.web;
 
 import jakarta.ws.rs.Consumes;
-import jakarta.ws.rs.DELETE;
 import jakarta.ws.rs.DefaultValue;
 import jakarta.ws.rs.GET;
 import jakarta.ws.rs.POST;
@@ -11,52 +10,39 @@ import jakarta.ws.rs.Produces;
 import jakarta.ws.rs.QueryParam;
 import jakarta.ws.rs.core.MediaType;
 import jakarta.ws.rs.core.Response;
-import java.time.Clock;
-import java.time.DateTimeException;
-import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.slopewatch.alerting.AlertDesk;
-import org.slopewatch.alerting.PolicyHolder;
-import org.slopewatch.ingest.IngestRules;
 import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.DeliveryAttempts;
-import org.slopewatch.journal.MuteBook;
 import org.slopewatch.pipeline.PolicyReloader;
 import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertEngine;
 import org.slopewatch.text.Excerpt;
 
-/** Alerts for people: the list with deliveries, acknowledgements, mutes, and a policy reload on demand. */
+/** Alerts for people: the list with deliveries and acknowledgements, and a policy reload on demand (quiet periods: {@link QuietPeriodResource}). */
 @Path("/api")
 @Produces(MediaType.APPLICATION_JSON)
 public class AlertResource {
 
     private static final int MAX_ALERTS = 1000;
-    private static final Duration LONGEST_MUTE = Duration.ofDays(90);
 
     private final AlertDesk desk;
     private final AlertHistory store;
     private final DeliveryAttempts deliveryAttempts;
     private final PolicyReloader reloader;
-    private final Clock clock;
     private final RuleSetAt ruleSets;
-    private final PolicyHolder policies;
-    private final IngestRules ingest;
 
-    AlertResource(AlertDesk desk, AlertHistory store, DeliveryAttempts deliveryAttempts, PolicyReloader reloader, Clock clock,
-                  RuleSetAt ruleSets, PolicyHolder policies, IngestRules ingest) {
+    AlertResource(AlertDesk desk, AlertHistory store, DeliveryAttempts deliveryAttempts, PolicyReloader reloader,
+                  RuleSetAt ruleSets) {
         this.desk = desk;
         this.store = store;
         this.deliveryAttempts = deliveryAttempts;
         this.reloader = reloader;
-        this.clock = clock;
         this.ruleSets = ruleSets;
-        this.policies = policies;
-        this.ingest = ingest;
     }
 
     /** One open episode: a rule whose condition holds for a subject. */
@@ -73,14 +59,14 @@ public class AlertResource {
     }
 
     public record AlertView(String id, String rule, String severity, String kind, String subject, String marketDate, String state,
-                            String title, String text, List<Alert.Fact> facts, String dashboard, String mutedBy, String policyHash,
+                            String title, String text, List<Alert.Fact> facts, String dashboard, String quietedBy, String policyHash,
                             Instant createdAt, List<DeliveryView> deliveries, List<AckView> acks) {
 
         static AlertView of(AlertHistory.AlertView v) {
             Alert a = v.stored().alert();
-            return new AlertView(a.id(), a.rule(), a.severity().name(), a.kind().name(), v.stored().subject(),
+            return new AlertView(a.id(), a.rule(), a.severity().name(), a.kind().label(), v.stored().subject(),
                     a.marketDate() == null ? null : a.marketDate().toString(), a.state(), a.subject(), a.text(), a.facts(), a.dashboard(),
-                    v.stored().mutedBy(), v.stored().policyHash(), a.createdAt(),
+                    v.stored().quietedBy(), v.stored().policyHash(), a.createdAt(),
                     v.deliveries().stream().map(d -> new DeliveryView(d.channel(), d.status().name(), d.attempts(), d.nextAttemptAt(),
                             d.lastDetail(), d.updatedAt())).toList(),
                     v.acks().stream().map(k -> new AckView(k.by(), k.note(), k.at())).toList());
@@ -89,7 +75,7 @@ public class AlertResource {
 
     /**
      * The notices recorded at or before {@code as_of}, with their deliveries and acknowledgements
-     * as they stood then. Open episodes are left out: a rule without a resolve notice ends its
+     * as they stood then. Open episodes are left out: a rule without a closing notice ends its
      * episode without a journal row, so the journal cannot say which were open at a past moment.
      */
     public record AlertsAsOf(Instant asOf, String policyHash, List<AlertView> items, String note, String caution) {
@@ -100,10 +86,6 @@ public class AlertResource {
     }
 
     public record AckRequest(String by, String note) {
-    }
-
-    /** Mute a rule or a spread (id such as GOVT-A:10Y-3M, or a spread name for every curve) for a while. */
-    public record MuteRequest(String rule, String spread, String duration, String until, String reason, String by) {
     }
 
     @GET
@@ -140,7 +122,7 @@ public class AlertResource {
     @POST
     @Path("/alerts/{id}/ack")
     @Consumes(MediaType.APPLICATION_JSON)
-    @Operation(summary = "Acknowledge an alert: its episode sends no more repeats; journalled with who and when")
+    @Operation(summary = "Acknowledge an alert: its episode sends no more standing notices; journalled with who and when")
     public Response acknowledge(@PathParam("id") String id, AckRequest request) {
         if (request == null || blank(request.by())) {
             return error(Response.Status.BAD_REQUEST, "say who acknowledges: {\"by\": \"name\", \"note\": \"optional\"}");
@@ -154,67 +136,6 @@ public class AlertResource {
         return desk.acknowledge(id, by, note)
                 .map(v -> Response.ok(AlertView.of(v)).build())
                 .orElseGet(() -> error(Response.Status.NOT_FOUND, "no alert " + Excerpt.of(id)));
-    }
-
-    @GET
-    @Path("/mutes")
-    @Operation(summary = "Mutes, newest first, with whether each is active")
-    public List<Map<String, Object>> mutes() {
-        Instant now = clock.instant();
-        return desk.mutes().stream().map(m -> Map.<String, Object>of("id", m.id(), "kind", m.kind(), "target", m.target(),
-                "until", m.until(), "reason", m.reason(), "by", m.by(), "created_at", m.createdAt(), "active", m.activeAt(now))).toList();
-    }
-
-    @POST
-    @Path("/mutes")
-    @Consumes(MediaType.APPLICATION_JSON)
-    @Operation(summary = "Mute a rule or a spread for a period (ISO-8601 duration such as PT4H, or an until time) with a reason")
-    public Response mute(MuteRequest r) {
-        if (r == null || blank(r.by()) || blank(r.reason())) {
-            return error(Response.Status.BAD_REQUEST, "a mute needs by and reason, and one of rule or spread");
-        }
-        if (blank(r.rule()) == blank(r.spread())) {
-            return error(Response.Status.BAD_REQUEST, "name exactly one of rule or spread");
-        }
-        String rule = blank(r.rule()) ? null : r.rule().strip();
-        String spread = blank(r.spread()) ? null : r.spread().strip();
-        String reason = r.reason().strip();
-        String by = r.by().strip();
-        String problem = new AlertRequests(policies.policy(), ingest.curves()).mute(rule, spread, reason, by);
-        if (problem != null) {
-            return error(Response.Status.BAD_REQUEST, problem);
-        }
-        Instant now = clock.instant();
-        Instant until;
-        try {
-            until = !blank(r.until()) ? Instant.parse(r.until().strip())
-                    : !blank(r.duration()) ? now.plus(Duration.parse(r.duration().strip())) : null;
-        } catch (DateTimeException | ArithmeticException e) {
-            // a duration too long for an instant overflows rather than failing to parse
-            return error(Response.Status.BAD_REQUEST, "duration must be ISO-8601 (e.g. PT4H) and until an instant (e.g. 2026-07-01T08:00:00Z), "
-                    + "ending within " + LONGEST_MUTE.toDays() + " days");
-        }
-        if (until == null || !until.isAfter(now) || until.isAfter(now.plus(LONGEST_MUTE))) {
-            return error(Response.Status.BAD_REQUEST, "a mute must end in the future and within " + LONGEST_MUTE.toDays() + " days");
-        }
-        MuteBook.Mute m = rule != null ? desk.mute("rule", rule, until, reason, by) : desk.mute("spread", spread, until, reason, by);
-        return Response.status(Response.Status.CREATED).entity(Map.of("id", m.id(), "kind", m.kind(), "target", m.target(),
-                "until", m.until(), "reason", m.reason(), "by", m.by())).build();
-    }
-
-    @DELETE
-    @Path("/mutes/{id}")
-    @Operation(summary = "Lift a mute early")
-    public Response lift(@PathParam("id") long id, @QueryParam("by") String by) {
-        if (blank(by)) {
-            return error(Response.Status.BAD_REQUEST, "say who lifts the mute: ?by=name");
-        }
-        String problem = AlertRequests.lift(by.strip());
-        if (problem != null) {
-            return error(Response.Status.BAD_REQUEST, problem);
-        }
-        return desk.lift(id, by.strip()) ? Response.noContent().build()
-                : error(Response.Status.NOT_FOUND, "no active mute " + id);
     }
 
     @POST

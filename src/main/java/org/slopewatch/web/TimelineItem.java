@@ -40,13 +40,13 @@ sealed interface TimelineItem permits TimelineItem.ObservationItem, TimelineItem
 
     /** A notice about the spread, with its deliveries as they stood at the moment asked about. */
     record AlertItem(String kind, Instant recordedAt, String id, String rule, String severity, String notice, LocalDate marketDate,
-                     String state, String title, String mutedBy, String policyHash, Instant createdAt,
+                     String state, String title, String quietedBy, String policyHash, Instant createdAt,
                      List<AlertResource.DeliveryView> deliveries) implements TimelineItem {
 
         static AlertItem of(AlertHistory.AlertView v) {
             var a = v.stored().alert();
-            return new AlertItem("alert", v.stored().recordedAt(), a.id(), a.rule(), a.severity().name(), a.kind().name(), a.marketDate(),
-                    a.state(), a.subject(), v.stored().mutedBy(), v.stored().policyHash(), a.createdAt(),
+            return new AlertItem("alert", v.stored().recordedAt(), a.id(), a.rule(), a.severity().name(), a.kind().label(), a.marketDate(),
+                    a.state(), a.subject(), v.stored().quietedBy(), v.stored().policyHash(), a.createdAt(),
                     v.deliveries().stream().map(d -> new AlertResource.DeliveryView(d.channel(), d.status().name(), d.attempts(),
                             d.nextAttemptAt(), d.lastDetail(), d.updatedAt())).toList());
         }

@@ -2,7 +2,7 @@
  * The HTTP surface: quote submission, the read API under {@code /api}, and the dashboard at
  * {@code /} (static files under {@code META-INF/resources} that poll the read API like any other
  * client). Thin: decode, call the pipeline or the journal, shape the answer. What people send to
- * be kept (mutes, their lifts, acknowledgements) is checked first, in one place
+ * be kept (quiet periods, their lifts, acknowledgements) is checked first, in one place
  * ({@link org.slopewatch.web.AlertRequests}); an error answer repeats input only as an excerpt.
  */
 package org.slopewatch.web;

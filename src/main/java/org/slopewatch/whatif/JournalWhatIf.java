@@ -39,7 +39,7 @@ public final class JournalWhatIf {
      */
     public WhatIfReport run(String source, CandidatePolicy policy, SpreadFilter filter, LongConsumer progress) {
         // what fired is read first: a notice can then only be missing for quotes stored after it, at the newest dates
-        List<LiveNotice> live = alerts.notices(EnumSet.of(Alert.Kind.FIRING, Alert.Kind.RESOLVED)).stream()
+        List<LiveNotice> live = alerts.notices(EnumSet.of(Alert.Kind.OPENING, Alert.Kind.CLOSING)).stream()
                 .map(JournalWhatIf::live).toList();
         WhatIf whatIf = new WhatIf(policy, filter);
         reader.replayQuotes(q -> {
@@ -54,7 +54,7 @@ public final class JournalWhatIf {
     private static LiveNotice live(AlertHistory.StoredAlert a) {
         Alert alert = a.alert();
         // a notice about a feed has no market date; its episode date stands in (feed notices are not compared)
-        return new LiveNotice(alert.rule(), a.subject(), AlertDecision.Notice.valueOf(alert.kind().name()), a.episodeSince(),
+        return new LiveNotice(alert.rule(), a.subject(), alert.kind(), a.episodeSince(),
                 alert.marketDate() != null ? alert.marketDate() : a.episodeSince(), a.policyHash());
     }
 }

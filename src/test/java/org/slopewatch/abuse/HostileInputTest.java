@@ -48,7 +48,7 @@ import org.slopewatch.rules.PolicyProblem;
  * against a running daemon: every quote file posted over HTTP is answered with the status, the
  * counts and the reasons listed for it, and what the answers say was taken is exactly what the
  * journal took, nothing more; every policy file gets its outcome, with the position and message
- * of its first problem, from the parser, from {@code check-rules} and, for a few, from the live
+ * of its first problem, from the parser, from {@code vet-policy} and, for a few, from the live
  * reload, which rejects them while the policy in force keeps running, and from the what-if API; every
  * mute, acknowledgement and lift body gets its answer, and only the accepted ones are kept. Every answer
  * and every log line about bad input stays small and on one line. A policy whose hostile-looking
@@ -239,12 +239,12 @@ class HostileInputTest {
 
     @Test
     @Order(4)
-    void checkRulesGivesTheSameAnswersAndExitCode2() throws IOException {
+    void vetPolicyGivesTheSameAnswersAndExitCode2() throws IOException {
         List<PolicyCase> cases = table("expected-policies.tsv").stream().map(PolicyCase::of).toList();
         StringWriter out = new StringWriter();
         StringWriter err = new StringWriter();
         Path dir = CORPUS.resolve("policies");
-        int code = assertTimeoutPreemptively(HANG, () -> SlopewatchMain.execute(new PrintWriter(out), new PrintWriter(err), "check-rules",
+        int code = assertTimeoutPreemptively(HANG, () -> SlopewatchMain.execute(new PrintWriter(out), new PrintWriter(err), "vet-policy",
                 dir.toString()));
         assertThat(code).as("exit code for files with problems").isEqualTo(2);
         for (PolicyCase c : cases) {
@@ -307,17 +307,17 @@ class HostileInputTest {
         String alert = "/api/alerts/first-inversion~GOVT-B:10Y-3M~2026-05-07~1";
         int acksBefore = given().get(alert).then().statusCode(200).extract().jsonPath().getList("alert.acks").size();
         long mute = given().contentType(ContentType.JSON).body(Map.of("rule", "stale-feed", "duration", "PT1H", "reason", "to be lifted",
-                "by", "ops")).post("/api/mutes").then().statusCode(201).extract().jsonPath().getLong("id");
-        int mutesBefore = given().get("/api/mutes").then().statusCode(200).extract().jsonPath().getList("$").size();
+                "by", "ops")).post("/api/quiet-periods").then().statusCode(201).extract().jsonPath().getLong("id");
+        int mutesBefore = given().get("/api/quiet-periods").then().statusCode(200).extract().jsonPath().getList("$").size();
 
         List<String> wrong = new ArrayList<>();
         int accepted = 0;
         for (AlertCase c : cases) {
             byte[] body = Files.readAllBytes(CORPUS.resolve(c.file()));
             Response r = assertTimeoutPreemptively(HANG, () -> switch (c.request()) {
-                case "mute" -> given().contentType(ContentType.JSON).body(body).post("/api/mutes");
+                case "mute" -> given().contentType(ContentType.JSON).body(body).post("/api/quiet-periods");
                 case "ack" -> given().contentType(ContentType.JSON).body(body).post(alert + "/ack");
-                default -> given().queryParam("by", JSON.readTree(body).get("by").asText()).delete("/api/mutes/" + mute);
+                default -> given().queryParam("by", JSON.readTree(body).get("by").asText()).delete("/api/quiet-periods/" + mute);
             });
             JsonNode errorNode = r.asString().startsWith("{") ? JSON.readTree(r.asString()).get("error") : null;
             String error = errorNode == null ? "" : errorNode.asText();
@@ -328,7 +328,7 @@ class HostileInputTest {
         }
         // a reason of a megabyte: refused by its length, which the answer states without repeating it
         Response huge = given().contentType(ContentType.JSON).body(Map.of("spread", "10Y-3M", "duration", "PT1H",
-                "reason", "r".repeat(1 << 20), "by", "ops")).post("/api/mutes");
+                "reason", "r".repeat(1 << 20), "by", "ops")).post("/api/quiet-periods");
         if (huge.statusCode() != 400 || huge.asString().length() > 200) {
             wrong.add("a reason of 1048576 characters: expected a short 400\n    got HTTP " + huge.statusCode() + ", "
                     + huge.asString().length() + " characters: " + shorten(huge.asString()));
@@ -336,12 +336,12 @@ class HostileInputTest {
         assertThat(wrong).as("mute, acknowledgement and lift bodies answered otherwise than expected-alerting.tsv says").isEmpty();
 
         // only what was accepted was kept, and the mute lifted is no longer active
-        List<Map<String, Object>> mutes = given().get("/api/mutes").then().statusCode(200).extract().jsonPath().getList("$");
+        List<Map<String, Object>> mutes = given().get("/api/quiet-periods").then().statusCode(200).extract().jsonPath().getList("$");
         assertThat(mutes).hasSize(mutesBefore + accepted);
         assertThat(mutes).filteredOn(m -> ((Number) m.get("id")).longValue() == mute).singleElement()
                 .satisfies(m -> assertThat(m.get("active")).isEqualTo(false));
         assertThat(given().get(alert).then().statusCode(200).extract().jsonPath().getList("alert.acks")).hasSize(acksBefore + 1);
-        assertThat(given().get("/api/mutes").then().extract().asString() + given().get(alert).then().extract().asString())
+        assertThat(given().get("/api/quiet-periods").then().extract().asString() + given().get(alert).then().extract().asString())
                 .doesNotContain("risk-officer").doesNotContain("forged");
     }
 

@@ -155,10 +155,10 @@ class AlertTimelineTest {
 
         // the spread re-steepens: the condition clears and the resolve notice still comes
         post(days("GOVT-A", LocalDate.of(2026, 4, 6), LocalDate.of(2026, 4, 17), 30.0));
-        Awaitility.await("the resolve notice").atMost(PATIENCE).until(() -> alerts().get("recent").findValuesAsText("kind").contains("RESOLVED"));
+        Awaitility.await("the resolve notice").atMost(PATIENCE).until(() -> alerts().get("recent").findValuesAsText("kind").contains("CLOSING"));
 
         String metrics = given().get("/q/metrics").then().statusCode(200).extract().asString();
-        assertThat(metrics).contains("slopewatch_alerts_total{kind=\"firing\",muted=\"false\",rule=\"inversion-confirmed\",severity=\"critical\"}")
+        assertThat(metrics).contains("slopewatch_alerts_total{kind=\"opening\",quieted=\"false\",rule=\"inversion-confirmed\",severity=\"critical\"}")
                 .containsPattern("slopewatch_alert_attempts_total\\{channel=\"desk-chat\",outcome=\"retry\",rule=\"inversion-confirmed\"");
     }
 
@@ -167,7 +167,7 @@ class AlertTimelineTest {
     void aMutedRuleIsJournalledButNotSent() throws IOException {
         given().contentType("application/json")
                 .body("{\"rule\":\"first-inversion\",\"duration\":\"PT1H\",\"reason\":\"GOVT-B feed under test\",\"by\":\"ops\"}")
-                .post("/api/mutes").then().statusCode(201).body("kind", equalTo("rule"));
+                .post("/api/quiet-periods").then().statusCode(201).body("kind", equalTo("rule"));
         post(days("GOVT-B", LocalDate.of(2026, 5, 4), LocalDate.of(2026, 5, 8), -10.0));
         String id = "first-inversion~GOVT-B:10Y-3M~2026-05-04~1";
         Awaitility.await("the muted notice journalled").atMost(PATIENCE).until(() -> deliveryStatus(id, "desk-chat") != null);
@@ -175,7 +175,7 @@ class AlertTimelineTest {
         given().get("/api/alerts/" + id).then().statusCode(200).body("alert.muted_by", containsString("muted by ops"));
         assertThat(acceptedIds()).doesNotContain(id);
         given().contentType("application/json").body("{\"rule\":\"no-such-rule\",\"duration\":\"PT1H\",\"reason\":\"x\",\"by\":\"ops\"}")
-                .post("/api/mutes").then().statusCode(400);
+                .post("/api/quiet-periods").then().statusCode(400);
     }
 
     @Test
@@ -191,7 +191,7 @@ class AlertTimelineTest {
         Files.writeString(policyFile, good.replace("went below zero", "dipped below zero"));
         given().post("/api/policy/reload").then().statusCode(200).body("result", equalTo("applied"));
         given().post("/api/policy/reload").then().statusCode(200).body("result", equalTo("unchanged"));
-        given().delete("/api/mutes/1?by=ops").then().statusCode(204);
+        given().delete("/api/quiet-periods/1?by=ops").then().statusCode(204);
         post(days("GOVT-B", LocalDate.of(2026, 6, 1), LocalDate.of(2026, 6, 12), 40.0));
         post(days("GOVT-B", LocalDate.of(2026, 6, 15), LocalDate.of(2026, 6, 16), -5.0));
         String id = "first-inversion~GOVT-B:10Y-3M~2026-06-15~1";

@@ -86,9 +86,9 @@ class WhatIfCommandTest {
         JsonNode report = JSON.readTree(run.out());
         List<String> expected = new ArrayList<>();
         for (Confirmation c : confirmations(false)) {
-            expected.add("FIRING " + c.confirmed() + " since " + c.confirmed());
+            expected.add("OPENING " + c.confirmed() + " since " + c.confirmed());
             if (c.resolved() != null) {
-                expected.add("RESOLVED " + c.resolved() + " since " + c.confirmed());
+                expected.add("CLOSING " + c.resolved() + " since " + c.confirmed());
             }
         }
         List<String> actual = new ArrayList<>();
@@ -280,9 +280,9 @@ class WhatIfCommandTest {
             }
             JournalEntries notices = new JournalEntries();
             for (Confirmation c : confirmations(true)) {
-                notices.alert(notice(Alert.Kind.FIRING, c.confirmed(), c.confirmed(), 1));
+                notices.alert(notice(Alert.Kind.OPENING, c.confirmed(), c.confirmed(), 1));
                 if (c.resolved() != null) {
-                    notices.alert(notice(Alert.Kind.RESOLVED, c.confirmed(), c.resolved(), 2));
+                    notices.alert(notice(Alert.Kind.CLOSING, c.confirmed(), c.resolved(), 2));
                 }
             }
             new JournalWriter(ds, clock).write(notices);
@@ -294,7 +294,7 @@ class WhatIfCommandTest {
 
     private static JournalEntries.AlertEntry notice(Alert.Kind kind, LocalDate since, LocalDate on, int number) {
         String id = AlertEngine.id("inversion-confirmed", SUBJECT, since, number);
-        Alert alert = new Alert(id, "inversion-confirmed", Severity.CRITICAL, kind, SUBJECT, on, kind == Alert.Kind.FIRING ? "CONFIRMED"
+        Alert alert = new Alert(id, "inversion-confirmed", Severity.CRITICAL, kind, SUBJECT, on, kind == Alert.Kind.OPENING ? "CONFIRMED"
                 : "RESTEEPENING", "[CRITICAL] US 10Y-1Y", "inversion-confirmed on " + on, List.of(), null,
                 on.atStartOfDay(ZoneOffset.UTC).toInstant());
         return new JournalEntries.AlertEntry(alert, SUBJECT, since, number, null, "quarter-average-policy", null, List.of());

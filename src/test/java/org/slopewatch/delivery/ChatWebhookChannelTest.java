@@ -56,12 +56,12 @@ class ChatWebhookChannelTest {
         channel(ChatWebhookChannel.Format.ALERT_JSON).deliver(TestAlerts.confirmed());
 
         JsonNode body = JSON.readTree(receiver.requests().get(0).body());
-        assertThat(body.get("id").asText()).isEqualTo("govt-a-10y3m/confirmation/2026-03-31/firing/1");
+        assertThat(body.get("id").asText()).isEqualTo("govt-a-10y3m/confirmation/2026-03-31/opening/1");
         assertThat(body.get("spread_id").asText()).isEqualTo("GOVT-A:10Y-3M");
         assertThat(body.get("market_date").asText()).isEqualTo("2026-06-30");
         assertThat(body.get("created_at").asText()).isEqualTo("2026-06-30T21:05:00Z");
         assertThat(body.get("severity").asText()).isEqualTo("critical");
-        assertThat(body.get("kind").asText()).isEqualTo("firing");
+        assertThat(body.get("kind").asText()).isEqualTo("opening");
         assertThat(body.get("facts").get(1).get("label").asText()).isEqualTo("days inverted");
         assertThat(body.get("facts").get(1).get("value").asText()).isEqualTo("92");
         assertThat(body.get("caution").asText()).isEqualTo(Alert.CAUTION);

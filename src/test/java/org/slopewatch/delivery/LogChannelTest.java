@@ -20,15 +20,15 @@ class LogChannelTest {
         }
 
         assertThat(outcome).isEqualTo(new DeliveryOutcome.Delivered("log 'log': written to org.slopewatch.alerts"));
-        assertThat(line.message()).isEqualTo("alert id=govt-a-10y3m/confirmation/2026-03-31/firing/1 kind=firing severity=critical "
+        assertThat(line.message()).isEqualTo("alert id=govt-a-10y3m/confirmation/2026-03-31/opening/1 kind=opening severity=critical "
                 + "rule=confirmation spread=GOVT-A:10Y-3M market_date=2026-06-30 state=CONFIRMED "
                 + "subject=\"[CRITICAL] GOVT-A 10Y-3M CONFIRMED\" "
                 + "facts=\"spread: -21.0 bp; days inverted: 92; quarter average: -18.4 bp (2026Q2); spell start: 2026-03-31\" "
                 + "dashboard=" + TestAlerts.DASHBOARD);
         assertThat(line.level()).as("critical alerts log at WARN").isEqualTo(org.jboss.logmanager.Level.WARN);
-        assertThat(line.mdc()).containsEntry("alert_id", "govt-a-10y3m/confirmation/2026-03-31/firing/1")
+        assertThat(line.mdc()).containsEntry("alert_id", "govt-a-10y3m/confirmation/2026-03-31/opening/1")
                 .containsEntry("alert_rule", "confirmation").containsEntry("alert_severity", "critical")
-                .containsEntry("alert_kind", "firing").containsEntry("spread", "GOVT-A:10Y-3M")
+                .containsEntry("alert_kind", "opening").containsEntry("spread", "GOVT-A:10Y-3M")
                 .containsEntry("market_date", "2026-06-30").containsEntry("state", "CONFIRMED");
         assertThat(MDC.get("alert_id")).as("the MDC is cleaned up after the line").isNull();
     }

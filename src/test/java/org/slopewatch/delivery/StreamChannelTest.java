@@ -52,7 +52,7 @@ class StreamChannelTest {
         assertThat(event.get("id").asText()).as("the event id is the alert id, so consumers can drop repeats").isEqualTo(alert.id());
         assertThat(event.get("source").asText()).as("slopewatch.delivery.cloud-events-source of the test profile")
                 .isEqualTo("urn:slopewatch:test-desk");
-        assertThat(event.get("type").asText()).isEqualTo("org.slopewatch.alert.firing");
+        assertThat(event.get("type").asText()).isEqualTo("org.slopewatch.alert.opening");
         assertThat(event.get("subject").asText()).isEqualTo("GOVT-A:10Y-3M");
         assertThat(event.get("time").asText()).isEqualTo("2026-06-30T21:05:00Z");
         assertThat(event.get("datacontenttype").asText()).isEqualTo("application/json");
@@ -74,12 +74,12 @@ class StreamChannelTest {
     @Test
     void theEventTypeFollowsTheKindOfNotice() throws Exception {
         Alert a = TestAlerts.confirmed();
-        Alert resolved = new Alert("govt-a-10y3m/confirmation/2026-03-31/resolved/1", a.rule(), a.severity(), Alert.Kind.RESOLVED,
+        Alert resolved = new Alert("govt-a-10y3m/confirmation/2026-03-31/closing/1", a.rule(), a.severity(), Alert.Kind.CLOSING,
                 a.spreadId(), LocalDate.of(2026, 9, 1), "NORMAL", "[CRITICAL] GOVT-A 10Y-3M resolved", "Resolved.\n\n" + Alert.CAUTION,
                 a.facts(), a.dashboard(), a.createdAt());
 
         registry.channel("alerts-topic").orElseThrow().deliver(resolved);
 
-        assertThat(JSON.readTree(sink.received().get(0).getPayload()).get("type").asText()).isEqualTo("org.slopewatch.alert.resolved");
+        assertThat(JSON.readTree(sink.received().get(0).getPayload()).get("type").asText()).isEqualTo("org.slopewatch.alert.closing");
     }
 }

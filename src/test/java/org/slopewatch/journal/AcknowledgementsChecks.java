@@ -18,9 +18,9 @@ abstract class AcknowledgementsChecks extends AlertJournalFixture {
     @Test
     void anAcknowledgedNoticeAcknowledgesItsEpisode() {
         AgroalDataSource ds = database();
-        new JournalWriter(ds, clock).write(notice(ID, 1, Alert.Kind.FIRING));
+        new JournalWriter(ds, clock).write(notice(ID, 1, Alert.Kind.OPENING));
         new JournalWriter(ds, Clock.offset(clock, Duration.ofDays(1)))
-                .write(notice("inversion-confirmed~GOVT-A:10Y-3M~2026-09-30~2", 2, Alert.Kind.REPEAT));
+                .write(notice("inversion-confirmed~GOVT-A:10Y-3M~2026-09-30~2", 2, Alert.Kind.STANDING));
         Acknowledgements store = new Acknowledgements(ds, clock);
 
         assertThat(store.episodeAcknowledged("inversion-confirmed", "GOVT-A:10Y-3M", LocalDate.of(2026, 9, 30))).isFalse();

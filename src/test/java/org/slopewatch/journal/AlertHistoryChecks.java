@@ -24,19 +24,19 @@ abstract class AlertHistoryChecks extends AlertJournalFixture {
         // about 650 characters, and alert.muted_by holds 400: the write of the notice, and with it the whole
         // pipeline step, failed.
         AgroalDataSource ds = database();
-        String mutedBy = "rule " + "r".repeat(100) + " muted by " + "b".repeat(100) + " until " + T0.plusSeconds(3600) + " ("
+        String quietedBy = "rule " + "r".repeat(100) + " muted by " + "b".repeat(100) + " until " + T0.plusSeconds(3600) + " ("
                 + "x".repeat(400) + ")";
-        new JournalWriter(ds, clock).write(notice(ID, 1, Alert.Kind.FIRING, mutedBy));
-        String stored = new AlertHistory(ds).find(ID).stored().mutedBy();
+        new JournalWriter(ds, clock).write(notice(ID, 1, Alert.Kind.OPENING, quietedBy));
+        String stored = new AlertHistory(ds).find(ID).stored().quietedBy();
         assertThat(stored).hasSize(400).startsWith("rule " + "r".repeat(100) + " muted by ").endsWith("…");
     }
 
     @Test
     void theLatestNoticeOfAnEpisodeIsWhereItStands() {
         AgroalDataSource ds = database();
-        new JournalWriter(ds, clock).write(notice(ID, 1, Alert.Kind.FIRING));
+        new JournalWriter(ds, clock).write(notice(ID, 1, Alert.Kind.OPENING));
         new JournalWriter(ds, Clock.offset(clock, Duration.ofDays(1)))
-                .write(notice("inversion-confirmed~GOVT-A:10Y-3M~2026-09-30~2", 2, Alert.Kind.REPEAT));
+                .write(notice("inversion-confirmed~GOVT-A:10Y-3M~2026-09-30~2", 2, Alert.Kind.STANDING));
 
         assertThat(new AlertHistory(ds).latestPerEpisode()).singleElement().satisfies(a -> {
             assertThat(a.notice()).isEqualTo(2);

@@ -59,12 +59,12 @@ abstract class AlertJournalFixture {
         return notice(id, notice, kind, null);
     }
 
-    static JournalEntries notice(String id, int notice, Alert.Kind kind, String mutedBy) {
+    static JournalEntries notice(String id, int notice, Alert.Kind kind, String quietedBy) {
         Alert alert = new Alert(id, "inversion-confirmed", Severity.CRITICAL, kind, "GOVT-A:10Y-3M", LocalDate.of(2026, 9, 30),
                 "CONFIRMED", "[CRITICAL] GOVT-A 10Y-3M CONFIRMED", "confirmed\n\n" + Alert.CAUTION,
                 List.of(new Alert.Fact("days inverted", "92"), new Alert.Fact("tab\there", "line\nbreak")), "http://localhost:8080/", T0);
         JournalEntries e = new JournalEntries();
-        e.alert(new JournalEntries.AlertEntry(alert, "GOVT-A:10Y-3M", LocalDate.of(2026, 9, 30), notice, mutedBy, "abc123", 42L,
+        e.alert(new JournalEntries.AlertEntry(alert, "GOVT-A:10Y-3M", LocalDate.of(2026, 9, 30), notice, quietedBy, "abc123", 42L,
                 List.of(new JournalEntries.Outbox("log", null), new JournalEntries.Outbox("desk-chat", "channel desk-chat is not configured"))));
         return e;
     }

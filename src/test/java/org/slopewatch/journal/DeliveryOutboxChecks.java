@@ -22,9 +22,9 @@ abstract class DeliveryOutboxChecks extends AlertJournalFixture {
     void aNoticeIsStoredOnceAndItsOutboxSurvivesARestart() {
         AgroalDataSource ds = database();
         String id = ID;
-        new JournalWriter(ds, clock).write(notice(id, 1, Alert.Kind.FIRING));
+        new JournalWriter(ds, clock).write(notice(id, 1, Alert.Kind.OPENING));
         // a restart, or a second instance deciding the same notice: new objects, same journal
-        new JournalWriter(ds, clock).write(notice(id, 1, Alert.Kind.FIRING));
+        new JournalWriter(ds, clock).write(notice(id, 1, Alert.Kind.OPENING));
         DeliveryOutbox store = new DeliveryOutbox(ds, clock);
         AlertHistory history = new AlertHistory(ds);
 
@@ -46,7 +46,7 @@ abstract class DeliveryOutboxChecks extends AlertJournalFixture {
     void attemptsMoveADeliveryFromPendingToDelivered() {
         AgroalDataSource ds = database();
         String id = ID;
-        new JournalWriter(ds, clock).write(notice(id, 1, Alert.Kind.FIRING));
+        new JournalWriter(ds, clock).write(notice(id, 1, Alert.Kind.OPENING));
         DeliveryOutbox store = new DeliveryOutbox(ds, clock);
         DeliveryOutbox.Delivery first = store.due("log", T0, 10).get(0).delivery();
 
@@ -75,7 +75,7 @@ abstract class DeliveryOutboxChecks extends AlertJournalFixture {
     @Test
     void aDeliveryIsClaimedByOneInstanceAtATime() {
         AgroalDataSource ds = database();
-        new JournalWriter(ds, clock).write(notice(ID, 1, Alert.Kind.FIRING));
+        new JournalWriter(ds, clock).write(notice(ID, 1, Alert.Kind.OPENING));
         DeliveryOutbox first = new DeliveryOutbox(ds, clock);
         DeliveryOutbox second = new DeliveryOutbox(ds, clock);
         DeliveryOutbox.Delivery seenByBoth = first.due("log", T0, 10).get(0).delivery();

@@ -59,7 +59,7 @@ class PipelineMetricsTest {
             for (String kind : java.util.Arrays.stream(org.slopewatch.rules.Alert.Kind.values())
                     .map(k -> k.name().toLowerCase(java.util.Locale.ROOT)).toList()) {
                 assertThat(metrics).as("notices of %s, %s", name, kind).contains("slopewatch_alerts_total{kind=\"" + kind
-                        + "\",muted=\"true\",rule=\"" + name + "\",severity=\"" + severity + "\"} 0.0");
+                        + "\",quieted=\"true\",rule=\"" + name + "\",severity=\"" + severity + "\"} 0.0");
             }
             assertThat(metrics).contains("slopewatch_alert_attempts_total{channel=\"log\",outcome=\"failed\",rule=\"" + name
                     + "\",severity=\"" + severity + "\"} 0.0");

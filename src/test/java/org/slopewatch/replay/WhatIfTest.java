@@ -11,6 +11,7 @@ import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.curve.Tenor;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertDecision;
 import org.slopewatch.rules.PolicyException;
 
@@ -47,7 +48,7 @@ class WhatIfTest {
                 when: { enters-state: CONFIRMED }
                 severity: critical
                 channels: [log]
-                resolve-notice: true
+                closing-notice: true
               - name: deep-inversion
                 when: { spread-below-bp: -25 }
                 severity: warning
@@ -69,8 +70,8 @@ class WhatIfTest {
                 when: { enters-state: CONFIRMED }
                 severity: critical
                 channels: [log]
-                repeat-every: 1d
-                resolve-notice: true
+                standing-every: 1d
+                closing-notice: true
               - name: inverted-60-days
                 when: { inverted-for-days: 60 }
                 severity: warning
@@ -139,10 +140,10 @@ class WhatIfTest {
     @Test
     void resolveNoticesAreListedOnTheDayTheSpellEnds() throws Exception {
         WhatIfReport r = run(TRIED, SpreadFilter.ALL, live());
-        List<String> resolved = r.wouldFire().stream().filter(n -> n.kind().equals("RESOLVED"))
+        List<String> resolved = r.wouldFire().stream().filter(n -> n.kind().equals("CLOSING"))
                 .map(n -> n.rule() + " " + n.subject() + " " + n.marketDate()).toList();
         assertThat(resolved).containsExactly("inversion-confirmed GOVT-B:10Y-3M " + B_END, "inversion-confirmed GOVT-A:10Y-3M " + A_END);
-        assertThat(r.wouldFire()).extracting(WhatIfReport.Notice::kind).doesNotContain("REPEAT");
+        assertThat(r.wouldFire()).extracting(WhatIfReport.Notice::kind).doesNotContain("STANDING");
     }
 
     @Test
@@ -163,7 +164,7 @@ class WhatIfTest {
     @Test
     void feedRulesAndRepeatsAreLeftOutAndTheReportSaysSo() throws Exception {
         List<LiveNotice> live = new ArrayList<>(live());
-        live.add(new LiveNotice("stale-feed", "GOVT-A", AlertDecision.Notice.FIRING, A_SPELL, A_SPELL, "live-hash"));
+        live.add(new LiveNotice("stale-feed", "GOVT-A", Alert.Kind.OPENING, A_SPELL, A_SPELL, "live-hash"));
         WhatIfReport r = run(TRIED, SpreadFilter.ALL, live);
         assertThat(r.comparison()).extracting(WhatIfReport.Comparison::rule).doesNotContain("stale-feed");
         assertThat(r.notes()).anyMatch(n -> n.startsWith("Feed rules (stale-feed) do not apply offline"))
@@ -199,16 +200,16 @@ class WhatIfTest {
      */
     static List<LiveNotice> live() {
         return List.of(
-                notice("first-inversion", "GOVT-B:10Y-3M", AlertDecision.Notice.FIRING, B_SPELL, B_SPELL),
-                notice("first-inversion", "GOVT-A:10Y-3M", AlertDecision.Notice.FIRING, A_SPELL, A_SPELL),
-                notice("deep-inversion", "GOVT-A:10Y-3M", AlertDecision.Notice.FIRING, DEEP, DEEP),
-                notice("inversion-confirmed", "GOVT-B:10Y-3M", AlertDecision.Notice.FIRING, B_QUARTER_CONFIRMED, B_QUARTER_CONFIRMED),
-                notice("inversion-confirmed", "GOVT-B:10Y-3M", AlertDecision.Notice.RESOLVED, B_QUARTER_CONFIRMED, B_END),
-                notice("inversion-confirmed", "GOVT-A:10Y-3M", AlertDecision.Notice.FIRING, A_QUARTER_CONFIRMED, A_QUARTER_CONFIRMED),
-                notice("inversion-confirmed", "GOVT-A:10Y-3M", AlertDecision.Notice.RESOLVED, A_QUARTER_CONFIRMED, A_END));
+                notice("first-inversion", "GOVT-B:10Y-3M", Alert.Kind.OPENING, B_SPELL, B_SPELL),
+                notice("first-inversion", "GOVT-A:10Y-3M", Alert.Kind.OPENING, A_SPELL, A_SPELL),
+                notice("deep-inversion", "GOVT-A:10Y-3M", Alert.Kind.OPENING, DEEP, DEEP),
+                notice("inversion-confirmed", "GOVT-B:10Y-3M", Alert.Kind.OPENING, B_QUARTER_CONFIRMED, B_QUARTER_CONFIRMED),
+                notice("inversion-confirmed", "GOVT-B:10Y-3M", Alert.Kind.CLOSING, B_QUARTER_CONFIRMED, B_END),
+                notice("inversion-confirmed", "GOVT-A:10Y-3M", Alert.Kind.OPENING, A_QUARTER_CONFIRMED, A_QUARTER_CONFIRMED),
+                notice("inversion-confirmed", "GOVT-A:10Y-3M", Alert.Kind.CLOSING, A_QUARTER_CONFIRMED, A_END));
     }
 
-    private static LiveNotice notice(String rule, String subject, AlertDecision.Notice kind, LocalDate since, LocalDate on) {
+    private static LiveNotice notice(String rule, String subject, Alert.Kind kind, LocalDate since, LocalDate on) {
         return new LiveNotice(rule, subject, kind, since, on, "live-hash");
     }
 
@@ -258,7 +259,7 @@ class WhatIfTest {
     }
 
     private static List<String> firing(WhatIfReport r, String rule) {
-        return r.wouldFire().stream().filter(n -> n.rule().equals(rule) && n.kind().equals("FIRING"))
+        return r.wouldFire().stream().filter(n -> n.rule().equals(rule) && n.kind().equals("OPENING"))
                 .map(n -> n.subject() + " " + n.marketDate() + " since " + n.episodeSince()).toList();
     }
 

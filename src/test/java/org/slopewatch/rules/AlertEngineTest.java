@@ -31,18 +31,18 @@ class AlertEngineTest {
         AlertEngine engine = new AlertEngine(List.of(CONFIRMED));
         List<AlertDecision> t0 = engine.decide(List.of(confirmed(true)), T0);
         assertThat(t0).singleElement().satisfies(d -> {
-            assertThat(d.notice()).isEqualTo(AlertDecision.Notice.FIRING);
+            assertThat(d.notice()).isEqualTo(Alert.Kind.OPENING);
             assertThat(d.why()).isEqualTo("first notice");
             assertThat(d.id()).isEqualTo("inversion-confirmed~GOVT-A:10Y-3M~2026-09-21~1");
             assertThat(d.message()).isEqualTo("GOVT-A 10Y-3M confirmed at -18.4 bp: quarter average -18.4 bp < 0 bp (2026Q3)");
         });
         assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(23)))).as("within the repeat interval").isEmpty();
         assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(24)))).singleElement().satisfies(d -> {
-            assertThat(d.notice()).isEqualTo(AlertDecision.Notice.REPEAT);
+            assertThat(d.notice()).isEqualTo(Alert.Kind.STANDING);
             assertThat(d.id()).endsWith("~2");
         });
         assertThat(engine.decide(List.of(confirmed(false)), T0.plus(Duration.ofHours(30)))).singleElement().satisfies(d -> {
-            assertThat(d.notice()).isEqualTo(AlertDecision.Notice.RESOLVED);
+            assertThat(d.notice()).isEqualTo(Alert.Kind.CLOSING);
             assertThat(d.why()).isEqualTo("condition cleared");
             assertThat(d.id()).isEqualTo("inversion-confirmed~GOVT-A:10Y-3M~2026-09-21~3");
         });
@@ -80,7 +80,7 @@ class AlertEngineTest {
         engine.silence("inversion-confirmed", "GOVT-A:10Y-3M");
         assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofDays(3)))).isEmpty();
         assertThat(engine.decide(List.of(confirmed(false)), T0.plus(Duration.ofDays(4))))
-                .extracting(AlertDecision::notice).containsExactly(AlertDecision.Notice.RESOLVED);
+                .extracting(AlertDecision::notice).containsExactly(Alert.Kind.CLOSING);
     }
 
     @Test

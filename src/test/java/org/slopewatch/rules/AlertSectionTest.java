@@ -45,8 +45,8 @@ class AlertSectionTest {
         AlertRule confirmed = p.alerts().get(0);
         assertThat(confirmed.when()).isEqualTo(new AlertTrigger.EntersState(SpreadState.CONFIRMED));
         assertThat(confirmed.severity()).isEqualTo(Severity.CRITICAL);
-        assertThat(confirmed.repeatEvery()).isEqualTo(Duration.ofDays(1));
-        assertThat(confirmed.resolveNotice()).isTrue();
+        assertThat(confirmed.standingEvery()).isEqualTo(Duration.ofDays(1));
+        assertThat(confirmed.closingNotice()).isTrue();
         assertThat(p.alerts().get(1).severity()).isEqualTo(Severity.INFO);
         assertThat(p.alerts().get(2).severity()).isEqualTo(Severity.WARNING);
         assertThat(p.alerts().get(3).when()).isEqualTo(new AlertTrigger.FeedStale());
@@ -61,15 +61,15 @@ class AlertSectionTest {
                   10Y-3M: { alpha: -0.5333, beta: -0.6330, horizon-months: 12, source: "Estrella and Trubin (2006) (from memory)" }
                 alerts:
                   - { name: a, when: { enters-state: inverted }, severity: info, channels: [log] }
-                  - { name: b, when: { inverted-for-days: 180 }, severity: warning, channels: [log], repeat-every: 4h }
-                  - { name: c, when: { probability-above: 0.5 }, severity: critical, channels: [log], repeat-every: 0 }
-                  - { name: d, when: { feed-stale: true }, severity: warning, channels: [log], repeat-every: 30m }
+                  - { name: b, when: { inverted-for-days: 180 }, severity: warning, channels: [log], standing-every: 4h }
+                  - { name: c, when: { probability-above: 0.5 }, severity: critical, channels: [log], standing-every: 0 }
+                  - { name: d, when: { feed-stale: true }, severity: warning, channels: [log], standing-every: 30m }
                   - { name: e, when: { spread-below-bp: -50 }, spreads: [10Y-3M], severity: warning, channels: [log] }
                 """);
         assertThat(p.alerts()).extracting(AlertRule::when).containsExactly(new AlertTrigger.EntersState(SpreadState.INVERTED),
                 new AlertTrigger.InvertedForDays(180), new AlertTrigger.ProbabilityAbove(0.5), new AlertTrigger.FeedStale(),
                 new AlertTrigger.SpreadBelow(-50));
-        assertThat(p.alerts()).extracting(AlertRule::repeatEvery).containsExactly(Duration.ZERO, Duration.ofHours(4), Duration.ZERO,
+        assertThat(p.alerts()).extracting(AlertRule::standingEvery).containsExactly(Duration.ZERO, Duration.ofHours(4), Duration.ZERO,
                 Duration.ofMinutes(30), Duration.ZERO);
     }
 
@@ -95,17 +95,17 @@ class AlertSectionTest {
                 channels:
                   pager: { type: sms }
                 alerts:
-                  - { name: a, when: { probability-above: 1.5 }, severity: loud, channels: [log], repeat-every: soon }
-                  - { name: b, when: { inverted-for-days: 0 }, severity: info, channels: [log], resolve-notice: maybe }
+                  - { name: a, when: { probability-above: 1.5 }, severity: loud, channels: [log], standing-every: soon }
+                  - { name: b, when: { inverted-for-days: 0 }, severity: info, channels: [log], closing-notice: maybe }
                   - { name: c, when: { enters-state: CONFIRMED, spread-below-bp: -5 }, severity: info, channels: [log] }
                   - { name: d, when: { enters-state: UPSIDE-DOWN }, severity: info, channels: [log], message: "{spread} {colour}" }
                 """);
         assertThat(message).contains("p.yaml:5:18: unknown channel type 'sms' for channel 'pager' (known: chat-webhook, email, stream, log)")
                 .contains("p.yaml:7:43: impossible threshold: 'probability-above' is a probability between 0 and 1 (exclusive), got 1.5")
                 .contains("p.yaml:7:60: unknown severity 'loud' (known: info, warning, critical)")
-                .contains("p.yaml:7:97: 'repeat-every' must be a duration such as 30s, 30m, 4h or 1d (0 for never), got 'soon'")
+                .contains("p.yaml:7:97: 'standing-every' must be a duration such as 30s, 30m, 4h or 1d (0 for never), got 'soon'")
                 .contains("p.yaml:8:43: impossible threshold: 'inverted-for-days' must be at least 1, got 0")
-                .contains("'resolve-notice' must be true or false, got 'maybe'")
+                .contains("'closing-notice' must be true or false, got 'maybe'")
                 .contains("p.yaml:9:22: 'when' takes exactly one condition")
                 .contains("unknown state 'UPSIDE-DOWN'")
                 .contains("unknown placeholder {colour} in 'message'");

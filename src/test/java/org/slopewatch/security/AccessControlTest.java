@@ -80,10 +80,10 @@ class AccessControlTest {
 
         as(READ).contentType("application/json").body("{\"by\":\"x\"}").post("/api/alerts/any~id~2026-01-01~1/ack").then().statusCode(403);
         as(READ).contentType("application/json").body("{\"rule\":\"first-inversion\",\"duration\":\"PT1H\",\"reason\":\"r\",\"by\":\"x\"}")
-                .post("/api/mutes").then().statusCode(403);
+                .post("/api/quiet-periods").then().statusCode(403);
         as(READ).post("/api/policy/reload").then().statusCode(403);
         as(WRITE).post("/api/policy/reload").then().statusCode(200).body("result", equalTo("unchanged"));
-        as(WRITE).delete("/api/mutes/999?by=ops").then().statusCode(404);
+        as(WRITE).delete("/api/quiet-periods/999?by=ops").then().statusCode(404);
     }
 
     @Test
