@@ -8,14 +8,18 @@ import java.util.List;
 import java.util.Locale;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.probability.LiveProbability;
 import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertDecision;
 import org.slopewatch.rules.AlertTrigger;
+import org.slopewatch.rules.SpreadText;
 
 /**
- * Writes a notice from a rule engine decision and the spread's status: a one-line subject, the
- * rule's message with the evidence behind it, labelled facts, a link to the dashboard and the
- * caution. Plain Java; what a desk reads in every channel comes from here.
+ * Writes a notice from a rule engine decision and the spread's status: a one-line subject, a body
+ * of its own for each kind of notice ({@link NoticeText}), labelled facts, a link to the spread on
+ * the dashboard and the caution. Every figure comes from the one {@link SpreadStatus} the decision
+ * was made on, so that subject, body and facts agree with each other and with the API. Plain Java;
+ * what a desk reads in every channel comes from here.
  */
 final class AlertComposer {
 
@@ -26,71 +30,51 @@ final class AlertComposer {
     }
 
     /**
-     * @param status the spread's status, or null for a rule about a curve's feed
+     * @param status      the spread's status, or null for a rule about a curve's feed
+     * @param probability the spread's recession probability under the policy's model, or null without one
      */
-    Alert compose(AlertDecision d, SpreadStatus status, Instant now) {
-        Alert.Kind kind = Alert.Kind.valueOf(d.notice().name());
-        String state = status == null ? (d.notice() == Alert.Kind.CLOSING ? "FRESH" : "STALE") : status.state().name();
+    Alert compose(AlertDecision d, SpreadStatus status, LiveProbability probability, Instant now) {
+        Alert.Kind kind = d.notice();
+        String state = status == null ? (kind == Alert.Kind.CLOSING ? "FRESH" : "STALE") : status.state().name();
+        NoticeText text = new NoticeText(d, status, probability);
         return new Alert(d.id(), d.rule().name(), d.rule().severity(), kind, d.subject(), status == null ? null : status.date(), state,
-                subject(d, status, state), text(d, status), facts(d, status), link(d, status), now);
+                text.subject(), text.body() + "\n\n" + Alert.CAUTION, facts(d, status, probability), link(d, status), now);
     }
 
-    private static String subject(AlertDecision d, SpreadStatus status, String state) {
-        String what = status == null ? d.subject() + " feed" : status.curve() + " " + status.spread();
-        return switch (d.notice()) {
-            case OPENING -> "[" + d.rule().severity() + "] " + what + " " + state;
-            case STANDING -> "[" + d.rule().severity() + "] " + what + " " + state + " (reminder " + (d.number() - 1) + ")";
-            case CLOSING -> "[CLOSING] " + what + ": " + d.rule().name() + " no longer holds (now " + state + ")";
-        };
-    }
-
-    private static String text(AlertDecision d, SpreadStatus status) {
-        StringBuilder b = new StringBuilder(d.message()).append("\n\n");
-        b.append("Rule ").append(d.rule().name()).append(" (").append(d.rule().severity().name().toLowerCase(Locale.ROOT))
-                .append("): ").append(d.why()).append(", episode since ").append(d.since()).append(".\n");
-        if (status != null) {
-            Spell spell = status.openSpell();
-            if (spell != null) {
-                b.append(String.format(Locale.ROOT, "Inverted since %s: %d days, deepest %.1f bp on %s", spell.start(),
-                        spell.durationDays(), spell.deepestBp(), spell.deepestDate()));
-                if (spell.confirmed() != null) {
-                    b.append(", confirmed on ").append(spell.confirmed()).append(" by ").append(spell.confirmedBy());
-                }
-                b.append(".\n");
-            }
-            if (status.quarterToDateObservations() > 0) {
-                b.append(String.format(Locale.ROOT, "Quarter to date: average %.1f bp over %d observations.%n",
-                        status.quarterToDateAverageBp(), status.quarterToDateObservations()));
-            }
-        }
-        return b.append('\n').append(Alert.CAUTION).toString();
-    }
-
-    private static List<Alert.Fact> facts(AlertDecision d, SpreadStatus status) {
+    private static List<Alert.Fact> facts(AlertDecision d, SpreadStatus status, LiveProbability probability) {
         List<Alert.Fact> facts = new ArrayList<>();
         if (status == null) {
             facts.add(new Alert.Fact("curve", d.subject()));
             facts.add(new Alert.Fact("feed quiet since", String.valueOf(d.since())));
         } else {
             facts.add(new Alert.Fact("spread", status.id()));
-            facts.add(new Alert.Fact("state", status.state() + " since " + status.stateSince()));
-            facts.add(new Alert.Fact("value", String.format(Locale.ROOT, "%.1f bp on %s", status.valueBp(), status.date())));
+            facts.add(new Alert.Fact("state", SpreadText.state(status.state()) + " since " + status.stateSince()));
+            facts.add(new Alert.Fact("value", SpreadText.bp(status.valueBp()) + " on " + status.date()));
             Spell spell = status.openSpell();
             if (spell != null) {
                 facts.add(new Alert.Fact("spell start", spell.start().toString()));
-                facts.add(new Alert.Fact("days inverted", Long.toString(status.daysInverted())));
+                facts.add(new Alert.Fact("days inverted", status.invertedSince() == null ? "0 (not below the entry threshold)"
+                        : status.daysInverted() + " (without a break since " + status.invertedSince() + ")"));
+                facts.add(new Alert.Fact("deepest", SpreadText.bp(spell.deepestBp()) + " on " + spell.deepestDate()));
+                if (spell.confirmed() != null) {
+                    facts.add(new Alert.Fact("confirmed", spell.confirmed() + " by " + spell.confirmedBy()));
+                }
+            } else if (d.notice() == Alert.Kind.CLOSING && status.endedSpell() != null) {
+                Spell ended = status.endedSpell();
+                facts.add(new Alert.Fact("spell", ended.start() + " to " + ended.end() + ", " + SpreadText.days(ended.durationDays())
+                        + (ended.confirmed() == null ? ", unconfirmed" : ", confirmed on " + ended.confirmed())));
             }
             if (status.quarterToDateObservations() > 0) {
-                facts.add(new Alert.Fact("quarter-to-date average", String.format(Locale.ROOT, "%.1f bp (%d observations)",
-                        status.quarterToDateAverageBp(), status.quarterToDateObservations())));
+                facts.add(new Alert.Fact("quarter-to-date average", String.format(Locale.ROOT, "%s (%d observations)",
+                        SpreadText.bp(status.quarterToDateAverageBp()), status.quarterToDateObservations())));
             }
-            String probability = d.condition().values().get("probability");
             if (probability != null) {
-                facts.add(new Alert.Fact("recession probability", probability));
+                facts.add(new Alert.Fact("recession probability", String.format(Locale.ROOT, "%.0f%% for %s (model: %s)",
+                        100 * probability.probability(), probability.targetMonth(), probability.source())));
             }
         }
         facts.add(new Alert.Fact("rule", d.rule().name() + " (" + trigger(d.rule().when()) + ")"));
-        facts.add(new Alert.Fact("notice", d.notice().name().toLowerCase(Locale.ROOT) + " " + d.number()));
+        facts.add(new Alert.Fact("notice", d.notice().words() + ", number " + d.number() + " of the episode since " + d.since()));
         return facts;
     }
 
@@ -107,7 +91,17 @@ final class AlertComposer {
         return "feed stale";
     }
 
+    /**
+     * The dashboard opened on the notice's spread: {@code ?spread=} makes the page scroll to the
+     * spread's card and mark it, and the fragment names the card ({@code spread-} and the id with
+     * every character outside letters, digits, {@code _} and {@code -} written as {@code -}, as
+     * the page makes it).
+     */
     private String link(AlertDecision d, SpreadStatus status) {
-        return status == null ? dashboardUrl : dashboardUrl + "?spread=" + URLEncoder.encode(status.id(), StandardCharsets.UTF_8);
+        if (status == null) {
+            return dashboardUrl;
+        }
+        return dashboardUrl + "?spread=" + URLEncoder.encode(status.id(), StandardCharsets.UTF_8) + "#spread-"
+                + status.id().replaceAll("[^A-Za-z0-9_-]", "-");
     }
 }

@@ -133,9 +133,11 @@ public class AlertDesk implements AlertStage {
         }
         Map<String, SpreadStatus> byId = new HashMap<>();
         statuses.forEach(s -> byId.put(s.id(), s));
+        Policy policy = policies.policy();
         String hash = policies.current().hash();
         for (AlertDecision d : decisions) {
-            Alert alert = composer.compose(d, byId.get(d.subject()), now);
+            SpreadStatus status = byId.get(d.subject());
+            Alert alert = composer.compose(d, status, status == null ? null : policy.probability().current(status).orElse(null), now);
             String quietedBy = quietedBy(d, now);
             List<JournalEntries.Outbox> outbox = new ArrayList<>();
             for (String channel : d.rule().channels()) {

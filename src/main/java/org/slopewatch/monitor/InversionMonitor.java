@@ -283,6 +283,7 @@ public final class InversionMonitor {
         Evidence e = new Evidence("exit", runs, o.valueBp(), exit, o.valueBp(), 0);
         events = add(events, transition(s, o, to, reason, e, s.spellCount));
         events = add(events, spell);
+        s.endedSpell = spell;
         s.spellStartDay = MonitorState.NONE;
         s.aboveExitRun = 0;
         if (confirmed) {

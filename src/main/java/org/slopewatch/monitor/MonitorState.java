@@ -46,6 +46,8 @@ public final class MonitorState {
     int spellDeepestDay;
     double spellAreaBpDays;
     double spellLastDepthBp;
+    /** The last spell that ended, or null: what a notice about its end reports (set once per spell, so no cost per step). */
+    Spell endedSpell;
 
     final TrailingWindow[] windows;
 
@@ -94,6 +96,21 @@ public final class MonitorState {
     /** Calendar days continuously below the entry threshold up to the last observation, 0 if not below. */
     public long daysInverted() {
         return invertedSinceDay == NONE ? 0 : (long) lastDay - invertedSinceDay;
+    }
+
+    /**
+     * The first date of the run below the entry threshold that {@link #daysInverted()} counts from,
+     * or null when the last observation is not below it. Within a spell it can be later than the
+     * spell's start: a value between the entry and the exit threshold does not end a spell, but it
+     * ends a run below the entry threshold.
+     */
+    public LocalDate invertedSince() {
+        return invertedSinceDay == NONE ? null : LocalDate.ofEpochDay(invertedSinceDay);
+    }
+
+    /** The last spell that ended, or null if none has. */
+    public Spell endedSpell() {
+        return endedSpell;
     }
 
     /** Spells started so far. */
@@ -158,6 +175,7 @@ public final class MonitorState {
         spellDeepestDay = o.spellDeepestDay;
         spellAreaBpDays = o.spellAreaBpDays;
         spellLastDepthBp = o.spellLastDepthBp;
+        endedSpell = o.endedSpell;
         for (int i = 0; i < windows.length; i++) {
             if (windows[i] != null) {
                 windows[i].copyFrom(o.windows[i]);

@@ -2,7 +2,6 @@ package org.slopewatch.replay;
 
 import java.time.LocalDate;
 import org.slopewatch.rules.Alert;
-import org.slopewatch.rules.AlertDecision;
 
 /**
  * A notice the daemon journalled, as far as a what-if compares it: which rule, about what, the

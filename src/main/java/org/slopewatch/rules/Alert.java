@@ -12,7 +12,8 @@ import java.util.Objects;
  *                    restart or a second instance never creates the same notice twice
  * @param kind        opening notice (the condition now holds), standing notice (it still holds) or closing
  *                    notice (it no longer holds)
- * @param subject     one line: severity, spread and state, e.g. {@code [CRITICAL] GOVT-A 10Y-3M CONFIRMED}
+ * @param subject     one line: what happened, then the kind and the severity in words, e.g.
+ *                    {@code GOVT-A:10Y-3M confirmed inverted at -23.4 bp — opening notice, critical}
  * @param text        the body in plain text, several lines, ending with {@link #CAUTION}
  * @param facts       the evidence as label/value pairs, in order (for HTML and JSON bodies)
  * @param dashboard   a link to the dashboard, or null

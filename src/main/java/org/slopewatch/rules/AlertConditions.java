@@ -68,9 +68,8 @@ public final class AlertConditions {
         v.put("days", Long.toString(s.daysInverted()));
         v.put("date", String.valueOf(s.date()));
         Spell spell = s.openSpell();
-        v.put("reason", spell == null ? "state " + s.state() + " since " + s.stateSince()
-                : String.format(Locale.ROOT, "inverted since %s (%d days), deepest %.1f bp%s", spell.start(), spell.durationDays(),
-                        spell.deepestBp(), spell.confirmed() == null ? "" : ", confirmed on " + spell.confirmed() + " by " + spell.confirmedBy()));
+        v.put("reason", spell == null ? SpreadText.state(s.state()) + " since " + s.stateSince()
+                : SpreadText.run(s) + "; " + SpreadText.spellDetail(spell));
         if (probability != null) {
             v.put("probability", String.format(Locale.ROOT, "%.0f%%", 100 * probability));
         }

@@ -5,8 +5,8 @@ import org.slopewatch.text.Html;
 
 /**
  * The human-readable forms of an alert, shared by the chat, email and log channels so that
- * every channel says the same thing: the subject, the body, the dashboard link, and the
- * caution last. An alert's text already ends with {@link Alert#CAUTION}; the link goes before
+ * every channel says the same thing: the subject, the body, the facts, the dashboard link, and
+ * the caution last. An alert's text already ends with {@link Alert#CAUTION}; the link goes before
  * it, and the caution is added if a text lacks it.
  */
 public final class AlertText {
@@ -23,13 +23,17 @@ public final class AlertText {
         return text;
     }
 
-    /** Subject, body, dashboard link and caution as plain text, paragraphs separated by a blank line. */
+    /**
+     * Subject, body, facts, dashboard link and caution as plain text, paragraphs separated by a
+     * blank line: what a chat message carries, so that the figures travel with the subject.
+     */
     public static String plain(Alert alert) {
         StringBuilder out = new StringBuilder(alert.subject()).append("\n\n");
         String body = body(alert);
         if (!body.isEmpty()) {
             out.append(body).append("\n\n");
         }
+        facts(alert, out);
         if (hasLink(alert)) {
             out.append("Dashboard: ").append(alert.dashboard()).append("\n\n");
         }
@@ -43,16 +47,21 @@ public final class AlertText {
         if (!body.isEmpty()) {
             out.append(body).append("\n\n");
         }
+        facts(alert, out);
+        if (hasLink(alert)) {
+            out.append("Dashboard: ").append(alert.dashboard()).append("\n\n");
+        }
+        return out.append(Alert.CAUTION).append('\n').toString();
+    }
+
+    /** The facts, one {@code label: value} line each, then a blank line. */
+    private static void facts(Alert alert, StringBuilder out) {
         if (!alert.facts().isEmpty()) {
             for (Alert.Fact f : alert.facts()) {
                 out.append(f.label()).append(": ").append(f.value()).append('\n');
             }
             out.append('\n');
         }
-        if (hasLink(alert)) {
-            out.append("Dashboard: ").append(alert.dashboard()).append("\n\n");
-        }
-        return out.append(Alert.CAUTION).append('\n').toString();
     }
 
     /** The same content as {@link #mailText} in HTML: every value escaped, the facts as a table, the caution last. */

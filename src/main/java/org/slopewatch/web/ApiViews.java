@@ -38,13 +38,17 @@ final class ApiViews {
         }
     }
 
-    /** Where a spread stands. {@code state_code}: 0 NORMAL, 1 INVERTED, 2 CONFIRMED, 3 RESTEEPENING. */
+    /**
+     * Where a spread stands. {@code state_code}: 0 NORMAL, 1 INVERTED, 2 CONFIRMED, 3 RESTEEPENING;
+     * {@code days_inverted} counts from {@code inverted_since} (null when the latest value is not
+     * below the entry threshold), which can be later than the open spell's start.
+     */
     record SpreadView(String id, String curve, String spread, LocalDate date, Double valueBp, String state, int stateCode,
-                      long daysInverted, Double quarterToDateAverageBp, int quarterToDateObservations, long observations,
-                      SpellView spell, ProbabilityView probability, ProbabilityView probabilityLastMonth) {
+                      long daysInverted, LocalDate invertedSince, Double quarterToDateAverageBp, int quarterToDateObservations,
+                      long observations, SpellView spell, ProbabilityView probability, ProbabilityView probabilityLastMonth) {
         static SpreadView of(SpreadStatus s, ProbabilityModels models) {
             return new SpreadView(s.id(), s.curve(), s.spread(), s.date(), finite(s.valueBp()), s.state().name(), s.state().code(),
-                    s.daysInverted(), finite(s.quarterToDateAverageBp()), s.quarterToDateObservations(), s.observations(),
+                    s.daysInverted(), s.invertedSince(), finite(s.quarterToDateAverageBp()), s.quarterToDateObservations(), s.observations(),
                     SpellView.of(s.openSpell()), models.current(s).map(ProbabilityView::of).orElse(null),
                     models.lastMonth(s).map(ProbabilityView::of).orElse(null));
         }

@@ -11,7 +11,6 @@ import org.slopewatch.replay.SpreadFilter;
 import org.slopewatch.replay.WhatIf;
 import org.slopewatch.replay.WhatIfReport;
 import org.slopewatch.rules.Alert;
-import org.slopewatch.rules.AlertDecision;
 
 /**
  * A what-if on a journal's history: every stored quote in recorded order through a

@@ -12,7 +12,6 @@ import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.curve.Tenor;
 import org.slopewatch.rules.Alert;
-import org.slopewatch.rules.AlertDecision;
 import org.slopewatch.rules.PolicyException;
 
 /**
