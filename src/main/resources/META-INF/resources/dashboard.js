@@ -23,6 +23,9 @@
   let polls = 0;
   let timer = null;
   let busy = false;
+  // ?spread=GOVT-A:10Y-3M (the link in every notice) opens the page on that spread's card, once
+  const wanted = new URLSearchParams(window.location.search).get('spread');
+  let shownWanted = false;
   let token = sessionStorage.getItem('slopewatch-token');
 
   function authorised(headers) {
@@ -243,6 +246,31 @@
     renderSpreads();
     renderCurves();
     renderChanges();
+    showWanted();
+  }
+
+  // A notice's title without what the alert list shows beside it: the kind and severity at its end
+  // (and the bracketed severity in front that titles journalled by earlier versions carry).
+  function headline(title) {
+    return title.replace(/\s\u2014\s[a-z]+ notice, [a-z]+$/, '').replace(/^\[[A-Z]+\]\s*/, '');
+  }
+
+  // Scrolls to the card of the spread the address names and marks it; the card exists only once
+  // the first poll has drawn it, so this runs after each drawing until it has found the card.
+  function showWanted() {
+    if (!wanted || shownWanted) {
+      return;
+    }
+    const card = document.getElementById('spread-' + slug(wanted));
+    if (!card) {
+      return;
+    }
+    shownWanted = true;
+    card.classList.add('wanted');
+    card.setAttribute('aria-current', 'true');
+    card.setAttribute('tabindex', '-1');
+    card.scrollIntoView({ block: 'start' });
+    card.focus({ preventScroll: true });
   }
 
   function odds(p) {
@@ -293,7 +321,7 @@
       const severity = notice ? notice.severity.toLowerCase() : 'info';
       item.className = 'alert-item severity-' + severity;
       const head = el('p', { class: 'alert-head' }, el('span', { class: 'severity' }, severity), ' ',
-        el('strong', null, notice ? notice.title.replace(/^\[[A-Z]+\]\s*/, '') : episode.rule + ' on ' + episode.subject));
+        el('strong', null, notice ? headline(notice.title) : episode.rule + ' on ' + episode.subject));
       const meta = el('p', { class: 'muted' }, 'Rule ' + episode.rule + ' \u00b7 since ' + episode.since + ' \u00b7 '
         + episode.notices + (episode.notices === 1 ? ' notice' : ' notices'));
       if (episode.acknowledged) {
@@ -377,7 +405,7 @@
   }
 
   function fillSpread(card, s) {
-    card.className = 'card is-' + s.state;
+    card.className = 'card is-' + s.state + (wanted === s.id ? ' wanted' : '');
     card.dataset.spread = s.id;
     card.dataset.state = s.state;
     card.querySelector('.slot-state').replaceChildren(stateTag(s.state));
@@ -388,7 +416,7 @@
     card.querySelector('.state-note').textContent = (STATES[s.state] || { note: '' }).note;
 
     const facts = [
-      ['Days inverted', String(s.days_inverted)],
+      ['Days inverted', s.inverted_since ? s.days_inverted + ' (without a break since ' + s.inverted_since + ')' : '0'],
       ['Quarter to date', s.quarter_to_date_average_bp === null ? 'no observations yet'
         : 'average ' + bp(s.quarter_to_date_average_bp) + ' over ' + s.quarter_to_date_observations
           + (s.quarter_to_date_observations === 1 ? ' observation' : ' observations')],

@@ -59,7 +59,8 @@ final class AlertComposer {
                 if (spell.confirmed() != null) {
                     facts.add(new Alert.Fact("confirmed", spell.confirmed() + " by " + spell.confirmedBy()));
                 }
-            } else if (d.notice() == Alert.Kind.CLOSING && status.endedSpell() != null) {
+            } else if (status.endedSpell() != null && status.endedSpell().end().equals(status.stateSince())) {
+                // the spell whose end brought the spread to its present state
                 Spell ended = status.endedSpell();
                 facts.add(new Alert.Fact("spell", ended.start() + " to " + ended.end() + ", " + SpreadText.days(ended.durationDays())
                         + (ended.confirmed() == null ? ", unconfirmed" : ", confirmed on " + ended.confirmed())));

@@ -176,7 +176,8 @@ public class AlertDesk implements AlertStage {
         for (JournalEntries.AlertEntry e : alerts) {
             metrics.decided(e.alert(), e.quietedBy() != null);
             e.outbox().stream().filter(o -> o.skipped() != null).forEach(o -> metrics.finished(o.channel(), "skipped"));
-            LOG.infof("alert id=%s rule=%s severity=%s kind=%s subject=%s: %s", e.alert().id(), e.alert().rule(), e.alert().severity(),
+            LOG.infof("alert id=%s rule=%s severity=%s kind=%s subject=%s: %s", e.alert().id(), e.alert().rule(),
+                    e.alert().severity().name().toLowerCase(java.util.Locale.ROOT),
                     e.alert().kind().label(), e.alert().subject(), e.quietedBy() == null ? "queued" : "held back (" + e.quietedBy() + ")");
         }
         dispatcher.wake();

@@ -142,19 +142,18 @@ final class NoticeText {
             out.add("Quotes for " + d.subject() + " arrive again; the feed had been quiet since " + d.since() + ".");
             return;
         }
-        out.add(s.id() + " is no longer " + condition() + ": on " + s.date() + " it stood at " + SpreadText.bp(s.valueBp()) + ", "
-                + SpreadText.state(s.state()) + " since " + s.stateSince() + ".");
-        Spell ended = s.endedSpell();
-        if (s.openSpell() == null && ended != null && ended.end() != null && ended.end().equals(s.stateSince())) {
-            out.add(capitalised("the " + (ended.wasConfirmed() ? "confirmed" : "unconfirmed") + " spell that began on " + ended.start()
-                    + " ended on " + ended.end() + " after " + SpreadText.days(ended.durationDays()) + "; " + SpreadText.spellDetail(ended)
-                    + "."));
-            if (ended.wasConfirmed() && s.state() == SpreadState.RESTEEPENING) {
-                out.add(RESTEEPENING_MEANING);
-            }
-        } else if (s.openSpell() != null) {
-            out.add(numbers());
+        out.add(s.id() + " is no longer " + condition() + " (rule " + d.rule().name() + ", since " + d.since() + ").");
+        out.add(numbers());
+        Spell ended = endedNow();
+        if (ended != null && ended.wasConfirmed() && s.state() == SpreadState.RESTEEPENING) {
+            out.add(RESTEEPENING_MEANING);
         }
+    }
+
+    /** The spell whose end brought the spread to its present state, or null when its state has another cause. */
+    private Spell endedNow() {
+        Spell ended = s.endedSpell();
+        return s.openSpell() == null && ended != null && ended.end() != null && ended.end().equals(s.stateSince()) ? ended : null;
     }
 
     /** The spread's figures: value, state, the spell and its days inverted, the quarter so far. */
@@ -163,8 +162,13 @@ final class NoticeText {
         b.append(s.id()).append(" stood at ").append(SpreadText.bp(s.valueBp())).append(" on ").append(s.date()).append(", ")
                 .append(SpreadText.state(s.state())).append(" since ").append(s.stateSince()).append('.');
         Spell spell = s.openSpell();
+        Spell ended = endedNow();
         if (spell != null) {
             b.append(' ').append(capitalised(SpreadText.run(s))).append("; ").append(SpreadText.spellDetail(spell)).append('.');
+        } else if (ended != null) {
+            b.append(" The ").append(ended.wasConfirmed() ? "confirmed" : "unconfirmed").append(" spell that began on ").append(ended.start())
+                    .append(" ended on ").append(ended.end()).append(" after ").append(SpreadText.days(ended.durationDays())).append("; ")
+                    .append(SpreadText.spellDetail(ended)).append('.');
         }
         if (s.quarterToDateObservations() > 0) {
             b.append(String.format(Locale.ROOT, " Quarter to date: average %s over %d observations.", SpreadText.bp(s.quarterToDateAverageBp()),

@@ -37,7 +37,7 @@ import org.slopewatch.delivery.TestHttpReceiver;
  * webhook and the real GreenMail SMTP server: quotes in over HTTP, a calendar quarter inverted,
  * the confirmation at the chat receiver through an outage (500, a hung request, refused
  * connections) exactly once by id, the same alert in the mailbox, an acknowledgement stopping the
- * repeats, the resolve notice after re-steepening; then a mute, and hot reload of the policy
+ * standing notices, the closing notice after re-steepening; then a quiet period, and hot reload of the policy
  * (an invalid file rejected with its position while the old policy runs on, a valid one applied).
  *
  * <p>Source of the rule checked: the confirmation rule of the policy under test (a calendar
@@ -100,7 +100,7 @@ class AlertTimelineTest {
 
     @Test
     @Order(1)
-    void confirmationReachesChatThroughAnOutageAndTheMailboxAndAckStopsRepeats() throws Exception {
+    void confirmationReachesChatThroughAnOutageAndTheMailboxAndAckStopsStandingNotices() throws Exception {
         // the first quarter of 2026, inverted by 20 bp every business day
         post(days("GOVT-A", LocalDate.of(2026, 1, 2), LocalDate.of(2026, 3, 31), -20.0));
         String firstInversion = "first-inversion~GOVT-A:10Y-3M~2026-01-02~1";
@@ -130,32 +130,35 @@ class AlertTimelineTest {
         assertThat(details.get(details.size() - 1)).startsWith("delivered: ");
         JsonNode body = JSON.readTree(chat.accepted().stream().filter(r -> r.body().contains(confirmed)).findFirst().orElseThrow().body());
         assertThat(body.get("severity").asText()).isEqualTo("critical");
-        assertThat(body.get("text").asText()).contains("confirmed inverted").contains("Inverted since 2026-01-02")
+        assertThat(body.get("kind").asText()).isEqualTo("opening");
+        assertThat(body.get("text").asText()).contains("confirmed inverted").contains("The spell began on 2026-01-02")
                 .contains("not investment advice");
 
         // the same alert in the mailbox of the real SMTP server
-        Awaitility.await("the confirmation in the mailbox").atMost(PATIENCE).until(() -> mail("[CRITICAL] GOVT-A 10Y-3M CONFIRMED") != null);
-        MimeMessage mail = mail("[CRITICAL] GOVT-A 10Y-3M CONFIRMED");
-        String mailBody = com.icegreen.greenmail.util.GreenMailUtil.getBody(mail);
+        String subject = "GOVT-A:10Y-3M confirmed inverted at -20.0 bp \u2014 opening notice, critical";
+        Awaitility.await("the confirmation in the mailbox").atMost(PATIENCE).until(() -> mail(subject) != null);
+        MimeMessage mail = mail(subject);
+        // quoted-printable: soft line breaks joined again, so that a phrase reads whole wherever the encoder cut it
+        String mailBody = com.icegreen.greenmail.util.GreenMailUtil.getBody(mail).replaceAll("=\r?\n", "");
         // the notice describes the spread as the confirming quote left it (2026-04-01, 89 days after
         // 2026-01-02), not as the rest of its batch did: notices must not depend on batching
-        assertThat(mailBody).contains("Quarter to date: average -20.0 bp over 1 observations").contains("days inverted: 89")
+        assertThat(mailBody).contains("Quarter to date: average -20.0 bp over 1 observations").contains("days inverted: 89 (without a break since 2026-01-02)")
                 .contains("not investment advice");
         assertThat(mail.getAllRecipients()[0].toString()).isEqualTo(SmtpTestResource.RISK);
 
-        // repeats every two seconds until someone acknowledges
-        Awaitility.await("a repeat").atMost(PATIENCE).until(() -> notices("inversion-confirmed") >= 2);
+        // standing notices every two seconds until someone acknowledges
+        Awaitility.await("a standing notice").atMost(PATIENCE).until(() -> notices("inversion-confirmed") >= 2);
         given().contentType("application/json").body("{\"by\":\"desk-lead\",\"note\":\"seen, escalated\"}")
                 .post("/api/alerts/" + confirmed + "/ack")
                 .then().statusCode(200).body("acks[0].by", equalTo("desk-lead"));
         long afterAck = notices("inversion-confirmed");
-        Thread.sleep(5_000); // two and a half repeat intervals
-        assertThat(notices("inversion-confirmed")).as("no repeats after the acknowledgement").isEqualTo(afterAck);
+        Thread.sleep(5_000); // two and a half standing intervals
+        assertThat(notices("inversion-confirmed")).as("no standing notices after the acknowledgement").isEqualTo(afterAck);
         assertThat(alerts().get("open").findValuesAsText("acknowledged")).contains("true");
 
-        // the spread re-steepens: the condition clears and the resolve notice still comes
+        // the spread re-steepens: the condition clears and the closing notice still comes
         post(days("GOVT-A", LocalDate.of(2026, 4, 6), LocalDate.of(2026, 4, 17), 30.0));
-        Awaitility.await("the resolve notice").atMost(PATIENCE).until(() -> alerts().get("recent").findValuesAsText("kind").contains("CLOSING"));
+        Awaitility.await("the closing notice").atMost(PATIENCE).until(() -> alerts().get("recent").findValuesAsText("kind").contains("closing"));
 
         String metrics = given().get("/q/metrics").then().statusCode(200).extract().asString();
         assertThat(metrics).contains("slopewatch_alerts_total{kind=\"opening\",quieted=\"false\",rule=\"inversion-confirmed\",severity=\"critical\"}")
@@ -164,17 +167,17 @@ class AlertTimelineTest {
 
     @Test
     @Order(2)
-    void aMutedRuleIsJournalledButNotSent() throws IOException {
+    void aRuleInAQuietPeriodIsJournalledButNotSent() throws IOException {
         given().contentType("application/json")
-                .body("{\"rule\":\"first-inversion\",\"duration\":\"PT1H\",\"reason\":\"GOVT-B feed under test\",\"by\":\"ops\"}")
-                .post("/api/quiet-periods").then().statusCode(201).body("kind", equalTo("rule"));
+                .body("{\"rule\":\"first-inversion\",\"lasts\":\"PT1H\",\"note\":\"GOVT-B feed under test\",\"set_by\":\"ops\"}")
+                .post("/api/quiet-periods").then().statusCode(201).body("rule", equalTo("first-inversion")).body("set_by", equalTo("ops"));
         post(days("GOVT-B", LocalDate.of(2026, 5, 4), LocalDate.of(2026, 5, 8), -10.0));
         String id = "first-inversion~GOVT-B:10Y-3M~2026-05-04~1";
-        Awaitility.await("the muted notice journalled").atMost(PATIENCE).until(() -> deliveryStatus(id, "desk-chat") != null);
+        Awaitility.await("the notice held back journalled").atMost(PATIENCE).until(() -> deliveryStatus(id, "desk-chat") != null);
         assertThat(deliveryStatus(id, "desk-chat")).isEqualTo("SKIPPED");
-        given().get("/api/alerts/" + id).then().statusCode(200).body("alert.muted_by", containsString("muted by ops"));
+        given().get("/api/alerts/" + id).then().statusCode(200).body("alert.quieted_by", containsString("set by ops"));
         assertThat(acceptedIds()).doesNotContain(id);
-        given().contentType("application/json").body("{\"rule\":\"no-such-rule\",\"duration\":\"PT1H\",\"reason\":\"x\",\"by\":\"ops\"}")
+        given().contentType("application/json").body("{\"rule\":\"no-such-rule\",\"lasts\":\"PT1H\",\"note\":\"x\",\"set_by\":\"ops\"}")
                 .post("/api/quiet-periods").then().statusCode(400);
     }
 
@@ -191,7 +194,7 @@ class AlertTimelineTest {
         Files.writeString(policyFile, good.replace("went below zero", "dipped below zero"));
         given().post("/api/policy/reload").then().statusCode(200).body("result", equalTo("applied"));
         given().post("/api/policy/reload").then().statusCode(200).body("result", equalTo("unchanged"));
-        given().delete("/api/quiet-periods/1?by=ops").then().statusCode(204);
+        given().delete("/api/quiet-periods/1?lifted_by=ops").then().statusCode(204);
         post(days("GOVT-B", LocalDate.of(2026, 6, 1), LocalDate.of(2026, 6, 12), 40.0));
         post(days("GOVT-B", LocalDate.of(2026, 6, 15), LocalDate.of(2026, 6, 16), -5.0));
         String id = "first-inversion~GOVT-B:10Y-3M~2026-06-15~1";

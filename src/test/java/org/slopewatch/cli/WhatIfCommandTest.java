@@ -86,9 +86,9 @@ class WhatIfCommandTest {
         JsonNode report = JSON.readTree(run.out());
         List<String> expected = new ArrayList<>();
         for (Confirmation c : confirmations(false)) {
-            expected.add("OPENING " + c.confirmed() + " since " + c.confirmed());
+            expected.add("opening " + c.confirmed() + " since " + c.confirmed());
             if (c.resolved() != null) {
-                expected.add("CLOSING " + c.resolved() + " since " + c.confirmed());
+                expected.add("closing " + c.resolved() + " since " + c.confirmed());
             }
         }
         List<String> actual = new ArrayList<>();
@@ -162,7 +162,7 @@ class WhatIfCommandTest {
         CliRun text = CliRun.of("replay", "--rules", daysPolicy.toString(), "--from-journal", data.toString());
         assertThat(text.exitCode()).as(text.err()).isZero();
         assertThat(text.out()).contains("compared with what fired").contains("inversion-confirmed  " + SUBJECT)
-                .contains("Repeats are not evaluated").contains("not investment advice");
+                .contains("Standing notices are not evaluated").contains("not investment advice");
     }
 
     @Test

@@ -137,12 +137,12 @@ class WhatIfTest {
     }
 
     @Test
-    void resolveNoticesAreListedOnTheDayTheSpellEnds() throws Exception {
+    void closingNoticesAreListedOnTheDayTheSpellEnds() throws Exception {
         WhatIfReport r = run(TRIED, SpreadFilter.ALL, live());
-        List<String> resolved = r.wouldFire().stream().filter(n -> n.kind().equals("CLOSING"))
+        List<String> resolved = r.wouldFire().stream().filter(n -> n.kind().equals("closing"))
                 .map(n -> n.rule() + " " + n.subject() + " " + n.marketDate()).toList();
         assertThat(resolved).containsExactly("inversion-confirmed GOVT-B:10Y-3M " + B_END, "inversion-confirmed GOVT-A:10Y-3M " + A_END);
-        assertThat(r.wouldFire()).extracting(WhatIfReport.Notice::kind).doesNotContain("STANDING");
+        assertThat(r.wouldFire()).extracting(WhatIfReport.Notice::kind).doesNotContain("standing");
     }
 
     @Test
@@ -161,13 +161,13 @@ class WhatIfTest {
     }
 
     @Test
-    void feedRulesAndRepeatsAreLeftOutAndTheReportSaysSo() throws Exception {
+    void feedRulesAndStandingNoticesAreLeftOutAndTheReportSaysSo() throws Exception {
         List<LiveNotice> live = new ArrayList<>(live());
         live.add(new LiveNotice("stale-feed", "GOVT-A", Alert.Kind.OPENING, A_SPELL, A_SPELL, "live-hash"));
         WhatIfReport r = run(TRIED, SpreadFilter.ALL, live);
         assertThat(r.comparison()).extracting(WhatIfReport.Comparison::rule).doesNotContain("stale-feed");
         assertThat(r.notes()).anyMatch(n -> n.startsWith("Feed rules (stale-feed) do not apply offline"))
-                .anyMatch(n -> n.startsWith("Repeats are not evaluated"))
+                .anyMatch(n -> n.startsWith("Standing notices are not evaluated"))
                 .anyMatch(n -> n.equals("1 live first notice(s) about feeds are left out of the comparison."));
         assertThat(r.caution()).isEqualTo(ReplayReport.CAUTION);
     }
@@ -258,7 +258,7 @@ class WhatIfTest {
     }
 
     private static List<String> firing(WhatIfReport r, String rule) {
-        return r.wouldFire().stream().filter(n -> n.rule().equals(rule) && n.kind().equals("OPENING"))
+        return r.wouldFire().stream().filter(n -> n.rule().equals(rule) && n.kind().equals("opening"))
                 .map(n -> n.subject() + " " + n.marketDate() + " since " + n.episodeSince()).toList();
     }
 

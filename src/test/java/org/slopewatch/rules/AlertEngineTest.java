@@ -11,7 +11,7 @@ import java.util.Set;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.monitor.SpreadState;
 
-/** Notices over time, read like a timeline: first notice, quiet, repeat, resolve. */
+/** Notices over time, read like a timeline: opening notice, quiet, standing notice, closing notice. */
 class AlertEngineTest {
 
     private static final AlertRule CONFIRMED = new AlertRule("inversion-confirmed", new AlertTrigger.EntersState(SpreadState.CONFIRMED),
@@ -32,18 +32,18 @@ class AlertEngineTest {
         List<AlertDecision> t0 = engine.decide(List.of(confirmed(true)), T0);
         assertThat(t0).singleElement().satisfies(d -> {
             assertThat(d.notice()).isEqualTo(Alert.Kind.OPENING);
-            assertThat(d.why()).isEqualTo("first notice");
+            assertThat(d.why()).isEqualTo("the condition now holds");
             assertThat(d.id()).isEqualTo("inversion-confirmed~GOVT-A:10Y-3M~2026-09-21~1");
             assertThat(d.message()).isEqualTo("GOVT-A 10Y-3M confirmed at -18.4 bp: quarter average -18.4 bp < 0 bp (2026Q3)");
         });
-        assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(23)))).as("within the repeat interval").isEmpty();
+        assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(23)))).as("within the standing interval").isEmpty();
         assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(24)))).singleElement().satisfies(d -> {
             assertThat(d.notice()).isEqualTo(Alert.Kind.STANDING);
             assertThat(d.id()).endsWith("~2");
         });
         assertThat(engine.decide(List.of(confirmed(false)), T0.plus(Duration.ofHours(30)))).singleElement().satisfies(d -> {
             assertThat(d.notice()).isEqualTo(Alert.Kind.CLOSING);
-            assertThat(d.why()).isEqualTo("condition cleared");
+            assertThat(d.why()).isEqualTo("the condition no longer holds");
             assertThat(d.id()).isEqualTo("inversion-confirmed~GOVT-A:10Y-3M~2026-09-21~3");
         });
         assertThat(engine.openEpisodes()).isEmpty();
@@ -60,7 +60,7 @@ class AlertEngineTest {
     void aRestoredEpisodeContinuesInsteadOfStartingAgain() {
         AlertEngine engine = new AlertEngine(List.of(CONFIRMED));
         engine.restore("inversion-confirmed", "GOVT-A:10Y-3M", new AlertEngine.Episode(LocalDate.of(2026, 9, 21), T0, 2));
-        assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(1)))).as("no second first notice").isEmpty();
+        assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(1)))).as("no second opening notice").isEmpty();
         assertThat(engine.decide(List.of(confirmed(true)), T0.plus(Duration.ofHours(24)))).singleElement()
                 .satisfies(d -> assertThat(d.id()).isEqualTo("inversion-confirmed~GOVT-A:10Y-3M~2026-09-21~3"));
     }

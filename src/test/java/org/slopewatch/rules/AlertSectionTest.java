@@ -103,7 +103,7 @@ class AlertSectionTest {
         assertThat(message).contains("p.yaml:5:18: unknown channel type 'sms' for channel 'pager' (known: chat-webhook, email, stream, log)")
                 .contains("p.yaml:7:43: impossible threshold: 'probability-above' is a probability between 0 and 1 (exclusive), got 1.5")
                 .contains("p.yaml:7:60: unknown severity 'loud' (known: info, warning, critical)")
-                .contains("p.yaml:7:97: 'standing-every' must be a duration such as 30s, 30m, 4h or 1d (0 for never), got 'soon'")
+                .contains("p.yaml:7:99: 'standing-every' must be a duration such as 30s, 30m, 4h or 1d (0 for never), got 'soon'")
                 .contains("p.yaml:8:43: impossible threshold: 'inverted-for-days' must be at least 1, got 0")
                 .contains("'closing-notice' must be true or false, got 'maybe'")
                 .contains("p.yaml:9:22: 'when' takes exactly one condition")

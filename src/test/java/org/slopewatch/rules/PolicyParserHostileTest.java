@@ -31,9 +31,9 @@ class PolicyParserHostileTest {
     void aRepeatIntervalTooLongForADurationIsAProblemAtItsPosition() {
         // found by the fuzzer: ArithmeticException (long overflow) and NumberFormatException escaped
         PolicyException e = problems(DEFAULT.replace("standing-every: 1d", "standing-every: 999999999999999d"));
-        assertThat(e.getMessage()).isEqualTo("p.yaml:59:19: 'standing-every' is too long to be a duration, got '999999999999999d'");
+        assertThat(e.getMessage()).isEqualTo("p.yaml:59:21: 'standing-every' is too long to be a duration, got '999999999999999d'");
         assertThat(problems(DEFAULT.replace("standing-every: 1d", "standing-every: 99999999999999999999d")).getMessage())
-                .startsWith("p.yaml:59:19: 'standing-every' is too long");
+                .startsWith("p.yaml:59:21: 'standing-every' is too long");
     }
 
     @Test
