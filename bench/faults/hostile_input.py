@@ -10,9 +10,9 @@ duplicates, reasons, first detail), checks
 after every file that the daemon still answers /q/health/live, then sends the oversized requests
 (a body past the 16M limit, a batch of 20,001 quotes), runs `./slopewatch vet-policy` on the policy
 corpus against expected-policies.tsv, sends every policy file as a what-if's policy (POST
-/api/what-if: the same first problem, in an answer of at most 128 KiB), sends the mute, lift and
+/api/what-if: the same first problem, in an answer of at most 128 KiB), sends the quiet period, lift and
 acknowledgement bodies of bench/faults/corpus/alerting against expected-alerting.tsv (the accepted
-mutes last a minute; acknowledgements go to the newest alert, and are skipped when there is none)
+quiet periods last a minute; acknowledgements go to the newest alert, and are skipped when there is none)
 and, with --policy-file, tries a few hostile policies through the live reload and puts the file
 back. Prints one line per input and a summary with timings; exits 1 when an answer differs from
 its expectation. Standard library only (python3).
@@ -163,16 +163,16 @@ def whatif(base, token):
 def alerting(base, token):
     rows = table("expected-alerting.tsv")
     code, text, _ = request(base + "/api/quiet-periods", token, "POST", json.dumps(
-        {"rule": "stale-feed", "duration": "PT1M", "reason": "hostile-input run: to be lifted", "by": "hostile-input"}).encode(),
+        {"rule": "stale-feed", "lasts": "PT1M", "note": "hostile-input run: to be lifted", "set_by": "hostile-input"}).encode(),
         "application/json")
-    mute = json.loads(text)["id"] if code == 201 else None
+    period = json.loads(text)["id"] if code == 201 else None
     code, text, _ = request(base + "/api/alerts?limit=1", token)
     recent = json.loads(text).get("recent", []) if code == 200 else []
     alert = recent[0]["id"] if recent else None
     failures = 0
     for f, category, kind, status, error in rows:
         body = (CORPUS / f).read_bytes()
-        if kind == "mute":
+        if kind == "quiet-period":
             code, answer, seconds = request(base + "/api/quiet-periods", token, "POST", body, "application/json")
         elif kind == "ack":
             if alert is None:
@@ -181,11 +181,11 @@ def alerting(base, token):
             code, answer, seconds = request(base + "/api/alerts/" + urllib.parse.quote(alert, safe="~:") + "/ack", token, "POST", body,
                                             "application/json")
         else:
-            if mute is None:
-                print("skip %-45s no mute of this run to lift" % f)
+            if period is None:
+                print("skip %-45s no quiet period of this run to lift" % f)
                 continue
-            by = urllib.parse.quote(json.loads(body)["by"])
-            code, answer, seconds = request(base + "/api/quiet-periods/%d?by=%s" % (mute, by), token, "DELETE")
+            by = urllib.parse.quote(json.loads(body)["lifted_by"])
+            code, answer, seconds = request(base + "/api/quiet-periods/%d?lifted_by=%s" % (period, by), token, "DELETE")
         try:
             said = json.loads(answer).get("error", "") if answer.startswith("{") else ""
         except ValueError:

@@ -50,7 +50,7 @@ import org.slopewatch.rules.PolicyProblem;
  * journal took, nothing more; every policy file gets its outcome, with the position and message
  * of its first problem, from the parser, from {@code vet-policy} and, for a few, from the live
  * reload, which rejects them while the policy in force keeps running, and from the what-if API; every
- * mute, acknowledgement and lift body gets its answer, and only the accepted ones are kept. Every answer
+ * quiet period, acknowledgement and lift body gets its answer, and only the accepted ones are kept. Every answer
  * and every log line about bad input stays small and on one line. A policy whose hostile-looking
  * text is plain text is applied, and its alert carries that text as written, evaluated nowhere.
  * After all of it the daemon answers its health check and takes a good quote.
@@ -300,45 +300,46 @@ class HostileInputTest {
 
     @Test
     @Order(7)
-    void everyMuteAcknowledgementAndLiftIsCheckedBeforeAnythingIsKept() throws IOException {
+    void everyQuietPeriodAcknowledgementAndLiftIsCheckedBeforeAnythingIsKept() throws IOException {
         List<AlertCase> cases = table("expected-alerting.tsv").stream().map(AlertCase::of).toList();
         assertThat(cases).as("the corpus is read").hasSizeGreaterThan(30);
-        // the notice of the previous test, and a mute of this test's own to lift
+        // the notice of the previous test, and a quiet period of this test's own to lift
         String alert = "/api/alerts/first-inversion~GOVT-B:10Y-3M~2026-05-07~1";
         int acksBefore = given().get(alert).then().statusCode(200).extract().jsonPath().getList("alert.acks").size();
-        long mute = given().contentType(ContentType.JSON).body(Map.of("rule", "stale-feed", "duration", "PT1H", "reason", "to be lifted",
-                "by", "ops")).post("/api/quiet-periods").then().statusCode(201).extract().jsonPath().getLong("id");
-        int mutesBefore = given().get("/api/quiet-periods").then().statusCode(200).extract().jsonPath().getList("$").size();
+        long period = given().contentType(ContentType.JSON).body(Map.of("rule", "stale-feed", "lasts", "PT1H", "note", "to be lifted",
+                "set_by", "ops")).post("/api/quiet-periods").then().statusCode(201).extract().jsonPath().getLong("id");
+        int periodsBefore = given().get("/api/quiet-periods").then().statusCode(200).extract().jsonPath().getList("quiet_periods").size();
 
         List<String> wrong = new ArrayList<>();
         int accepted = 0;
         for (AlertCase c : cases) {
             byte[] body = Files.readAllBytes(CORPUS.resolve(c.file()));
             Response r = assertTimeoutPreemptively(HANG, () -> switch (c.request()) {
-                case "mute" -> given().contentType(ContentType.JSON).body(body).post("/api/quiet-periods");
+                case "quiet-period" -> given().contentType(ContentType.JSON).body(body).post("/api/quiet-periods");
                 case "ack" -> given().contentType(ContentType.JSON).body(body).post(alert + "/ack");
-                default -> given().queryParam("by", JSON.readTree(body).get("by").asText()).delete("/api/quiet-periods/" + mute);
+                default -> given().queryParam("lifted_by", JSON.readTree(body).get("lifted_by").asText()).delete("/api/quiet-periods/" + period);
             });
             JsonNode errorNode = r.asString().startsWith("{") ? JSON.readTree(r.asString()).get("error") : null;
             String error = errorNode == null ? "" : errorNode.asText();
             if (r.statusCode() != c.status() || !c.error().equals("-") && !error.contains(c.error()) || r.asString().length() > MAX_ANSWER) {
                 wrong.add(c.file() + ": expected " + c.status() + " " + c.error() + "\n    got HTTP " + r.statusCode() + " " + shorten(r.asString()));
             }
-            accepted += c.request().equals("mute") && c.status() == 201 ? 1 : 0;
+            accepted += c.request().equals("quiet-period") && c.status() == 201 ? 1 : 0;
         }
-        // a reason of a megabyte: refused by its length, which the answer states without repeating it
-        Response huge = given().contentType(ContentType.JSON).body(Map.of("spread", "10Y-3M", "duration", "PT1H",
-                "reason", "r".repeat(1 << 20), "by", "ops")).post("/api/quiet-periods");
+        // a note of a megabyte: refused by its length, which the answer states without repeating it
+        Response huge = given().contentType(ContentType.JSON).body(Map.of("spread", "10Y-3M", "lasts", "PT1H",
+                "note", "r".repeat(1 << 20), "set_by", "ops")).post("/api/quiet-periods");
         if (huge.statusCode() != 400 || huge.asString().length() > 200) {
-            wrong.add("a reason of 1048576 characters: expected a short 400\n    got HTTP " + huge.statusCode() + ", "
+            wrong.add("a note of 1048576 characters: expected a short 400\n    got HTTP " + huge.statusCode() + ", "
                     + huge.asString().length() + " characters: " + shorten(huge.asString()));
         }
-        assertThat(wrong).as("mute, acknowledgement and lift bodies answered otherwise than expected-alerting.tsv says").isEmpty();
+        assertThat(wrong).as("quiet period, acknowledgement and lift bodies answered otherwise than expected-alerting.tsv says").isEmpty();
 
-        // only what was accepted was kept, and the mute lifted is no longer active
-        List<Map<String, Object>> mutes = given().get("/api/quiet-periods").then().statusCode(200).extract().jsonPath().getList("$");
-        assertThat(mutes).hasSize(mutesBefore + accepted);
-        assertThat(mutes).filteredOn(m -> ((Number) m.get("id")).longValue() == mute).singleElement()
+        // only what was accepted was kept, and the quiet period lifted is no longer active
+        List<Map<String, Object>> periods = given().get("/api/quiet-periods").then().statusCode(200).extract().jsonPath()
+                .getList("quiet_periods");
+        assertThat(periods).hasSize(periodsBefore + accepted);
+        assertThat(periods).filteredOn(m -> ((Number) m.get("id")).longValue() == period).singleElement()
                 .satisfies(m -> assertThat(m.get("active")).isEqualTo(false));
         assertThat(given().get(alert).then().statusCode(200).extract().jsonPath().getList("alert.acks")).hasSize(acksBefore + 1);
         assertThat(given().get("/api/quiet-periods").then().extract().asString() + given().get(alert).then().extract().asString())
