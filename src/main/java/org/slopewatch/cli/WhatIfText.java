@@ -51,7 +51,7 @@ final class WhatIfText {
     }
 
     private void comparison(WhatIfReport r) {
-        out.println("  compared with what fired (first notices, by rule and subject)");
+        out.println("  compared with what fired (opening notices, by rule and subject)");
         if (r.comparison().isEmpty()) {
             out.println("    nothing fired and nothing would fire");
         } else {
@@ -63,7 +63,7 @@ final class WhatIfText {
             table(rows);
         }
         WhatIfReport.Counts k = r.counts();
-        out.printf(Locale.ROOT, "    same %d, earlier %d, later %d, not-at-all %d, extra %d (%d first notices fired, %d would fire)%n",
+        out.printf(Locale.ROOT, "    same %d, earlier %d, later %d, not-at-all %d, extra %d (%d opening notices fired, %d would fire)%n",
                 k.same(), k.earlier(), k.later(), k.notAtAll(), k.extra(), k.liveFirstNotices(), k.wouldFire());
         if (!r.livePolicyHashes().isEmpty()) {
             out.printf(Locale.ROOT, "    notices that fired were decided under policy %s%n", String.join(", ", r.livePolicyHashes()));

@@ -1,7 +1,7 @@
 package org.slopewatch.replay;
 
 /**
- * How one episode's first notice under the policy tried compares with the one that fired live,
+ * How one episode's opening notice under the policy tried compares with the one that fired live,
  * matched by rule name and subject. The labels are what reports print.
  */
 public enum Difference {

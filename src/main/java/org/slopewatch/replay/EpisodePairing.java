@@ -7,7 +7,7 @@ import java.util.Collections;
 import java.util.List;
 
 /**
- * Pairs the first notices of one rule and subject that fired live with those a policy tried
+ * Pairs the opening notices of one rule and subject that fired live with those a policy tried
  * would fire, both in date order. A rule and subject can have many episodes over a long history
  * (one per inversion), and a changed policy can add or drop some, so pairing by position would
  * compare unrelated episodes. Instead the pairing keeps date order and makes the paired dates

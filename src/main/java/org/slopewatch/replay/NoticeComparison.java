@@ -11,7 +11,7 @@ import java.util.TreeMap;
 import java.util.TreeSet;
 
 /**
- * Compares first notices: those that fired live with those a policy tried would fire, episode by
+ * Compares opening notices: those that fired live with those a policy tried would fire, episode by
  * episode, matched by rule name and subject and paired by {@link EpisodePairing}. Standing notices are left
  * out on both sides because their timing is wall-clock time, not market time.
  */
@@ -33,8 +33,8 @@ final class NoticeComparison {
     }
 
     /**
-     * @param tried first notices the policy tried would send
-     * @param live  first notices that fired live (already narrowed to the spreads compared)
+     * @param tried opening notices the policy tried would send
+     * @param live  opening notices that fired live (already narrowed to the spreads compared)
      */
     static List<WhatIfReport.Comparison> compare(List<WhatIfReport.Notice> tried, List<LiveNotice> live, MarketDays days) {
         Map<String, List<WhatIfReport.Notice>> triedByKey = new TreeMap<>();

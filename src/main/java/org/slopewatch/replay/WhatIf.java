@@ -166,7 +166,7 @@ public final class WhatIf {
                     + NoticeComparison.PAIRING_WINDOW_DAYS + " days apart; a notice left unpaired is not-at-all (live) or extra"
                     + " (tried). Live notices include those held back by a quiet period, which are journalled but not sent.");
             if (aboutFeeds > 0) {
-                notes.add(aboutFeeds + " live first notice(s) about feeds are left out of the comparison.");
+                notes.add(aboutFeeds + " live opening notice(s) about feeds are left out of the comparison.");
             }
         }
         notes.addAll(unmatchedFilterNotes());

@@ -44,7 +44,7 @@ public record WhatIfReport(String source, String policy, String policySha256, Li
     }
 
     /**
-     * One episode's first notice live and under the policy tried.
+     * One episode's opening notice live and under the policy tried.
      *
      * @param difference   {@code same}, {@code earlier}, {@code later}, {@code not-at-all} or {@code extra}
      * @param calendarDays days between the two notices' market dates (null unless both exist)
@@ -55,7 +55,7 @@ public record WhatIfReport(String source, String policy, String policySha256, Li
     }
 
     /**
-     * Totals. {@code wouldFire} and {@code liveFirstNotices} count first notices only.
+     * Totals. {@code wouldFire} and {@code liveFirstNotices} count opening notices only.
      */
     public record Counts(int wouldFire, int wouldResolve, int liveFirstNotices, int same, int earlier, int later, int notAtAll,
                          int extra) {

@@ -295,7 +295,7 @@ class WhatIfCommandTest {
     private static JournalEntries.AlertEntry notice(Alert.Kind kind, LocalDate since, LocalDate on, int number) {
         String id = AlertEngine.id("inversion-confirmed", SUBJECT, since, number);
         Alert alert = new Alert(id, "inversion-confirmed", Severity.CRITICAL, kind, SUBJECT, on, kind == Alert.Kind.OPENING ? "CONFIRMED"
-                : "RESTEEPENING", "[CRITICAL] US 10Y-1Y", "inversion-confirmed on " + on, List.of(), null,
+                : "RESTEEPENING", "US:10Y-1Y confirmed inverted \u2014 opening notice, critical", "inversion-confirmed on " + on, List.of(), null,
                 on.atStartOfDay(ZoneOffset.UTC).toInstant());
         return new JournalEntries.AlertEntry(alert, SUBJECT, since, number, null, "quarter-average-policy", null, List.of());
     }

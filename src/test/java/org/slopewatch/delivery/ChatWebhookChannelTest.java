@@ -44,7 +44,7 @@ class ChatWebhookChannelTest {
         JsonNode body = JSON.readTree(request.body());
         assertThat(body.size()).as("a plain {\"text\": ...} body, nothing else").isEqualTo(1);
         String text = body.get("text").asText();
-        assertThat(text).startsWith("[CRITICAL] GOVT-A 10Y-3M CONFIRMED\n\n")
+        assertThat(text).startsWith("GOVT-A:10Y-3M confirmed inverted at -21.0 bp \u2014 opening notice, critical\n\n")
                 .contains("inverted for the whole of 2026Q2")
                 .contains("Dashboard: " + TestAlerts.DASHBOARD)
                 .endsWith(Alert.CAUTION);

@@ -71,7 +71,7 @@ class EmailChannelTest {
         MimeMessage[] messages = received(2);
         assertThat(messages).as("one copy per recipient").hasSize(2);
         MimeMessage mail = messages[0];
-        assertThat(mail.getSubject()).isEqualTo("[CRITICAL] GOVT-A 10Y-3M CONFIRMED");
+        assertThat(mail.getSubject()).isEqualTo("GOVT-A:10Y-3M confirmed inverted at -21.0 bp \u2014 opening notice, critical");
         assertThat(Arrays.stream(mail.getRecipients(Message.RecipientType.TO)).map(Object::toString))
                 .containsExactlyInAnyOrder(SmtpTestResource.DESK, SmtpTestResource.RISK);
         assertThat(mail.getFrom()[0].toString()).isEqualTo(SmtpTestResource.FROM);
@@ -84,7 +84,7 @@ class EmailChannelTest {
         assertThat(text.strip()).as("the caution comes last").endsWith(Alert.CAUTION);
 
         String html = parts.get("text/html");
-        assertThat(html).contains("<h2>[CRITICAL] GOVT-A 10Y-3M CONFIRMED</h2>")
+        assertThat(html).contains("<h2>GOVT-A:10Y-3M confirmed inverted at -21.0 bp \u2014 opening notice, critical</h2>")
                 .contains("<table>")
                 .contains("<th style=\"text-align:left\">days inverted</th><td>92</td>")
                 .contains("<a href=\"" + TestAlerts.DASHBOARD + "\">Dashboard</a>");
@@ -97,7 +97,7 @@ class EmailChannelTest {
         deskMail().deliver(TestAlerts.withMarkup());
 
         MimeMessage mail = received(2)[0];
-        assertThat(mail.getSubject()).isEqualTo("[INFO] GOVT-B 2Y-3M <b>INVERTED</b> & \"still\"");
+        assertThat(mail.getSubject()).isEqualTo("GOVT-B:2Y-3M still <b>inverted</b> & \"still\" \u2014 standing notice, info");
         String html = parts(mail).get("text/html");
         assertThat(html).as("no markup from the alert survives")
                 .doesNotContain("<script>").doesNotContain("<b>INVERTED</b>").doesNotContain("<i>days</i>")

@@ -22,7 +22,7 @@ class LogChannelTest {
         assertThat(outcome).isEqualTo(new DeliveryOutcome.Delivered("log 'log': written to org.slopewatch.alerts"));
         assertThat(line.message()).isEqualTo("alert id=govt-a-10y3m/confirmation/2026-03-31/opening/1 kind=opening severity=critical "
                 + "rule=confirmation spread=GOVT-A:10Y-3M market_date=2026-06-30 state=CONFIRMED "
-                + "subject=\"[CRITICAL] GOVT-A 10Y-3M CONFIRMED\" "
+                + "subject=\"GOVT-A:10Y-3M confirmed inverted at -21.0 bp \u2014 opening notice, critical\" "
                 + "facts=\"spread: -21.0 bp; days inverted: 92; quarter average: -18.4 bp (2026Q2); spell start: 2026-03-31\" "
                 + "dashboard=" + TestAlerts.DASHBOARD);
         assertThat(line.level()).as("critical alerts log at WARN").isEqualTo(org.jboss.logmanager.Level.WARN);
@@ -42,7 +42,7 @@ class LogChannelTest {
         }
 
         assertThat(line.message()).doesNotContain("\n")
-                .contains("subject=\"[INFO] GOVT-B 2Y-3M <b>INVERTED</b> & \\\"still\\\"\"")
+                .contains("subject=\"GOVT-B:2Y-3M still <b>inverted</b> & \\\"still\\\" \u2014 standing notice, info\"")
                 .as("a dashboard link that is not http(s) is left out").doesNotContain("javascript:");
         assertThat(line.level()).as("informational alerts log at INFO").isEqualTo(org.jboss.logmanager.Level.INFO);
     }

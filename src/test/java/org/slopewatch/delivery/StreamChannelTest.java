@@ -75,7 +75,7 @@ class StreamChannelTest {
     void theEventTypeFollowsTheKindOfNotice() throws Exception {
         Alert a = TestAlerts.confirmed();
         Alert resolved = new Alert("govt-a-10y3m/confirmation/2026-03-31/closing/1", a.rule(), a.severity(), Alert.Kind.CLOSING,
-                a.spreadId(), LocalDate.of(2026, 9, 1), "NORMAL", "[CRITICAL] GOVT-A 10Y-3M resolved", "Resolved.\n\n" + Alert.CAUTION,
+                a.spreadId(), LocalDate.of(2026, 9, 1), "NORMAL", "GOVT-A:10Y-3M no longer confirmed inverted: normal at 12.0 bp \u2014 closing notice, critical", "Closed.\n\n" + Alert.CAUTION,
                 a.facts(), a.dashboard(), a.createdAt());
 
         registry.channel("alerts-topic").orElseThrow().deliver(resolved);

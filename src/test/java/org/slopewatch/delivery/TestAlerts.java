@@ -14,14 +14,14 @@ final class TestAlerts {
     private TestAlerts() {
     }
 
-    /** GOVT-A 10Y-3M confirmed after a full quarter inverted, the first notice. */
+    /** GOVT-A 10Y-3M confirmed after a full quarter inverted, the opening notice. */
     static Alert confirmed() {
         return confirmed("govt-a-10y3m/confirmation/2026-03-31/opening/1");
     }
 
     static Alert confirmed(String id) {
         return new Alert(id, "confirmation", Severity.CRITICAL, Alert.Kind.OPENING, "GOVT-A:10Y-3M", LocalDate.of(2026, 6, 30),
-                "CONFIRMED", "[CRITICAL] GOVT-A 10Y-3M CONFIRMED",
+                "CONFIRMED", "GOVT-A:10Y-3M confirmed inverted at -21.0 bp \u2014 opening notice, critical",
                 "GOVT-A 10Y-3M has been inverted for the whole of 2026Q2: the quarter average was -18.4 bp, below 0 bp.\n"
                         + "The spell began on 2026-03-31 and has lasted 92 days.\n\n" + Alert.CAUTION,
                 List.of(new Alert.Fact("spread", "-21.0 bp"), new Alert.Fact("days inverted", "92"),
@@ -32,7 +32,7 @@ final class TestAlerts {
     /** An alert whose template produced markup, quotes and a line break in every field a person reads. */
     static Alert withMarkup() {
         return new Alert("markup/1", "first-inversion", Severity.INFO, Alert.Kind.STANDING, "GOVT-B:2Y-3M", LocalDate.of(2026, 2, 2),
-                "INVERTED", "[INFO] GOVT-B 2Y-3M <b>INVERTED</b> & \"still\"",
+                "INVERTED", "GOVT-B:2Y-3M still <b>inverted</b> & \"still\" \u2014 standing notice, info",
                 "Spread <script>alert('x')</script> is -3 bp & falling.\nSecond line.\n\n" + Alert.CAUTION,
                 List.of(new Alert.Fact("<i>days</i>", "3 & counting")), "javascript:alert(1)", Instant.parse("2026-02-02T21:00:00Z"));
     }

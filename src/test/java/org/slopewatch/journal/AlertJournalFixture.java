@@ -61,7 +61,7 @@ abstract class AlertJournalFixture {
 
     static JournalEntries notice(String id, int notice, Alert.Kind kind, String quietedBy) {
         Alert alert = new Alert(id, "inversion-confirmed", Severity.CRITICAL, kind, "GOVT-A:10Y-3M", LocalDate.of(2026, 9, 30),
-                "CONFIRMED", "[CRITICAL] GOVT-A 10Y-3M CONFIRMED", "confirmed\n\n" + Alert.CAUTION,
+                "CONFIRMED", "GOVT-A:10Y-3M confirmed inverted at -21.0 bp \u2014 opening notice, critical", "confirmed\n\n" + Alert.CAUTION,
                 List.of(new Alert.Fact("days inverted", "92"), new Alert.Fact("tab\there", "line\nbreak")), "http://localhost:8080/", T0);
         JournalEntries e = new JournalEntries();
         e.alert(new JournalEntries.AlertEntry(alert, "GOVT-A:10Y-3M", LocalDate.of(2026, 9, 30), notice, quietedBy, "abc123", 42L,

@@ -4,7 +4,7 @@ import io.agroal.api.AgroalDataSource;
 import java.nio.file.Path;
 import org.junit.jupiter.api.io.TempDir;
 
-/** The mute checks on the embedded journal: an H2 file database per test. */
+/** The quiet period checks on the embedded journal: an H2 file database per test. */
 class QuietPeriodBookTest extends QuietPeriodBookChecks {
 
     @TempDir

@@ -80,11 +80,11 @@ class LogGuardTest {
 
     @Test
     void inputNeverStartsALineOfItsOwn() {
-        ExtLogRecord r = new ExtLogRecord(Level.INFO, "spread %s muted by %s: %s", ExtLogRecord.FormatStyle.PRINTF, "org.slopewatch.alerting.AlertDesk");
+        ExtLogRecord r = new ExtLogRecord(Level.INFO, "quiet period on spread %s set by %s: %s", ExtLogRecord.FormatStyle.PRINTF, "org.slopewatch.alerting.AlertDesk");
         r.setParameters(new Object[] {"10Y-3M", "ops", "maintenance\n2026-05-07 12:00:00,000 INFO  [org.slo.ale.AlertDesk] forged\r\u001b[2J"});
         GUARD.isLoggable(r);
         assertThat(r.getFormattedMessage())
-                .isEqualTo("spread 10Y-3M muted by ops: maintenance\\n2026-05-07 12:00:00,000 INFO  [org.slo.ale.AlertDesk] forged\\r\\u001B[2J");
+                .isEqualTo("quiet period on spread 10Y-3M set by ops: maintenance\\n2026-05-07 12:00:00,000 INFO  [org.slo.ale.AlertDesk] forged\\r\\u001B[2J");
     }
 
     @Test

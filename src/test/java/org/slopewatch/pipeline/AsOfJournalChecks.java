@@ -208,7 +208,7 @@ abstract class AsOfJournalChecks {
     void aDeliveryAsOfAMomentIsReplayedFromTheAttemptsRecordedByThen() {
         String id = "inversion-confirmed~GOVT-A:10Y-3M~2026-04-01~1";
         Alert alert = new Alert(id, "inversion-confirmed", Severity.CRITICAL, Alert.Kind.OPENING, KEY.id(), LocalDate.of(2026, 4, 1),
-                "CONFIRMED", "[CRITICAL] GOVT-A 10Y-3M CONFIRMED", "confirmed, with a comma\nand a line\n\n" + Alert.CAUTION, List.of(),
+                "CONFIRMED", "GOVT-A:10Y-3M confirmed inverted at -21.0 bp \u2014 opening notice, critical", "confirmed, with a comma\nand a line\n\n" + Alert.CAUTION, List.of(),
                 "http://localhost:8080/", T1);
         JournalEntries e = new JournalEntries();
         e.alert(new JournalEntries.AlertEntry(alert, KEY.id(), LocalDate.of(2026, 4, 1), 1, null, "rules-one", 62L,

@@ -168,7 +168,7 @@ class WhatIfTest {
         assertThat(r.comparison()).extracting(WhatIfReport.Comparison::rule).doesNotContain("stale-feed");
         assertThat(r.notes()).anyMatch(n -> n.startsWith("Feed rules (stale-feed) do not apply offline"))
                 .anyMatch(n -> n.startsWith("Standing notices are not evaluated"))
-                .anyMatch(n -> n.equals("1 live first notice(s) about feeds are left out of the comparison."));
+                .anyMatch(n -> n.equals("1 live opening notice(s) about feeds are left out of the comparison."));
         assertThat(r.caution()).isEqualTo(ReplayReport.CAUTION);
     }
 
@@ -195,7 +195,7 @@ class WhatIfTest {
     /**
      * What a daemon running {@link #LIVE} journalled on this history, written down from LIVE's rules: first
      * inversions on each spell's first day, GOVT-A dipping below −25 bp on 16 March, the quarter-average
-     * confirmations and their resolve notices when the spells end.
+     * confirmations and their closing notices when the spells end.
      */
     static List<LiveNotice> live() {
         return List.of(

@@ -35,7 +35,7 @@ class AccessRuleTest {
             "GET,     /api/alerts/first-inversion~GOVT-A:10Y-3M~2026-03-02~1, true, true, NONE",
             "POST,    /api/quotes,                           true,  true,  WRITE",
             "POST,    /api/alerts/x~y~2026-01-01~1/ack,      true,  true,  WRITE",
-            "DELETE,  /api/mutes/3,                          true,  true,  WRITE",
+            "DELETE,  /api/quiet-periods/3,                  true,  true,  WRITE",
             "POST,    /api/policy/reload,                    false, true,  WRITE",
             "POST,    /api/what-if,                          false, true,  WRITE",
             "GET,     /q/health/ready,                       false, false, NONE",

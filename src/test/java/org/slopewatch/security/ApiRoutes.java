@@ -57,7 +57,8 @@ record ApiRoutes(List<Route> routes) {
                     path.append("2026-03-02");
                 } else if (segments[i - 1].equals("spreads")) {
                     path.append("GOVT-A:10Y-3M");
-                } else if (segments[i - 1].equals("mutes")) {
+                } else if (segments[i - 1].equals("quiet-periods") || segments[i - 1].equals("mutes")) {
+                    // /api/mutes: the old path of quiet periods (vocabulary: deprecation path)
                     path.append("999999");
                 } else {
                     path.append("no-such-").append(s.replaceAll("[{}]", ""));
