@@ -128,7 +128,7 @@ def policies(launcher):
     failures = 0 if run.returncode == 2 else 1
     for f, category, outcome, position, message in rows:
         path = str(CORPUS / f)
-        ok = (path + ": ok: ") in run.stdout if outcome == "accepted" else \
+        ok = (path + ": policy sound: ") in run.stdout if outcome == "accepted" else \
             any(line.startswith(path + ":" + position + ": ") and message in line for line in run.stderr.splitlines())
         failures += 0 if ok else 1
         print("%-4s %-50s %-13s %s" % ("ok" if ok else "FAIL", f, category, "accepted" if outcome == "accepted" else position + " " + message))

@@ -250,7 +250,7 @@ class HostileInputTest {
         for (PolicyCase c : cases) {
             String file = CORPUS.resolve(c.file()).toString();
             if (c.accepted()) {
-                assertThat(out.toString()).contains(file + ": ok: ");
+                assertThat(out.toString()).contains(file + ": policy sound: ");
             } else {
                 assertThat(err.toString()).as(c.file()).contains(file + ":" + c.position() + ": ").contains(c.message());
             }

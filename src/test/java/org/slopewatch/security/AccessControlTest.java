@@ -83,7 +83,7 @@ class AccessControlTest {
                 .post("/api/quiet-periods").then().statusCode(403);
         as(READ).post("/api/policy/reload").then().statusCode(403);
         as(WRITE).post("/api/policy/reload").then().statusCode(200).body("result", equalTo("unchanged"));
-        as(WRITE).delete("/api/quiet-periods/999?by=ops").then().statusCode(404);
+        as(WRITE).delete("/api/quiet-periods/999?lifted_by=ops").then().statusCode(404);
     }
 
     @Test
