@@ -51,7 +51,7 @@ final class DemoCommand implements Callable<Integer> {
             settings.setProperty("quarkus.http.port", port.toString());
         }
         // a local demo: anyone on this machine may read; changing anything (posting quotes,
-        // acknowledging, muting) takes the token printed here, made afresh for each run
+        // acknowledging, quiet periods) takes the token printed here, made afresh for each run
         settings.setProperty("slopewatch.security.write-tokens", token);
         settings.setProperty("slopewatch.security.open-reads", "true");
         return settings;
@@ -73,7 +73,7 @@ final class DemoCommand implements Callable<Integer> {
         String token = newToken();
         settings(dir, token).forEach((key, value) -> System.setProperty((String) key, (String) value));
         System.out.println("slopewatch demo: journal in " + dir.toAbsolutePath());
-        System.out.println("slopewatch demo: write token for this run (POST /api/quotes, acknowledge, mute): " + token);
+        System.out.println("slopewatch demo: write token for this run (POST /api/quotes, acknowledge, quiet periods): " + token);
         System.out.println("  e.g. curl -H 'Authorization: Bearer " + token + "' -X POST localhost:" + announcedPort() + "/api/policy/reload");
         Quarkus.run(DaemonApplication.class, (code, failure) -> {
             if (failure != null) {

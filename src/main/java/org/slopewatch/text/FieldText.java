@@ -1,7 +1,7 @@
 package org.slopewatch.text;
 
 /**
- * The one check of a text the journal keeps as it was sent (a quote's id, a mute's reason, who
+ * The one check of a text the journal keeps as it was sent (a quote's id, a quiet period's note, who
  * acknowledged): it must fit its column and hold no character of {@link ControlCharacters} and no
  * half of a surrogate pair (which PostgreSQL would store as {@code ?}). The message names the field
  * and never repeats the text.
