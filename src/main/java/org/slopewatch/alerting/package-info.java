@@ -2,7 +2,9 @@
  * The daemon's alerting: the policy in force ({@link org.slopewatch.alerting.PolicyHolder}), the
  * rule engine the pipeline drives at each step and tick ({@link org.slopewatch.alerting.AlertStage},
  * implemented by {@link org.slopewatch.alerting.AlertDesk}), the content of a notice
- * ({@link org.slopewatch.alerting.AlertComposer}), and delivery from the journal's outbox with one
+ * ({@link org.slopewatch.alerting.AlertComposer}, with a text of its own for each kind of notice in
+ * {@link org.slopewatch.alerting.NoticeText}, every figure from the one status the decision was
+ * made on), quiet periods, and delivery from the journal's outbox with one
  * retry policy ({@link org.slopewatch.alerting.AlertDispatcher}). Depends on the journal and on
  * delivery; the pipeline depends on it.
  */
