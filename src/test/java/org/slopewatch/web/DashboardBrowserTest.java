@@ -9,6 +9,7 @@ import io.quarkus.test.junit.QuarkusTest;
 import io.restassured.http.ContentType;
 import java.io.File;
 import java.io.IOException;
+import java.net.URI;
 import java.net.URL;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -148,7 +149,7 @@ class DashboardBrowserTest {
      * and shown. The curve card compares the latest curve with the one three months before.
      */
     @Test
-    void anOpenAlertIsAcknowledgedFromThePageAndTheCurveIsComparedWithThreeMonthsBefore() {
+    void anOpenAlertIsAcknowledgedFromThePageAndTheCurveIsComparedWithThreeMonthsBefore() throws IOException {
         given().contentType(ContentType.JSON).body("""
                 [{"curve":"GOVT-B","date":"2026-02-16","yields":{"3M":4.10,"1Y":4.15,"2Y":4.20,"5Y":4.35,"10Y":4.50,"30Y":4.70}},
                  {"curve":"GOVT-B","date":"2026-05-18","yields":{"3M":4.60,"1Y":4.55,"2Y":4.45,"5Y":4.40,"10Y":4.45,"30Y":4.60}}]""")
@@ -162,7 +163,8 @@ class DashboardBrowserTest {
         By item = By.cssSelector("li.alert-item[data-alert-id='" + id + "']");
         wait.withMessage("the open alert " + id + " should be listed").until(b -> !b.findElements(item).isEmpty());
         WebElement alert = browser.findElement(item);
-        assertThat(alert.getText()).contains("GOVT-B 10Y-3M").contains("since 2026-05-18");
+        assertThat(alert.getText()).as("the notice's subject without the kind and severity the list shows beside it")
+                .contains("GOVT-B:10Y-3M inverted at -15.0 bp").doesNotContain("opening notice").contains("since 2026-05-18");
         WebElement name = alert.findElement(By.cssSelector("input[name='by']"));
         assertThat(browser.findElement(By.cssSelector("label[for='" + name.getAttribute("id") + "']")).getText()).isEqualTo("Your name");
         name.sendKeys("desk lead");
@@ -184,6 +186,24 @@ class DashboardBrowserTest {
         wait.ignoring(StaleElementReferenceException.class)
                 .withMessage("the GOVT-B curve should be drawn against 2026-02-16, and say so in its text alternative")
                 .until(b -> !b.findElements(earlier).isEmpty() && b.findElement(chart).getAttribute("aria-label").contains("on 2026-02-16"));
+
+        // the link in the notice opens the page on the spread's card, scrolled to and marked
+        String link = given().get("/api/alerts/" + id).then().statusCode(200).extract().path("alert.dashboard");
+        URI linked = URI.create(link);
+        assertThat(linked.getQuery()).isEqualTo("spread=GOVT-B:10Y-3M");
+        assertThat(linked.getFragment()).isEqualTo("spread-GOVT-B-10Y-3M");
+        browser.manage().window().setSize(new Dimension(1280, 800));
+        browser.get(URI.create(page.toString()).resolve("/?" + linked.getRawQuery() + "#" + linked.getRawFragment()).toString());
+        By card = By.cssSelector("article[data-spread='GOVT-B:10Y-3M']");
+        wait.ignoring(StaleElementReferenceException.class)
+                .withMessage("the linked spread's card should be marked and scrolled into view")
+                .until(b -> !b.findElements(card).isEmpty() && b.findElement(card).getAttribute("class").contains("wanted")
+                        && (Boolean) ((JavascriptExecutor) b).executeScript("const r = arguments[0].getBoundingClientRect();"
+                        + " return window.scrollY > 0 && r.top >= -1 && r.top < window.innerHeight / 2;", b.findElement(card)));
+        assertThat(browser.findElements(By.cssSelector("article.card.wanted"))).as("only the linked card is marked").hasSize(1);
+        assertThat(browser.switchTo().activeElement().getAttribute("data-spread")).as("the linked card has the focus")
+                .isEqualTo("GOVT-B:10Y-3M");
+        screenshot("dashboard-linked.png");
     }
 
     private static void screenshot(String name) throws IOException {
