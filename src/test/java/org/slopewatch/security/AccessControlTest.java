@@ -79,7 +79,7 @@ class AccessControlTest {
         as(WRITE).contentType("application/json").body(QUOTE).post("/api/quotes").then().statusCode(200).body("accepted", equalTo(1));
 
         as(READ).contentType("application/json").body("{\"by\":\"x\"}").post("/api/alerts/any~id~2026-01-01~1/ack").then().statusCode(403);
-        as(READ).contentType("application/json").body("{\"rule\":\"first-inversion\",\"duration\":\"PT1H\",\"reason\":\"r\",\"by\":\"x\"}")
+        as(READ).contentType("application/json").body("{\"rule\":\"first-inversion\",\"lasts\":\"PT1H\",\"note\":\"r\",\"set_by\":\"x\"}")
                 .post("/api/quiet-periods").then().statusCode(403);
         as(READ).post("/api/policy/reload").then().statusCode(403);
         as(WRITE).post("/api/policy/reload").then().statusCode(200).body("result", equalTo("unchanged"));
