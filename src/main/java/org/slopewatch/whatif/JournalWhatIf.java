@@ -14,7 +14,7 @@ import org.slopewatch.rules.Alert;
 
 /**
  * A what-if on a journal's history: every stored quote in recorded order through a
- * {@link WhatIf} of the policy tried, compared with the first notices the journal holds. Reads
+ * {@link WhatIf} of the policy tried, compared with the opening notices the journal holds. Reads
  * only; plain Java, so the command line uses it on a journal the daemon is not running on.
  */
 public final class JournalWhatIf {
