@@ -75,7 +75,7 @@ public final class AlertStore {
     /** {@code alert.muted_by}: the mute that silenced a notice, described with its reason, can be longer. */
     static final int MUTED_BY_CHARS = 400;
 
-    private static final String ALERT_COLUMNS = "a.id, a.rule, a.subject, a.episode_since, a.notice, a.kind, a.severity, a.market_date, "
+    static final String ALERT_COLUMNS = "a.id, a.rule, a.subject, a.episode_since, a.notice, a.kind, a.severity, a.market_date, "
             + "a.state, a.title, a.body, a.facts, a.dashboard, a.muted_by, a.policy_hash, a.created_at, a.recorded_at";
     private static final String DELIVERY_COLUMNS = "d.alert_id, d.channel, d.status, d.attempts, d.next_attempt_at, d.first_attempt_at, "
             + "d.last_detail, d.updated_at";
@@ -253,7 +253,7 @@ public final class AlertStore {
     }
 
     /** The alerts with their deliveries and acknowledgements as they stood at {@code asOf} (null: now). */
-    private List<AlertView> views(Map<String, StoredAlert> alerts, Instant asOf) {
+    List<AlertView> views(Map<String, StoredAlert> alerts, Instant asOf) {
         if (alerts.isEmpty()) {
             return List.of();
         }
@@ -336,7 +336,7 @@ public final class AlertStore {
         }, "alerts");
     }
 
-    private static String alertFilter(JournalRange range) {
+    static String alertFilter(JournalRange range) {
         // notices without a market date (a stale feed) belong to every range
         return "(a.market_date IS NULL OR (a.market_date >= ? AND a.market_date <= ?))"
                 + (range.spreadId() == null ? "" : " AND a.subject = ?") + (range.asOf() == null ? "" : " AND a.recorded_at <= ?");
@@ -499,7 +499,7 @@ public final class AlertStore {
         return hash[0];
     }
 
-    private static StoredAlert alert(ResultSet rs) throws SQLException {
+    static StoredAlert alert(ResultSet rs) throws SQLException {
         Date since = rs.getDate(4);
         Date market = rs.getDate(8);
         Alert alert = new Alert(rs.getString(1), rs.getString(2), Severity.valueOf(rs.getString(7)), Alert.Kind.valueOf(rs.getString(6)),

@@ -76,4 +76,16 @@ public class JournalBeans {
     AlertStore alertStore(AgroalDataSource ds, Clock clock) {
         return new AlertStore(ds, clock);
     }
+
+    @Produces
+    @Singleton
+    NewestAlerts newestAlerts(AgroalDataSource ds, AlertStore store) {
+        return new NewestAlerts(ds, store);
+    }
+
+    @Produces
+    @Singleton
+    TimelineRows timelineRows(AgroalDataSource ds, AlertStore store) {
+        return new TimelineRows(ds, store);
+    }
 }
