@@ -5,6 +5,7 @@
 (function () {
   const POLL_MS = 5000;
   const FULL_HISTORY_EVERY = 12;   // polls; between them only the newest dates are fetched
+  const MAX_PAGES = 50;            // of one list in one poll: 500,000 items at the API's 10,000 a page
   const RECENT_CHANGES = 15;
   const { historyChart, curveChart, signed, bp, slug, lastOf, setAttrs } = window.slopewatchCharts;
 
@@ -71,6 +72,27 @@
   }
 
   async function fetchJson(url) {
+    return (await fetchAnswer(url)).json();
+  }
+
+  // A list the API hands out a page at a time: each answer names the next page in a Link header
+  // (RFC 8288, rel="next") until the last; the pages joined are the list.
+  async function fetchList(url) {
+    let items = [];
+    let next = url;
+    for (let pages = 0; next; pages++) {
+      if (pages === MAX_PAGES) {
+        throw new Error('GET ' + url + ': more than ' + MAX_PAGES + ' pages');
+      }
+      const response = await fetchAnswer(next);
+      items = items.concat(await response.json());
+      const link = /<([^>]*)>\s*;\s*rel="?next"?/.exec(response.headers.get('Link') || '');
+      next = link ? link[1] : null;
+    }
+    return items;
+  }
+
+  async function fetchAnswer(url) {
     const abort = new AbortController();
     const t = setTimeout(() => abort.abort(), 8000);
     let response;
@@ -87,7 +109,7 @@
     if (!response.ok) {
       throw new Error('GET ' + url + ' answered ' + response.status + (response.statusText ? ' ' + response.statusText : ''));
     }
-    return response.json();
+    return response;
   }
 
   // ---- reading the API ----
@@ -101,14 +123,14 @@
     }
     let points;
     if (full) {
-      points = await fetchJson(base);
+      points = await fetchList(base);
     } else {
       // the newest date may have been replaced by a later quote, so it is read again
       const from = have[have.length - 1].date;
-      const fresh = await fetchJson(base + '?from=' + from);
+      const fresh = await fetchList(base + '?from=' + from);
       points = have.filter(p => p.date < from).concat(fresh);
       if (points.length !== s.observations) {
-        points = await fetchJson(base);   // an earlier date arrived late: start over
+        points = await fetchList(base);   // an earlier date arrived late: start over
       }
     }
     histories.set(s.id, points);
@@ -179,7 +201,7 @@
     const problems = [];
     try {
       const [spreads, curves, transitions, alerts] = await Promise.all(
-        [fetchJson('/api/spreads'), fetchJson('/api/curves'), fetchJson('/api/transitions'), fetchJson('/api/alerts?limit=200')]);
+        [fetchJson('/api/spreads'), fetchJson('/api/curves'), fetchList('/api/transitions'), fetchJson('/api/alerts?limit=200')]);
       const results = await Promise.allSettled([...spreads.map(loadHistory), ...curves.map(loadEarlierCurve)]);
       results.filter(r => r.status === 'rejected')
         .forEach(r => problems.push('Could not read from the slopewatch API (' + r.reason.message + ').'));

@@ -2,15 +2,17 @@ package org.slopewatch.web;
 
 import jakarta.ws.rs.Consumes;
 import jakarta.ws.rs.DELETE;
-import jakarta.ws.rs.DefaultValue;
 import jakarta.ws.rs.GET;
 import jakarta.ws.rs.POST;
 import jakarta.ws.rs.Path;
 import jakarta.ws.rs.PathParam;
 import jakarta.ws.rs.Produces;
 import jakarta.ws.rs.QueryParam;
+import jakarta.ws.rs.core.Context;
 import jakarta.ws.rs.core.MediaType;
 import jakarta.ws.rs.core.Response;
+import jakarta.ws.rs.core.UriBuilder;
+import jakarta.ws.rs.core.UriInfo;
 import java.time.Clock;
 import java.time.DateTimeException;
 import java.time.Duration;
@@ -19,12 +21,14 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.jboss.resteasy.reactive.RestResponse;
 import org.slopewatch.alerting.AlertDesk;
 import org.slopewatch.alerting.PolicyHolder;
 import org.slopewatch.alerting.PolicyReloader;
 import org.slopewatch.delivery.Alert;
 import org.slopewatch.ingest.IngestRules;
 import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.NewestAlerts;
 import org.slopewatch.rules.AlertEngine;
 import org.slopewatch.text.Excerpt;
 
@@ -33,21 +37,27 @@ import org.slopewatch.text.Excerpt;
 @Produces(MediaType.APPLICATION_JSON)
 public class AlertResource {
 
-    private static final int MAX_ALERTS = 1000;
+    /** Notices a page holds at most; unless {@code limit} says otherwise, {@link #ALERTS_BY_DEFAULT}. */
+    static final int MAX_ALERTS = 1000;
+    static final int ALERTS_BY_DEFAULT = 100;
+    /** Mutes a page holds at most, and unless {@code limit} says otherwise. */
+    static final int MAX_MUTES = 1000;
     private static final Duration LONGEST_MUTE = Duration.ofDays(90);
 
     private final AlertDesk desk;
     private final AlertStore store;
+    private final NewestAlerts newest;
     private final PolicyReloader reloader;
     private final Clock clock;
     private final RuleSetAt ruleSets;
     private final PolicyHolder policies;
     private final IngestRules ingest;
 
-    AlertResource(AlertDesk desk, AlertStore store, PolicyReloader reloader, Clock clock, RuleSetAt ruleSets, PolicyHolder policies,
-                  IngestRules ingest) {
+    AlertResource(AlertDesk desk, AlertStore store, NewestAlerts newest, PolicyReloader reloader, Clock clock, RuleSetAt ruleSets,
+                  PolicyHolder policies, IngestRules ingest) {
         this.desk = desk;
         this.store = store;
+        this.newest = newest;
         this.reloader = reloader;
         this.clock = clock;
         this.ruleSets = ruleSets;
@@ -59,7 +69,8 @@ public class AlertResource {
     public record EpisodeView(String rule, String subject, String since, int notices, boolean acknowledged) {
     }
 
-    public record AlertsView(List<EpisodeView> open, List<AlertView> recent, String caution) {
+    /** Every open episode, and a page of the notices, newest first ({@code next}: where the rest is when {@code truncated}). */
+    public record AlertsView(List<EpisodeView> open, List<AlertView> recent, boolean truncated, String next, String caution) {
     }
 
     public record DeliveryView(String channel, String status, int attempts, Instant nextAttemptAt, String lastDetail, Instant updatedAt) {
@@ -88,7 +99,8 @@ public class AlertResource {
      * as they stood then. Open episodes are left out: a rule without a resolve notice ends its
      * episode without a journal row, so the journal cannot say which were open at a past moment.
      */
-    public record AlertsAsOf(Instant asOf, String policyHash, List<AlertView> items, String note, String caution) {
+    public record AlertsAsOf(Instant asOf, String policyHash, List<AlertView> items, boolean truncated, String next, String note,
+                             String caution) {
     }
 
     /** One alert with every delivery attempt, for a post-mortem. */
@@ -96,6 +108,15 @@ public class AlertResource {
     }
 
     public record AckRequest(String by, String note) {
+    }
+
+    /** A mute as kept, and whether it silences notices now. */
+    public record MuteView(long id, String kind, String target, Instant until, String reason, String by, Instant createdAt,
+                           boolean active) {
+
+        static MuteView of(AlertStore.Mute m, Instant now) {
+            return new MuteView(m.id(), m.kind(), m.target(), m.until(), m.reason(), m.by(), m.createdAt(), m.activeAt(now));
+        }
     }
 
     /** Mute a rule or a spread (id such as GOVT-A:10Y-3M, or a spread name for every curve) for a while. */
@@ -106,12 +127,17 @@ public class AlertResource {
     @Path("/alerts")
     @Operation(summary = "Open alert episodes and the most recent notices with their deliveries and acknowledgements; with asOf, "
             + "the notices recorded by then as they stood then")
-    public Object alerts(@QueryParam("limit") @DefaultValue("100") int limit, @QueryParam("asOf") String asOf) {
+    public RestResponse<Object> alerts(@QueryParam("limit") String limit, @QueryParam("asOf") String asOf,
+                                       @QueryParam("after") String after, @Context UriInfo uri) {
         Instant at = QueryParams.asOf(asOf);
+        int n = Paging.limit(limit, ALERTS_BY_DEFAULT, MAX_ALERTS);
+        Paging.Page<AlertStore.AlertView> page = Paging.Page.of(newest.page(n + 1, at, Cursors.alert(after)), n, Cursors::alert);
+        List<AlertView> items = page.items().stream().map(AlertView::of).toList();
+        String next = Paging.next(uri, page);
         if (at != null) {
-            List<AlertView> items = store.recent(Math.max(1, Math.min(limit, MAX_ALERTS)), at).stream().map(AlertView::of).toList();
-            return new AlertsAsOf(at, ruleSets.hash(at), items, "deliveries as they stood at as_of, replayed from their journalled "
-                    + "attempts (next_attempt_at is known only for a delivery not yet attempted); open episodes are not journalled", Alert.CAUTION);
+            return Paging.answer(new AlertsAsOf(at, ruleSets.hash(at), items, page.truncated(), next, "deliveries as they stood at as_of, "
+                    + "replayed from their journalled attempts (next_attempt_at is known only for a delivery not yet attempted); open "
+                    + "episodes are not journalled", Alert.CAUTION), next);
         }
         List<EpisodeView> open = new ArrayList<>();
         for (Map.Entry<String, AlertEngine.Episode> e : desk.openEpisodes().entrySet()) {
@@ -120,8 +146,7 @@ public class AlertResource {
                     Instant.MAX.equals(e.getValue().lastNotice())));
         }
         open.sort(java.util.Comparator.comparing(EpisodeView::rule).thenComparing(EpisodeView::subject));
-        List<AlertView> recent = store.recent(Math.max(1, Math.min(limit, MAX_ALERTS))).stream().map(AlertView::of).toList();
-        return new AlertsView(open, recent, Alert.CAUTION);
+        return Paging.answer(new AlertsView(open, items, page.truncated(), next, Alert.CAUTION), next);
     }
 
     @GET
@@ -147,18 +172,35 @@ public class AlertResource {
         if (problem != null) {
             return error(Response.Status.BAD_REQUEST, problem);
         }
+        // the answer is the alert as it now stands, which GET /api/alerts/{id} serves too (RFC 9110, 8.7)
         return desk.acknowledge(id, by, note)
-                .map(v -> Response.ok(AlertView.of(v)).build())
+                .map(v -> Response.ok(AlertView.of(v)).header("Content-Location", alertPath(v.stored().alert().id())).build())
                 .orElseGet(() -> error(Response.Status.NOT_FOUND, "no alert " + Excerpt.of(id)));
     }
 
     @GET
     @Path("/mutes")
     @Operation(summary = "Mutes, newest first, with whether each is active")
-    public List<Map<String, Object>> mutes() {
+    public RestResponse<List<MuteView>> mutes(@QueryParam("limit") String limit, @QueryParam("after") String after,
+                                              @Context UriInfo uri) {
         Instant now = clock.instant();
-        return desk.mutes().stream().map(m -> Map.<String, Object>of("id", m.id(), "kind", m.kind(), "target", m.target(),
-                "until", m.until(), "reason", m.reason(), "by", m.by(), "created_at", m.createdAt(), "active", m.activeAt(now))).toList();
+        int n = Paging.limit(limit, MAX_MUTES, MAX_MUTES);
+        Long before = Cursors.rowId(after);
+        // the desk holds every mute, newest (highest id) first
+        List<MuteView> fetched = desk.mutes().stream().filter(m -> before == null || m.id() < before).limit(n + 1L)
+                .map(m -> MuteView.of(m, now)).toList();
+        Paging.Page<MuteView> page = Paging.Page.of(fetched, n, m -> Cursors.rowId(m.id()));
+        String next = Paging.next(uri, page);
+        return Paging.answer(page.items(), next);
+    }
+
+    @GET
+    @Path("/mutes/{id}")
+    @Operation(summary = "One mute, with whether it is active")
+    public Response mute(@PathParam("id") long id) {
+        Instant now = clock.instant();
+        return desk.mutes().stream().filter(m -> m.id() == id).findFirst().map(m -> Response.ok(MuteView.of(m, now)).build())
+                .orElseGet(() -> error(Response.Status.NOT_FOUND, "no mute " + id));
     }
 
     @POST
@@ -194,8 +236,7 @@ public class AlertResource {
             return error(Response.Status.BAD_REQUEST, "a mute must end in the future and within " + LONGEST_MUTE.toDays() + " days");
         }
         AlertStore.Mute m = rule != null ? desk.mute("rule", rule, until, reason, by) : desk.mute("spread", spread, until, reason, by);
-        return Response.status(Response.Status.CREATED).entity(Map.of("id", m.id(), "kind", m.kind(), "target", m.target(),
-                "until", m.until(), "reason", m.reason(), "by", m.by())).build();
+        return Response.created(UriBuilder.fromPath("/api/mutes/{id}").build(m.id())).entity(MuteView.of(m, now)).build();
     }
 
     @DELETE
@@ -219,6 +260,11 @@ public class AlertResource {
     public Response reload() {
         PolicyReloader.Outcome o = reloader.check();
         return Response.status("rejected".equals(o.result()) ? 422 : 200).entity(o).build();
+    }
+
+    /** The path of one alert, its id escaped as a path segment needs (ids use {@code ~} so that they seldom need it). */
+    static String alertPath(String id) {
+        return UriBuilder.fromPath("/api/alerts/{id}").build(id).toString();
     }
 
     private static boolean blank(String s) {

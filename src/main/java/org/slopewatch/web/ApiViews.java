@@ -63,8 +63,11 @@ final class ApiViews {
         }
     }
 
-    /** A list as the journal held it at {@code as_of}, with the content hash of the rule set in force then. */
-    record AsOfList<T>(Instant asOf, String policyHash, List<T> items) {
+    /**
+     * A page of a list as the journal held it at {@code as_of}, with the content hash of the rule
+     * set in force then; {@code next} is where the rest is when {@code truncated}.
+     */
+    record AsOfList<T>(Instant asOf, String policyHash, List<T> items, boolean truncated, String next) {
     }
 
     /**

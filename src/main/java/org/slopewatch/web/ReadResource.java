@@ -8,12 +8,15 @@ import jakarta.ws.rs.PathParam;
 import jakarta.ws.rs.Produces;
 import jakarta.ws.rs.QueryParam;
 import jakarta.ws.rs.BadRequestException;
+import jakarta.ws.rs.core.Context;
 import jakarta.ws.rs.core.MediaType;
+import jakarta.ws.rs.core.UriInfo;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.util.List;
 import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.jboss.resteasy.reactive.RestResponse;
 import org.slopewatch.alerting.PolicyHolder;
 import org.slopewatch.ingest.AsOfRebuild;
 import org.slopewatch.ingest.QuotePipeline;
@@ -26,14 +29,18 @@ import org.slopewatch.text.Excerpt;
 
 /**
  * The read API: curves, spreads, their history, transitions and rejects. The history endpoints
- * take {@code asOf} (an instant) and then answer with what the journal held at that moment,
+ * take {@code as_of} (an instant) and then answer with what the journal held at that moment,
  * wrapped with that moment and the rule set in force then; without it they answer as before.
+ * The lists that grow with the journal come a page at a time ({@link Paging}).
  */
 @Path("/api")
 @Produces(MediaType.APPLICATION_JSON)
 public class ReadResource {
 
-    private static final int MAX_ROWS = 10_000;
+    /** Items of a page of transitions, of a history (dates) and of rejects: what one answer may hold. */
+    static final int MAX_ROWS = 10_000;
+    /** Rejects a page holds unless {@code limit} says otherwise; the others default to the maximum. */
+    static final int REJECTS_BY_DEFAULT = 100;
 
     private final QuotePipeline pipeline;
     private final JournalReader journal;
@@ -121,37 +128,56 @@ public class ReadResource {
     @GET
     @Path("/spreads/{id}/history")
     @Operation(summary = "The standing value of a spread on each market date in a range; with asOf, as recorded by then")
-    public Object history(@PathParam("id") String id, @QueryParam("from") String from, @QueryParam("to") String to,
-                          @QueryParam("asOf") String asOf) {
+    public RestResponse<Object> history(@PathParam("id") String id, @QueryParam("from") String from, @QueryParam("to") String to,
+                                        @QueryParam("asOf") String asOf, @QueryParam("limit") String limit,
+                                        @QueryParam("after") String after, @Context UriInfo uri) {
         key(id);
         Instant at = QueryParams.asOf(asOf);
-        List<JournalReader.HistoryPoint> points = journal.history(id, date(from, LocalDate.of(1900, 1, 1)),
-                date(to, LocalDate.of(9999, 12, 31)), at);
-        return at == null ? points : new ApiViews.AsOfList<>(at, ruleSets.hash(at), points);
+        int n = Paging.limit(limit, MAX_ROWS, MAX_ROWS);
+        LocalDate first = date(from, LocalDate.of(1900, 1, 1));
+        LocalDate last = Cursors.historyPoint(after);
+        if (last != null && !last.isBefore(first)) {
+            first = last.plusDays(1); // one value per date: the page after a date starts the next day
+        }
+        Paging.Page<JournalReader.HistoryPoint> page = Paging.Page.of(journal.history(id, first, date(to, LocalDate.of(9999, 12, 31)),
+                at, n + 1), n, Cursors::historyPoint);
+        return list(page, at, uri);
     }
 
     @GET
     @Path("/transitions")
     @Operation(summary = "Transitions in market-date order; superseded=true also shows those a revision replaced; with asOf, "
             + "as recorded by then (a transition counts as superseded only once its revision was recorded)")
-    public Object transitions(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
-                              @QueryParam("superseded") @DefaultValue("false") boolean superseded, @QueryParam("asOf") String asOf) {
+    public RestResponse<Object> transitions(@QueryParam("spread") String spread, @QueryParam("from") String from,
+                                            @QueryParam("to") String to, @QueryParam("superseded") @DefaultValue("false") boolean superseded,
+                                            @QueryParam("asOf") String asOf, @QueryParam("limit") String limit,
+                                            @QueryParam("after") String after, @Context UriInfo uri) {
         if (spread != null) {
             key(spread);
         }
         Instant at = QueryParams.asOf(asOf);
+        int n = Paging.limit(limit, MAX_ROWS, MAX_ROWS);
         List<JournalReader.StoredTransition> rows = journal.transitions(new JournalRange(spread, date(from, LocalDate.of(1900, 1, 1)),
-                date(to, LocalDate.of(9999, 12, 31)), at), superseded, MAX_ROWS);
-        return at == null ? rows : new ApiViews.AsOfList<>(at, ruleSets.hash(at), rows);
+                date(to, LocalDate.of(9999, 12, 31)), at), superseded, Cursors.transition(after), n + 1);
+        return list(Paging.Page.of(rows, n, Cursors::transition), at, uri);
     }
 
     @GET
     @Path("/rejects")
     @Operation(summary = "The most recent rejected quotes, newest first; with asOf, those recorded by then")
-    public Object rejects(@QueryParam("limit") @DefaultValue("100") int limit, @QueryParam("asOf") String asOf) {
+    public RestResponse<Object> rejects(@QueryParam("limit") String limit, @QueryParam("asOf") String asOf,
+                                        @QueryParam("after") String after, @Context UriInfo uri) {
         Instant at = QueryParams.asOf(asOf);
-        List<JournalReader.StoredReject> rows = journal.rejects(Math.max(1, Math.min(limit, MAX_ROWS)), at);
-        return at == null ? rows : new ApiViews.AsOfList<>(at, ruleSets.hash(at), rows);
+        int n = Paging.limit(limit, REJECTS_BY_DEFAULT, MAX_ROWS);
+        List<JournalReader.StoredReject> rows = journal.rejects(n + 1, at, Cursors.rowId(after));
+        return list(Paging.Page.of(rows, n, r -> Cursors.rowId(r.id())), at, uri);
+    }
+
+    /** A page of a history list: the plain list, or with asOf wrapped with that moment and its rule set. */
+    private <T> RestResponse<Object> list(Paging.Page<T> page, Instant at, UriInfo uri) {
+        String next = Paging.next(uri, page);
+        return Paging.answer(at == null ? page.items()
+                : new ApiViews.AsOfList<>(at, ruleSets.hash(at), page.items(), page.truncated(), next), next);
     }
 
     private static SpreadKey key(String id) {
