@@ -20,6 +20,7 @@ import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.jboss.resteasy.reactive.RestResponse;
 import org.slopewatch.alerting.AlertDesk;
@@ -127,7 +128,7 @@ public class AlertResource {
     @Path("/alerts")
     @Operation(summary = "Open alert episodes and the most recent notices with their deliveries and acknowledgements; with asOf, "
             + "the notices recorded by then as they stood then")
-    public RestResponse<Object> alerts(@QueryParam("limit") String limit, @QueryParam("asOf") String asOf,
+    public RestResponse<Object> alerts(@QueryParam("limit") String limit, @QueryParam("as_of") String asOf,
                                        @QueryParam("after") String after, @Context UriInfo uri) {
         Instant at = QueryParams.asOf(asOf);
         int n = Paging.limit(limit, ALERTS_BY_DEFAULT, MAX_ALERTS);
@@ -199,8 +200,7 @@ public class AlertResource {
     @Operation(summary = "One mute, with whether it is active")
     public Response mute(@PathParam("id") long id) {
         Instant now = clock.instant();
-        return desk.mutes().stream().filter(m -> m.id() == id).findFirst().map(m -> Response.ok(MuteView.of(m, now)).build())
-                .orElseGet(() -> error(Response.Status.NOT_FOUND, "no mute " + id));
+        return kept(id).map(m -> Response.ok(MuteView.of(m, now)).build()).orElseGet(() -> error(Response.Status.NOT_FOUND, "no mute " + id));
     }
 
     @POST
@@ -236,7 +236,9 @@ public class AlertResource {
             return error(Response.Status.BAD_REQUEST, "a mute must end in the future and within " + LONGEST_MUTE.toDays() + " days");
         }
         AlertStore.Mute m = rule != null ? desk.mute("rule", rule, until, reason, by) : desk.mute("spread", spread, until, reason, by);
-        return Response.created(UriBuilder.fromPath("/api/mutes/{id}").build(m.id())).entity(MuteView.of(m, now)).build();
+        // answered as kept, so that it reads the same as from its Location (the journal keeps instants to the microsecond)
+        return Response.created(UriBuilder.fromPath("/api/mutes/{id}").build(m.id())).entity(MuteView.of(kept(m.id()).orElse(m), now))
+                .build();
     }
 
     @DELETE
@@ -260,6 +262,11 @@ public class AlertResource {
     public Response reload() {
         PolicyReloader.Outcome o = reloader.check();
         return Response.status("rejected".equals(o.result()) ? 422 : 200).entity(o).build();
+    }
+
+    /** A mute as the desk keeps it (all of them, read back from the journal after each change). */
+    private Optional<AlertStore.Mute> kept(long id) {
+        return desk.mutes().stream().filter(m -> m.id() == id).findFirst();
     }
 
     /** The path of one alert, its id escaped as a path segment needs (ids use {@code ~} so that they seldom need it). */

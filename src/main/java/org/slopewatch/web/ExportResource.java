@@ -60,7 +60,7 @@ public class ExportResource {
     @Produces({CSV, MediaType.APPLICATION_JSON})
     @Operation(summary = "Every journalled spread value (standing=false once replaced), as CSV or JSON; with asOf, as recorded by then")
     public Response observations(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
-                                 @QueryParam("asOf") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
+                                 @QueryParam("as_of") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
         Request r = request(spread, from, to, asOf, format);
         return export(ExportTable.OBSERVATIONS, r, sink -> journal.eachObservation(r.range(), sink));
     }
@@ -70,7 +70,7 @@ public class ExportResource {
     @Produces({CSV, MediaType.APPLICATION_JSON})
     @Operation(summary = "Every transition, superseded ones marked, as CSV or JSON; with asOf, as recorded by then")
     public Response transitions(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
-                                @QueryParam("asOf") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
+                                @QueryParam("as_of") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
         Request r = request(spread, from, to, asOf, format);
         return export(ExportTable.TRANSITIONS, r, sink -> journal.eachTransition(r.range(), sink));
     }
@@ -80,7 +80,7 @@ public class ExportResource {
     @Produces({CSV, MediaType.APPLICATION_JSON})
     @Operation(summary = "Every notice (spread: its subject; from/to: its market date), as CSV or JSON; with asOf, as recorded by then")
     public Response alerts(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
-                           @QueryParam("asOf") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
+                           @QueryParam("as_of") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
         Request r = request(spread, from, to, asOf, format);
         return export(ExportTable.ALERTS, r, sink -> alerts.eachAlert(r.range(), sink));
     }

@@ -19,7 +19,7 @@ final class QueryParams {
     private QueryParams() {
     }
 
-    /** {@code asOf}: an ISO-8601 instant, or null when absent (meaning now). */
+    /** {@code as_of}: an ISO-8601 instant, or null when absent (meaning now). */
     static Instant asOf(String text) {
         if (text == null || text.isBlank()) {
             return null;
@@ -27,7 +27,7 @@ final class QueryParams {
         try {
             return Instant.parse(text.strip());
         } catch (DateTimeParseException e) {
-            throw bad("unparsable asOf " + Excerpt.quoted(text) + " (expected an ISO-8601 instant such as 2026-04-01T17:30:00Z; "
+            throw bad("unparsable as_of " + Excerpt.quoted(text) + " (expected an ISO-8601 instant such as 2026-04-01T17:30:00Z; "
                     + "write + in an offset as %2B)");
         }
     }

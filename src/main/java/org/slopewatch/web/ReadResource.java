@@ -100,7 +100,7 @@ public class ReadResource {
     @Path("/spreads/{id}")
     @Operation(summary = "One spread's status; the id is CURVE:SPREAD, e.g. GOVT-A:10Y-3M. With asOf, its status at that moment, "
             + "rebuilt from the quotes recorded by then")
-    public Object spread(@PathParam("id") String id, @QueryParam("asOf") String asOf) {
+    public Object spread(@PathParam("id") String id, @QueryParam("as_of") String asOf) {
         Instant at = QueryParams.asOf(asOf);
         if (at != null) {
             return spreadAsOf(key(id), at);
@@ -129,7 +129,7 @@ public class ReadResource {
     @Path("/spreads/{id}/history")
     @Operation(summary = "The standing value of a spread on each market date in a range; with asOf, as recorded by then")
     public RestResponse<Object> history(@PathParam("id") String id, @QueryParam("from") String from, @QueryParam("to") String to,
-                                        @QueryParam("asOf") String asOf, @QueryParam("limit") String limit,
+                                        @QueryParam("as_of") String asOf, @QueryParam("limit") String limit,
                                         @QueryParam("after") String after, @Context UriInfo uri) {
         key(id);
         Instant at = QueryParams.asOf(asOf);
@@ -150,7 +150,7 @@ public class ReadResource {
             + "as recorded by then (a transition counts as superseded only once its revision was recorded)")
     public RestResponse<Object> transitions(@QueryParam("spread") String spread, @QueryParam("from") String from,
                                             @QueryParam("to") String to, @QueryParam("superseded") @DefaultValue("false") boolean superseded,
-                                            @QueryParam("asOf") String asOf, @QueryParam("limit") String limit,
+                                            @QueryParam("as_of") String asOf, @QueryParam("limit") String limit,
                                             @QueryParam("after") String after, @Context UriInfo uri) {
         if (spread != null) {
             key(spread);
@@ -165,7 +165,7 @@ public class ReadResource {
     @GET
     @Path("/rejects")
     @Operation(summary = "The most recent rejected quotes, newest first; with asOf, those recorded by then")
-    public RestResponse<Object> rejects(@QueryParam("limit") String limit, @QueryParam("asOf") String asOf,
+    public RestResponse<Object> rejects(@QueryParam("limit") String limit, @QueryParam("as_of") String asOf,
                                         @QueryParam("after") String after, @Context UriInfo uri) {
         Instant at = QueryParams.asOf(asOf);
         int n = Paging.limit(limit, REJECTS_BY_DEFAULT, MAX_ROWS);

@@ -49,7 +49,7 @@ public class TimelineResource {
     @Operation(summary = "Observations, transitions (superseded ones marked), alerts, delivery attempts and acknowledgements of a spread "
             + "in recorded order; with asOf, as the journal held them then")
     public RestResponse<TimelineView> timeline(@PathParam("id") String id, @QueryParam("from") String from, @QueryParam("to") String to,
-                                               @QueryParam("asOf") String asOf, @QueryParam("limit") String limit,
+                                               @QueryParam("as_of") String asOf, @QueryParam("limit") String limit,
                                                @QueryParam("after") String after, @Context UriInfo uri) {
         String spread = QueryParams.spread(id).id();
         LocalDate fromDate = QueryParams.date(from, null);
