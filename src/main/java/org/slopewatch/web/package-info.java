@@ -4,5 +4,8 @@
  * client). Thin: decode, call the pipeline or the journal, shape the answer. What people send to
  * be kept (mutes, their lifts, acknowledgements) is checked first, in one place
  * ({@link org.slopewatch.web.AlertRequests}); an error answer repeats input only as an excerpt.
+ * Every list that grows with the journal is served a page at a time under one contract
+ * ({@link org.slopewatch.web.Paging}), keeping the shape it always had; names are snake_case, old
+ * spellings of query parameters are renamed before matching ({@link org.slopewatch.web.QueryAliases}).
  */
 package org.slopewatch.web;
