@@ -10,9 +10,12 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.function.Function;
 import org.jboss.logging.Logger;
 import org.slopewatch.delivery.AlertChannel;
 import org.slopewatch.delivery.ChannelRegistry;
+import org.slopewatch.delivery.StreamChannel;
+import org.slopewatch.delivery.StreamTransport;
 import org.slopewatch.journal.Acknowledgements;
 import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalEntries;
@@ -75,17 +78,27 @@ public class AlertDesk implements AlertStage {
 
     /**
      * What stops a policy from running with this configuration: a channel declared with one type
-     * in the policy and configured with another. A declared channel that is not configured at all
-     * is allowed (its deliveries are recorded as skipped), so that the shipped policy runs on a
-     * machine with no chat or mail server.
+     * in the policy and configured with another, or a stream channel whose events would stay in
+     * memory ({@link StreamTransport}). A declared channel that is not configured at all is
+     * allowed (its deliveries are recorded as skipped), so that the shipped policy runs on a
+     * machine with no chat or mail server or broker. Start-up and every reload ask this.
      */
     public List<String> checkChannels(Policy policy) {
+        return checkChannels(policy, channels::channel, channels.streamTransport());
+    }
+
+    static List<String> checkChannels(Policy policy, Function<String, Optional<AlertChannel>> configuredChannels, StreamTransport streams) {
         List<String> problems = new ArrayList<>();
         for (ChannelDeclaration declared : policy.channels()) {
-            Optional<AlertChannel> configured = channels.channel(declared.name());
-            if (configured.isPresent() && !configured.get().type().equals(declared.type())) {
+            Optional<AlertChannel> configured = configuredChannels.apply(declared.name());
+            if (configured.isEmpty()) {
+                continue;
+            }
+            if (!configured.get().type().equals(declared.type())) {
                 problems.add(policy.source() + ": channel " + declared.name() + " is declared as " + declared.type()
                         + " but configured as " + configured.get().type() + " (slopewatch.channels." + declared.name() + ".type)");
+            } else if (StreamChannel.TYPE.equals(declared.type())) {
+                streams.refusal(declared.name()).ifPresent(refusal -> problems.add(policy.source() + ": " + refusal));
             }
         }
         return problems;
