@@ -15,7 +15,7 @@ status=0
   > target/fuzz.log 2>&1 || status=$?
 for report in target/surefire-reports/TEST-org.slopewatch.ingest.QuoteDecoderFuzzTest.xml \
               target/surefire-reports/TEST-org.slopewatch.rules.PolicyParserFuzzTest.xml \
-              target/surefire-reports/TEST-org.slopewatch.ingest.HistoryCsvReaderFuzzTest.xml; do
+              target/surefire-reports/TEST-org.slopewatch.history.HistoryCsvReaderFuzzTest.xml; do
   grep -o '<testcase name="[^"]*" classname="[^"]*" time="[^"]*"' "$report" \
     | sed -E 's/<testcase name="([^"]*)" classname="[^"]*\.([^".]*)" time="([^"]*)"/\2.\1: '"$tries"' tries in \3 s/'
 done

@@ -1,6 +1,8 @@
 package org.slopewatch;
 
 import static com.tngtech.archunit.lang.syntax.ArchRuleDefinition.noClasses;
+import static com.tngtech.archunit.library.Architectures.layeredArchitecture;
+import static com.tngtech.archunit.library.dependencies.SlicesRuleDefinition.slices;
 
 import com.tngtech.archunit.core.domain.JavaClasses;
 import com.tngtech.archunit.core.importer.ClassFileImporter;
@@ -8,7 +10,10 @@ import com.tngtech.archunit.core.importer.ImportOption;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
-/** The layers of DESIGN.md: the engine stays plain Java and depends only downwards. */
+/**
+ * The layers of DESIGN.md: the engine stays plain Java and depends only downwards, no two packages
+ * depend on each other, and the daemon's ring runs one way: ingest → pipeline → journal/alerting → delivery.
+ */
 class ArchitectureTest {
 
     private static final String[] ENGINE = {"org.slopewatch.curve..", "org.slopewatch.spread..", "org.slopewatch.monitor..",
@@ -38,14 +43,15 @@ class ArchitectureTest {
 
     @Test
     void theOfflineAnalysisIsPlainJavaToo() {
-        // replay and fit read files through ingest's CSV reader, so replay sits outside ENGINE's layering
-        // rule, but like the engine it must run without a container and without reading the clock
-        noClasses().that().resideInAPackage("org.slopewatch.replay..")
+        // replay and fit read files through the history reader; like the engine they run without a
+        // container and without reading the clock
+        noClasses().that().resideInAnyPackage("org.slopewatch.replay..", "org.slopewatch.history..")
                 .should().dependOnClassesThat().resideInAnyPackage("io.quarkus..", "jakarta..", "javax.inject..", "io.smallrye..",
                         "io.vertx..", "java.sql..", "javax.sql..", "org.eclipse.microprofile..", "org.slopewatch.cli..",
-                        "org.slopewatch.journal..", "org.slopewatch.delivery..", "org.slopewatch.web..", "org.slopewatch.ops..")
+                        "org.slopewatch.journal..", "org.slopewatch.delivery..", "org.slopewatch.web..", "org.slopewatch.ops..",
+                        "org.slopewatch.ingest..", "org.slopewatch.pipeline..", "org.slopewatch.alerting..")
                 .check(classes);
-        noClasses().that().resideInAPackage("org.slopewatch.replay..")
+        noClasses().that().resideInAnyPackage("org.slopewatch.replay..", "org.slopewatch.history..")
                 .should().callMethod(java.time.LocalDate.class, "now")
                 .orShould().callMethod(java.time.Instant.class, "now")
                 .orShould().callMethod(System.class, "currentTimeMillis")
@@ -59,7 +65,7 @@ class ArchitectureTest {
                 .should().dependOnClassesThat().resideInAnyPackage("io.quarkus..", "jakarta..", "javax.inject..", "io.smallrye..",
                         "io.vertx..", "java.sql..", "javax.sql..", "org.eclipse.microprofile..", "org.slopewatch.cli..",
                         "org.slopewatch.journal..", "org.slopewatch.delivery..", "org.slopewatch.web..", "org.slopewatch.ops..",
-                        "org.slopewatch.alerting..", "org.slopewatch.ingest..")
+                        "org.slopewatch.alerting..", "org.slopewatch.ingest..", "org.slopewatch.pipeline..")
                 .check(classes);
         noClasses().that().resideInAPackage("org.slopewatch.report..")
                 .should().callMethod(java.time.LocalDate.class, "now")
@@ -99,7 +105,46 @@ class ArchitectureTest {
         noClasses().that().resideInAnyPackage(ENGINE)
                 .should().dependOnClassesThat().resideInAnyPackage("org.slopewatch.ingest..", "org.slopewatch.replay..",
                         "org.slopewatch.cli..", "org.slopewatch.journal..", "org.slopewatch.delivery..", "org.slopewatch.web..",
-                        "org.slopewatch.ops..")
+                        "org.slopewatch.ops..", "org.slopewatch.pipeline..", "org.slopewatch.alerting..", "org.slopewatch.history..")
+                .check(classes);
+    }
+
+    @Test
+    void noTwoPackagesDependOnEachOther() {
+        // each package (sub-packages included as packages of their own) is a slice; a cycle of any length fails
+        slices().matching("org.slopewatch.(**)").should().beFreeOfCycles().check(classes);
+    }
+
+    @Test
+    void theDaemonsRingRunsOneWay() {
+        layeredArchitecture().consideringOnlyDependenciesInLayers()
+                .layer("Text").definedBy("org.slopewatch.text..")
+                .layer("Engine").definedBy(ENGINE)
+                .layer("History").definedBy("org.slopewatch.history..")
+                .layer("Analysis").definedBy("org.slopewatch.replay..", "org.slopewatch.report..")
+                .layer("Journal").definedBy("org.slopewatch.journal..")
+                .layer("Delivery").definedBy("org.slopewatch.delivery..")
+                .layer("Alerting").definedBy("org.slopewatch.alerting..")
+                .layer("Pipeline").definedBy("org.slopewatch.pipeline..")
+                .layer("Ingest").definedBy("org.slopewatch.ingest..")
+                .layer("WhatIf").definedBy("org.slopewatch.whatif..")
+                .layer("Ops").definedBy("org.slopewatch.ops..")
+                .layer("Security").definedBy("org.slopewatch.security..")
+                .layer("Api").definedBy("org.slopewatch.web..")
+                .layer("Cli").definedBy("org.slopewatch.cli..")
+                .whereLayer("Api").mayNotBeAccessedByAnyLayer()
+                .whereLayer("Cli").mayNotBeAccessedByAnyLayer()
+                .whereLayer("Security").mayNotBeAccessedByAnyLayer()
+                .whereLayer("Ops").mayOnlyBeAccessedByLayers("Api", "Cli")
+                .whereLayer("Ingest").mayOnlyBeAccessedByLayers("Api")
+                .whereLayer("Pipeline").mayOnlyBeAccessedByLayers("Ingest", "Ops", "Api")
+                .whereLayer("Alerting").mayOnlyBeAccessedByLayers("Pipeline", "Ops", "Api")
+                .whereLayer("Journal").mayOnlyBeAccessedByLayers("Alerting", "Pipeline", "Ingest", "WhatIf", "Ops", "Api", "Cli")
+                .whereLayer("Delivery").mayOnlyBeAccessedByLayers("Alerting", "Ops", "Api")
+                .whereLayer("WhatIf").mayOnlyBeAccessedByLayers("Api", "Cli")
+                .whereLayer("Analysis").mayOnlyBeAccessedByLayers("WhatIf", "Api", "Cli")
+                .whereLayer("History").mayOnlyBeAccessedByLayers("Analysis", "Ingest", "WhatIf", "Api", "Cli")
+                .because("the step sits at the centre: edges feed it, it drives alerting and the journal, alerting drives delivery")
                 .check(classes);
     }
 }

@@ -6,9 +6,9 @@ import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import org.slopewatch.delivery.Alert;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertDecision;
 import org.slopewatch.rules.AlertTrigger;
 

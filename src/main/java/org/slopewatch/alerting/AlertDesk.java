@@ -10,14 +10,18 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.function.Function;
 import org.jboss.logging.Logger;
-import org.slopewatch.delivery.Alert;
 import org.slopewatch.delivery.AlertChannel;
 import org.slopewatch.delivery.ChannelRegistry;
-import org.slopewatch.ingest.AlertStage;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.delivery.StreamChannel;
+import org.slopewatch.delivery.StreamTransport;
+import org.slopewatch.journal.Acknowledgements;
+import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalEntries;
+import org.slopewatch.journal.MuteBook;
 import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertCondition;
 import org.slopewatch.rules.AlertConditions;
 import org.slopewatch.rules.AlertDecision;
@@ -39,7 +43,9 @@ public class AlertDesk implements AlertStage {
     private static final Logger LOG = Logger.getLogger(AlertDesk.class);
 
     private final PolicyHolder policies;
-    private final AlertStore store;
+    private final AlertHistory history;
+    private final Acknowledgements acks;
+    private final MuteBook muteBook;
     private final ChannelRegistry channels;
     private final AlertDispatcher dispatcher;
     private final AlertMetrics metrics;
@@ -47,12 +53,14 @@ public class AlertDesk implements AlertStage {
     private final Clock clock;
 
     private AlertEngine engine;
-    private List<AlertStore.Mute> mutes = List.of();
+    private List<MuteBook.Mute> mutes = List.of();
 
-    AlertDesk(PolicyHolder policies, AlertStore store, ChannelRegistry channels, AlertDispatcher dispatcher, AlertMetrics metrics,
-              AlertsConfig config, Clock clock) {
+    AlertDesk(PolicyHolder policies, AlertHistory history, Acknowledgements acks, MuteBook muteBook, ChannelRegistry channels,
+              AlertDispatcher dispatcher, AlertMetrics metrics, AlertsConfig config, Clock clock) {
         this.policies = policies;
-        this.store = store;
+        this.history = history;
+        this.acks = acks;
+        this.muteBook = muteBook;
         this.channels = channels;
         this.dispatcher = dispatcher;
         this.metrics = metrics;
@@ -70,17 +78,27 @@ public class AlertDesk implements AlertStage {
 
     /**
      * What stops a policy from running with this configuration: a channel declared with one type
-     * in the policy and configured with another. A declared channel that is not configured at all
-     * is allowed (its deliveries are recorded as skipped), so that the shipped policy runs on a
-     * machine with no chat or mail server.
+     * in the policy and configured with another, or a stream channel whose events would stay in
+     * memory ({@link StreamTransport}). A declared channel that is not configured at all is
+     * allowed (its deliveries are recorded as skipped), so that the shipped policy runs on a
+     * machine with no chat or mail server or broker. Start-up and every reload ask this.
      */
-    List<String> checkChannels(Policy policy) {
+    public List<String> checkChannels(Policy policy) {
+        return checkChannels(policy, channels::channel, channels.streamTransport());
+    }
+
+    static List<String> checkChannels(Policy policy, Function<String, Optional<AlertChannel>> configuredChannels, StreamTransport streams) {
         List<String> problems = new ArrayList<>();
         for (ChannelDeclaration declared : policy.channels()) {
-            Optional<AlertChannel> configured = channels.channel(declared.name());
-            if (configured.isPresent() && !configured.get().type().equals(declared.type())) {
+            Optional<AlertChannel> configured = configuredChannels.apply(declared.name());
+            if (configured.isEmpty()) {
+                continue;
+            }
+            if (!configured.get().type().equals(declared.type())) {
                 problems.add(policy.source() + ": channel " + declared.name() + " is declared as " + declared.type()
                         + " but configured as " + configured.get().type() + " (slopewatch.channels." + declared.name() + ".type)");
+            } else if (StreamChannel.TYPE.equals(declared.type())) {
+                streams.refusal(declared.name()).ifPresent(refusal -> problems.add(policy.source() + ": " + refusal));
             }
         }
         return problems;
@@ -96,7 +114,7 @@ public class AlertDesk implements AlertStage {
     }
 
     /** A new policy: rules change, open episodes of rules kept by name carry over. */
-    synchronized void replaceRules(Policy policy) {
+    public synchronized void replaceRules(Policy policy) {
         warnUnconfigured(policy);
         metrics.expect(policy, channels.names());
         engine = engine.withRules(policy.alerts());
@@ -144,7 +162,7 @@ public class AlertDesk implements AlertStage {
 
     /** The mute that silences a decision, described, or null. A spread mute matches the spread id or its name. */
     private String mutedBy(AlertDecision d, Instant now) {
-        for (AlertStore.Mute m : mutes) {
+        for (MuteBook.Mute m : mutes) {
             if (!m.activeAt(now)) {
                 continue;
             }
@@ -174,17 +192,17 @@ public class AlertDesk implements AlertStage {
     @Override
     public synchronized void rebuild() {
         AlertEngine fresh = new AlertEngine(policies.policy().alerts());
-        for (AlertStore.StoredAlert a : store.latestPerEpisode()) {
+        for (AlertHistory.StoredAlert a : history.latestPerEpisode()) {
             if (a.alert().kind() == Alert.Kind.RESOLVED || a.episodeSince() == null) {
                 continue;
             }
             fresh.restore(a.alert().rule(), a.subject(), new AlertEngine.Episode(a.episodeSince(), a.alert().createdAt(), a.notice()));
-            if (store.episodeAcknowledged(a.alert().rule(), a.subject(), a.episodeSince())) {
+            if (acks.episodeAcknowledged(a.alert().rule(), a.subject(), a.episodeSince())) {
                 fresh.silence(a.alert().rule(), a.subject());
             }
         }
         engine = fresh;
-        mutes = store.mutes();
+        mutes = muteBook.mutes();
     }
 
     /**
@@ -192,35 +210,35 @@ public class AlertDesk implements AlertStage {
      *
      * @return the alert as it stands, or empty when there is no such alert
      */
-    public synchronized Optional<AlertStore.AlertView> acknowledge(String alertId, String by, String note) {
-        AlertStore.AlertView view = store.find(alertId);
+    public synchronized Optional<AlertHistory.AlertView> acknowledge(String alertId, String by, String note) {
+        AlertHistory.AlertView view = history.find(alertId);
         if (view == null) {
             return Optional.empty();
         }
-        store.ack(alertId, by, note);
+        acks.ack(alertId, by, note);
         engine.silence(view.stored().alert().rule(), view.stored().subject());
         LOG.infof("alert %s acknowledged by %s%s", alertId, by, note == null || note.isBlank() ? "" : ": " + note);
-        return Optional.ofNullable(store.find(alertId));
+        return Optional.ofNullable(history.find(alertId));
     }
 
     /** Mutes a rule or a spread until a time; journalled with who and why. */
-    public synchronized AlertStore.Mute mute(String kind, String target, Instant until, String reason, String by) {
-        AlertStore.Mute m = store.mute(kind, target, until, reason, by);
-        mutes = store.mutes();
+    public synchronized MuteBook.Mute mute(String kind, String target, Instant until, String reason, String by) {
+        MuteBook.Mute m = muteBook.mute(kind, target, until, reason, by);
+        mutes = muteBook.mutes();
         LOG.infof("%s %s muted by %s until %s: %s", kind, target, by, until, reason);
         return m;
     }
 
     public synchronized boolean lift(long muteId, String by) {
-        boolean lifted = store.lift(muteId, by);
-        mutes = store.mutes();
+        boolean lifted = muteBook.lift(muteId, by);
+        mutes = muteBook.mutes();
         if (lifted) {
             LOG.infof("mute %d lifted by %s", muteId, by);
         }
         return lifted;
     }
 
-    public synchronized List<AlertStore.Mute> mutes() {
+    public synchronized List<MuteBook.Mute> mutes() {
         return mutes;
     }
 

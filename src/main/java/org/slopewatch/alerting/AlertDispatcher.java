@@ -19,7 +19,7 @@ import org.slopewatch.delivery.ChannelRegistry;
 import org.slopewatch.delivery.DeliveryOutcome;
 import org.slopewatch.delivery.RetryDecision;
 import org.slopewatch.delivery.RetryPolicy;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.DeliveryOutbox;
 import org.slopewatch.journal.JournalException;
 
 /**
@@ -43,7 +43,7 @@ public class AlertDispatcher {
     private static final int BATCH = 50;
 
     private final ChannelRegistry channels;
-    private final AlertStore store;
+    private final DeliveryOutbox store;
     private final RetryPolicy retry;
     private final AlertMetrics metrics;
     private final Clock clock;
@@ -54,7 +54,8 @@ public class AlertDispatcher {
     private final String instance = ProcessHandle.current().pid() + "@" + UUID.randomUUID();
     private final List<Worker> all = new ArrayList<>();
 
-    AlertDispatcher(ChannelRegistry channels, AlertStore store, RetryPolicy retry, AlertMetrics metrics, AlertsConfig config, Clock clock) {
+    AlertDispatcher(ChannelRegistry channels, DeliveryOutbox store, RetryPolicy retry, AlertMetrics metrics, AlertsConfig config,
+                    Clock clock) {
         this.channels = channels;
         this.store = store;
         this.retry = retry;
@@ -101,10 +102,10 @@ public class AlertDispatcher {
                 return;
             }
             try {
-                List<AlertStore.Due> due;
+                List<DeliveryOutbox.Due> due;
                 do {
                     due = store.due(channel.name(), clock.instant(), BATCH);
-                    for (AlertStore.Due d : due) {
+                    for (DeliveryOutbox.Due d : due) {
                         deliver(d);
                     }
                 } while (due.size() == BATCH);
@@ -119,7 +120,7 @@ public class AlertDispatcher {
             }
         }
 
-        private void deliver(AlertStore.Due d) {
+        private void deliver(DeliveryOutbox.Due d) {
             Instant attemptedAt = clock.instant();
             if (!store.claim(d.delivery(), instance, attemptedAt, attemptedAt.plus(claim))) {
                 return; // another instance is sending it, or has just sent it
@@ -136,16 +137,16 @@ public class AlertDispatcher {
             RetryDecision decision = retry.decide(outcome, attempt, first);
             String detail = detail(outcome);
             if (decision instanceof RetryDecision.Done) {
-                store.attempt(d.delivery(), attemptedAt, "delivered", detail, decision.reason(), AlertStore.Status.DELIVERED, null);
+                store.attempt(d.delivery(), attemptedAt, "delivered", detail, decision.reason(), DeliveryOutbox.Status.DELIVERED, null);
                 metrics.attempt(channel.name(), d.alert(), "delivered");
                 metrics.finished(channel.name(), "delivered");
                 LOG.debugf("alert %s delivered on %s (attempt %d)", d.alert().id(), channel.name(), attempt);
             } else if (decision instanceof RetryDecision.RetryAt r) {
-                store.attempt(d.delivery(), attemptedAt, "retry", detail, decision.reason(), AlertStore.Status.PENDING, r.at());
+                store.attempt(d.delivery(), attemptedAt, "retry", detail, decision.reason(), DeliveryOutbox.Status.PENDING, r.at());
                 metrics.attempt(channel.name(), d.alert(), "retry");
                 LOG.warnf("alert %s on %s: %s", d.alert().id(), channel.name(), decision.reason());
             } else {
-                store.attempt(d.delivery(), attemptedAt, "failed", detail, decision.reason(), AlertStore.Status.FAILED, null);
+                store.attempt(d.delivery(), attemptedAt, "failed", detail, decision.reason(), DeliveryOutbox.Status.FAILED, null);
                 metrics.attempt(channel.name(), d.alert(), "failed");
                 metrics.finished(channel.name(), "failed");
                 LOG.errorf("alert %s on %s not delivered: %s", d.alert().id(), channel.name(), decision.reason());

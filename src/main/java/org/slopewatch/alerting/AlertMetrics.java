@@ -9,7 +9,7 @@ import java.util.Locale;
 import java.util.Set;
 import java.util.TreeSet;
 import java.util.concurrent.atomic.AtomicLong;
-import org.slopewatch.delivery.Alert;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertRule;
 import org.slopewatch.rules.Policy;
 
@@ -111,7 +111,7 @@ public class AlertMetrics {
     }
 
     /** @param outcome {@code applied} or {@code rejected} */
-    void reload(String outcome) {
+    public void reload(String outcome) {
         reloads(outcome).increment();
     }
 }

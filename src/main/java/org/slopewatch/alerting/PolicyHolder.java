@@ -1,10 +1,8 @@
 package org.slopewatch.alerting;
 
-import jakarta.inject.Singleton;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import org.slopewatch.ingest.IngestConfig;
 import org.slopewatch.rules.Policy;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyHash;
@@ -12,9 +10,9 @@ import org.slopewatch.rules.PolicyParser;
 
 /**
  * The policy in force, with the content hash that names it in the journal. Replaced as a whole
- * by a reload, so a reader sees either the old set or the new one, never a mixture.
+ * by a reload, so a reader sees either the old set or the new one, never a mixture. Plain Java:
+ * the pipeline's beans create it from the configured file, and its reloader replaces it.
  */
-@Singleton
 public class PolicyHolder {
 
     /** A parsed policy, its SHA-256 content hash (hex) and the file it came from. */
@@ -23,15 +21,8 @@ public class PolicyHolder {
 
     private volatile Loaded current;
 
-    PolicyHolder(IngestConfig config) {
-        String file = config.policy();
-        try {
-            this.current = read(file);
-        } catch (IOException e) {
-            throw new IllegalStateException("cannot read the policy file " + file + " (slopewatch.ingest.policy): " + e, e);
-        } catch (PolicyException e) {
-            throw new IllegalStateException("the policy file is invalid:" + System.lineSeparator() + e.getMessage(), e);
-        }
+    public PolicyHolder(Loaded initial) {
+        this.current = initial;
     }
 
     public Loaded current() {
@@ -42,7 +33,8 @@ public class PolicyHolder {
         return current.policy();
     }
 
-    void replace(Loaded next) {
+    /** Puts a new policy in force; only the reloader does, after the pipeline and the alert desk took it. */
+    public void replace(Loaded next) {
         this.current = next;
     }
 

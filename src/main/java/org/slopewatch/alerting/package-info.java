@@ -1,8 +1,9 @@
 /**
- * The daemon's alerting: the policy in force and its hot reload ({@link org.slopewatch.alerting.PolicyHolder},
- * {@link org.slopewatch.alerting.PolicyReloader}), the rule engine driven by the pipeline and the clock
- * ({@link org.slopewatch.alerting.AlertDesk}, {@link org.slopewatch.alerting.AlertTicker}), the content of a
- * notice ({@link org.slopewatch.alerting.AlertComposer}), and delivery from the journal's outbox with one
- * retry policy ({@link org.slopewatch.alerting.AlertDispatcher}).
+ * The daemon's alerting: the policy in force ({@link org.slopewatch.alerting.PolicyHolder}), the
+ * rule engine the pipeline drives at each step and tick ({@link org.slopewatch.alerting.AlertStage},
+ * implemented by {@link org.slopewatch.alerting.AlertDesk}), the content of a notice
+ * ({@link org.slopewatch.alerting.AlertComposer}), and delivery from the journal's outbox with one
+ * retry policy ({@link org.slopewatch.alerting.AlertDispatcher}). Depends on the journal and on
+ * delivery; the pipeline depends on it.
  */
 package org.slopewatch.alerting;

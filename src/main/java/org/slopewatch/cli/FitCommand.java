@@ -13,8 +13,8 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
-import org.slopewatch.ingest.HistoryCsvReader;
-import org.slopewatch.ingest.HistoryFormatException;
+import org.slopewatch.history.HistoryCsvReader;
+import org.slopewatch.history.HistoryFormatException;
 import org.slopewatch.probability.CovarianceKind;
 import org.slopewatch.probability.FitOptions;
 import org.slopewatch.probability.MonthlyAverage;
@@ -28,12 +28,12 @@ import org.slopewatch.replay.FitReport;
 import org.slopewatch.replay.SpreadSeries;
 import org.slopewatch.replay.SpreadSeriesReader;
 import org.slopewatch.spread.SpreadDefinition;
+import org.slopewatch.text.Excerpt;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import org.slopewatch.text.Excerpt;
 
 /** {@code slopewatch fit FILE}: the probit recession model fitted to a spread's history. */
 @Command(name = "fit", mixinStandardHelpOptions = true, sortOptions = false,

@@ -13,29 +13,28 @@ import java.util.Set;
 import java.util.concurrent.Callable;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
-import org.slopewatch.ingest.HistoryCsvReader;
-import org.slopewatch.ingest.HistoryFormatException;
+import org.slopewatch.history.HistoryCsvReader;
+import org.slopewatch.history.HistoryFormatException;
 import org.slopewatch.monitor.DaysInverted;
 import org.slopewatch.monitor.MonitorDefinition;
 import org.slopewatch.monitor.PersistenceTest;
 import org.slopewatch.monitor.QuarterAverage;
-import org.slopewatch.monitor.RollingAverage;
-import org.slopewatch.monitor.ShareInverted;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.probability.LeadTimeAnalysis;
 import org.slopewatch.probability.RecessionCalendarCsv;
 import org.slopewatch.replay.Replay;
 import org.slopewatch.replay.ReplayReport;
+import org.slopewatch.rules.PersistenceForms;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyParser;
 import org.slopewatch.spread.SpreadDefinition;
+import org.slopewatch.text.Excerpt;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
-import picocli.CommandLine.Spec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
-import org.slopewatch.text.Excerpt;
+import picocli.CommandLine.Spec;
 
 /** {@code slopewatch replay FILE}: history through the engine, a report out. */
 @Command(name = "replay", mixinStandardHelpOptions = true, sortOptions = false,
@@ -155,7 +154,7 @@ final class ReplayCommand implements Callable<Integer> {
         return dot > 0 ? name.substring(0, dot) : name;
     }
 
-    private List<Watch> watches() throws IOException, PolicyException {
+    List<Watch> watches() throws IOException, PolicyException {
         if (policy != null) {
             if (!spreads.isEmpty() || !persistence.isEmpty()) {
                 throw new IllegalArgumentException("give either --policy or --spread/--persistence, not both");
@@ -167,7 +166,7 @@ final class ReplayCommand implements Callable<Integer> {
         }
         List<PersistenceTest> tests = new ArrayList<>();
         for (String p : persistence.isEmpty() ? List.of(QuarterAverage.NAME) : persistence) {
-            tests.add(test(p));
+            tests.add(PersistenceForms.parse(p, entryBp));
         }
         MonitorDefinition rules = new MonitorDefinition(entryBp, exitBp == null ? entryBp : exitBp, exitObservations, holdDays, tests);
         List<Watch> out = new ArrayList<>();
@@ -175,25 +174,5 @@ final class ReplayCommand implements Callable<Integer> {
             out.add(new Watch(SpreadDefinition.parse(s), rules, Set.of()));
         }
         return out;
-    }
-
-    private PersistenceTest test(String text) {
-        String[] p = text.strip().split(":");
-        try {
-            return switch (p[0]) {
-                case QuarterAverage.NAME -> p.length == 1 ? new QuarterAverage(entryBp) : bad(text);
-                case DaysInverted.NAME -> p.length == 2 ? new DaysInverted(Integer.parseInt(p[1])) : bad(text);
-                case RollingAverage.NAME -> p.length == 2 ? new RollingAverage(Integer.parseInt(p[1]), entryBp) : bad(text);
-                case ShareInverted.NAME -> p.length == 3 ? new ShareInverted(Integer.parseInt(p[1]), Double.parseDouble(p[2])) : bad(text);
-                default -> bad(text);
-            };
-        } catch (NumberFormatException e) {
-            return bad(text);
-        }
-    }
-
-    private static PersistenceTest bad(String text) {
-        throw new IllegalArgumentException("unknown persistence test " + Excerpt.quoted(text) + " (expected quarter-average, days-inverted:DAYS, "
-                + "rolling-average:DAYS or share-inverted:DAYS:SHARE)");
     }
 }

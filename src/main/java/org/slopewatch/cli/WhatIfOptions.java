@@ -6,15 +6,14 @@ import java.io.InputStream;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.time.Clock;
 import java.util.List;
 import java.util.Set;
 import java.util.stream.Collectors;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
-import org.slopewatch.ingest.HistoryCsvReader;
-import org.slopewatch.ingest.HistoryFormatException;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.history.HistoryCsvReader;
+import org.slopewatch.history.HistoryFormatException;
+import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalDatabase;
 import org.slopewatch.journal.JournalException;
 import org.slopewatch.journal.JournalReader;
@@ -137,8 +136,7 @@ final class WhatIfOptions {
     private static WhatIfReport onJournal(JournalLocation location, CandidatePolicy policy, SpreadFilter filter) {
         try (AgroalDataSource ds = JournalDatabase.open(location.url(), System.getenv("SLOPEWATCH_JOURNAL_USERNAME"),
                 System.getenv("SLOPEWATCH_JOURNAL_PASSWORD"), 2)) {
-            // the clock is only for writes, and a what-if writes nothing
-            return new JournalWhatIf(new JournalReader(ds), new AlertStore(ds, Clock.systemUTC()))
+            return new JournalWhatIf(new JournalReader(ds), new AlertHistory(ds))
                     .run(location.label(), policy, filter, taken -> { });
         }
     }

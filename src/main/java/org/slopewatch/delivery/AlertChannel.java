@@ -1,5 +1,7 @@
 package org.slopewatch.delivery;
 
+import org.slopewatch.rules.Alert;
+
 /**
  * Where alerts go: one small class per kind of channel (chat webhook, email, stream, log),
  * chosen by a type name in configuration. A channel makes one attempt and says how it went;

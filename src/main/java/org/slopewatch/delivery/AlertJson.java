@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.Locale;
+import org.slopewatch.rules.Alert;
 
 /**
  * The alert as JSON, for the chat webhook's {@code alert-json} body and the stream's event data:

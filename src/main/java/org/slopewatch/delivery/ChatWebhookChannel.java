@@ -16,6 +16,8 @@ import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.TimeoutException;
+import org.slopewatch.rules.Alert;
+import org.slopewatch.rules.AlertText;
 
 /**
  * Posts an alert as JSON to a chat webhook. Body {@code text}: {@code {"text": "..."}} with the

@@ -7,6 +7,8 @@ import java.io.IOException;
 import java.net.ConnectException;
 import java.util.List;
 import java.util.Objects;
+import org.slopewatch.rules.Alert;
+import org.slopewatch.rules.AlertText;
 
 /**
  * Sends an alert by email through the Quarkus {@link Mailer} (SMTP settings under

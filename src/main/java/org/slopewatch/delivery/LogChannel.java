@@ -5,6 +5,8 @@ import java.util.Locale;
 import java.util.Map;
 import org.jboss.logging.Logger;
 import org.jboss.logging.MDC;
+import org.slopewatch.rules.Alert;
+import org.slopewatch.rules.AlertText;
 import org.slopewatch.rules.Severity;
 
 /**

@@ -13,6 +13,7 @@ import java.util.concurrent.TimeoutException;
 import org.apache.kafka.common.header.internals.RecordHeaders;
 import org.eclipse.microprofile.reactive.messaging.Emitter;
 import org.eclipse.microprofile.reactive.messaging.Message;
+import org.slopewatch.rules.Alert;
 
 /**
  * Sends each alert on the outgoing messaging channel {@code alerts-out} as a CloudEvents 1.0

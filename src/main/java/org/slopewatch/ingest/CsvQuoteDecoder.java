@@ -11,6 +11,12 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.slopewatch.curve.YieldUnit;
+import org.slopewatch.history.HistoryCsvReader;
+import org.slopewatch.history.HistoryFormatException;
+import org.slopewatch.pipeline.QuoteBatch;
+import org.slopewatch.pipeline.QuoteMessage;
+import org.slopewatch.pipeline.Reject;
+import org.slopewatch.pipeline.RejectReason;
 
 /**
  * Decodes a CSV body in the replay's layouts ({@link HistoryCsvReader}) into a {@link QuoteBatch},

@@ -21,6 +21,10 @@ import java.util.TreeMap;
 import org.slopewatch.curve.BillConversion;
 import org.slopewatch.curve.Tenor;
 import org.slopewatch.curve.YieldUnit;
+import org.slopewatch.pipeline.QuoteBatch;
+import org.slopewatch.pipeline.QuoteMessage;
+import org.slopewatch.pipeline.Reject;
+import org.slopewatch.pipeline.RejectReason;
 import org.slopewatch.text.Excerpt;
 import org.slopewatch.text.FieldText;
 

@@ -1,6 +1,8 @@
 package org.slopewatch.ingest;
 
 import java.util.concurrent.CompletionStage;
+import org.slopewatch.pipeline.BatchOutcome;
+import org.slopewatch.pipeline.QuoteBatch;
 
 /** Where HTTP and the demo feed hand their decoded quotes: the {@code quotes} channel, directly or through the topic. */
 public interface QuoteGateway {

@@ -18,20 +18,21 @@ final class DeliveryAsOf {
      * @param alert    its notice (the outbox row was written with it, in the same transaction)
      * @param attempts the delivery's attempts recorded by the moment asked about, in order
      */
-    static AlertStore.Delivery at(AlertStore.Delivery now, AlertStore.StoredAlert alert, List<AlertStore.StoredAttempt> attempts) {
-        if (now.status() == AlertStore.Status.SKIPPED) {
+    static DeliveryOutbox.Delivery at(DeliveryOutbox.Delivery now, AlertHistory.StoredAlert alert,
+                                      List<DeliveryAttempts.StoredAttempt> attempts) {
+        if (now.status() == DeliveryOutbox.Status.SKIPPED) {
             return now; // skipped when written and never attempted: it has always looked like this
         }
-        AlertStore.Status status = AlertStore.Status.PENDING;
+        DeliveryOutbox.Status status = DeliveryOutbox.Status.PENDING;
         Instant next = alert.alert().createdAt(); // a new delivery is due at once
         Instant first = null;
         String detail = null;
         Instant updated = alert.recordedAt();
-        for (AlertStore.StoredAttempt a : attempts) {
+        for (DeliveryAttempts.StoredAttempt a : attempts) {
             status = switch (a.outcome()) {
-                case "delivered" -> AlertStore.Status.DELIVERED;
-                case "failed" -> AlertStore.Status.FAILED;
-                default -> AlertStore.Status.PENDING;
+                case "delivered" -> DeliveryOutbox.Status.DELIVERED;
+                case "failed" -> DeliveryOutbox.Status.FAILED;
+                default -> DeliveryOutbox.Status.PENDING;
             };
             // the journal keeps the time of the next try only for the latest state of the row
             next = null;
@@ -39,6 +40,6 @@ final class DeliveryAsOf {
             detail = a.decision();
             updated = a.recordedAt();
         }
-        return new AlertStore.Delivery(now.alertId(), now.channel(), status, attempts.size(), next, first, detail, updated);
+        return new DeliveryOutbox.Delivery(now.alertId(), now.channel(), status, attempts.size(), next, first, detail, updated);
     }
 }

@@ -2,7 +2,7 @@ package org.slopewatch.journal;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.slopewatch.delivery.Alert;
+import org.slopewatch.rules.Alert;
 
 /**
  * An alert's facts in one text column: one {@code label<TAB>value} pair per line. Tabs and line

@@ -73,19 +73,49 @@ public class JournalBeans {
 
     @Produces
     @Singleton
-    AlertStore alertStore(AgroalDataSource ds, Clock clock) {
-        return new AlertStore(ds, clock);
+    AlertHistory alertHistory(AgroalDataSource ds) {
+        return new AlertHistory(ds);
     }
 
     @Produces
     @Singleton
-    NewestAlerts newestAlerts(AgroalDataSource ds, AlertStore store) {
-        return new NewestAlerts(ds, store);
+    DeliveryOutbox deliveryOutbox(AgroalDataSource ds, Clock clock) {
+        return new DeliveryOutbox(ds, clock);
     }
 
     @Produces
     @Singleton
-    TimelineRows timelineRows(AgroalDataSource ds, AlertStore store) {
-        return new TimelineRows(ds, store);
+    DeliveryAttempts deliveryAttempts(AgroalDataSource ds) {
+        return new DeliveryAttempts(ds);
+    }
+
+    @Produces
+    @Singleton
+    Acknowledgements acknowledgements(AgroalDataSource ds, Clock clock) {
+        return new Acknowledgements(ds, clock);
+    }
+
+    @Produces
+    @Singleton
+    MuteBook muteBook(AgroalDataSource ds, Clock clock) {
+        return new MuteBook(ds, clock);
+    }
+
+    @Produces
+    @Singleton
+    PolicyVersions policyVersions(AgroalDataSource ds, Clock clock) {
+        return new PolicyVersions(ds, clock);
+    }
+
+    @Produces
+    @Singleton
+    NewestAlerts newestAlerts(AgroalDataSource ds) {
+        return new NewestAlerts(ds);
+    }
+
+    @Produces
+    @Singleton
+    TimelineRows timelineRows(AgroalDataSource ds) {
+        return new TimelineRows(ds);
     }
 }

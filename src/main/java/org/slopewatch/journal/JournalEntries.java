@@ -6,11 +6,11 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.SortedMap;
 import org.slopewatch.curve.Tenor;
-import org.slopewatch.delivery.Alert;
 import org.slopewatch.monitor.Observation;
 import org.slopewatch.monitor.Revision;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.Transition;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.spread.SpreadKey;
 
 /**

@@ -51,12 +51,12 @@ public final class JournalReader {
         }
     }
 
-    /** Rows a cursor reads before handing them on: enough for few round trips, few enough to keep memory flat. */
-
     private final DataSource dataSource;
+    private final JournalSql sql;
 
     public JournalReader(DataSource dataSource) {
         this.dataSource = dataSource;
+        this.sql = new JournalSql(dataSource);
     }
 
     /** True when the journal answers a trivial query. */
@@ -358,7 +358,7 @@ public final class JournalReader {
         return out;
     }
 
-    private void stream(String sql, JournalCursor.Binder binder, JournalCursor.Cursor cursor, String what) throws IOException {
-        JournalCursor.stream(dataSource, sql, binder, cursor, what);
+    private void stream(String query, JournalSql.Binder binder, JournalSql.Cursor cursor, String what) throws IOException {
+        sql.stream(query, binder, cursor, what);
     }
 }

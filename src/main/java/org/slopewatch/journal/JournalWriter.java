@@ -26,7 +26,7 @@ public final class JournalWriter {
     /** Commits between two compactions of an embedded H2 journal's file ({@link JournalCompaction}). */
     public static final int COMPACT_EVERY = 50;
 
-    private final DataSource dataSource;
+    private final JournalSql sql;
     private final Clock clock;
     private final JournalCompaction compaction;
 
@@ -36,7 +36,7 @@ public final class JournalWriter {
 
     /** @param compactEvery commits between two compactions of an embedded H2 journal's file; 0 never (for measurements) */
     public JournalWriter(DataSource dataSource, Clock clock, int compactEvery) {
-        this.dataSource = dataSource;
+        this.sql = new JournalSql(dataSource);
         this.clock = clock;
         this.compaction = new JournalCompaction(compactEvery);
     }
@@ -46,24 +46,15 @@ public final class JournalWriter {
             return;
         }
         Timestamp now = Timestamp.from(Instant.now(clock));
-        try (Connection c = dataSource.getConnection()) {
-            c.setAutoCommit(false);
-            try {
-                quotes(c, e, now);
-                rejects(c, e, now);
-                observations(c, e, now);
-                conclusions(c, e.conclusions, now);
-                AlertStore.insert(c, e.alerts, now);
-                JournalDurability.commit(c);
-            } catch (SQLException | RuntimeException ex) {
-                c.rollback();
-                throw ex;
-            }
-            compaction.afterCommit(c);
-        } catch (SQLException ex) {
-            throw new JournalException("cannot write " + e.quotes.size() + " quotes, " + e.transitionCount
-                    + " transitions and " + e.alerts.size() + " alerts to the journal", ex);
-        }
+        sql.transaction(c -> {
+            quotes(c, e, now);
+            rejects(c, e, now);
+            observations(c, e, now);
+            conclusions(c, e.conclusions, now);
+            AlertRows.insert(c, e.alerts, now);
+            return null;
+        }, compaction::afterCommit, () -> e.quotes.size() + " quotes, " + e.transitionCount + " transitions and " + e.alerts.size()
+                + " alerts");
     }
 
     private static void quotes(Connection c, JournalEntries e, Timestamp now) throws SQLException {

@@ -1,9 +1,5 @@
 package org.slopewatch.journal;
 
-import java.sql.Connection;
-import java.sql.PreparedStatement;
-import java.sql.ResultSet;
-import java.sql.SQLException;
 import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.LinkedHashMap;
@@ -22,12 +18,12 @@ public final class NewestAlerts {
     public record Position(Instant createdAt, String id) {
     }
 
-    private final DataSource dataSource;
-    private final AlertStore store;
+    private final JournalSql sql;
+    private final AlertViews views;
 
-    public NewestAlerts(DataSource dataSource, AlertStore store) {
-        this.dataSource = dataSource;
-        this.store = store;
+    public NewestAlerts(DataSource dataSource) {
+        this.sql = new JournalSql(dataSource);
+        this.views = new AlertViews(sql, new DeliveryAttempts(dataSource));
     }
 
     /**
@@ -35,12 +31,12 @@ public final class NewestAlerts {
      * {@code after} (null: from the newest), with their deliveries and acknowledgements as they
      * stood then.
      */
-    public List<AlertStore.AlertView> page(int limit, Instant asOf, Position after) {
-        String sql = "SELECT " + AlertStore.ALERT_COLUMNS + " FROM alert a WHERE 1 = 1" + (asOf == null ? "" : " AND a.recorded_at <= ?")
+    public List<AlertHistory.AlertView> page(int limit, Instant asOf, Position after) {
+        String query = "SELECT " + AlertRows.ALERT_COLUMNS + " FROM alert a WHERE 1 = 1" + (asOf == null ? "" : " AND a.recorded_at <= ?")
                 + (after == null ? "" : " AND (a.created_at < ? OR (a.created_at = ? AND a.id < ?))")
                 + " ORDER BY a.created_at DESC, a.id DESC";
-        Map<String, AlertStore.StoredAlert> alerts = new LinkedHashMap<>();
-        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
+        Map<String, AlertHistory.StoredAlert> alerts = new LinkedHashMap<>();
+        sql.query(query, s -> {
             int i = 1;
             if (asOf != null) {
                 s.setTimestamp(i++, Timestamp.from(asOf));
@@ -50,16 +46,10 @@ public final class NewestAlerts {
                 s.setTimestamp(i++, Timestamp.from(after.createdAt()));
                 s.setString(i, after.id());
             }
-            s.setMaxRows(limit);
-            try (ResultSet rs = s.executeQuery()) {
-                while (rs.next()) {
-                    AlertStore.StoredAlert a = AlertStore.alert(rs);
-                    alerts.put(a.alert().id(), a);
-                }
-            }
-        } catch (SQLException e) {
-            throw new JournalException("cannot read alerts from the journal", e);
-        }
-        return store.views(alerts, asOf);
+        }, limit, rs -> {
+            AlertHistory.StoredAlert a = AlertRows.alert(rs);
+            alerts.put(a.alert().id(), a);
+        }, "alerts");
+        return views.of(alerts, asOf);
     }
 }

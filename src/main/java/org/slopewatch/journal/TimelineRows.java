@@ -1,9 +1,7 @@
 package org.slopewatch.journal;
 
-import java.sql.Connection;
 import java.sql.Date;
 import java.sql.PreparedStatement;
-import java.sql.ResultSet;
 import java.sql.SQLException;
 import java.sql.Timestamp;
 import java.time.Instant;
@@ -50,15 +48,15 @@ public final class TimelineRows {
     }
 
     /** An acknowledgement and its row id, which orders acknowledgements recorded at the same moment. */
-    private record AckRow(AlertStore.Ack ack, long id) {
+    private record AckRow(AlertHistory.Ack ack, long id) {
     }
 
-    private final DataSource dataSource;
-    private final AlertStore store;
+    private final JournalSql sql;
+    private final AlertViews views;
 
-    public TimelineRows(DataSource dataSource, AlertStore store) {
-        this.dataSource = dataSource;
-        this.store = store;
+    public TimelineRows(DataSource dataSource) {
+        this.sql = new JournalSql(dataSource);
+        this.views = new AlertViews(sql, new DeliveryAttempts(dataSource));
     }
 
     /** Computed spread values, each marked standing unless a later value for its spread and date was recorded by the range's moment. */
@@ -76,14 +74,14 @@ public final class TimelineRows {
             params.add(range.asOf());
         }
         // the same rule as JournalReader.observations: a value stands until a row with a higher id replaces it
-        String sql = "SELECT o.id, o.spread_id, o.market_date, o.value_bp, o.seq, o.recorded_at, CASE WHEN EXISTS (SELECT 1 FROM observation n "
+        String query = "SELECT o.id, o.spread_id, o.market_date, o.value_bp, o.seq, o.recorded_at, CASE WHEN EXISTS (SELECT 1 FROM observation n "
                 + "WHERE n.spread_id = o.spread_id AND n.market_date = o.market_date AND n.id > o.id"
                 + (range.asOf() == null ? "" : " AND n.recorded_at <= ?") + ") THEN 0 ELSE 1 END FROM observation o "
                 + "WHERE o.market_date >= ? AND o.market_date <= ?" + (range.spreadId() == null ? "" : " AND o.spread_id = ?")
                 + (range.asOf() == null ? "" : " AND o.recorded_at <= ?") + after("o", Kind.OBSERVATION, after, params)
                 + " ORDER BY o.recorded_at, o.id";
         List<Row<JournalReader.StoredObservation>> out = new ArrayList<>();
-        query(sql, s -> bind(s, 1, params), limit, rs -> {
+        sql.query(query, s -> bind(s, 1, params), limit, rs -> {
             var o = new JournalReader.StoredObservation(rs.getLong(1), rs.getString(2), rs.getDate(3).toLocalDate(), rs.getDouble(4),
                     rs.getLong(5), rs.getInt(7) == 1, rs.getTimestamp(6).toInstant());
             out.add(new Row<>(o, Position.of(o.recordedAt(), Kind.OBSERVATION, o.id())));
@@ -94,9 +92,9 @@ public final class TimelineRows {
     /** Transitions, superseded ones included and marked as of the range's moment. */
     public List<Row<JournalReader.StoredTransition>> transitions(JournalRange range, Position after, int limit) {
         List<Object> params = new ArrayList<>();
-        String sql = JournalReader.transitionSql(range, true, after("t", Kind.TRANSITION, after, params), "t.recorded_at, t.id");
+        String query = JournalReader.transitionSql(range, true, after("t", Kind.TRANSITION, after, params), "t.recorded_at, t.id");
         List<Row<JournalReader.StoredTransition>> out = new ArrayList<>();
-        query(sql, s -> bind(s, JournalReader.bindTransitions(s, range, true), params), limit, rs -> {
+        sql.query(query, s -> bind(s, JournalReader.bindTransitions(s, range, true), params), limit, rs -> {
             var t = JournalReader.transition(rs, range.asOf());
             out.add(new Row<>(t, Position.of(t.recordedAt(), Kind.TRANSITION, t.id())));
         }, "transitions");
@@ -104,50 +102,48 @@ public final class TimelineRows {
     }
 
     /** Notices about the range's subject, with their deliveries as they stood at the range's moment. */
-    public List<Row<AlertStore.AlertView>> alerts(JournalRange range, Position after, int limit) {
+    public List<Row<AlertHistory.AlertView>> alerts(JournalRange range, Position after, int limit) {
         List<Object> params = new ArrayList<>();
-        String sql = "SELECT " + AlertStore.ALERT_COLUMNS + " FROM alert a WHERE " + AlertStore.alertFilter(range)
+        String query = "SELECT " + AlertRows.ALERT_COLUMNS + " FROM alert a WHERE " + AlertHistory.filter(range)
                 + after("a", Kind.ALERT, after, params) + " ORDER BY a.recorded_at, a.created_at, a.id";
-        Map<String, AlertStore.StoredAlert> alerts = new LinkedHashMap<>();
-        query(sql, s -> bind(s, range.bind(s), params), limit, rs -> {
-            AlertStore.StoredAlert a = AlertStore.alert(rs);
+        Map<String, AlertHistory.StoredAlert> alerts = new LinkedHashMap<>();
+        sql.query(query, s -> bind(s, range.bind(s), params), limit, rs -> {
+            AlertHistory.StoredAlert a = AlertRows.alert(rs);
             alerts.put(a.alert().id(), a);
         }, "alerts");
-        return store.views(alerts, range.asOf()).stream().map(v -> new Row<>(v,
+        return views.of(alerts, range.asOf()).stream().map(v -> new Row<>(v,
                 Position.ofAlert(v.stored().recordedAt(), v.stored().alert().createdAt(), v.stored().alert().id()))).toList();
     }
 
     /** Delivery attempts of the notices of the range, recorded by its moment. */
-    public List<Row<AlertStore.StoredAttempt>> attempts(JournalRange range, Position after, int limit) {
+    public List<Row<DeliveryAttempts.StoredAttempt>> attempts(JournalRange range, Position after, int limit) {
         List<Object> params = new ArrayList<>();
         if (range.asOf() != null) {
             params.add(range.asOf());
         }
-        String sql = "SELECT x.id, x.alert_id, x.channel, x.attempt, x.outcome, x.detail, x.decision, x.attempted_at, x.recorded_at "
-                + "FROM delivery_attempt x JOIN alert a ON a.id = x.alert_id WHERE " + AlertStore.alertFilter(range)
-                + (range.asOf() == null ? "" : " AND x.recorded_at <= ?") + after("x", Kind.ATTEMPT, after, params)
+        String query = "SELECT " + DeliveryAttempts.STORED_COLUMNS + " FROM delivery_attempt x JOIN alert a ON a.id = x.alert_id WHERE "
+                + AlertHistory.filter(range) + (range.asOf() == null ? "" : " AND x.recorded_at <= ?") + after("x", Kind.ATTEMPT, after, params)
                 + " ORDER BY x.recorded_at, x.id";
-        List<Row<AlertStore.StoredAttempt>> out = new ArrayList<>();
-        query(sql, s -> bind(s, range.bind(s), params), limit, rs -> {
-            var a = new AlertStore.StoredAttempt(rs.getLong(1), rs.getString(2), rs.getString(3), rs.getInt(4), rs.getString(5),
-                    rs.getString(6), rs.getString(7), instant(rs, 8), instant(rs, 9));
+        List<Row<DeliveryAttempts.StoredAttempt>> out = new ArrayList<>();
+        sql.query(query, s -> bind(s, range.bind(s), params), limit, rs -> {
+            DeliveryAttempts.StoredAttempt a = DeliveryAttempts.stored(rs);
             out.add(new Row<>(a, Position.of(a.recordedAt(), Kind.ATTEMPT, a.id())));
         }, "delivery attempts");
         return out;
     }
 
     /** Acknowledgements of the notices of the range, recorded by its moment. */
-    public List<Row<AlertStore.Ack>> acks(JournalRange range, Position after, int limit) {
+    public List<Row<AlertHistory.Ack>> acks(JournalRange range, Position after, int limit) {
         List<Object> params = new ArrayList<>();
         if (range.asOf() != null) {
             params.add(range.asOf());
         }
-        String sql = "SELECT k.alert_id, k.acked_by, k.note, k.recorded_at, k.id FROM alert_ack k JOIN alert a ON a.id = k.alert_id WHERE "
-                + AlertStore.alertFilter(range) + (range.asOf() == null ? "" : " AND k.recorded_at <= ?") + after("k", Kind.ACK, after, params)
+        // the columns AlertViews reads an acknowledgement from, then the row id
+        String query = "SELECT k.alert_id, k.acked_by, k.note, k.recorded_at, k.id FROM alert_ack k JOIN alert a ON a.id = k.alert_id WHERE "
+                + AlertHistory.filter(range) + (range.asOf() == null ? "" : " AND k.recorded_at <= ?") + after("k", Kind.ACK, after, params)
                 + " ORDER BY k.recorded_at, k.id";
         List<AckRow> rows = new ArrayList<>();
-        query(sql, s -> bind(s, range.bind(s), params), limit,
-                rs -> rows.add(new AckRow(new AlertStore.Ack(rs.getString(1), rs.getString(2), rs.getString(3), instant(rs, 4)), rs.getLong(5))),
+        sql.query(query, s -> bind(s, range.bind(s), params), limit, rs -> rows.add(new AckRow(AlertViews.ack(rs), rs.getLong(5))),
                 "acknowledgements");
         return rows.stream().map(r -> new Row<>(r.ack(), Position.of(r.ack().at(), Kind.ACK, r.id()))).toList();
     }
@@ -193,34 +189,5 @@ public final class TimelineRows {
             }
         }
         return i;
-    }
-
-    private static Instant instant(ResultSet rs, int column) throws SQLException {
-        Timestamp t = rs.getTimestamp(column);
-        return t == null ? null : t.toInstant();
-    }
-
-    @FunctionalInterface
-    private interface Binder {
-        void bind(PreparedStatement s) throws SQLException;
-    }
-
-    @FunctionalInterface
-    private interface RowHandler {
-        void row(ResultSet rs) throws SQLException;
-    }
-
-    private void query(String sql, Binder binder, int limit, RowHandler handler, String what) {
-        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
-            binder.bind(s);
-            s.setMaxRows(limit);
-            try (ResultSet rs = s.executeQuery()) {
-                while (rs.next()) {
-                    handler.row(rs);
-                }
-            }
-        } catch (SQLException e) {
-            throw new JournalException("cannot read " + what + " from the journal", e);
-        }
     }
 }

@@ -6,6 +6,7 @@ import java.util.Locale;
 import org.eclipse.microprofile.health.HealthCheck;
 import org.eclipse.microprofile.health.HealthCheckResponse;
 import org.eclipse.microprofile.health.HealthCheckResponseBuilder;
+import org.slopewatch.pipeline.FeedFreshness;
 
 /**
  * Feed freshness per watched curve: DOWN when a curve has had no accepted quote for more than the

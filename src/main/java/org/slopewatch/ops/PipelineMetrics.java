@@ -13,12 +13,12 @@ import java.util.Map;
 import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
 import org.slopewatch.alerting.PolicyHolder;
-import org.slopewatch.ingest.PipelineListener;
-import org.slopewatch.ingest.RejectReason;
 import org.slopewatch.monitor.SpreadState;
 import org.slopewatch.monitor.SpreadStatus;
-import org.slopewatch.probability.LiveProbability;
 import org.slopewatch.monitor.Transition;
+import org.slopewatch.pipeline.PipelineListener;
+import org.slopewatch.pipeline.RejectReason;
+import org.slopewatch.probability.LiveProbability;
 
 /**
  * The pipeline's metrics, under {@code slopewatch.}: quotes accepted, rejected by reason and

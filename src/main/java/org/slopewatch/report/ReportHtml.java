@@ -13,6 +13,7 @@ import org.slopewatch.monitor.PersistenceTest;
 import org.slopewatch.probability.LeadTime;
 import org.slopewatch.probability.Recession;
 import org.slopewatch.replay.SpreadReport;
+import org.slopewatch.text.Html;
 
 /**
  * Writes a {@link ReportDocument} as one HTML page that needs nothing else: the style sheet is

@@ -32,6 +32,7 @@ import org.jfree.svg.ViewBox;
 import org.slopewatch.monitor.SpreadState;
 import org.slopewatch.probability.Recession;
 import org.slopewatch.replay.SpreadReport;
+import org.slopewatch.text.Html;
 
 /**
  * Draws one spread over time as inline SVG: the value in bp with a zero line, inverted spells

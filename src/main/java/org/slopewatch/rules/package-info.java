@@ -9,6 +9,8 @@
  * model; any text, however hostile, is answered with a policy or such problems, never another
  * exception, and nothing in it is evaluated; the answer stays small whatever the text (limits on
  * length, nesting and expansion through aliases, quoted values as excerpts, at most a hundred
- * problems listed). Plain Java and a YAML reader only.
+ * problems listed); a persistence test is read by {@link org.slopewatch.rules.PersistenceForms}
+ * whichever way it is written, in a policy or on replay's command line, so it means the same and is
+ * refused in the same words. Plain Java and a YAML reader only.
  */
 package org.slopewatch.rules;

@@ -4,7 +4,7 @@ import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Set;
 import java.util.TreeSet;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertColumns;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.rules.AlertRule;
 import org.slopewatch.rules.Policy;
@@ -14,7 +14,7 @@ import org.slopewatch.text.FieldText;
 
 /**
  * What a mute, a mute's lift and an acknowledgement must satisfy before anything is kept: every
- * text fits its journal column ({@link AlertStore#BY_CHARS} and the like) and holds no control
+ * text fits its journal column ({@link AlertColumns#BY_CHARS} and the like) and holds no control
  * character ({@link FieldText}), and what a mute names exists in the policy in force, so that a
  * typo is an error rather than a mute of nothing. Each check answers with what is wrong, or null.
  *
@@ -24,10 +24,10 @@ record AlertRequests(Policy policy, Set<String> curves) {
 
     /** The problem with a mute, or null; {@code rule} and {@code spread} stripped, exactly one of them given. */
     String mute(String rule, String spread, String reason, String by) {
-        String problem = first(FieldText.problem("by", by, AlertStore.BY_CHARS),
-                FieldText.problem("reason", reason, AlertStore.REASON_CHARS),
-                FieldText.problem("rule", rule, AlertStore.TARGET_CHARS),
-                FieldText.problem("spread", spread, AlertStore.TARGET_CHARS));
+        String problem = first(FieldText.problem("by", by, AlertColumns.BY_CHARS),
+                FieldText.problem("reason", reason, AlertColumns.REASON_CHARS),
+                FieldText.problem("rule", rule, AlertColumns.TARGET_CHARS),
+                FieldText.problem("spread", spread, AlertColumns.TARGET_CHARS));
         if (problem != null) {
             return problem;
         }
@@ -36,12 +36,12 @@ record AlertRequests(Policy policy, Set<String> curves) {
 
     /** The problem with an acknowledgement, or null. */
     static String ack(String by, String note) {
-        return first(FieldText.problem("by", by, AlertStore.BY_CHARS), FieldText.problem("note", note, AlertStore.NOTE_CHARS));
+        return first(FieldText.problem("by", by, AlertColumns.BY_CHARS), FieldText.problem("note", note, AlertColumns.NOTE_CHARS));
     }
 
     /** The problem with who lifts a mute, or null. */
     static String lift(String by) {
-        return FieldText.problem("by", by, AlertStore.BY_CHARS);
+        return FieldText.problem("by", by, AlertColumns.BY_CHARS);
     }
 
     private String knownRule(String rule) {

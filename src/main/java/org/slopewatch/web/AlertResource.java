@@ -25,11 +25,13 @@ import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.jboss.resteasy.reactive.RestResponse;
 import org.slopewatch.alerting.AlertDesk;
 import org.slopewatch.alerting.PolicyHolder;
-import org.slopewatch.alerting.PolicyReloader;
-import org.slopewatch.delivery.Alert;
 import org.slopewatch.ingest.IngestRules;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
+import org.slopewatch.journal.DeliveryAttempts;
+import org.slopewatch.journal.MuteBook;
 import org.slopewatch.journal.NewestAlerts;
+import org.slopewatch.pipeline.PolicyReloader;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertEngine;
 import org.slopewatch.text.Excerpt;
 
@@ -46,7 +48,8 @@ public class AlertResource {
     private static final Duration LONGEST_MUTE = Duration.ofDays(90);
 
     private final AlertDesk desk;
-    private final AlertStore store;
+    private final AlertHistory store;
+    private final DeliveryAttempts deliveryAttempts;
     private final NewestAlerts newest;
     private final PolicyReloader reloader;
     private final Clock clock;
@@ -54,10 +57,11 @@ public class AlertResource {
     private final PolicyHolder policies;
     private final IngestRules ingest;
 
-    AlertResource(AlertDesk desk, AlertStore store, NewestAlerts newest, PolicyReloader reloader, Clock clock, RuleSetAt ruleSets,
-                  PolicyHolder policies, IngestRules ingest) {
+    AlertResource(AlertDesk desk, AlertHistory store, DeliveryAttempts deliveryAttempts, NewestAlerts newest, PolicyReloader reloader,
+                  Clock clock, RuleSetAt ruleSets, PolicyHolder policies, IngestRules ingest) {
         this.desk = desk;
         this.store = store;
+        this.deliveryAttempts = deliveryAttempts;
         this.newest = newest;
         this.reloader = reloader;
         this.clock = clock;
@@ -84,7 +88,7 @@ public class AlertResource {
                             String title, String text, List<Alert.Fact> facts, String dashboard, String mutedBy, String policyHash,
                             Instant createdAt, List<DeliveryView> deliveries, List<AckView> acks) {
 
-        static AlertView of(AlertStore.AlertView v) {
+        static AlertView of(AlertHistory.AlertView v) {
             Alert a = v.stored().alert();
             return new AlertView(a.id(), a.rule(), a.severity().name(), a.kind().name(), v.stored().subject(),
                     a.marketDate() == null ? null : a.marketDate().toString(), a.state(), a.subject(), a.text(), a.facts(), a.dashboard(),
@@ -105,7 +109,7 @@ public class AlertResource {
     }
 
     /** One alert with every delivery attempt, for a post-mortem. */
-    public record AlertDetail(AlertView alert, List<AlertStore.Attempt> attempts) {
+    public record AlertDetail(AlertView alert, List<DeliveryAttempts.Attempt> attempts) {
     }
 
     public record AckRequest(String by, String note) {
@@ -115,7 +119,7 @@ public class AlertResource {
     public record MuteView(long id, String kind, String target, Instant until, String reason, String by, Instant createdAt,
                            boolean active) {
 
-        static MuteView of(AlertStore.Mute m, Instant now) {
+        static MuteView of(MuteBook.Mute m, Instant now) {
             return new MuteView(m.id(), m.kind(), m.target(), m.until(), m.reason(), m.by(), m.createdAt(), m.activeAt(now));
         }
     }
@@ -132,7 +136,7 @@ public class AlertResource {
                                        @QueryParam("after") String after, @Context UriInfo uri) {
         Instant at = QueryParams.asOf(asOf);
         int n = Paging.limit(limit, ALERTS_BY_DEFAULT, MAX_ALERTS);
-        Paging.Page<AlertStore.AlertView> page = Paging.Page.of(newest.page(n + 1, at, Cursors.alert(after)), n, Cursors::alert);
+        Paging.Page<AlertHistory.AlertView> page = Paging.Page.of(newest.page(n + 1, at, Cursors.alert(after)), n, Cursors::alert);
         List<AlertView> items = page.items().stream().map(AlertView::of).toList();
         String next = Paging.next(uri, page);
         if (at != null) {
@@ -154,9 +158,9 @@ public class AlertResource {
     @Path("/alerts/{id}")
     @Operation(summary = "One alert with its deliveries, acknowledgements and every delivery attempt")
     public Response alert(@PathParam("id") String id) {
-        AlertStore.AlertView v = store.find(id);
+        AlertHistory.AlertView v = store.find(id);
         return v == null ? error(Response.Status.NOT_FOUND, "no alert " + Excerpt.of(id))
-                : Response.ok(new AlertDetail(AlertView.of(v), store.attempts(id))).build();
+                : Response.ok(new AlertDetail(AlertView.of(v), deliveryAttempts.attempts(id))).build();
     }
 
     @POST
@@ -235,7 +239,7 @@ public class AlertResource {
         if (until == null || !until.isAfter(now) || until.isAfter(now.plus(LONGEST_MUTE))) {
             return error(Response.Status.BAD_REQUEST, "a mute must end in the future and within " + LONGEST_MUTE.toDays() + " days");
         }
-        AlertStore.Mute m = rule != null ? desk.mute("rule", rule, until, reason, by) : desk.mute("spread", spread, until, reason, by);
+        MuteBook.Mute m = rule != null ? desk.mute("rule", rule, until, reason, by) : desk.mute("spread", spread, until, reason, by);
         // answered as kept, so that it reads the same as from its Location (the journal keeps instants to the microsecond)
         return Response.created(UriBuilder.fromPath("/api/mutes/{id}").build(m.id())).entity(MuteView.of(kept(m.id()).orElse(m), now))
                 .build();
@@ -265,7 +269,7 @@ public class AlertResource {
     }
 
     /** A mute as the desk keeps it (all of them, read back from the journal after each change). */
-    private Optional<AlertStore.Mute> kept(long id) {
+    private Optional<MuteBook.Mute> kept(long id) {
         return desk.mutes().stream().filter(m -> m.id() == id).findFirst();
     }
 

@@ -6,10 +6,10 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.slopewatch.curve.CurveSnapshot;
-import org.slopewatch.delivery.Alert;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.probability.LiveProbability;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.ProbabilityModels;
 
 /** The shapes the read API returns (snake-case JSON). NaN never reaches JSON: it becomes null. */

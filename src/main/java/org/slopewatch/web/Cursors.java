@@ -5,7 +5,7 @@ import java.time.DateTimeException;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.util.Locale;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.NewestAlerts;
 import org.slopewatch.journal.TimelineRows;
@@ -75,7 +75,7 @@ final class Cursors {
     }
 
     /** Notices, newest first: creation time and id. */
-    static String alert(AlertStore.AlertView v) {
+    static String alert(AlertHistory.AlertView v) {
         return v.stored().alert().createdAt() + SEPARATOR + v.stored().alert().id();
     }
 

@@ -16,7 +16,7 @@ import java.time.LocalDate;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.eclipse.microprofile.openapi.annotations.Operation;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.RowSink;
@@ -34,11 +34,11 @@ public class ExportResource {
     static final String CSV = "text/csv; charset=utf-8; header=present";
 
     private final JournalReader journal;
-    private final AlertStore alerts;
+    private final AlertHistory alerts;
     private final RuleSetAt ruleSets;
     private final JsonFactory json;
 
-    ExportResource(JournalReader journal, AlertStore alerts, RuleSetAt ruleSets, ObjectMapper mapper) {
+    ExportResource(JournalReader journal, AlertHistory alerts, RuleSetAt ruleSets, ObjectMapper mapper) {
         this.journal = journal;
         this.alerts = alerts;
         this.ruleSets = ruleSets;

@@ -2,7 +2,7 @@ package org.slopewatch.web;
 
 import java.util.List;
 import java.util.function.Function;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalReader;
 
 /**
@@ -54,20 +54,20 @@ record ExportTable<T>(String name, List<Column<T>> columns) {
             new Column<>("superseded_by", JournalReader.StoredTransition::supersededBy),
             new Column<>("recorded_at", JournalReader.StoredTransition::recordedAt)));
 
-    static final ExportTable<AlertStore.StoredAlert> ALERTS = new ExportTable<>("alerts", List.of(
+    static final ExportTable<AlertHistory.StoredAlert> ALERTS = new ExportTable<>("alerts", List.of(
             new Column<>("id", a -> a.alert().id()),
             new Column<>("rule", a -> a.alert().rule()),
-            new Column<>("subject", AlertStore.StoredAlert::subject),
-            new Column<>("episode_since", AlertStore.StoredAlert::episodeSince),
-            new Column<>("notice", AlertStore.StoredAlert::notice),
+            new Column<>("subject", AlertHistory.StoredAlert::subject),
+            new Column<>("episode_since", AlertHistory.StoredAlert::episodeSince),
+            new Column<>("notice", AlertHistory.StoredAlert::notice),
             new Column<>("kind", a -> a.alert().kind().name()),
             new Column<>("severity", a -> a.alert().severity().name()),
             new Column<>("market_date", a -> a.alert().marketDate()),
             new Column<>("state", a -> a.alert().state()),
             new Column<>("title", a -> a.alert().subject()),
             new Column<>("text", a -> a.alert().text()),
-            new Column<>("muted_by", AlertStore.StoredAlert::mutedBy),
-            new Column<>("policy_hash", AlertStore.StoredAlert::policyHash),
+            new Column<>("muted_by", AlertHistory.StoredAlert::mutedBy),
+            new Column<>("policy_hash", AlertHistory.StoredAlert::policyHash),
             new Column<>("created_at", a -> a.alert().createdAt()),
-            new Column<>("recorded_at", AlertStore.StoredAlert::recordedAt)));
+            new Column<>("recorded_at", AlertHistory.StoredAlert::recordedAt)));
 }

@@ -1,8 +1,8 @@
 package org.slopewatch.web;
 
 import java.util.List;
-import org.slopewatch.ingest.BatchOutcome;
-import org.slopewatch.ingest.Reject;
+import org.slopewatch.pipeline.BatchOutcome;
+import org.slopewatch.pipeline.Reject;
 
 /**
  * The answer to a quote submission.

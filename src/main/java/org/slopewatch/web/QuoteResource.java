@@ -15,10 +15,10 @@ import java.util.concurrent.TimeUnit;
 import java.util.concurrent.TimeoutException;
 import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.slopewatch.ingest.CsvQuoteDecoder;
-import org.slopewatch.ingest.IngestConfig;
-import org.slopewatch.ingest.QuoteBatch;
 import org.slopewatch.ingest.QuoteDecoder;
 import org.slopewatch.ingest.QuoteGateway;
+import org.slopewatch.pipeline.IngestConfig;
+import org.slopewatch.pipeline.QuoteBatch;
 
 /**
  * {@code POST /api/quotes}: quotes as JSON (a quote, a snapshot or an array of either) or CSV in

@@ -1,5 +1,6 @@
 package org.slopewatch.web;
 
+import jakarta.ws.rs.BadRequestException;
 import jakarta.ws.rs.DefaultValue;
 import jakarta.ws.rs.GET;
 import jakarta.ws.rs.NotFoundException;
@@ -7,7 +8,6 @@ import jakarta.ws.rs.Path;
 import jakarta.ws.rs.PathParam;
 import jakarta.ws.rs.Produces;
 import jakarta.ws.rs.QueryParam;
-import jakarta.ws.rs.BadRequestException;
 import jakarta.ws.rs.core.Context;
 import jakarta.ws.rs.core.MediaType;
 import jakarta.ws.rs.core.UriInfo;
@@ -18,11 +18,11 @@ import java.util.List;
 import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.jboss.resteasy.reactive.RestResponse;
 import org.slopewatch.alerting.PolicyHolder;
-import org.slopewatch.ingest.AsOfRebuild;
-import org.slopewatch.ingest.QuotePipeline;
 import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.pipeline.AsOfRebuild;
+import org.slopewatch.pipeline.QuotePipeline;
 import org.slopewatch.rules.ProbabilityModels;
 import org.slopewatch.spread.SpreadKey;
 import org.slopewatch.text.Excerpt;

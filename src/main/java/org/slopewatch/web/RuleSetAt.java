@@ -3,7 +3,7 @@ package org.slopewatch.web;
 import jakarta.inject.Singleton;
 import java.time.Instant;
 import org.slopewatch.alerting.PolicyHolder;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.PolicyVersions;
 
 /**
  * Which rule set was in force at a moment, named by its content hash: the last policy version
@@ -14,9 +14,9 @@ import org.slopewatch.journal.AlertStore;
 public class RuleSetAt {
 
     private final PolicyHolder policies;
-    private final AlertStore store;
+    private final PolicyVersions store;
 
-    RuleSetAt(PolicyHolder policies, AlertStore store) {
+    RuleSetAt(PolicyHolder policies, PolicyVersions store) {
         this.policies = policies;
         this.store = store;
     }

@@ -3,7 +3,8 @@ package org.slopewatch.web;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
+import org.slopewatch.journal.DeliveryAttempts;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.TimelineRows;
 
@@ -29,8 +30,9 @@ final class SpreadTimeline {
 
     static List<Entry> merge(List<TimelineRows.Row<JournalReader.StoredObservation>> observations,
                              List<TimelineRows.Row<JournalReader.StoredTransition>> transitions,
-                             List<TimelineRows.Row<AlertStore.AlertView>> alerts, List<TimelineRows.Row<AlertStore.StoredAttempt>> attempts,
-                             List<TimelineRows.Row<AlertStore.Ack>> acks) {
+                             List<TimelineRows.Row<AlertHistory.AlertView>> alerts,
+                             List<TimelineRows.Row<DeliveryAttempts.StoredAttempt>> attempts,
+                             List<TimelineRows.Row<AlertHistory.Ack>> acks) {
         List<Entry> entries = new ArrayList<>();
         observations.forEach(r -> entries.add(new Entry(TimelineItem.ObservationItem.of(r.value()), r.position())));
         transitions.forEach(r -> entries.add(new Entry(TimelineItem.TransitionItem.of(r.value()), r.position())));

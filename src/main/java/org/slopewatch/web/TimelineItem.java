@@ -3,7 +3,8 @@ package org.slopewatch.web;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.util.List;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
+import org.slopewatch.journal.DeliveryAttempts;
 import org.slopewatch.journal.JournalReader;
 
 /**
@@ -42,7 +43,7 @@ sealed interface TimelineItem permits TimelineItem.ObservationItem, TimelineItem
                      String state, String title, String mutedBy, String policyHash, Instant createdAt,
                      List<AlertResource.DeliveryView> deliveries) implements TimelineItem {
 
-        static AlertItem of(AlertStore.AlertView v) {
+        static AlertItem of(AlertHistory.AlertView v) {
             var a = v.stored().alert();
             return new AlertItem("alert", v.stored().recordedAt(), a.id(), a.rule(), a.severity().name(), a.kind().name(), a.marketDate(),
                     a.state(), a.subject(), v.stored().mutedBy(), v.stored().policyHash(), a.createdAt(),
@@ -55,7 +56,7 @@ sealed interface TimelineItem permits TimelineItem.ObservationItem, TimelineItem
     record AttemptItem(String kind, Instant recordedAt, long id, String alertId, String channel, int attempt, String outcome, String detail,
                        String decision, Instant attemptedAt) implements TimelineItem {
 
-        static AttemptItem of(AlertStore.StoredAttempt a) {
+        static AttemptItem of(DeliveryAttempts.StoredAttempt a) {
             return new AttemptItem("delivery-attempt", a.recordedAt(), a.id(), a.alertId(), a.channel(), a.attempt(), a.outcome(),
                     a.detail(), a.decision(), a.attemptedAt());
         }
@@ -64,7 +65,7 @@ sealed interface TimelineItem permits TimelineItem.ObservationItem, TimelineItem
     /** Someone acknowledged a notice. */
     record AckItem(String kind, Instant recordedAt, String alertId, String by, String note) implements TimelineItem {
 
-        static AckItem of(AlertStore.Ack k) {
+        static AckItem of(AlertHistory.Ack k) {
             return new AckItem("ack", k.at(), k.alertId(), k.by(), k.note());
         }
     }

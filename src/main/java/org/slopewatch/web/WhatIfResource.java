@@ -20,16 +20,16 @@ import java.util.Optional;
 import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.YieldUnit;
-import org.slopewatch.ingest.HistoryCsvReader;
-import org.slopewatch.ingest.HistoryFormatException;
+import org.slopewatch.history.HistoryCsvReader;
+import org.slopewatch.history.HistoryFormatException;
 import org.slopewatch.ingest.IngestRules;
 import org.slopewatch.replay.CandidatePolicy;
 import org.slopewatch.replay.SpreadFilter;
 import org.slopewatch.replay.WhatIfReport;
 import org.slopewatch.rules.PolicyException;
+import org.slopewatch.text.Excerpt;
 import org.slopewatch.whatif.WhatIfJob;
 import org.slopewatch.whatif.WhatIfJobs;
-import org.slopewatch.text.Excerpt;
 
 /**
  * {@code POST /api/what-if}: another policy's alert rules on the stored history (or on a history

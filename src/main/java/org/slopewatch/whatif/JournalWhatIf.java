@@ -3,14 +3,14 @@ package org.slopewatch.whatif;
 import java.util.EnumSet;
 import java.util.List;
 import java.util.function.LongConsumer;
-import org.slopewatch.delivery.Alert;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.replay.CandidatePolicy;
 import org.slopewatch.replay.LiveNotice;
 import org.slopewatch.replay.SpreadFilter;
 import org.slopewatch.replay.WhatIf;
 import org.slopewatch.replay.WhatIfReport;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertDecision;
 
 /**
@@ -21,9 +21,9 @@ import org.slopewatch.rules.AlertDecision;
 public final class JournalWhatIf {
 
     private final JournalReader reader;
-    private final AlertStore alerts;
+    private final AlertHistory alerts;
 
-    public JournalWhatIf(JournalReader reader, AlertStore alerts) {
+    public JournalWhatIf(JournalReader reader, AlertHistory alerts) {
         this.reader = reader;
         this.alerts = alerts;
     }
@@ -51,7 +51,7 @@ public final class JournalWhatIf {
         return whatIf.report(source, live);
     }
 
-    private static LiveNotice live(AlertStore.StoredAlert a) {
+    private static LiveNotice live(AlertHistory.StoredAlert a) {
         Alert alert = a.alert();
         // a notice about a feed has no market date; its episode date stands in (feed notices are not compared)
         return new LiveNotice(alert.rule(), a.subject(), AlertDecision.Notice.valueOf(alert.kind().name()), a.episodeSince(),

@@ -16,7 +16,7 @@ import java.util.concurrent.ThreadPoolExecutor;
 import java.util.concurrent.TimeUnit;
 import org.jboss.logging.Logger;
 import org.slopewatch.curve.CurveSnapshot;
-import org.slopewatch.journal.AlertStore;
+import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.replay.CandidatePolicy;
 import org.slopewatch.replay.SpreadFilter;
@@ -44,7 +44,7 @@ public class WhatIfJobs {
     private final ThreadPoolExecutor worker;
     private final Map<String, WhatIfJob> jobs = new LinkedHashMap<>();
 
-    WhatIfJobs(JournalReader reader, AlertStore alerts, Clock clock) {
+    WhatIfJobs(JournalReader reader, AlertHistory alerts, Clock clock) {
         this.journal = new JournalWhatIf(reader, alerts);
         this.clock = clock;
         this.worker = new ThreadPoolExecutor(1, 1, 0, TimeUnit.MILLISECONDS, new ArrayBlockingQueue<>(QUEUE), r -> {

@@ -18,8 +18,8 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.ingest.IngestRules;
-import org.slopewatch.ingest.QuoteBatch;
 import org.slopewatch.ingest.QuoteDecoder;
+import org.slopewatch.pipeline.QuoteBatch;
 
 /**
  * Sustained ingest over HTTP batches with the journal on, against a running daemon, next to a

@@ -6,8 +6,8 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
-import org.slopewatch.ingest.HistoryCsvReader;
-import org.slopewatch.ingest.HistoryFormatException;
+import org.slopewatch.history.HistoryCsvReader;
+import org.slopewatch.history.HistoryFormatException;
 
 /**
  * The end-to-end baseline of the replay benchmark: a process that parses a history file as

@@ -9,13 +9,13 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.stream.Stream;
-import org.slopewatch.ingest.PipelineListener;
-import org.slopewatch.ingest.QuoteBatch;
-import org.slopewatch.ingest.QuoteMessage;
-import org.slopewatch.ingest.QuotePipeline;
 import org.slopewatch.journal.JournalDatabase;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
+import org.slopewatch.pipeline.PipelineListener;
+import org.slopewatch.pipeline.QuoteBatch;
+import org.slopewatch.pipeline.QuoteMessage;
+import org.slopewatch.pipeline.QuotePipeline;
 
 /**
  * Builds a journal for the scale benchmark the way the daemon writes one: the {@link QuotePipeline}

@@ -6,11 +6,11 @@ import java.lang.management.ThreadMXBean;
 import java.nio.file.Path;
 import java.time.Clock;
 import java.util.Locale;
-import org.slopewatch.ingest.PipelineListener;
-import org.slopewatch.ingest.QuotePipeline;
 import org.slopewatch.journal.JournalDatabase;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
+import org.slopewatch.pipeline.PipelineListener;
+import org.slopewatch.pipeline.QuotePipeline;
 
 /**
  * Where recovery spends its time, in one JVM on a journal {@link ScaleJournalBuilder} wrote:

@@ -7,8 +7,8 @@ import java.util.List;
 import java.util.Random;
 import java.util.TreeMap;
 import org.slopewatch.curve.Tenor;
-import org.slopewatch.ingest.QuoteMessage;
 import org.slopewatch.monitor.Watch;
+import org.slopewatch.pipeline.QuoteMessage;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyParser;
 

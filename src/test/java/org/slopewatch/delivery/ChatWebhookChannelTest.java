@@ -8,6 +8,7 @@ import java.time.Duration;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
+import org.slopewatch.rules.Alert;
 
 /** The chat webhook against a real HTTP server: what each answer comes to, and what the receiver gets. */
 class ChatWebhookChannelTest {

@@ -17,6 +17,8 @@ import java.util.Map;
 import java.util.TreeMap;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
+import org.slopewatch.rules.Alert;
+import org.slopewatch.rules.AlertText;
 
 /**
  * The email channel against real SMTP servers: GreenMail receives the message (and checks the

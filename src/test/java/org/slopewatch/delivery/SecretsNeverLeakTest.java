@@ -14,6 +14,7 @@ import java.util.function.Supplier;
 import org.eclipse.microprofile.reactive.messaging.Channel;
 import org.eclipse.microprofile.reactive.messaging.Emitter;
 import org.junit.jupiter.api.Test;
+import org.slopewatch.rules.Alert;
 
 /**
  * The contract every channel type must pass: given a configuration with a recognisable secret

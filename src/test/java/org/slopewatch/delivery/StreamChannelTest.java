@@ -15,6 +15,7 @@ import org.eclipse.microprofile.reactive.messaging.Message;
 import org.eclipse.microprofile.reactive.messaging.spi.Connector;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
+import org.slopewatch.rules.Alert;
 
 /** The stream channel as configured: each alert on {@code alerts-out} (in memory here) as a structured CloudEvent. */
 @QuarkusTest

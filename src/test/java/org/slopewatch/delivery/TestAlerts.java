@@ -3,6 +3,7 @@ package org.slopewatch.delivery;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.util.List;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.Severity;
 
 /** Alerts as the rule engine will make them, for the channel tests. */

@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.function.Consumer;
 import org.junit.jupiter.api.Test;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.testsupport.MutableClock;
 
 /**

@@ -28,6 +28,7 @@ import org.awaitility.Awaitility;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.delivery.TestHttpReceiver;
 import org.slopewatch.ingest.kafka.QuoteJson;
+import org.slopewatch.pipeline.QuoteMessage;
 import org.slopewatch.testsupport.DaemonProcess;
 import org.slopewatch.testsupport.JournalContents;
 import org.slopewatch.testsupport.ScenarioQuotes;

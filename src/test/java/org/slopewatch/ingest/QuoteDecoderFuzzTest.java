@@ -17,6 +17,9 @@ import java.util.List;
 import java.util.Set;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.curve.YieldBounds;
+import org.slopewatch.pipeline.QuoteBatch;
+import org.slopewatch.pipeline.QuoteMessage;
+import org.slopewatch.pipeline.Reject;
 import org.slopewatch.testsupport.Gen;
 import org.slopewatch.testsupport.PropertyCheck;
 

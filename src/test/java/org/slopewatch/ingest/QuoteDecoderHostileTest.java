@@ -12,6 +12,10 @@ import java.util.TreeMap;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.curve.Tenor;
 import org.slopewatch.curve.YieldBounds;
+import org.slopewatch.pipeline.QuoteBatch;
+import org.slopewatch.pipeline.QuoteMessage;
+import org.slopewatch.pipeline.Reject;
+import org.slopewatch.pipeline.RejectReason;
 
 /**
  * Inputs the decoder used to take in a way that lost or corrupted data, each kept as the example

@@ -58,7 +58,7 @@ class JournalDurabilityTest {
 
     /**
      * Each write returns only after the database file was forced to disk, with nothing written
-     * before it left unforced: a step's quotes, and a delivery's record (the alert store's writes).
+     * before it left unforced: a step's quotes, and a policy version (as every alert store writes, through {@link JournalSql}).
      */
     @Test
     void everyCommitIsForcedToDiskBeforeTheWriteReturns() {
@@ -66,7 +66,7 @@ class JournalDurabilityTest {
         ForceCountingFilePath.Counts counts = ForceCountingFilePath.of(file);
         try (AgroalDataSource ds = JournalDatabase.open(ForceCountingFilePath.url(file), "", "", 2)) {
             JournalWriter writer = new JournalWriter(ds, clock);
-            AlertStore alerts = new AlertStore(ds, clock);
+            PolicyVersions policies = new PolicyVersions(ds, clock);
             for (int i = 1; i <= 3; i++) {
                 long forces = counts.forces.get();
                 long writes = counts.writes.get();
@@ -79,7 +79,7 @@ class JournalDurabilityTest {
                 assertThat(counts.unforced()).as("writes of step %d not forced when the write returned", i).isZero();
             }
             long forces = counts.forces.get();
-            alerts.policyVersion("hash", "policy.yaml", "applied", null);
+            policies.policyVersion("hash", "policy.yaml", "applied", null);
             assertThat(counts.forces.get()).as("an alert store transaction forced to disk").isGreaterThan(forces);
             assertThat(counts.unforced()).as("writes of the alert store transaction not forced").isZero();
         }

@@ -3,6 +3,8 @@ package org.slopewatch.journal;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import io.agroal.api.AgroalDataSource;
+import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.time.DayOfWeek;
 import java.time.Duration;
 import java.time.Instant;
@@ -10,6 +12,7 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.Comparator;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -19,16 +22,16 @@ import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.curve.Tenor;
-import org.slopewatch.delivery.Alert;
-import org.slopewatch.ingest.PipelineListener;
-import org.slopewatch.ingest.QuoteBatch;
-import org.slopewatch.ingest.QuoteMessage;
-import org.slopewatch.ingest.QuotePipeline;
-import org.slopewatch.ingest.Reject;
-import org.slopewatch.ingest.RejectReason;
 import org.slopewatch.monitor.MonitorDefinition;
 import org.slopewatch.monitor.QuarterAverage;
 import org.slopewatch.monitor.Watch;
+import org.slopewatch.pipeline.PipelineListener;
+import org.slopewatch.pipeline.QuoteBatch;
+import org.slopewatch.pipeline.QuoteMessage;
+import org.slopewatch.pipeline.QuotePipeline;
+import org.slopewatch.pipeline.Reject;
+import org.slopewatch.pipeline.RejectReason;
+import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.Severity;
 import org.slopewatch.spread.SpreadDefinition;
 import org.slopewatch.testsupport.MutableClock;
@@ -37,8 +40,9 @@ import org.slopewatch.testsupport.MutableClock;
  * Reading the journal's lists a page at a time, the same checks on H2 ({@link JournalPagesTest})
  * and PostgreSQL ({@link JournalPagesPostgresTest}): a page after a position holds exactly what
  * follows that position in the whole list, so pages read one after another hold every row once.
- * The whole lists come from the readers the API used before it paged (and, for a timeline, from
- * one unpaged read per kind merged here), so each page is checked against an independent read.
+ * The whole lists come from unpaged reads (the readers the API used before it paged, the export's
+ * stream of notices, and for a timeline one such read per kind merged here), so each page is
+ * checked against an independent read.
  *
  * <p>The journal is written by the real pipeline with a clock the test sets, so that many rows
  * share one recording time (two steps at {@code T0}; the pages must end inside such groups), and
@@ -58,7 +62,9 @@ abstract class JournalPagesChecks {
     private final List<AutoCloseable> open = new ArrayList<>();
     private final MutableClock clock = new MutableClock(T0.minus(Duration.ofHours(1)));
     private JournalReader reader;
-    private AlertStore store;
+    private AlertHistory history;
+    private AlertViews views;
+    private DeliveryAttempts attempts;
     private NewestAlerts newest;
     private TimelineRows timeline;
 
@@ -83,9 +89,11 @@ abstract class JournalPagesChecks {
     void writeTheJournal() {
         AgroalDataSource ds = database();
         reader = new JournalReader(ds);
-        store = new AlertStore(ds, clock);
-        newest = new NewestAlerts(ds, store);
-        timeline = new TimelineRows(ds, store);
+        history = new AlertHistory(ds);
+        attempts = new DeliveryAttempts(ds);
+        views = new AlertViews(new JournalSql(ds), attempts);
+        newest = new NewestAlerts(ds);
+        timeline = new TimelineRows(ds);
         QuotePipeline pipeline = new QuotePipeline(WATCHES, new JournalWriter(ds, clock), reader, PipelineListener.NONE, clock);
         pipeline.recover();
 
@@ -126,14 +134,16 @@ abstract class JournalPagesChecks {
         clock.set(T0.plusSeconds(5));
         new JournalWriter(ds, clock).write(later);
         clock.set(T0.plusSeconds(6));
-        for (AlertStore.Due due : store.due("desk-chat", T0.plusSeconds(6), 100)) {
-            store.attempt(due.delivery(), T0.plusSeconds(6), "delivered", "HTTP 200", "delivered on attempt 1", AlertStore.Status.DELIVERED,
-                    null);
+        DeliveryOutbox outbox = new DeliveryOutbox(ds, clock);
+        for (DeliveryOutbox.Due due : outbox.due("desk-chat", T0.plusSeconds(6), 100)) {
+            outbox.attempt(due.delivery(), T0.plusSeconds(6), "delivered", "HTTP 200", "delivered on attempt 1",
+                    DeliveryOutbox.Status.DELIVERED, null);
         }
         clock.set(T0.plusSeconds(7));
-        store.ack("b~" + A + "~" + days.get(0) + "~1", "desk-lead", "one");
-        store.ack("b~" + A + "~" + days.get(0) + "~1", "desk-lead", "two");
-        store.ack("Late~" + A + "~" + days.get(1) + "~1", "ops", null);
+        Acknowledgements acks = new Acknowledgements(ds, clock);
+        acks.ack("b~" + A + "~" + days.get(0) + "~1", "desk-lead", "one");
+        acks.ack("b~" + A + "~" + days.get(0) + "~1", "desk-lead", "two");
+        acks.ack("Late~" + A + "~" + days.get(1) + "~1", "ops", null);
     }
 
     private static QuoteMessage snapshot(String curve, LocalDate date, double spreadBp) {
@@ -172,10 +182,12 @@ abstract class JournalPagesChecks {
     @Test
     void noticesNewestFirstPageByPageAreTheWholeList() {
         for (Instant asOf : new Instant[] {null, T0.plusSeconds(4)}) {
-            List<String> whole = ids(store.recent(10_000, asOf));
+            // the export's stream, oldest first (by creation, then id, as the database orders them), read backwards
+            List<String> whole = new ArrayList<>(storedIds(exported(new JournalRange(null, ALL.from(), ALL.to(), asOf))));
+            Collections.reverse(whole);
             assertThat(whole).hasSize(asOf == null ? 8 : 6);
             for (int n = 1; n <= 3; n++) {
-                assertThat(ids(JournalPagesChecks.<AlertStore.AlertView, NewestAlerts.Position>pages(n, (after, k) -> newest.page(k, asOf, after),
+                assertThat(ids(JournalPagesChecks.<AlertHistory.AlertView, NewestAlerts.Position>pages(n, (after, k) -> newest.page(k, asOf, after),
                         v -> new NewestAlerts.Position(v.stored().alert().createdAt(), v.stored().alert().id()))))
                         .as("%d a page, as of %s", n, asOf).isEqualTo(whole);
             }
@@ -204,9 +216,11 @@ abstract class JournalPagesChecks {
 
     /**
      * The whole timeline merged here from unpaged reads of each kind: by recording time, then kind,
-     * then each kind's own order. Observations, transitions and notices come from the readers the
-     * API used before paging ({@link JournalReader#observations}, {@link JournalReader#transitions},
-     * {@link AlertStore#forSubject}).
+     * then each kind's own order. Observations and transitions come from the readers the API used
+     * before paging ({@link JournalReader#observations}, {@link JournalReader#transitions}), notices
+     * from the export's stream ({@link AlertHistory#eachAlert}, by creation: a stable sort by
+     * recording time here keeps the database's order within one recording) completed by the same
+     * views as the API's, attempts from {@link DeliveryAttempts#attempts(List, Instant)}.
      */
     private List<TimelineRows.Row<?>> whole(JournalRange range) {
         List<TimelineRows.Row<?>> rows = new ArrayList<>();
@@ -216,14 +230,17 @@ abstract class JournalPagesChecks {
         reader.transitions(range, true, 10_000).stream().sorted(Comparator.comparing(JournalReader.StoredTransition::recordedAt)
                         .thenComparingLong(JournalReader.StoredTransition::id))
                 .forEach(t -> rows.add(new TimelineRows.Row<>(t, TimelineRows.Position.of(t.recordedAt(), TimelineRows.Kind.TRANSITION, t.id()))));
-        List<AlertStore.AlertView> alerts = store.forSubject(range, 10_000);
+        Map<String, AlertHistory.StoredAlert> stored = new LinkedHashMap<>();
+        exported(range).stream().sorted(Comparator.comparing(AlertHistory.StoredAlert::recordedAt))
+                .forEach(a -> stored.put(a.alert().id(), a));
+        List<AlertHistory.AlertView> alerts = views.of(stored, range.asOf());
         alerts.forEach(v -> rows.add(new TimelineRows.Row<>(v, TimelineRows.Position.ofAlert(v.stored().recordedAt(),
                 v.stored().alert().createdAt(), v.stored().alert().id()))));
-        store.attempts(ids(alerts), range.asOf()).stream().sorted(Comparator.comparing(AlertStore.StoredAttempt::recordedAt)
-                        .thenComparingLong(AlertStore.StoredAttempt::id))
+        attempts.attempts(ids(alerts), range.asOf()).stream().sorted(Comparator.comparing(DeliveryAttempts.StoredAttempt::recordedAt)
+                        .thenComparingLong(DeliveryAttempts.StoredAttempt::id))
                 .forEach(a -> rows.add(new TimelineRows.Row<>(a, TimelineRows.Position.of(a.recordedAt(), TimelineRows.Kind.ATTEMPT, a.id()))));
         // acknowledgements carry no id outside the journal: they are taken from the timeline's own read, checked against the views'
-        List<TimelineRows.Row<AlertStore.Ack>> acks = timeline.acks(range, null, 10_000);
+        List<TimelineRows.Row<AlertHistory.Ack>> acks = timeline.acks(range, null, 10_000);
         assertThat(acks.stream().map(TimelineRows.Row::value).toList()).as("the acknowledgements the alert views hold")
                 .containsExactlyInAnyOrderElementsOf(alerts.stream().flatMap(v -> v.acks().stream()).toList());
         rows.addAll(acks);
@@ -257,7 +274,22 @@ abstract class JournalPagesChecks {
         }
     }
 
-    private static List<String> ids(List<AlertStore.AlertView> views) {
+    private static List<String> ids(List<AlertHistory.AlertView> views) {
         return views.stream().map(v -> v.stored().alert().id()).toList();
+    }
+
+    private static List<String> storedIds(List<AlertHistory.StoredAlert> alerts) {
+        return alerts.stream().map(a -> a.alert().id()).toList();
+    }
+
+    /** Every notice of a range as the export streams it: by creation, then id. */
+    private List<AlertHistory.StoredAlert> exported(JournalRange range) {
+        List<AlertHistory.StoredAlert> out = new ArrayList<>();
+        try {
+            history.eachAlert(range, out::add);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e); // a list never throws it
+        }
+        return out;
     }
 }

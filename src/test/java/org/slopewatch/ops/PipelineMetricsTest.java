@@ -56,7 +56,7 @@ class PipelineMetricsTest {
             rules++;
             String name = rule.group(1);
             String severity = rule.group(2);
-            for (String kind : java.util.Arrays.stream(org.slopewatch.delivery.Alert.Kind.values())
+            for (String kind : java.util.Arrays.stream(org.slopewatch.rules.Alert.Kind.values())
                     .map(k -> k.name().toLowerCase(java.util.Locale.ROOT)).toList()) {
                 assertThat(metrics).as("notices of %s, %s", name, kind).contains("slopewatch_alerts_total{kind=\"" + kind
                         + "\",muted=\"true\",rule=\"" + name + "\",severity=\"" + severity + "\"} 0.0");
@@ -98,6 +98,22 @@ class PipelineMetricsTest {
         assertThat(after).anyMatch(l -> l.startsWith("slopewatch_spread_value_bp{spread=\"GOVT-A:10Y-3M\"}"));
         assertThat(after).contains("slopewatch_info{policy=\"" + sha256(POLICY) + "\",version=\"" + pomVersion() + "\"} 1.0")
                 .filteredOn(l -> l.startsWith("slopewatch_info{")).hasSize(1);
+    }
+
+    /** The age of each curve's latest quote, against the test's own clock readings around the post. */
+    @Test
+    void eachCurveSaysHowOldItsLatestQuoteIs() {
+        // GOVT-B gets no quote in this test class: its age is not a number until one arrives
+        assertThat(metrics()).contains("slopewatch_curve_last_quote_age_seconds{curve=\"GOVT-B\"} NaN");
+        long before = System.nanoTime();
+        given().contentType("application/json")
+                .body("{\"curve\":\"GOVT-A\",\"date\":\"2026-03-09\",\"unit\":\"bp\",\"yields\":{\"3M\":500,\"10Y\":480}}")
+                .post("/api/quotes").then().statusCode(200);
+        String line = metrics().stream().filter(l -> l.startsWith("slopewatch_curve_last_quote_age_seconds{curve=\"GOVT-A\"}"))
+                .findFirst().orElseThrow();
+        double elapsed = (System.nanoTime() - before) / 1e9;
+        double age = Double.parseDouble(line.substring(line.lastIndexOf(' ') + 1));
+        assertThat(age).as(line).isBetween(0.0, elapsed + 0.001);
     }
 
     private static List<String> metrics() {

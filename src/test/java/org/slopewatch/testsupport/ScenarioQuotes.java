@@ -4,9 +4,9 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
 import org.slopewatch.curve.CurveSnapshot;
-import org.slopewatch.ingest.QuoteMessage;
 import org.slopewatch.ingest.demo.DemoCurve;
 import org.slopewatch.ingest.demo.DemoScenario;
+import org.slopewatch.pipeline.QuoteMessage;
 
 /**
  * The quotes the fault tests with packaged daemons send: curves through the demo's tightening cycle

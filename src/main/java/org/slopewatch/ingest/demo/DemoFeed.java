@@ -6,8 +6,8 @@ import java.util.Iterator;
 import java.util.List;
 import java.util.function.LongConsumer;
 import org.slopewatch.curve.CurveSnapshot;
-import org.slopewatch.ingest.QuoteBatch;
-import org.slopewatch.ingest.QuoteMessage;
+import org.slopewatch.pipeline.QuoteBatch;
+import org.slopewatch.pipeline.QuoteMessage;
 
 /**
  * Plays a {@link DemoScenario} as quote messages, one batch per business day, each message with

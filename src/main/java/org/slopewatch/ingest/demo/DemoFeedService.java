@@ -8,7 +8,7 @@ import java.time.LocalDate;
 import java.util.concurrent.TimeUnit;
 import org.jboss.logging.Logger;
 import org.slopewatch.ingest.QuoteGateway;
-import org.slopewatch.ingest.QuotePipeline;
+import org.slopewatch.pipeline.QuotePipeline;
 
 /**
  * Runs the demo feed in the background when {@code slopewatch.demo.enabled}: the scripted

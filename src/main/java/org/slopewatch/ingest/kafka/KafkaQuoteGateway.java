@@ -7,10 +7,10 @@ import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.CompletionStage;
 import org.eclipse.microprofile.reactive.messaging.Emitter;
 import org.eclipse.microprofile.reactive.messaging.Message;
-import org.slopewatch.ingest.BatchOutcome;
-import org.slopewatch.ingest.QuoteBatch;
 import org.slopewatch.ingest.QuoteGateway;
-import org.slopewatch.ingest.QuoteMessage;
+import org.slopewatch.pipeline.BatchOutcome;
+import org.slopewatch.pipeline.QuoteBatch;
+import org.slopewatch.pipeline.QuoteMessage;
 
 /**
  * With Kafka, HTTP and the demo feed publish accepted messages to the quotes topic keyed by

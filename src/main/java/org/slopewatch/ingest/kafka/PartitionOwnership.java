@@ -13,7 +13,7 @@ import org.apache.kafka.clients.consumer.ConsumerRecord;
 import org.apache.kafka.common.TopicPartition;
 import org.apache.kafka.common.utils.Utils;
 import org.eclipse.microprofile.reactive.messaging.Message;
-import org.slopewatch.ingest.QuoteBatch;
+import org.slopewatch.pipeline.QuoteBatch;
 
 /**
  * The partitions of the quotes topic this instance holds right now, as the consumer group's

@@ -9,8 +9,8 @@ import java.util.stream.Collectors;
 import org.apache.kafka.common.serialization.Deserializer;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.ingest.IngestRules;
-import org.slopewatch.ingest.QuoteBatch;
 import org.slopewatch.ingest.QuoteDecoder;
+import org.slopewatch.pipeline.QuoteBatch;
 
 /**
  * Decodes a quotes-topic record into a batch. It never throws: a bad record becomes a batch of

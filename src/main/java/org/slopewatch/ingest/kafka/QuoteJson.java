@@ -4,7 +4,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.Map;
 import org.slopewatch.curve.Tenor;
-import org.slopewatch.ingest.QuoteMessage;
+import org.slopewatch.pipeline.QuoteMessage;
 
 /** Writes an accepted message back as a quote message in the canonical form (snapshot, basis points). */
 public final class QuoteJson {

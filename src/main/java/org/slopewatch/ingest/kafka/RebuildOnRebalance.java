@@ -7,7 +7,7 @@ import java.util.Collection;
 import org.apache.kafka.clients.consumer.Consumer;
 import org.apache.kafka.common.TopicPartition;
 import org.jboss.logging.Logger;
-import org.slopewatch.ingest.QuotePipeline;
+import org.slopewatch.pipeline.QuotePipeline;
 
 /**
  * When Kafka hands this instance partitions of the quotes topic (at start, or when another

@@ -13,11 +13,11 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.slopewatch.curve.CurveSnapshot;
-import org.slopewatch.ingest.PipelineListener;
-import org.slopewatch.ingest.QuotePipeline;
 import org.slopewatch.journal.JournalDatabase;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
+import org.slopewatch.pipeline.PipelineListener;
+import org.slopewatch.pipeline.QuotePipeline;
 import org.slopewatch.rules.PolicyParser;
 
 /**

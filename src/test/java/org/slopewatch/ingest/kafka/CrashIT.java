@@ -15,7 +15,7 @@ import java.util.UUID;
 import org.apache.kafka.clients.producer.KafkaProducer;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.delivery.TestHttpReceiver;
-import org.slopewatch.ingest.QuoteMessage;
+import org.slopewatch.pipeline.QuoteMessage;
 import org.slopewatch.testsupport.DaemonProcess;
 import org.slopewatch.testsupport.JournalContents;
 import org.slopewatch.testsupport.PostgresServer;

@@ -15,12 +15,12 @@ import org.apache.kafka.clients.producer.ProducerConfig;
 import org.apache.kafka.clients.producer.ProducerRecord;
 import org.apache.kafka.common.serialization.StringSerializer;
 import org.awaitility.Awaitility;
-import org.slopewatch.ingest.QuoteMessage;
+import org.slopewatch.pipeline.QuoteMessage;
 import org.slopewatch.testsupport.DaemonProcess;
 import org.slopewatch.testsupport.JournalContents;
 import org.slopewatch.testsupport.KafkaBroker;
-import org.slopewatch.testsupport.ScenarioQuotes;
 import org.slopewatch.testsupport.PostgresServer.TestDatabase;
+import org.slopewatch.testsupport.ScenarioQuotes;
 
 /**
  * What the integration tests with packaged daemons on Kafka share: the scenario on six curves, a

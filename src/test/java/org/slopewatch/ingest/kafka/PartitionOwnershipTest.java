@@ -13,7 +13,7 @@ import org.apache.kafka.clients.producer.internals.BuiltInPartitioner;
 import org.apache.kafka.common.TopicPartition;
 import org.eclipse.microprofile.reactive.messaging.Message;
 import org.junit.jupiter.api.Test;
-import org.slopewatch.ingest.QuoteBatch;
+import org.slopewatch.pipeline.QuoteBatch;
 
 class PartitionOwnershipTest {
 

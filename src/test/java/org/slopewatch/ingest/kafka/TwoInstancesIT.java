@@ -11,7 +11,7 @@ import org.apache.kafka.clients.producer.KafkaProducer;
 import org.awaitility.Awaitility;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.delivery.TestHttpReceiver;
-import org.slopewatch.ingest.QuoteMessage;
+import org.slopewatch.pipeline.QuoteMessage;
 import org.slopewatch.testsupport.DaemonProcess;
 import org.slopewatch.testsupport.JournalContents;
 import org.slopewatch.testsupport.PostgresServer;

@@ -1,0 +1,452 @@
+package org.slopewatch.history;
+
+import de.siegmar.fastcsv.reader.CsvParseException;
+import de.siegmar.fastcsv.reader.CsvReader;
+import de.siegmar.fastcsv.reader.CsvRecord;
+import de.siegmar.fastcsv.reader.CsvRecordHandler;
+import de.siegmar.fastcsv.reader.FieldMismatchStrategy;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.nio.charset.Charset;
+import java.nio.charset.StandardCharsets;
+import java.time.DateTimeException;
+import java.time.LocalDate;
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.Iterator;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Set;
+import java.util.function.Consumer;
+import org.slopewatch.curve.CurveSnapshot;
+import org.slopewatch.curve.Tenor;
+import org.slopewatch.curve.YieldBounds;
+import org.slopewatch.curve.YieldUnit;
+import org.slopewatch.text.Excerpt;
+
+/**
+ * Reads yield history from CSV into curve snapshots, in date order.
+ *
+ * <p>Two layouts, told apart by the header: wide ({@code date,3M,2Y,10Y,…}, one curve, one row
+ * per date) and long ({@code date,curve,tenor,yield} in any column order, rows of one date
+ * together). Dates are {@code YYYY-MM-DD} or {@code YYYY-MM} (the first of the month). Empty
+ * cells and {@code NA}, {@code ND}, {@code .} mark a missing value. The text is UTF-8 (or the
+ * charset given), a byte-order mark allowed ({@link CsvText}), CSV as RFC 4180 writes it with any
+ * of CR, LF or CR LF ending a line. Anything else that is wrong stops the read with
+ * {@code file:line:column: what is wrong}: a report built on half a file would be passed off as
+ * whole. Every way the CSV parser (FastCSV) can fail is turned into that here, in
+ * {@link #next} and {@link #refused}, so that no caller meets the parser's own exceptions.
+ */
+public final class HistoryCsvReader {
+
+    /** How to read the values. {@code curve} names the curve of a wide file. */
+    public record Options(String curve, YieldUnit unit, YieldBounds bounds) {
+        public Options {
+            if (curve == null || curve.isBlank()) {
+                throw new IllegalArgumentException("a curve name is needed for a wide file");
+            }
+        }
+    }
+
+    /** Totals of one read. */
+    public record Summary(long rows, long quotes, long snapshots, LocalDate first, LocalDate last) {
+    }
+
+    /**
+     * The longest field, in characters, and so the longest quoted field spanning lines (an
+     * unquoted one ends with its line, {@link CsvText#MAX_LINE}); the parser holds a field whole.
+     */
+    static final int MAX_FIELD = 1 << 20;
+    /** More fields than a line of {@link CsvText#MAX_LINE} characters can hold, so that a long line meets the line limit first. */
+    private static final int MAX_FIELDS = CsvText.MAX_LINE + 1;
+    private static final int PROGRESS_EVERY_ROWS = 16_384;
+    private static final Set<String> LAYOUT_COLUMNS = Set.of("date", "curve", "tenor", "yield");
+
+    private final String source;
+    private final CsvText text;
+    private final Options options;
+    private final Consumer<CurveSnapshot> sink;
+    private final Runnable progress;
+    /** The line of the last record the parser handed out; 0 before the first. */
+    private long recordLine;
+    private long rows;
+    private long quotes;
+    private long snapshots;
+    private LocalDate first;
+    private LocalDate last;
+
+    private HistoryCsvReader(String source, CsvText text, Options options, Consumer<CurveSnapshot> sink, Runnable progress) {
+        this.source = source;
+        this.text = text;
+        this.options = options;
+        this.sink = sink;
+        this.progress = progress;
+    }
+
+    /** Reads a UTF-8 stream; see {@link #read(String, InputStream, Charset, Options, Consumer, Runnable)}. */
+    public static Summary read(String source, InputStream in, Options options, Consumer<CurveSnapshot> sink,
+                               Runnable progress) throws IOException, HistoryFormatException {
+        return read(source, in, StandardCharsets.UTF_8, options, sink, progress);
+    }
+
+    /**
+     * Reads a whole stream, handing each snapshot to {@code sink} as soon as its date is complete;
+     * a caller that must take all or nothing collects them until the read returns.
+     *
+     * @param source   the name used in error messages (usually the file name)
+     * @param charset  the text's charset, unless it starts with a byte-order mark (UTF-8, UTF-16), which decides
+     * @param progress called every few thousand rows (may be a no-op)
+     * @throws HistoryFormatException at the first problem, with its line and column
+     * @throws IOException            when the stream cannot be read
+     */
+    public static Summary read(String source, InputStream in, Charset charset, Options options, Consumer<CurveSnapshot> sink,
+                               Runnable progress) throws IOException, HistoryFormatException {
+        CsvText text = new CsvText(in, charset);
+        HistoryCsvReader reader = new HistoryCsvReader(source, text, options, sink, progress);
+        CsvRecordHandler records = CsvRecordHandler.builder().maxFields(MAX_FIELDS).maxFieldSize(MAX_FIELD).maxRecordSize(MAX_FIELD)
+                .build();
+        // The layouts check the field count of each row themselves, to say where it is wrong; an
+        // unclosed quote is an error rather than a field running to the end of the file (FastCSV 4's default).
+        try (CsvReader<CsvRecord> csv = CsvReader.builder().skipEmptyLines(true).extraFieldStrategy(FieldMismatchStrategy.IGNORE)
+                .missingFieldStrategy(FieldMismatchStrategy.IGNORE).allowUnclosedQuote(false).maxBufferSize(MAX_FIELD)
+                .build(records, text)) {
+            reader.readAll(csv.iterator());
+        }
+        return new Summary(reader.rows, reader.quotes, reader.snapshots, reader.first, reader.last);
+    }
+
+    /**
+     * The next record, or null after the last. Every way the parser can fail ends here: a
+     * {@link CsvText.Fault} (not text) arrives wrapped in an {@link UncheckedIOException}, a
+     * broken CSV rule or a passed limit as a {@link CsvParseException}, anything else the parser
+     * meets as a {@link CsvParseException} with that cause.
+     */
+    private CsvRecord next(Iterator<CsvRecord> records) throws IOException, HistoryFormatException {
+        CsvRecord row;
+        try {
+            if (!records.hasNext()) {
+                return null;
+            }
+            row = records.next();
+        } catch (UncheckedIOException e) {
+            if (e.getCause() instanceof CsvText.Fault fault) {
+                throw new HistoryFormatException(source, fault.position(), fault.problem());
+            }
+            throw e.getCause();
+        } catch (CsvParseException e) {
+            throw refused(e);
+        }
+        recordLine = row.getStartingLineNumber();
+        text.keepFrom(recordLine);
+        return row;
+    }
+
+    /** The parser refused the record after the last one it handed out: where, and why, as far as the text tells. */
+    private HistoryFormatException refused(CsvParseException e) {
+        if (e.getCause() instanceof Error error) {
+            throw error; // out of memory and the like: nothing to do with the text
+        }
+        CsvRecordScanner.Finding found = new CsvRecordScanner(text).recordAfter(recordLine);
+        String problem = switch (found.kind()) {
+            case TEXT_AFTER_QUOTE -> "text after the closing quote of a field: '" + found.character()
+                    + "' (a quote inside a quoted field is written twice)";
+            case QUOTE_NOT_CLOSED -> text.allSeen() ? "this quote opens a field that is never closed"
+                    : String.format(Locale.ROOT, "this quote opens a field longer than %,d characters: is its closing quote missing?",
+                    MAX_FIELD);
+            case NOTHING -> "the CSV parser refused this record: " + e.getMessage();
+        };
+        return new HistoryFormatException(source, found.at(), problem + jsonHint(recordLine == 0));
+    }
+
+    /** A problem in field {@code field} of {@code row}, placed at the start of that field. */
+    private HistoryFormatException at(CsvRecord row, int field, String problem) {
+        return new HistoryFormatException(source, new CsvRecordScanner(text).fieldStart(row.getStartingLineNumber(), field), problem);
+    }
+
+    private String jsonHint(boolean inHeader) {
+        return inHeader && text.looksLikeJson() ? "; the text looks like JSON, not CSV" : "";
+    }
+
+    private void readAll(Iterator<CsvRecord> records) throws IOException, HistoryFormatException {
+        CsvRecord header = next(records);
+        if (header == null) {
+            throw new HistoryFormatException(source, 1, 1, "empty file: expected a header 'date,3M,2Y,10Y,…' or 'date,curve,tenor,yield'");
+        }
+        List<String> names = header.getFields().stream().map(f -> f.strip().toLowerCase(Locale.ROOT)).toList();
+        if (!names.contains("date")) {
+            throw at(header, 0, "missing column 'date' in header " + Excerpt.quoted(String.join(",", header.getFields())) + jsonHint(true));
+        }
+        for (int i = 0; i < names.size(); i++) {
+            if (LAYOUT_COLUMNS.contains(names.get(i)) && names.indexOf(names.get(i)) != i) {
+                throw at(header, i, "column '" + names.get(i) + "' appears twice in the header");
+            }
+        }
+        if (names.contains("curve") || names.contains("tenor") || names.contains("yield")) {
+            readLong(records, header, names);
+        } else {
+            readWide(records, header);
+        }
+        if (quotes == 0) {
+            throw new HistoryFormatException(source, text.end(), rows == 0 ? "no quotes: nothing follows the header"
+                    : "no quotes: every value of the " + rows + " rows is missing");
+        }
+    }
+
+    private void readWide(Iterator<CsvRecord> records, CsvRecord header) throws IOException, HistoryFormatException {
+        int dateColumn = -1;
+        int n = header.getFieldCount();
+        Tenor[] tenors = new Tenor[n];
+        for (int i = 0; i < n; i++) {
+            String name = header.getField(i).strip();
+            if (name.equalsIgnoreCase("date")) {
+                dateColumn = i;
+                continue;
+            }
+            try {
+                tenors[i] = Tenor.parse(name);
+            } catch (IllegalArgumentException e) {
+                throw at(header, i, e.getMessage());
+            }
+        }
+        // the value columns in maturity order, so that each row becomes a sorted snapshot directly
+        Integer[] order = new Integer[n - 1];
+        for (int i = 0, j = 0; i < n; i++) {
+            if (i != dateColumn) {
+                order[j++] = i;
+            }
+        }
+        if (order.length == 0) {
+            throw at(header, 0, "no tenor columns: expected a header such as 'date,3M,2Y,10Y'");
+        }
+        Arrays.sort(order, (a, b) -> tenors[a].compareTo(tenors[b])); // stable: of two equal tenors the later column comes second
+        Tenor[] sorted = new Tenor[order.length];
+        for (int j = 0; j < order.length; j++) {
+            sorted[j] = tenors[order[j]];
+            if (j > 0 && sorted[j].equals(sorted[j - 1])) {
+                throw at(header, order[j], "tenor " + sorted[j] + " appears twice in the header");
+            }
+        }
+        double[] values = new double[order.length];
+        CsvRecord row;
+        while ((row = next(records)) != null) {
+            if (row.getFieldCount() != n) {
+                throw at(row, Math.min(n, row.getFieldCount()), "expected " + n + " fields as in the header, found " + row.getFieldCount());
+            }
+            LocalDate date = date(row, dateColumn);
+            if (last != null && !date.isAfter(last)) {
+                throw at(row, dateColumn, date.equals(last)
+                        ? "date " + date + " appears twice" : "dates out of order: " + date + " after " + last);
+            }
+            int present = 0;
+            for (int j = 0; j < order.length; j++) {
+                double v = value(row, order[j], sorted[j]);
+                values[j] = v;
+                if (!Double.isNaN(v)) {
+                    present++;
+                }
+            }
+            quotes += present;
+            noteRow(date);
+            if (present > 0) {
+                emit(CurveSnapshot.ofSorted(options.curve(), date, sorted, values));
+            }
+        }
+    }
+
+    private void readLong(Iterator<CsvRecord> records, CsvRecord header, List<String> names) throws IOException, HistoryFormatException {
+        int dateColumn = names.indexOf("date");
+        int curveColumn = column(header, names, "curve");
+        int tenorColumn = column(header, names, "tenor");
+        int yieldColumn = column(header, names, "yield");
+        int needed = Math.max(Math.max(dateColumn, curveColumn), Math.max(tenorColumn, yieldColumn)) + 1;
+        // A long file repeats the same few strings on every row: each tenor spelling is parsed once,
+        // and a date is parsed again only when its text changes (rows of one date come together).
+        Map<String, Tenor> tenors = new HashMap<>();
+        Map<String, CurveQuotes> pending = new LinkedHashMap<>();
+        LocalDate pendingDate = null;
+        String pendingDateText = null;
+        CsvRecord row;
+        while ((row = next(records)) != null) {
+            if (row.getFieldCount() < needed) {
+                throw at(row, row.getFieldCount(), "expected " + names.size() + " fields as in the header, found " + row.getFieldCount());
+            }
+            String dateText = row.getField(dateColumn);
+            LocalDate date = dateText.equals(pendingDateText) ? pendingDate : date(row, dateColumn);
+            if (pendingDate != null && date.isBefore(pendingDate)) {
+                throw at(row, dateColumn, "dates out of order: " + date + " after " + pendingDate);
+            }
+            if (pendingDate != null && date.isAfter(pendingDate)) {
+                flush(pending, pendingDate);
+            }
+            pendingDate = date;
+            pendingDateText = dateText;
+            String curve = row.getField(curveColumn).strip();
+            if (curve.isEmpty()) {
+                throw at(row, curveColumn, "missing curve name");
+            }
+            Tenor tenor = tenor(tenors, row, tenorColumn);
+            double v = value(row, yieldColumn, tenor);
+            noteRow(date);
+            if (Double.isNaN(v)) {
+                continue;
+            }
+            if (!pending.computeIfAbsent(curve, c -> new CurveQuotes()).put(tenor, v)) {
+                throw at(row, tenorColumn, "second quote for " + Excerpt.of(curve) + " " + tenor + " on " + date);
+            }
+            quotes++;
+        }
+        if (pendingDate != null) {
+            flush(pending, pendingDate);
+        }
+    }
+
+    private Tenor tenor(Map<String, Tenor> parsed, CsvRecord row, int field) throws HistoryFormatException {
+        String spelt = row.getField(field);
+        Tenor tenor = parsed.get(spelt);
+        if (tenor == null) {
+            try {
+                tenor = Tenor.parse(spelt);
+            } catch (IllegalArgumentException e) {
+                throw at(row, field, e.getMessage());
+            }
+            parsed.put(spelt, tenor); // only valid spellings are kept, so the map stays as small as the file's tenors
+        }
+        return tenor;
+    }
+
+    /**
+     * One curve's quotes on the pending date, kept in maturity order as they arrive: a pair of
+     * arrays rather than a map of boxed values, since a long file makes one per curve and date.
+     */
+    private static final class CurveQuotes {
+        private Tenor[] tenors = new Tenor[16];
+        private double[] yieldsBp = new double[16];
+        private int size;
+
+        /** Adds a quote in its place by maturity; false if the tenor is already quoted. */
+        boolean put(Tenor tenor, double bp) {
+            int at = size;
+            while (at > 0 && tenors[at - 1].compareTo(tenor) > 0) {
+                at--;
+            }
+            if (at > 0 && tenors[at - 1].compareTo(tenor) == 0) {
+                return false;
+            }
+            if (size == tenors.length) {
+                tenors = Arrays.copyOf(tenors, size * 2);
+                yieldsBp = Arrays.copyOf(yieldsBp, size * 2);
+            }
+            System.arraycopy(tenors, at, tenors, at + 1, size - at);
+            System.arraycopy(yieldsBp, at, yieldsBp, at + 1, size - at);
+            tenors[at] = tenor;
+            yieldsBp[at] = bp;
+            size++;
+            return true;
+        }
+
+        CurveSnapshot snapshot(String curve, LocalDate date) {
+            return CurveSnapshot.ofSorted(curve, date, Arrays.copyOf(tenors, size), Arrays.copyOf(yieldsBp, size));
+        }
+    }
+
+    private void flush(Map<String, CurveQuotes> pending, LocalDate date) {
+        for (Map.Entry<String, CurveQuotes> e : pending.entrySet()) {
+            emit(e.getValue().snapshot(e.getKey(), date));
+        }
+        pending.clear();
+    }
+
+    private int column(CsvRecord header, List<String> names, String name) throws HistoryFormatException {
+        int column = names.indexOf(name);
+        if (column < 0) {
+            throw at(header, 0, "missing column " + Excerpt.quoted(name) + ": a long file has columns date,curve,tenor,yield");
+        }
+        return column;
+    }
+
+    /** Counts a row and reports progress now and then. */
+    private void noteRow(LocalDate date) {
+        if (first == null) {
+            first = date;
+        }
+        last = date;
+        if (++rows % PROGRESS_EVERY_ROWS == 0) {
+            progress.run();
+        }
+    }
+
+    private void emit(CurveSnapshot snapshot) {
+        snapshots++;
+        sink.accept(snapshot);
+    }
+
+    private LocalDate date(CsvRecord row, int field) throws HistoryFormatException {
+        String spelt = row.getField(field);
+        LocalDate d = Dates.parse(spelt);
+        if (d == null) {
+            throw at(row, field, "unparsable date " + Excerpt.quoted(spelt) + " (expected YYYY-MM-DD or YYYY-MM)");
+        }
+        return d;
+    }
+
+    private double value(CsvRecord row, int field, Tenor tenor) throws HistoryFormatException {
+        String text = row.getField(field);
+        String t = text.strip();
+        if (t.isEmpty() || t.equals(".") || t.equalsIgnoreCase("NA") || t.equalsIgnoreCase("ND")) {
+            return Double.NaN;
+        }
+        double raw;
+        try {
+            raw = Double.parseDouble(t);
+        } catch (NumberFormatException e) {
+            throw at(row, field, "unparsable number " + Excerpt.quoted(text) + " for " + tenor);
+        }
+        try {
+            return options.bounds().toBasisPoints(raw, options.unit());
+        } catch (IllegalArgumentException e) {
+            throw at(row, field, tenor + ": " + e.getMessage());
+        }
+    }
+
+    /** A text from the file as a message quotes it: in quotes, cut short when long, since the message goes back to the sender. */
+
+    /** ISO dates without the cost of the general parser, which dominates a large replay otherwise. */
+    static final class Dates {
+        private Dates() {
+        }
+
+        static LocalDate parse(String text) {
+            String t = text.strip();
+            int len = t.length();
+            if ((len != 10 && len != 7) || t.charAt(4) != '-' || (len == 10 && t.charAt(7) != '-')) {
+                return null;
+            }
+            int year = digits(t, 0, 4);
+            int month = digits(t, 5, 7);
+            int day = len == 10 ? digits(t, 8, 10) : 1;
+            if (year < 0 || month < 0 || day < 0) {
+                return null;
+            }
+            try {
+                return LocalDate.of(year, month, day);
+            } catch (DateTimeException e) {
+                return null;
+            }
+        }
+
+        private static int digits(String t, int from, int to) {
+            int v = 0;
+            for (int i = from; i < to; i++) {
+                char c = t.charAt(i);
+                if (c < '0' || c > '9') {
+                    return -1;
+                }
+                v = v * 10 + (c - '0');
+            }
+            return v;
+        }
+    }
+}

@@ -1,0 +1,329 @@
+package org.slopewatch.pipeline;
+
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.Collection;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.Set;
+import org.jboss.logging.Logger;
+import org.jboss.logging.MDC;
+import org.slopewatch.alerting.AlertStage;
+import org.slopewatch.curve.CurveBook;
+import org.slopewatch.curve.CurveSnapshot;
+import org.slopewatch.journal.JournalEntries;
+import org.slopewatch.journal.JournalReader;
+import org.slopewatch.journal.JournalWriter;
+import org.slopewatch.monitor.MonitorEvent;
+import org.slopewatch.monitor.Revision;
+import org.slopewatch.monitor.SignalEngine;
+import org.slopewatch.monitor.Spell;
+import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.monitor.SpreadTrack;
+import org.slopewatch.monitor.Transition;
+import org.slopewatch.monitor.Watch;
+import org.slopewatch.spread.SpreadKey;
+
+/**
+ * The daemon's path for accepted quotes: drop duplicates, merge into the curve book, run the
+ * spreads and monitors, journal everything of the step in one transaction, then tell the
+ * listeners. One writer: calls are serialised.
+ *
+ * <p>If a step fails before its transaction is committed (deciding or writing), the in-memory
+ * state is rebuilt from the journal before the failure is passed on, so memory never runs ahead
+ * of what was recorded (an id is taken as seen only with its quote); if the journal cannot be
+ * read either, the rebuild is done before the next step, which fails until it can.
+ */
+public final class QuotePipeline {
+
+    private static final Logger LOG = Logger.getLogger("org.slopewatch.transitions");
+
+    private List<Watch> watches;
+    private final JournalWriter writer;
+    private final JournalReader reader;
+    private final PipelineListener listener;
+    private final AlertStage alerts;
+    private final Clock clock;
+
+    private SignalEngine engine;
+    private CurveBook book;
+    private Set<String> seenIds;
+    private long sequence;
+    private boolean recovered;
+    // concurrent: the metrics read one curve's entry at scrape time without waiting for a step's lock
+    private final Map<String, Instant> lastReceived = new ConcurrentHashMap<>();
+
+    public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, Clock clock) {
+        this(watches, writer, reader, listener, AlertStage.NONE, clock);
+    }
+
+    public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, AlertStage alerts,
+                         Clock clock) {
+        this.watches = List.copyOf(watches);
+        this.writer = writer;
+        this.reader = reader;
+        this.listener = listener;
+        this.alerts = alerts;
+        this.clock = clock;
+        reset();
+    }
+
+    private void reset() {
+        engine = new SignalEngine(watches);
+        book = new CurveBook();
+        seenIds = new HashSet<>();
+        sequence = 0;
+    }
+
+    /**
+     * Rebuilds curves, monitors and seen ids by replaying the journal's quotes in recorded order,
+     * so that a restart continues exactly where an uninterrupted run would be.
+     *
+     * @return the number of quote messages replayed
+     */
+    public synchronized long recover() {
+        // until the replay has finished, memory is not what the journal says: nothing may be decided on it
+        recovered = false;
+        reset();
+        long[] count = {0};
+        reader.replayQuotes(q -> {
+            count[0]++;
+            sequence = Math.max(sequence, q.seq());
+            if (q.messageId() != null) {
+                seenIds.add(q.messageId());
+            }
+            engine.onSnapshot(book.apply(q.curve(), q.date(), q.yieldsBp()), q.seq());
+        });
+        listener.watching(engine.tracks().stream().map(t -> t.spread().id()).collect(java.util.stream.Collectors.toUnmodifiableSet()));
+        for (SpreadTrack t : engine.tracks()) {
+            listener.spreadChanged(SpreadStatus.of(t));
+        }
+        lastReceived.clear();
+        lastReceived.putAll(reader.lastQuoteRecorded());
+        alerts.rebuild();
+        recovered = true;
+        return count[0];
+    }
+
+    /**
+     * Before a step: if a journal failure left memory behind the journal (the rebuild after it
+     * failed too, e.g. while the database was unreachable), rebuild it now. Throws while the
+     * journal still cannot be read, so nothing is decided on a partial state.
+     */
+    private void recoverIfNeeded() {
+        if (!recovered) {
+            long replayed = recover();
+            LOG.infof("journal reachable again: monitors rebuilt from %d journalled quote message(s)", replayed);
+        }
+    }
+
+    /** After a failed step: memory goes back to what the journal holds, now or, if it cannot be read, before the next step. */
+    private void recoverAfterFailedStep(RuntimeException failure) {
+        try {
+            recover();
+        } catch (RuntimeException again) {
+            failure.addSuppressed(again);
+        }
+    }
+
+    /**
+     * Watches other spreads or rules from now on: the monitors are rebuilt from the journalled
+     * quotes under the new definitions (as a restart with the new policy would), without
+     * journalling again what was concluded under the old ones.
+     */
+    public synchronized long reconfigure(List<Watch> newWatches) {
+        this.watches = List.copyOf(newWatches);
+        return recover();
+    }
+
+    /**
+     * Decides the notices due by the clock alone (repeats, stale feeds) and journals them, for the
+     * curves this instance owns.
+     *
+     * @param staleCurves every owned curve → the date its feed went quiet, or null while fresh
+     */
+    public synchronized void tick(Map<String, LocalDate> staleCurves, CurveOwnership owned) {
+        recoverIfNeeded();
+        JournalEntries journal = new JournalEntries();
+        try {
+            List<SpreadStatus> ownSpreads = engine.tracks().stream().filter(t -> owned.owns(t.spread().curve())).map(SpreadStatus::of)
+                    .toList();
+            alerts.onTick(ownSpreads, staleCurves, journal);
+            if (journal.isEmpty()) {
+                return;
+            }
+            writer.write(journal);
+        } catch (RuntimeException e) {
+            recoverAfterFailedStep(e);
+            throw e;
+        }
+        alerts.written(journal.alerts());
+    }
+
+    /** Returns once the step in progress, if any, has been journalled (or failed). */
+    public synchronized void awaitStep() {
+        // the lock is the point: process() holds it for a whole step
+    }
+
+    /** Processes batches in order and journals the step; returns what happened. */
+    public synchronized BatchOutcome process(Collection<QuoteBatch> batches) {
+        recoverIfNeeded();
+        long started = System.nanoTime();
+        JournalEntries journal = new JournalEntries();
+        List<Reject> rejects = new ArrayList<>();
+        List<Transition> transitions = new ArrayList<>();
+        Map<SpreadKey, SpreadTrack> touched = new LinkedHashMap<>();
+        List<SpreadTrack> stepSpreads = new ArrayList<>();
+        int accepted = 0;
+        int duplicates = 0;
+        Map<String, int[]> acceptedByOrigin = new HashMap<>();
+        Map<String, int[]> duplicatesByOrigin = new HashMap<>();
+        List<SpreadStatus> changed = new ArrayList<>();
+        long beforeWrite;
+        long written;
+        // the whole step or nothing: a failure anywhere before the commit (deciding as well as
+        // writing) leaves memory ahead of the journal (ids taken as seen, monitors moved on), so it
+        // goes back to what the journal holds; otherwise the quotes sent again would be dropped as
+        // duplicates of quotes that were never journalled
+        try {
+            for (QuoteBatch batch : batches) {
+                for (Reject r : batch.rejects()) {
+                    journal.reject(new JournalEntries.RejectedQuote(batch.origin(), r.reason().code(), r.detail(), r.item(), r.raw()));
+                    rejects.add(r);
+                }
+                for (QuoteMessage m : batch.messages()) {
+                    if (m.id() != null && !seenIds.add(m.id())) {
+                        duplicates++;
+                        duplicatesByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
+                        continue;
+                    }
+                    long seq = ++sequence;
+                    accepted++;
+                    acceptedByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
+                    lastReceived.put(m.curve(), Instant.now(clock));
+                    journal.quote(new JournalEntries.AcceptedQuote(seq, batch.origin(), m.id(), m.source(), m.time(), m.curve(),
+                            m.date(), m.yieldsBp()));
+                    CurveSnapshot snapshot = book.apply(m.curve(), m.date(), m.yieldsBp());
+                    stepSpreads.clear();
+                    List<MonitorEvent> events = engine.onSnapshot(snapshot, seq, (key, observation) -> {
+                        journal.observation(key, observation);
+                        SpreadTrack track = touched.computeIfAbsent(key, engine::track);
+                        if (track != null && !stepSpreads.contains(track)) {
+                            stepSpreads.add(track);
+                        }
+                    });
+                    for (MonitorEvent e : events) {
+                        record(e, journal, transitions);
+                    }
+                    // alerts are decided after each message, on the status it left, not once per batch: a
+                    // notice must not depend on how many messages a poll happened to bring (a backlog after
+                    // a restart comes in large batches, live quotes in small ones)
+                    if (!stepSpreads.isEmpty()) {
+                        alerts.onStep(stepSpreads.stream().map(SpreadStatus::of).toList(), seq, journal);
+                    }
+                }
+            }
+            for (SpreadTrack t : touched.values()) {
+                if (t != null) {
+                    changed.add(SpreadStatus.of(t));
+                }
+            }
+            beforeWrite = System.nanoTime();
+            writer.write(journal);
+            written = System.nanoTime();
+        } catch (RuntimeException e) {
+            recoverAfterFailedStep(e);
+            throw e;
+        }
+        acceptedByOrigin.forEach((origin, n) -> listener.accepted(origin, n[0]));
+        duplicatesByOrigin.forEach((origin, n) -> listener.duplicates(origin, n[0]));
+        for (QuoteBatch batch : batches) {
+            batch.rejects().forEach(r -> listener.rejected(batch.origin(), r.reason()));
+        }
+        for (Transition t : transitions) {
+            log(t);
+            listener.transition(t);
+        }
+        changed.forEach(listener::spreadChanged);
+        alerts.written(journal.alerts());
+        listener.processed(Duration.ofNanos(beforeWrite - started), Duration.ofNanos(written - beforeWrite));
+        return new BatchOutcome(accepted, duplicates, rejects.size(), transitions.size(), rejects);
+    }
+
+    private void record(MonitorEvent e, JournalEntries journal, List<Transition> transitions) {
+        if (e instanceof Transition t) {
+            journal.transition(t);
+            transitions.add(t);
+        } else if (e instanceof Spell s) {
+            journal.spell(s);
+        } else if (e instanceof Revision r) {
+            journal.revision(r, engine.track(r.spread()).endedSpells());
+            transitions.addAll(r.after());
+            LOG.warnf("revision spread=%s from=%s: %d transition(s) replaced by %d: %s", r.spread().id(), r.from(),
+                    r.before().size(), r.after().size(), r.after());
+        }
+    }
+
+    /** One structured line per transition; with JSON logs the fields also travel as MDC keys. */
+    private static void log(Transition t) {
+        MDC.put("spread", t.spread().id());
+        MDC.put("market_date", t.date().toString());
+        MDC.put("from", t.from().name());
+        MDC.put("to", t.to().name());
+        MDC.put("test", t.evidence().test());
+        try {
+            LOG.infof("transition spread=%s date=%s from=%s to=%s test=%s reason=\"%s\"", t.spread().id(), t.date(), t.from(),
+                    t.to(), t.evidence().test(), t.reason());
+        } finally {
+            MDC.remove("spread");
+            MDC.remove("market_date");
+            MDC.remove("from");
+            MDC.remove("to");
+            MDC.remove("test");
+        }
+    }
+
+    public synchronized List<CurveSnapshot> latestCurves() {
+        return List.copyOf(book.latest());
+    }
+
+    /** A curve's snapshot on a market date, or null. */
+    public synchronized CurveSnapshot curve(String curve, LocalDate date) {
+        return book.snapshot(curve, date);
+    }
+
+    /** A curve's snapshot on the latest market date on or before a date, or null. */
+    public synchronized CurveSnapshot curveOnOrBefore(String curve, LocalDate date) {
+        return book.snapshotOnOrBefore(curve, date);
+    }
+
+    public synchronized List<SpreadStatus> spreads() {
+        return engine.tracks().stream().map(SpreadStatus::of).toList();
+    }
+
+    public synchronized SpreadStatus spread(SpreadKey key) {
+        SpreadTrack t = engine.track(key);
+        return t == null ? null : SpreadStatus.of(t);
+    }
+
+    /** When a quote for each curve was last journalled: by this process, or as the journal said at the last rebuild. */
+    public synchronized Map<String, Instant> lastReceived() {
+        return Map.copyOf(lastReceived);
+    }
+
+    /** When a quote for this curve was last journalled, or null; without waiting for a step in progress. */
+    public Instant lastReceived(String curve) {
+        return lastReceived.get(curve);
+    }
+
+    public List<Watch> watches() {
+        return watches;
+    }
+}

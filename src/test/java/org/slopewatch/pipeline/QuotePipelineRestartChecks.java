@@ -1,0 +1,342 @@
+package org.slopewatch.pipeline;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import io.agroal.api.AgroalDataSource;
+import java.time.Clock;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.ZoneOffset;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.List;
+import java.util.Map;
+import java.util.Random;
+import java.util.Set;
+import org.junit.jupiter.api.AfterEach;
+import org.junit.jupiter.api.Test;
+import org.slopewatch.alerting.AlertStage;
+import org.slopewatch.curve.Tenor;
+import org.slopewatch.ingest.IngestRules;
+import org.slopewatch.ingest.QuoteDecoder;
+import org.slopewatch.journal.JournalEntries;
+import org.slopewatch.journal.JournalReader;
+import org.slopewatch.journal.JournalWriter;
+import org.slopewatch.monitor.DaysInverted;
+import org.slopewatch.monitor.MonitorDefinition;
+import org.slopewatch.monitor.QuarterAverage;
+import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.monitor.Watch;
+import org.slopewatch.spread.SpreadDefinition;
+
+/**
+ * A stop and restart at any point gives the same states, spells and transitions as an
+ * uninterrupted run: the pipeline rebuilds itself from the journal. The checks are written once
+ * here and run against each journal database by a subclass: {@link QuotePipelineRestartTest}
+ * (H2, the embedded default) and {@link QuotePipelineRestartPostgresTest} (a real PostgreSQL).
+ */
+abstract class QuotePipelineRestartChecks {
+
+    private final List<AutoCloseable> open = new ArrayList<>();
+    private final Clock clock = Clock.fixed(Instant.parse("2030-01-01T00:00:00Z"), ZoneOffset.UTC);
+    private static final List<Watch> WATCHES = List.of(
+            new Watch(SpreadDefinition.parse("10Y-3M"), new MonitorDefinition(0, 5, 2, 60,
+                    List.of(new QuarterAverage(0), new DaysInverted(45))), Set.of()),
+            new Watch(SpreadDefinition.parse("10Y-2Y"), new MonitorDefinition(0, 0, 1, 30, List.of(new DaysInverted(20))), Set.of()));
+
+    /**
+     * A new, empty journal, migrated and kept apart from every other one; {@code name} tells the
+     * journals of one test apart. Register what must be closed with {@link #closeAfterTest}.
+     */
+    protected abstract AgroalDataSource database(String name);
+
+    /** Closes {@code resource} after the test, before anything registered earlier. */
+    protected final <T extends AutoCloseable> T closeAfterTest(T resource) {
+        open.add(resource);
+        return resource;
+    }
+
+    @AfterEach
+    void close() throws Exception {
+        Collections.reverse(open);
+        for (AutoCloseable c : open) {
+            c.close();
+        }
+        open.clear();
+    }
+
+    private QuotePipeline pipeline(AgroalDataSource ds) {
+        QuotePipeline p = new QuotePipeline(WATCHES, new JournalWriter(ds, clock), new JournalReader(ds), PipelineListener.NONE, clock);
+        p.recover();
+        return p;
+    }
+
+    /** A year of business days on two curves through an inversion, with revisions, replacements and duplicates. */
+    static List<QuoteBatch> scenario(long seed) {
+        Random random = new Random(seed);
+        List<QuoteBatch> batches = new ArrayList<>();
+        LocalDate date = LocalDate.of(2026, 1, 1);
+        double shortRate = 300;
+        int n = 0;
+        for (int day = 0; day < 260; day++) {
+            date = date.plusDays(date.getDayOfWeek().getValue() >= 5 ? 8 - date.getDayOfWeek().getValue() : 1);
+            shortRate += day < 120 ? 2.0 : -2.5;
+            for (String curve : List.of("GOVT-A", "GOVT-B")) {
+                double tilt = curve.equals("GOVT-A") ? 0 : 150;
+                List<QuoteMessage> messages = new ArrayList<>();
+                messages.add(new QuoteMessage("m" + (n++), "test", null, curve, date, new java.util.TreeMap<>(Map.of(
+                        Tenor.months(3), shortRate + random.nextGaussian() * 3,
+                        Tenor.years(2), 380 + tilt + random.nextGaussian() * 3))));
+                messages.add(new QuoteMessage("m" + (n++), "test", null, curve, date, new java.util.TreeMap<>(Map.of(
+                        Tenor.years(10), 420 + tilt + random.nextGaussian() * 3))));
+                if (day % 17 == 5) {
+                    // a corrected 10Y for the same date replaces the provisional value
+                    messages.add(new QuoteMessage("m" + (n++), "test", null, curve, date, new java.util.TreeMap<>(Map.of(
+                            Tenor.years(10), 420 + tilt - 25))));
+                }
+                if (day % 29 == 11) {
+                    // a revision of a date a week back
+                    messages.add(new QuoteMessage("m" + (n++), "test", null, curve, date.minusDays(7), new java.util.TreeMap<>(Map.of(
+                            Tenor.months(3), shortRate + 60))));
+                }
+                if (day % 13 == 3) {
+                    messages.add(messages.get(0)); // a duplicate id
+                }
+                batches.add(new QuoteBatch("test", messages, List.of()));
+            }
+        }
+        // the week-back revisions above deepen values without changing an outcome; this one must: a 10Y of
+        // 100 bp on the first day inverts both of GOVT-A's spreads that day, so every transition since is superseded
+        batches.add(new QuoteBatch("test", List.of(new QuoteMessage("m" + n, "test", null, "GOVT-A", LocalDate.of(2026, 1, 2),
+                new java.util.TreeMap<>(Map.of(Tenor.years(10), 100.0)))), List.of()));
+        return batches;
+    }
+
+    @Test
+    void aRestartAtAnyPointGivesTheSameOutcomeAsAnUninterruptedRun() {
+        List<QuoteBatch> batches = scenario(7);
+
+        AgroalDataSource straight = database("straight");
+        QuotePipeline uninterrupted = pipeline(straight);
+        batches.forEach(b -> uninterrupted.process(List.of(b)));
+
+        for (int stopAt : new int[] {1, 97, 250, 401}) {
+            AgroalDataSource ds = database("restart-" + stopAt);
+            QuotePipeline first = pipeline(ds);
+            batches.subList(0, stopAt).forEach(b -> first.process(List.of(b)));
+            QuotePipeline second = pipeline(ds); // the first is gone: rebuilt from the journal alone
+            batches.subList(stopAt, batches.size()).forEach(b -> second.process(List.of(b)));
+
+            assertThat(second.spreads()).as("states and open spells after a restart at batch %d", stopAt)
+                    .isEqualTo(uninterrupted.spreads());
+            JournalReader expected = new JournalReader(straight);
+            JournalReader actual = new JournalReader(ds);
+            assertThat(outcomes(actual)).as("journalled transitions after a restart at batch %d", stopAt)
+                    .isEqualTo(outcomes(expected));
+        }
+        assertThat(outcomes(new JournalReader(straight))).as("the scenario does exercise the monitor and revisions")
+                .anyMatch(s -> s.contains("CONFIRMED")).anyMatch(s -> s.contains("superseded"));
+    }
+
+    @Test
+    void duplicatesAreIgnoredAndCountedEvenAcrossARestart() {
+        AgroalDataSource ds = database("dups");
+        QuoteMessage m = new QuoteMessage("abc-1", "test", null, "GOVT-A", LocalDate.of(2026, 3, 2),
+                new java.util.TreeMap<>(Map.of(Tenor.years(10), 400.0, Tenor.months(3), 410.0)));
+        BatchOutcome first = pipeline(ds).process(List.of(new QuoteBatch("test", List.of(m, m), List.of())));
+        assertThat(first.accepted()).isEqualTo(1);
+        assertThat(first.duplicates()).isEqualTo(1);
+        BatchOutcome afterRestart = pipeline(ds).process(List.of(new QuoteBatch("test", List.of(m), List.of())));
+        assertThat(afterRestart.accepted()).isZero();
+        assertThat(afterRestart.duplicates()).isEqualTo(1);
+    }
+
+    /**
+     * A step that fails before its transaction commits, here while deciding its alerts, took
+     * nothing: the same message sent again is accepted and journalled, not dropped as a duplicate
+     * of one the journal never got.
+     */
+    @Test
+    void aStepThatFailsBeforeItsCommitTakesNoIdAsSeen() {
+        AgroalDataSource ds = database("failed-step");
+        boolean[] failNext = {true};
+        AlertStage failingOnce = new AlertStage() {
+            @Override
+            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
+                if (failNext[0]) {
+                    failNext[0] = false;
+                    throw new IllegalStateException("the alert stage failed");
+                }
+            }
+
+            @Override
+            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
+            }
+
+            @Override
+            public void written(List<JournalEntries.AlertEntry> alerts) {
+            }
+
+            @Override
+            public void rebuild() {
+            }
+        };
+        QuotePipeline p = new QuotePipeline(WATCHES, new JournalWriter(ds, clock), new JournalReader(ds), PipelineListener.NONE,
+                failingOnce, clock);
+        p.recover();
+        QuoteBatch batch = new QuoteBatch("test", List.of(new QuoteMessage("sent-twice", "test", null, "GOVT-A", LocalDate.of(2026, 3, 2),
+                new java.util.TreeMap<>(Map.of(Tenor.years(10), 400.0, Tenor.months(3), 410.0, Tenor.years(2), 405.0)))), List.of());
+
+        assertThatThrownBy(() -> p.process(List.of(batch))).hasMessageContaining("the alert stage failed");
+        BatchOutcome again = p.process(List.of(batch));
+
+        assertThat(again.accepted()).as("the message sent again after the failed step is accepted").isEqualTo(1);
+        assertThat(again.duplicates()).as("and not taken for a duplicate").isZero();
+        assertThat(new JournalReader(ds).quoteCount()).as("quote messages journalled").isEqualTo(1);
+        assertThat(p.spreads()).as("the monitors saw the quote once").isEqualTo(pipeline(ds).spreads());
+    }
+
+    @Test
+    void recoveryFollowsTheProcessingOrderEvenWhereRowIdsDoNot() throws Exception {
+        // PostgreSQL hands identity values to each connection in cached blocks, so a later quote can
+        // get a lower id than an earlier one; here every id is reversed against the processing order
+        List<QuoteBatch> batches = scenario(11);
+        AgroalDataSource straight = database("in-order");
+        QuotePipeline uninterrupted = pipeline(straight);
+        batches.forEach(b -> uninterrupted.process(List.of(b)));
+        AgroalDataSource shuffled = database("ids-reversed");
+        String columns = "seq, message_id, origin, source, sent_at, curve, market_date, yields, recorded_at";
+        try (java.sql.Connection from = straight.getConnection(); java.sql.Connection to = shuffled.getConnection();
+             java.sql.Statement read = from.createStatement();
+             java.sql.ResultSet rs = read.executeQuery("SELECT id, " + columns + " FROM quote");
+             java.sql.PreparedStatement write = to.prepareStatement("INSERT INTO quote (id, " + columns + ") VALUES (?,?,?,?,?,?,?,?,?,?)")) {
+            while (rs.next()) {
+                write.setLong(1, 10_000_000 - rs.getLong(1));
+                for (int i = 2; i <= 10; i++) {
+                    write.setObject(i, rs.getObject(i));
+                }
+                write.addBatch();
+            }
+            write.executeBatch();
+        }
+
+        assertThat(pipeline(shuffled).spreads()).isEqualTo(uninterrupted.spreads());
+    }
+
+    @Test
+    void aRestartRemembersWhenEachCurveWasLastQuoted() {
+        AgroalDataSource ds = database("last-quoted");
+        scenario(3).subList(0, 40).forEach(b -> pipeline(ds).process(List.of(b)));
+
+        // the feed's quiet time runs from the journalled quote, not from the restart
+        assertThat(pipeline(ds).lastReceived()).containsOnlyKeys("GOVT-A", "GOVT-B").containsValue(clock.instant());
+    }
+
+    @Test
+    void alertsSeeTheSameStepsHoweverTheQuotesAreBatched() {
+        // live quotes come a few at a time; a backlog after a restart comes in polls of hundreds
+        List<QuoteBatch> batches = scenario(5);
+        List<String> oneByOne = new ArrayList<>();
+        AgroalDataSource single = database("one-by-one");
+        QuotePipeline live = new QuotePipeline(WATCHES, new JournalWriter(single, clock), new JournalReader(single),
+                PipelineListener.NONE, recording(oneByOne), clock);
+        batches.forEach(b -> live.process(List.of(b)));
+        List<String> inBulk = new ArrayList<>();
+        AgroalDataSource bulk = database("in-bulk");
+        QuotePipeline catchingUp = new QuotePipeline(WATCHES, new JournalWriter(bulk, clock), new JournalReader(bulk),
+                PipelineListener.NONE, recording(inBulk), clock);
+        for (int from = 0; from < batches.size(); from += 150) {
+            catchingUp.process(batches.subList(from, Math.min(batches.size(), from + 150)));
+        }
+
+        assertThat(inBulk).isEqualTo(oneByOne).anyMatch(s -> s.contains("CONFIRMED"));
+    }
+
+    /** An alert stage that writes down every status it is shown, in order. */
+    private static AlertStage recording(List<String> seen) {
+        return new AlertStage() {
+            @Override
+            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
+                changed.forEach(c -> seen.add(c.id() + " " + c.date() + " " + c.state() + " " + c.valueBp()));
+            }
+
+            @Override
+            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
+            }
+
+            @Override
+            public void written(List<JournalEntries.AlertEntry> alerts) {
+            }
+
+            @Override
+            public void rebuild() {
+            }
+        };
+    }
+
+    /**
+     * What a hostile sender writes comes back in reject details and raw input. A PostgreSQL text
+     * column refuses NUL, and a refused write used to fail the whole step (HTTP 503, and with Kafka
+     * a stopped consumer), good quotes of the same request with it: the journal now keeps NUL as
+     * U+FFFD. Texts that would be kept as they are (a quote's id, source, curve) are refused by
+     * the decoder instead, as is a market date the journal cannot store faithfully.
+     */
+    @Test
+    void hostileTextIsJournalledAsARejectAndTheGoodQuoteBesideItIsKept() {
+        AgroalDataSource ds = database("hostile");
+        QuotePipeline p = pipeline(ds);
+        QuoteDecoder decoder = new QuoteDecoder(new IngestRules(Set.of("GOVT-A"), org.slopewatch.curve.YieldBounds.DEFAULT, 3, clock));
+        QuoteBatch items = decoder.decode("test", """
+                [{"curve":"GOVT-\\u0000","tenor":"10Y","date":"2026-03-02","yield":4.2},
+                 {"curve":"GOVT-A","tenor":"10Y","date":"2026-03-02","yield":4.2,"source":"feed\\u0000"},
+                 {"curve":"GOVT-A","tenor":"10Y","date":"-9999-01-03","yield":4.2},
+                 {"curve":"GOVT-A","tenor":"10Y","date":"2026-03-02","yield":4.2,"id":"good-1"}]""");
+        QuoteBatch notJson = decoder.decode("test", "{\"curve\":\"GOVT-A\u0000\"}");
+        BatchOutcome o = p.process(List.of(items, notJson));
+
+        assertThat(o.accepted()).as("the good quote is kept").isEqualTo(1);
+        assertThat(o.rejected()).isEqualTo(4);
+        List<JournalReader.StoredReject> stored = new JournalReader(ds).rejects(10);
+        assertThat(stored).hasSize(4);
+        assertThat(stored).extracting(JournalReader.StoredReject::reason)
+                .containsExactlyInAnyOrder("unknown-curve", "malformed", "bad-date", "malformed");
+        // the detail quotes the curve as an excerpt, its NUL escaped; the raw text keeps it as U+FFFD
+        assertThat(stored).anyMatch(r -> r.detail().equals("unknown curve 'GOVT-\\u0000'"))
+                .anyMatch(r -> r.raw() != null && r.raw().contains("GOVT-A\uFFFD"))
+                .allMatch(r -> !r.detail().contains("\u0000") && (r.raw() == null || !r.raw().contains("\u0000")));
+        assertThat(new JournalReader(ds).quoteCount()).isEqualTo(1);
+    }
+
+    private static List<String> outcomes(JournalReader journal) {
+        return journal.transitions(null, LocalDate.of(1, 1, 1), LocalDate.of(9999, 1, 1), true, 100_000)
+                .stream().map(t -> t.spreadId() + " " + t.date() + " " + t.from() + "->" + t.to() + " " + t.test() + " spell "
+                        + t.spellId() + " seq " + t.seq() + (t.supersededBy() == null ? "" : " superseded")).toList();
+    }
+
+    /** What a step hands the alert stage. */
+    interface StepWatcher {
+        void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal);
+    }
+
+    /** An alert stage that only watches steps: no clock, nothing written, nothing to rebuild. */
+    static AlertStage onStepOnly(StepWatcher watcher) {
+        return new AlertStage() {
+            @Override
+            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
+                watcher.onStep(changed, sequence, journal);
+            }
+            @Override
+            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
+            }
+
+            @Override
+            public void written(List<JournalEntries.AlertEntry> alerts) {
+            }
+
+            @Override
+            public void rebuild() {
+            }
+        };
+    }
+}
