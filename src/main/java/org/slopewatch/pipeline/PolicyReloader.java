@@ -6,7 +6,10 @@ import jakarta.inject.Singleton;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.time.Clock;
+import java.time.Instant;
 import java.util.List;
+import java.util.Optional;
 import java.util.concurrent.Executors;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
@@ -24,7 +27,9 @@ import org.slopewatch.rules.PolicyHash;
  * hash is compared with the one in force; a changed, valid file replaces the policy as a whole
  * (the monitors are rebuilt from the journal under the new watch list, open alert episodes of
  * rules kept by name carry over) and is journalled with its hash. An invalid file is rejected
- * with its problems logged, counted and journalled, and the previous policy keeps running.
+ * with its problems logged, counted and journalled, and the previous policy keeps running; the
+ * rejection stays visible ({@link #rejected()}, reported by the wellness check) until the file is
+ * applied or is back to the content in force.
  *
  * <p>Polling the content rather than watching the directory: it also sees files replaced by a
  * symlink swap (as Kubernetes does with a mounted ConfigMap) and costs one small read.
@@ -39,6 +44,18 @@ public class PolicyReloader {
     public record Outcome(String result, String hash, String detail) {
     }
 
+    /**
+     * The file on disk as last rejected, while it stays so: the previous policy keeps running.
+     *
+     * @param problems one line each, as logged and journalled
+     */
+    public record Rejection(String file, String hash, Instant at, List<String> problems) {
+
+        public Rejection {
+            problems = List.copyOf(problems);
+        }
+    }
+
     private final PolicyHolder policies;
     private final QuotePipeline pipeline;
     private final AlertDesk desk;
@@ -49,10 +66,13 @@ public class PolicyReloader {
         t.setDaemon(true);
         return t;
     });
-    private String lastRejectedHash;
+    private final Clock clock;
+    // the file's content as last rejected, until a check finds other content
+    private volatile Rejection rejected;
 
     PolicyReloader(PolicyHolder policies, QuotePipeline pipeline, AlertDesk desk, AlertStore store, AlertMetrics metrics,
-                   AlertsConfig config) {
+                   AlertsConfig config, Clock clock) {
+        this.clock = clock;
         this.policies = policies;
         this.pipeline = pipeline;
         this.desk = desk;
@@ -89,9 +109,11 @@ public class PolicyReloader {
         }
         String hash = PolicyHash.of(bytes);
         if (hash.equals(current.hash())) {
+            rejected = null; // the file is back to the policy in force
             return new Outcome("unchanged", hash, "the policy in force has this content");
         }
-        if (hash.equals(lastRejectedHash)) {
+        Rejection last = rejected;
+        if (last != null && hash.equals(last.hash())) {
             return new Outcome("rejected", hash, "this content was rejected before; the previous policy keeps running");
         }
         PolicyHolder.Loaded next;
@@ -115,7 +137,7 @@ public class PolicyReloader {
         }
         store.policyVersion(hash, file, "applied", "reloaded");
         metrics.reload("applied");
-        lastRejectedHash = null;
+        rejected = null;
         LOG.infof("policy %s reloaded (sha256 %s): %d watch(es), %d alert rule(s)", file, hash, next.policy().watches().size(),
                 next.policy().alerts().size());
         return new Outcome("applied", hash, "reloaded");
@@ -127,7 +149,7 @@ public class PolicyReloader {
      */
     private Outcome reject(String file, String hash, List<String> problems) {
         String why = String.join(System.lineSeparator(), problems);
-        lastRejectedHash = hash;
+        rejected = new Rejection(file, hash, clock.instant(), problems);
         metrics.reload("rejected");
         store.policyVersion(hash, file, "rejected", why);
         // one log line per problem: a record never spans lines (the log guard escapes line breaks)
@@ -136,6 +158,11 @@ public class PolicyReloader {
             LOG.errorf("policy rejected: %s", problem);
         }
         return new Outcome("rejected", hash, why);
+    }
+
+    /** The policy file's rejection while the file on disk stays rejected; empty once it is applied or back to the policy in force. */
+    public Optional<Rejection> rejected() {
+        return Optional.ofNullable(rejected);
     }
 
     @PreDestroy
