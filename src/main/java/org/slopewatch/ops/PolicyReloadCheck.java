@@ -34,8 +34,8 @@ public class PolicyReloadCheck implements HealthCheck {
         Optional<PolicyReloader.Rejection> rejected = reloader.rejected();
         if (rejected.isPresent()) {
             PolicyReloader.Rejection r = rejected.get();
-            b.down().withData("rejected", r.file() + " as found at " + r.at() + " (sha256 " + r.hash() + "): the previous policy keeps "
-                    + "running").withData("problems", r.problems().size());
+            b.down().withData("rejected", r.file() + " as found at " + r.at() + r.contentHash().map(h -> " (sha256 " + h + ")").orElse("")
+                    + ": the previous policy keeps running").withData("problems", r.problems().size());
             if (!r.problems().isEmpty()) {
                 b.withData("first problem", r.problems().get(0));
             }

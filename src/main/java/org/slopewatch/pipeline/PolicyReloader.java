@@ -44,15 +44,25 @@ public class PolicyReloader {
     public record Outcome(String result, String hash, String detail) {
     }
 
+    // stands for the content of a file that could not be read, so that it is rejected once; short
+    // enough for the journal's content_hash column (64 characters), which holds it
+    private static final String UNREADABLE = "unreadable";
+
     /**
      * The file on disk as last rejected, while it stays so: the previous policy keeps running.
      *
+     * @param hash     the SHA-256 of the rejected content, or a mark for a file that could not be read
      * @param problems one line each, as logged and journalled
      */
     public record Rejection(String file, String hash, Instant at, List<String> problems) {
 
         public Rejection {
             problems = List.copyOf(problems);
+        }
+
+        /** The rejected content's SHA-256; empty when the file could not be read. */
+        public Optional<String> contentHash() {
+            return UNREADABLE.equals(hash) ? Optional.empty() : Optional.of(hash);
         }
     }
 
@@ -105,7 +115,7 @@ public class PolicyReloader {
         try {
             bytes = Files.readAllBytes(Path.of(file));
         } catch (IOException e) {
-            return reject(file, "unreadable:" + file, List.of("cannot read " + file + ": " + e.getMessage()));
+            return reject(file, UNREADABLE, List.of("cannot read " + file + ": " + e.getMessage()));
         }
         String hash = PolicyHash.of(bytes);
         if (hash.equals(current.hash())) {

@@ -98,6 +98,14 @@ class HealthUnconfiguredDeskTest {
             assertThat(well.data("policy reload", "rejected")).contains(POLICY.toString()).contains("the previous policy keeps running");
             assertThat(well.data("policy reload", "first problem")).contains(POLICY + ":").contains("night-pager");
             assertThat(HealthAnswer.of("/q/health").checkStatus("policy reload")).isEqualTo("DOWN");
+
+            // then the file goes away: still rejected, now as unreadable, with no content to name
+            Files.delete(POLICY);
+            given().post("/api/policy/reload").then().statusCode(422);
+            HealthAnswer gone = HealthAnswer.of("/q/health/well");
+            assertThat(gone.checkStatus("policy reload")).as("%s", gone).isEqualTo("DOWN");
+            assertThat(gone.data("policy reload", "rejected")).doesNotContain("sha256");
+            assertThat(gone.data("policy reload", "first problem")).startsWith("cannot read " + POLICY);
         } finally {
             Files.writeString(POLICY, inForce);
         }
