@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.Collection;
 import java.util.HashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.function.Function;
@@ -104,12 +105,24 @@ public class AlertDesk implements AlertStage {
         return problems;
     }
 
+    /** Whether the rules of the policy in force can reach the desk with the channels configured here. */
+    public ChannelReach reach() {
+        return reach(policies.policy());
+    }
+
+    private ChannelReach reach(Policy policy) {
+        return ChannelReach.of(policy, name -> channels.channel(name).map(AlertChannel::type));
+    }
+
     private void warnUnconfigured(Policy policy) {
-        for (ChannelDeclaration declared : policy.channels()) {
-            if (channels.channel(declared.name()).isEmpty()) {
-                LOG.warnf("channel %s (%s) is named in %s but not configured (slopewatch.channels.%s.*): its deliveries will be "
-                        + "recorded as skipped", declared.name(), declared.type(), policy.source(), declared.name());
-            }
+        ChannelReach reach = reach(policy);
+        for (ChannelDeclaration declared : reach.unconfigured()) {
+            LOG.warnf("channel %s (%s) is named in %s but not configured (slopewatch.channels.%s.*): its deliveries will be "
+                    + "recorded as skipped", declared.name(), declared.type(), policy.source(), declared.name());
+        }
+        for (ChannelReach.RuleReach rule : reach.unreached()) {
+            LOG.warnf("alert rule %s (%s) in %s %s", rule.rule(), rule.severity().name().toLowerCase(Locale.ROOT),
+                    policy.source(), rule.describe());
         }
     }
 

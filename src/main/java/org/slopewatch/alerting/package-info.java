@@ -3,7 +3,9 @@
  * rule engine the pipeline drives at each step and tick ({@link org.slopewatch.alerting.AlertStage},
  * implemented by {@link org.slopewatch.alerting.AlertDesk}), the content of a notice
  * ({@link org.slopewatch.alerting.AlertComposer}), and delivery from the journal's outbox with one
- * retry policy ({@link org.slopewatch.alerting.AlertDispatcher}). Depends on the journal and on
- * delivery; the pipeline depends on it.
+ * retry policy ({@link org.slopewatch.alerting.AlertDispatcher}); whether each rule can reach the
+ * desk with the channels configured ({@link org.slopewatch.alerting.ChannelReach}) and which
+ * channels' attempts are failing ({@link org.slopewatch.alerting.ChannelFailures}). Depends on the
+ * journal and on delivery; the pipeline and the health checks depend on it.
  */
 package org.slopewatch.alerting;
