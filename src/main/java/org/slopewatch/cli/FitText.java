@@ -86,7 +86,7 @@ final class FitText {
                 + "    horizon-months: " + r.horizonMonths() + nl
                 + "    average: monthly" + nl
                 + "    source: \"" + yamlText(provenance(r)) + "\"" + nl
-                + "    # " + kind + " covariance of (alpha, beta): the daemon's 90 % band rests on it" + nl
+                + "    # covariance of (alpha, beta), " + kind + ": the daemon's 90 % band rests on it" + nl
                 + "    covariance: { var-alpha: " + sig(c.varAlpha()) + ", cov-alpha-beta: " + sig(c.covAlphaBeta()) + ", var-beta: "
                 + sig(c.varBeta()) + " }" + nl;
     }
