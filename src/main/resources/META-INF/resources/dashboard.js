@@ -267,13 +267,55 @@
     renderChanges();
   }
 
-  function odds(p) {
+  // ---- the recession probability, in words ----
+  // As the reports say it (probability.ProbabilityText): how far ahead, which spread's average of which
+  // month and whether that month is over, the band when the policy gives one, and where the model comes from.
+  // The last complete month is shown first; the month so far is marked provisional.
+
+  function monthsBetween(from, to) {
+    const [fy, fm] = from.split('-').map(Number);
+    const [ty, tm] = to.split('-').map(Number);
+    return (ty - fy) * 12 + (tm - fm);
+  }
+
+  function pctNumber(p) {
+    const v = 100 * p;
+    return v < 0.5 || v >= 99.5 ? v.toFixed(1) : v.toFixed(0);
+  }
+
+  function pct(p) {
+    return pctNumber(p) + ' %';
+  }
+
+  function band(p) {
+    return p.band90_lower === null || p.band90_lower === undefined ? null
+      : '90 % band ' + pctNumber(p.band90_lower) + '\u2013' + pct(p.band90_upper);
+  }
+
+  function observations(n) {
+    return n + (n === 1 ? ' observation' : ' observations');
+  }
+
+  function probabilityText(s, p) {
+    return monthsBetween(p.month, p.recession_month) + '-month-ahead recession probability ' + pct(p.value)
+      + ' (' + (band(p) || 'no band: the model has no covariance') + '): P(recession in ' + p.recession_month + '), from the '
+      + s.spread + ' average of ' + p.month
+      + (p.provisional ? ' so far (provisional: month to date, ' + observations(p.observations) + ')'
+        : ' (complete month, ' + observations(p.observations) + ')')
+      + '; model: ' + (p.model_source || 'no source given');
+  }
+
+  // The overview's short form: the same facts but the target month and the model, which the spread's card gives.
+  function odds(s) {
+    const p = s.probability_last_month || s.probability;
     if (!p) {
-      return '\u2014';
+      return ['\u2014'];
     }
-    const band = p.band90_lower === null || p.band90_lower === undefined ? ''
-      : ' (90% band ' + Math.round(100 * p.band90_lower) + '\u2013' + Math.round(100 * p.band90_upper) + '%)';
-    return Math.round(100 * p.value) + '%' + band + ' for ' + p.recession_month;
+    const head = pct(p.value) + (band(p) ? ' (' + band(p) + ')' : '') + ', ' + monthsBetween(p.month, p.recession_month)
+      + ' months ahead, from the ' + s.spread + ' average of ' + p.month + (p.provisional ? ' so far (provisional)' : '');
+    const toDate = s.probability_last_month && s.probability
+      ? el('span', { class: 'provisional' }, 'month to date: ' + pct(s.probability.value) + ' (provisional)') : null;
+    return [el('span', { class: 'final' }, head), toDate];
   }
 
   function renderOverview() {
@@ -285,7 +327,7 @@
       el('td', null, stateTag(s.state)),
       el('td', { class: 'num' }, String(s.days_inverted)),
       el('td', { class: 'num' }, s.quarter_to_date_average_bp === null ? '\u2014' : signed(s.quarter_to_date_average_bp, 1)),
-      el('td', { class: 'odds' }, odds(s.probability)),
+      el('td', { class: 'odds' }, ...odds(s)),
       el('td', null, el('a', { href: '#spread-' + slug(s.id), class: 'show-chart' }, 'Chart', el('span', { class: 'visually-hidden' },
         ' of ' + s.curve + ' ' + s.spread))))));
   }
@@ -384,7 +426,7 @@
           el('div', { class: 'card-head' }, el('h3', { id: id + '-title' },
             el('span', { class: 'curve' }, s.curve), ' ', s.spread), el('span', { class: 'slot-state' })),
           el('div', { class: 'reading' }), el('p', { class: 'state-note' }), el('dl', { class: 'facts' }),
-          el('figure', { class: 'history' }));
+          el('div', { class: 'probability' }), el('figure', { class: 'history' }));
       }
       if (box.children[place] !== card) {
         box.insertBefore(card, box.children[place] || null);
@@ -419,14 +461,17 @@
     if (s.spell) {
       facts.push(['Deepest so far', bp(s.spell.deepest_bp) + ' on ' + s.spell.deepest_date]);
     }
-    if (s.probability) {
-      const p = s.probability;
-      const band = p.band90_lower === null ? '' : ' (90% band ' + Math.round(100 * p.band90_lower) + '–'
-        + Math.round(100 * p.band90_upper) + '%)';
-      facts.push(['Recession odds', Math.round(100 * p.value) + '%' + band + ' for ' + p.recession_month
-        + ' (' + p.month + ' average so far, ' + p.observations + ' days; a statistical signal only)']);
-    }
     card.querySelector('.facts').replaceChildren(...facts.flatMap(([k, v]) => [el('dt', null, k), el('dd', null, v)]));
+    // a sentence each, the width of the card: the last complete month first, the month so far after it
+    const odds = [];
+    if (s.probability_last_month) {
+      odds.push(el('p', { class: 'final' }, el('strong', null, 'Recession probability: '), probabilityText(s, s.probability_last_month)));
+    }
+    if (s.probability) {
+      odds.push(el('p', { class: 'provisional' }, el('strong', null, (s.probability_last_month ? 'Month to date (provisional)'
+        : 'Recession probability (provisional)') + ': '), probabilityText(s, s.probability)));
+    }
+    card.querySelector('.probability').replaceChildren(...odds);
 
     const figure = card.querySelector('.history');
     // the chart ends where the figures above it end, even if a newer date arrived in between

@@ -14,12 +14,15 @@ import java.util.List;
 import org.eclipse.microprofile.openapi.annotations.Operation;
 import org.slopewatch.alerting.PolicyHolder;
 import org.slopewatch.journal.JournalReader;
+import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.monitor.Watch;
+import org.slopewatch.pipeline.QuotePipeline;
 import org.slopewatch.replay.SpreadReport;
 import org.slopewatch.report.ChartPoint;
 import org.slopewatch.report.JournalDocument;
 import org.slopewatch.report.PolicySummary;
 import org.slopewatch.report.ReportHtml;
+import org.slopewatch.report.SpreadProbability;
 import org.slopewatch.rules.Policy;
 import org.slopewatch.spread.SpreadKey;
 
@@ -33,18 +36,20 @@ public class ReportResource {
 
     private final JournalReader journal;
     private final PolicyHolder policies;
+    private final QuotePipeline pipeline;
     private final Clock clock;
 
-    ReportResource(JournalReader journal, PolicyHolder policies, Clock clock) {
+    ReportResource(JournalReader journal, PolicyHolder policies, QuotePipeline pipeline, Clock clock) {
         this.journal = journal;
         this.policies = policies;
+        this.pipeline = pipeline;
         this.clock = clock;
     }
 
     @GET
     @Produces(MediaType.TEXT_HTML)
-    @Operation(summary = "An HTML report of spreads from the journal (repeat spread=CURVE:SPREAD): chart, spells, transitions, "
-            + "and the policy in force with its SHA-256")
+    @Operation(summary = "An HTML report of spreads from the journal (repeat spread=CURVE:SPREAD): findings (state now, "
+            + "recession probability), chart, spells, transitions, and the policy in force with its SHA-256")
     public String report(@QueryParam("spread") List<String> ids) {
         if (ids == null || ids.isEmpty()) {
             throw new BadRequestException("name at least one spread: ?spread=CURVE:SPREAD, e.g. GOVT-A:10Y-3M");
@@ -61,7 +66,10 @@ public class ReportResource {
             List<SpreadReport.TransitionRow> transitions = journal.transitions(key.id(), EARLIEST, LATEST, false, MAX_TRANSITIONS)
                     .stream().map(t -> new SpreadReport.TransitionRow(t.date(), t.from(), t.to(), t.test(), t.window(), t.measured(),
                             t.valueBp(), t.spellId(), t.reason())).toList();
-            spreads.add(new JournalDocument.SpreadInput(key, rules(loaded.policy(), key), values, transitions));
+            // the probability as /api/spreads gives it: the policy in force on the spread's month averages now
+            SpreadStatus status = pipeline.spread(key);
+            SpreadProbability probability = status == null ? null : SpreadProbability.of(loaded.policy().probability(), status);
+            spreads.add(new JournalDocument.SpreadInput(key, rules(loaded.policy(), key), values, transitions, probability));
         }
         PolicySummary policy = new PolicySummary(loaded.source(), loaded.hash(),
                 "the policy in force when this report was made; each transition was decided under the policy in force at its time",

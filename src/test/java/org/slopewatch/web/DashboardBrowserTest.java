@@ -2,8 +2,11 @@ package org.slopewatch.web;
 
 import static io.restassured.RestAssured.given;
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
 import static org.hamcrest.Matchers.equalTo;
 
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
 import io.quarkus.test.common.http.TestHTTPResource;
 import io.quarkus.test.junit.QuarkusTest;
 import io.restassured.http.ContentType;
@@ -16,7 +19,9 @@ import java.nio.file.StandardCopyOption;
 import java.time.Duration;
 import java.util.Comparator;
 import java.util.List;
+import java.util.Locale;
 import java.util.stream.Stream;
+import org.apache.commons.math3.distribution.NormalDistribution;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -112,6 +117,23 @@ class DashboardBrowserTest {
         WebElement state = spread.findElement(By.cssSelector(".state"));
         assertThat(state.getText()).as("the state is spelt out, not only coloured").isEqualTo("Inverted");
         assertThat(spread.getText()).as("the card gives the open spell's start").contains("since 2026-05-11");
+
+        // The recession probability in words. The default policy's probit for 10Y-3M (Estrella and Trubin (2006),
+        // alpha -0.5333, beta -0.6330, twelve months ahead, from memory) on May's average so far, as the API gives
+        // it; P recomputed with Commons Math. May is the month of the latest quote, so it is provisional.
+        // (read with Jackson: RestAssured's path() would read the numbers as floats)
+        JsonNode p = new ObjectMapper().readTree(given().get("/api/spreads/" + SPREAD).then().statusCode(200).extract().asString())
+                .get("probability");
+        double value = new NormalDistribution().cumulativeProbability(-0.5333 - 0.6330 * p.get("month_average_bp").asDouble() / 100);
+        assertThat(p.get("value").asDouble()).isCloseTo(value, within(1e-12));
+        String words = spread.findElement(By.cssSelector(".probability p.provisional")).getText();
+        assertThat(words).as("how far ahead, which month's average, provisional, and the model")
+                .containsPattern("^(Recession probability|Month to date) \\(provisional\\): ")
+                .contains(String.format(Locale.ROOT, "12-month-ahead recession probability %.0f %% (no band: the model has no covariance): "
+                        + "P(recession in 2027-05), from the 10Y-3M average of 2026-05 so far (provisional: month to date, ", 100 * value))
+                .contains("; model: Estrella and Trubin (2006)");
+        WebElement odds = browser.findElement(By.cssSelector("#overview-rows tr[data-spread='" + SPREAD + "'] td.odds"));
+        assertThat(odds.getText()).as("the overview names the horizon and the month too").contains("12 months ahead, from the 10Y-3M average of 2026-0");
 
         assertThat(browser.findElement(By.id("caution")).getText()).as("the caution is on the page, visibly")
                 .contains("A statistical signal, not investment advice")

@@ -13,6 +13,8 @@ import java.nio.file.Path;
 import java.security.MessageDigest;
 import java.util.HexFormat;
 import java.util.List;
+import java.util.Locale;
+import org.apache.commons.math3.distribution.NormalDistribution;
 import org.jsoup.Jsoup;
 import org.jsoup.nodes.Document;
 import org.jsoup.nodes.Element;
@@ -81,6 +83,20 @@ class ReportResourceTest {
         assertThat(page.select(".caution").text()).contains("not investment advice");
         assertThat(html).doesNotContain("src=\"http").doesNotContain("<link").doesNotContain("<script");
         assertThat(page.select("table.leads")).as("the daemon has no recession dates").isEmpty();
+
+        // The page opens with its findings: where the spread stands now and, under the default policy's
+        // probit for 10Y-3M (Estrella and Trubin (2006), alpha -0.5333, beta -0.6330, twelve months ahead,
+        // from memory), the probability from July 2026 so far: the nine posted days average
+        // (6 x 20 - 20 - 25 - 30) / 9 = 5 bp = 0.05 pp, P = Phi(-0.5333 - 0.6330 x 0.05), Phi from Commons Math.
+        assertThat(page.selectFirst("main > *").is("section.findings")).as("the findings come first").isTrue();
+        Element findings = page.selectFirst("section.findings div.spread-findings[data-spread=" + SPREAD + "]");
+        assertThat(findings.selectFirst("dd.state-now").text())
+                .isEqualTo("INVERTED since 2026-07-09; -30.0 bp on 2026-07-13; inverted spell open since 2026-07-09, not confirmed");
+        double p = new NormalDistribution().cumulativeProbability(-0.5333 - 0.6330 * 0.05);
+        assertThat(findings.selectFirst("dd.probability.provisional").text())
+                .startsWith(String.format(Locale.ROOT, "12-month-ahead recession probability %.0f %% (no band", 100 * p))
+                .contains("P(recession in 2027-07), from the 10Y-3M average of 2026-07 so far (provisional: month to date, 9 observations)")
+                .contains("; model: Estrella and Trubin (2006)");
     }
 
     @Test
