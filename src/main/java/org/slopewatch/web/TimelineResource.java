@@ -10,6 +10,7 @@ import java.time.Instant;
 import java.time.LocalDate;
 import java.util.List;
 import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.eclipse.microprofile.openapi.annotations.responses.APIResponse;
 import org.slopewatch.journal.AlertStore;
 import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
@@ -44,6 +45,8 @@ public class TimelineResource {
     @Path("/spreads/{id}/timeline")
     @Operation(summary = "Observations, transitions (superseded ones marked), alerts, delivery attempts and acknowledgements of a spread "
             + "in recorded order; with asOf, as the journal held them then")
+    @APIResponse(responseCode = "200", description = "the timeline")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the id, a date or asOf cannot be read")
     public TimelineView timeline(@PathParam("id") String id, @QueryParam("from") String from, @QueryParam("to") String to,
                                  @QueryParam("asOf") String asOf) {
         String spread = QueryParams.spread(id).id();

@@ -319,7 +319,7 @@ class HostileInputTest {
                 case "ack" -> given().contentType(ContentType.JSON).body(body).post(alert + "/ack");
                 default -> given().queryParam("by", JSON.readTree(body).get("by").asText()).delete("/api/mutes/" + mute);
             });
-            JsonNode errorNode = r.asString().startsWith("{") ? JSON.readTree(r.asString()).get("error") : null;
+            JsonNode errorNode = r.asString().startsWith("{") ? JSON.readTree(r.asString()).get("detail") : null;
             String error = errorNode == null ? "" : errorNode.asText();
             if (r.statusCode() != c.status() || !c.error().equals("-") && !error.contains(c.error()) || r.asString().length() > MAX_ANSWER) {
                 wrong.add(c.file() + ": expected " + c.status() + " " + c.error() + "\n    got HTTP " + r.statusCode() + " " + shorten(r.asString()));
