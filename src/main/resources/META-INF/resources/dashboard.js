@@ -401,7 +401,7 @@
       }
       if (!response.ok) {
         const body = await response.json().catch(() => ({}));
-        throw new Error(body.error || ('answered ' + response.status));
+        throw new Error(body.detail || ('answered ' + response.status)); // an RFC 9457 problem document
       }
       result.textContent = 'Acknowledged by ' + by + '.';
       schedule(300);

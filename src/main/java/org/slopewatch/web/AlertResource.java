@@ -18,10 +18,14 @@ import java.time.DateTimeException;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.eclipse.microprofile.openapi.annotations.media.Content;
+import org.eclipse.microprofile.openapi.annotations.media.Schema;
+import org.eclipse.microprofile.openapi.annotations.responses.APIResponse;
 import org.jboss.resteasy.reactive.RestResponse;
 import org.slopewatch.alerting.AlertDesk;
 import org.slopewatch.alerting.PolicyHolder;
@@ -132,6 +136,10 @@ public class AlertResource {
     @Path("/alerts")
     @Operation(summary = "Open alert episodes and the most recent notices with their deliveries and acknowledgements; with asOf, "
             + "the notices recorded by then as they stood then")
+    @APIResponse(responseCode = "200", description = "open episodes and recent notices; with as_of, the notices as they stood then",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON, schema = @Schema(oneOf = {AlertsView.class, AlertsAsOf.class})))
+    @APIResponse(responseCode = "400", description = "invalid-parameter: as_of is not an instant, limit not a whole number from 1, "
+            + "after not a cursor of this list")
     public RestResponse<Object> alerts(@QueryParam("limit") String limit, @QueryParam("as_of") String asOf,
                                        @QueryParam("after") String after, @Context UriInfo uri) {
         Instant at = QueryParams.asOf(asOf);
@@ -157,30 +165,39 @@ public class AlertResource {
     @GET
     @Path("/alerts/{id}")
     @Operation(summary = "One alert with its deliveries, acknowledgements and every delivery attempt")
-    public Response alert(@PathParam("id") String id) {
+    @APIResponse(responseCode = "200", description = "the alert")
+    @APIResponse(responseCode = "404", description = "not-found: no alert with this id")
+    public AlertDetail alert(@PathParam("id") String id) {
         AlertHistory.AlertView v = store.find(id);
-        return v == null ? error(Response.Status.NOT_FOUND, "no alert " + Excerpt.of(id))
-                : Response.ok(new AlertDetail(AlertView.of(v), deliveryAttempts.attempts(id))).build();
+        if (v == null) {
+            throw ProblemException.notFound("no alert " + Excerpt.of(id));
+        }
+        return new AlertDetail(AlertView.of(v), deliveryAttempts.attempts(id));
     }
 
     @POST
     @Path("/alerts/{id}/ack")
     @Consumes(MediaType.APPLICATION_JSON)
     @Operation(summary = "Acknowledge an alert: its episode sends no more repeats; journalled with who and when")
+    @APIResponse(responseCode = "200", description = "the alert, acknowledged",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON, schema = @Schema(implementation = AlertView.class)))
+    @APIResponse(responseCode = "400", description = "invalid-body: no by, a field too long or holding a control character, or not JSON")
+    @APIResponse(responseCode = "404", description = "not-found: no alert with this id")
+    @APIResponse(responseCode = "415", description = "unsupported-media-type: the body is not application/json")
     public Response acknowledge(@PathParam("id") String id, AckRequest request) {
         if (request == null || blank(request.by())) {
-            return error(Response.Status.BAD_REQUEST, "say who acknowledges: {\"by\": \"name\", \"note\": \"optional\"}");
+            throw ProblemException.invalidBody("say who acknowledges: {\"by\": \"name\", \"note\": \"optional\"}");
         }
         String by = request.by().strip();
         String note = request.note() == null ? null : request.note().strip();
         String problem = AlertRequests.ack(by, note);
         if (problem != null) {
-            return error(Response.Status.BAD_REQUEST, problem);
+            throw ProblemException.invalidBody(problem);
         }
         // the answer is the alert as it now stands, which GET /api/alerts/{id} serves too (RFC 9110, 8.7)
         return desk.acknowledge(id, by, note)
                 .map(v -> Response.ok(AlertView.of(v)).header("Content-Location", alertPath(v.stored().alert().id())).build())
-                .orElseGet(() -> error(Response.Status.NOT_FOUND, "no alert " + Excerpt.of(id)));
+                .orElseThrow(() -> ProblemException.notFound("no alert " + Excerpt.of(id)));
     }
 
     @GET
@@ -202,21 +219,28 @@ public class AlertResource {
     @GET
     @Path("/mutes/{id}")
     @Operation(summary = "One mute, with whether it is active")
-    public Response mute(@PathParam("id") long id) {
+    @APIResponse(responseCode = "200", description = "the mute")
+    @APIResponse(responseCode = "404", description = "not-found: no mute with this id")
+    public MuteView mute(@PathParam("id") long id) {
         Instant now = clock.instant();
-        return kept(id).map(m -> Response.ok(MuteView.of(m, now)).build()).orElseGet(() -> error(Response.Status.NOT_FOUND, "no mute " + id));
+        return kept(id).map(m -> MuteView.of(m, now)).orElseThrow(() -> ProblemException.notFound("no mute " + id));
     }
 
     @POST
     @Path("/mutes")
     @Consumes(MediaType.APPLICATION_JSON)
     @Operation(summary = "Mute a rule or a spread for a period (ISO-8601 duration such as PT4H, or an until time) with a reason")
+    @APIResponse(responseCode = "201", description = "the mute made",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON, schema = @Schema(implementation = MuteView.class)))
+    @APIResponse(responseCode = "400", description = "invalid-body: a field missing, too long or holding a control character, a rule "
+            + "or spread the policy in force does not know, an end not in the next 90 days, or not JSON")
+    @APIResponse(responseCode = "415", description = "unsupported-media-type: the body is not application/json")
     public Response mute(MuteRequest r) {
         if (r == null || blank(r.by()) || blank(r.reason())) {
-            return error(Response.Status.BAD_REQUEST, "a mute needs by and reason, and one of rule or spread");
+            throw ProblemException.invalidBody("a mute needs by and reason, and one of rule or spread");
         }
         if (blank(r.rule()) == blank(r.spread())) {
-            return error(Response.Status.BAD_REQUEST, "name exactly one of rule or spread");
+            throw ProblemException.invalidBody("name exactly one of rule or spread");
         }
         String rule = blank(r.rule()) ? null : r.rule().strip();
         String spread = blank(r.spread()) ? null : r.spread().strip();
@@ -224,7 +248,7 @@ public class AlertResource {
         String by = r.by().strip();
         String problem = new AlertRequests(policies.policy(), ingest.curves()).mute(rule, spread, reason, by);
         if (problem != null) {
-            return error(Response.Status.BAD_REQUEST, problem);
+            throw ProblemException.invalidBody(problem);
         }
         Instant now = clock.instant();
         Instant until;
@@ -233,11 +257,11 @@ public class AlertResource {
                     : !blank(r.duration()) ? now.plus(Duration.parse(r.duration().strip())) : null;
         } catch (DateTimeException | ArithmeticException e) {
             // a duration too long for an instant overflows rather than failing to parse
-            return error(Response.Status.BAD_REQUEST, "duration must be ISO-8601 (e.g. PT4H) and until an instant (e.g. 2026-07-01T08:00:00Z), "
+            throw ProblemException.invalidBody("duration must be ISO-8601 (e.g. PT4H) and until an instant (e.g. 2026-07-01T08:00:00Z), "
                     + "ending within " + LONGEST_MUTE.toDays() + " days");
         }
         if (until == null || !until.isAfter(now) || until.isAfter(now.plus(LONGEST_MUTE))) {
-            return error(Response.Status.BAD_REQUEST, "a mute must end in the future and within " + LONGEST_MUTE.toDays() + " days");
+            throw ProblemException.invalidBody("a mute must end in the future and within " + LONGEST_MUTE.toDays() + " days");
         }
         MuteBook.Mute m = rule != null ? desk.mute("rule", rule, until, reason, by) : desk.mute("spread", spread, until, reason, by);
         // answered as kept, so that it reads the same as from its Location (the journal keeps instants to the microsecond)
@@ -248,24 +272,38 @@ public class AlertResource {
     @DELETE
     @Path("/mutes/{id}")
     @Operation(summary = "Lift a mute early")
+    @APIResponse(responseCode = "204", description = "lifted")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: no by, or one too long or holding a control character")
+    @APIResponse(responseCode = "404", description = "not-found: no active mute with this id (or an id that is not a number)")
     public Response lift(@PathParam("id") long id, @QueryParam("by") String by) {
         if (blank(by)) {
-            return error(Response.Status.BAD_REQUEST, "say who lifts the mute: ?by=name");
+            throw ProblemException.invalidParameter("say who lifts the mute: ?by=name");
         }
         String problem = AlertRequests.lift(by.strip());
         if (problem != null) {
-            return error(Response.Status.BAD_REQUEST, problem);
+            throw ProblemException.invalidParameter(problem);
         }
-        return desk.lift(id, by.strip()) ? Response.noContent().build()
-                : error(Response.Status.NOT_FOUND, "no active mute " + id);
+        if (!desk.lift(id, by.strip())) {
+            throw ProblemException.notFound("no active mute " + id);
+        }
+        return Response.noContent().build();
     }
 
     @POST
     @Path("/policy/reload")
     @Operation(summary = "Check the policy file now and apply it if it changed and is valid")
-    public Response reload() {
+    @APIResponse(responseCode = "200", description = "applied, or unchanged")
+    @APIResponse(responseCode = "422", description = "policy-rejected: the file has problems (in detail, one per line); the policy in "
+            + "force keeps running")
+    public PolicyReloader.Outcome reload() {
         PolicyReloader.Outcome o = reloader.check();
-        return Response.status("rejected".equals(o.result()) ? 422 : 200).entity(o).build();
+        if ("rejected".equals(o.result())) {
+            Map<String, Object> outcome = new LinkedHashMap<>();
+            outcome.put("result", o.result());
+            outcome.put("hash", o.hash());
+            throw new ProblemException(ProblemType.POLICY_REJECTED, o.detail(), outcome);
+        }
+        return o;
     }
 
     /** A mute as the desk keeps it (all of them, read back from the journal after each change). */
@@ -280,9 +318,5 @@ public class AlertResource {
 
     private static boolean blank(String s) {
         return s == null || s.isBlank();
-    }
-
-    private static Response error(Response.Status status, String message) {
-        return Response.status(status).type(MediaType.APPLICATION_JSON).entity(Map.of("error", message)).build();
     }
 }

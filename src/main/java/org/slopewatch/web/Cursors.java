@@ -1,6 +1,5 @@
 package org.slopewatch.web;
 
-import jakarta.ws.rs.BadRequestException;
 import java.time.DateTimeException;
 import java.time.Instant;
 import java.time.LocalDate;
@@ -129,7 +128,7 @@ final class Cursors {
         return parts;
     }
 
-    private static BadRequestException unusable(String text) {
+    private static ProblemException unusable(String text) {
         return QueryParams.bad("unusable after " + Excerpt.quoted(text) + ": take it from the next link of the page before");
     }
 }

@@ -16,6 +16,7 @@ import java.time.LocalDate;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.eclipse.microprofile.openapi.annotations.responses.APIResponse;
 import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
@@ -59,6 +60,8 @@ public class ExportResource {
     @Path("/export/observations")
     @Produces({CSV, MediaType.APPLICATION_JSON})
     @Operation(summary = "Every journalled spread value (standing=false once replaced), as CSV or JSON; with asOf, as recorded by then")
+    @APIResponse(responseCode = "200", description = "the rows, as an attachment")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the spread id, a date, asOf or format cannot be read")
     public Response observations(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
                                  @QueryParam("as_of") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
         Request r = request(spread, from, to, asOf, format);
@@ -69,6 +72,8 @@ public class ExportResource {
     @Path("/export/transitions")
     @Produces({CSV, MediaType.APPLICATION_JSON})
     @Operation(summary = "Every transition, superseded ones marked, as CSV or JSON; with asOf, as recorded by then")
+    @APIResponse(responseCode = "200", description = "the rows, as an attachment")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the spread id, a date, asOf or format cannot be read")
     public Response transitions(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
                                 @QueryParam("as_of") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
         Request r = request(spread, from, to, asOf, format);
@@ -79,6 +84,8 @@ public class ExportResource {
     @Path("/export/alerts")
     @Produces({CSV, MediaType.APPLICATION_JSON})
     @Operation(summary = "Every notice (spread: its subject; from/to: its market date), as CSV or JSON; with asOf, as recorded by then")
+    @APIResponse(responseCode = "200", description = "the rows, as an attachment")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the spread id, a date, asOf or format cannot be read")
     public Response alerts(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
                            @QueryParam("as_of") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
         Request r = request(spread, from, to, asOf, format);

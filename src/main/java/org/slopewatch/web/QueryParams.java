@@ -1,12 +1,8 @@
 package org.slopewatch.web;
 
-import jakarta.ws.rs.BadRequestException;
-import jakarta.ws.rs.core.MediaType;
-import jakarta.ws.rs.core.Response;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
-import java.util.Map;
 import org.slopewatch.spread.SpreadKey;
 import org.slopewatch.text.Excerpt;
 
@@ -55,9 +51,8 @@ final class QueryParams {
         }
     }
 
-    /** A 400 whose body says what was wrong (a bare exception message does not reach the client). */
-    static BadRequestException bad(String message) {
-        return new BadRequestException(Response.status(Response.Status.BAD_REQUEST).type(MediaType.APPLICATION_JSON)
-                .entity(Map.of("error", message)).build());
+    /** A 400 whose detail says what was wrong. */
+    static ProblemException bad(String message) {
+        return ProblemException.invalidParameter(message);
     }
 }

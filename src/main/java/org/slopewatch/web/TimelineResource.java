@@ -12,6 +12,9 @@ import java.time.Instant;
 import java.time.LocalDate;
 import java.util.List;
 import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.eclipse.microprofile.openapi.annotations.media.Content;
+import org.eclipse.microprofile.openapi.annotations.media.Schema;
+import org.eclipse.microprofile.openapi.annotations.responses.APIResponse;
 import org.jboss.resteasy.reactive.RestResponse;
 import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.TimelineRows;
@@ -48,6 +51,10 @@ public class TimelineResource {
     @Path("/spreads/{id}/timeline")
     @Operation(summary = "Observations, transitions (superseded ones marked), alerts, delivery attempts and acknowledgements of a spread "
             + "in recorded order; with asOf, as the journal held them then")
+    @APIResponse(responseCode = "200", description = "the timeline",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON, schema = @Schema(implementation = TimelineView.class)))
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the id, a date or as_of cannot be read, limit not a whole "
+            + "number from 1, or after not a cursor of this list")
     public RestResponse<TimelineView> timeline(@PathParam("id") String id, @QueryParam("from") String from, @QueryParam("to") String to,
                                                @QueryParam("as_of") String asOf, @QueryParam("limit") String limit,
                                                @QueryParam("after") String after, @Context UriInfo uri) {
