@@ -7,7 +7,10 @@
   const FULL_HISTORY_EVERY = 12;   // polls; between them only the newest dates are fetched
   const MAX_PAGES = 50;            // of one list in one poll: 500,000 items at the API's 10,000 a page
   const RECENT_CHANGES = 15;
-  const { historyChart, curveChart, signed, bp, slug, lastOf, setAttrs } = window.slopewatchCharts;
+  // Quiet periods (an alert rule or a spread whose notices are journalled but not sent): where the API lists them and
+  // what its fields are called, in this one line, so that renaming the endpoint or a field is a change here only.
+  const QUIET_API = { path: '/api/mutes', kind: 'kind', target: 'target', note: 'reason', setBy: 'by', until: 'until', active: 'active' };
+  const { historyChart, curveChart, curveLegend, signed, bp, slug, lastOf, setAttrs } = window.slopewatchCharts;
 
   // Each state has its own colour (in the CSS) and always its name in words.
   const STATES = {
@@ -25,6 +28,7 @@
   let timer = null;
   let busy = false;
   let token = sessionStorage.getItem('slopewatch-token');
+  let quietPeriods = [];         // the active ones, as the last successful read found them
 
   function authorised(headers) {
     return token ? Object.assign({ Authorization: 'Bearer ' + token }, headers) : headers;
@@ -206,6 +210,7 @@
       results.filter(r => r.status === 'rejected')
         .forEach(r => problems.push('Could not read from the slopewatch API (' + r.reason.message + ').'));
       last = { spreads, curves, transitions, alerts, spells: spellsBySpread(transitions) };
+      await loadQuietPeriods();
       lastGood = new Date();
     } catch (e) {
       problems.push('Could not read from the slopewatch API (' + e.message + ').');
@@ -261,6 +266,7 @@
 
   function render() {
     renderAlerts();
+    renderQuiet();
     renderOverview();
     renderSpreads();
     renderCurves();
@@ -461,7 +467,9 @@
     if (s.spell) {
       facts.push(['Deepest so far', bp(s.spell.deepest_bp) + ' on ' + s.spell.deepest_date]);
     }
-    card.querySelector('.facts').replaceChildren(...facts.flatMap(([k, v]) => [el('dt', null, k), el('dd', null, v)]));
+    // a confirmed card gives these in its headline figures, large; the list keeps the rest
+    const listed = s.state === 'CONFIRMED' ? facts.filter(([k]) => !IN_HEADLINE.has(k)) : facts;
+    card.querySelector('.facts').replaceChildren(...listed.flatMap(([k, v]) => [el('dt', null, k), el('dd', null, v)]));
     // a sentence each, the width of the card: the last complete month first, the month so far after it
     const odds = [];
     if (s.probability_last_month) {
@@ -472,6 +480,8 @@
         : 'Recession probability (provisional)') + ': '), probabilityText(s, s.probability)));
     }
     card.querySelector('.probability').replaceChildren(...odds);
+    fillConfirmed(card, s);
+    markQuiet(card, s);
 
     const figure = card.querySelector('.history');
     // the chart ends where the figures above it end, even if a newer date arrived in between
@@ -534,14 +544,9 @@
       const tenors = Object.keys(c.yields_bp);
       const figure = card.querySelector('.curve-shape');
       const width = Math.max(260, Math.round(figure.clientWidth || 520));
-      figure.replaceChildren(curveChart(c, tenors, width, before && before.date !== c.date ? before : null));
-      card.querySelector('.table-scroll').replaceChildren(el('table', { class: 'yields' },
-        el('caption', { class: 'visually-hidden' }, c.curve + ' yields on ' + c.date + ', percent'),
-        el('tbody', null,
-          el('tr', null, el('th', { scope: 'row' }, 'Tenor'), ...tenors.map(t => el('th', { scope: 'col' }, t))),
-          el('tr', null, el('th', { scope: 'row' }, 'Yield % ' + c.date), ...tenors.map(t => el('td', null, percent(c.yields_bp[t])))),
-          before && before.date !== c.date ? el('tr', { class: 'earlier' }, el('th', { scope: 'row' }, 'Yield % ' + before.date),
-            ...tenors.map(t => el('td', null, percent(before.yields_bp[t])))) : null)));
+      const then = before && before.date !== c.date ? before : null;
+      figure.replaceChildren(curveChart(c, tenors, width, then), curveLegend(c, then));
+      fitYieldTable(card.querySelector('.table-scroll'), c, tenors, then);
     });
     for (const card of [...box.children]) {
       if (!keep.has(card.id)) {
@@ -562,6 +567,175 @@
       el('td', null, t.spread_id.replace(':', ' ')),
       el('td', null, stateTag(t.from), el('span', { class: 'arrow', 'aria-label': 'to' }, '\u2192'), stateTag(t.to)),
       el('td', { class: 'reason' }, t.reason))));
+  }
+
+  // ---- a confirmed inversion, unmistakable ----
+
+  // the facts a confirmed card shows large in its headline instead of in its list
+  const IN_HEADLINE = new Set(['Days inverted', 'Deepest so far', 'Recession odds']);
+
+  // A confirmed card gets a banner and its key figures large; any other state gets neither and stays calm.
+  function fillConfirmed(card, s) {
+    let banner = card.querySelector('.alarm-banner');
+    let headline = card.querySelector('.headline');
+    if (s.state !== 'CONFIRMED') {
+      if (banner) banner.remove();
+      if (headline) headline.remove();
+      return;
+    }
+    if (!banner) {
+      banner = el('p', { class: 'alarm-banner' });
+      card.prepend(banner);
+    }
+    if (!headline) {
+      headline = el('dl', { class: 'headline' });
+      card.querySelector('.reading').after(headline);
+    }
+    const spell = s.spell || {};
+    banner.replaceChildren(el('span', { class: 'alarm-word' }, 'Confirmed inversion'),
+      spell.confirmed ? el('span', { class: 'alarm-since' }, 'since ' + spell.confirmed) : null);
+    const reason = confirmingReason(s);
+    const tiles = [
+      ['deepest', 'Deepest', bp(spell.deepest_bp), spell.deepest_date ? 'on ' + spell.deepest_date : null],
+      ['days', 'Days inverted', String(s.days_inverted), spell.start ? 'since ' + spell.start : null],
+      ['test', 'Test that held', spell.confirmed_by || 'not recorded', reason]
+    ];
+    if (s.probability) {
+      const p = s.probability;
+      const band = p.band90_lower === null || p.band90_lower === undefined ? ''
+        : ', 90% band ' + Math.round(100 * p.band90_lower) + '\u2013' + Math.round(100 * p.band90_upper) + '%';
+      tiles.push(['odds', 'Recession odds', Math.round(100 * p.value) + '%', 'for ' + p.recession_month + band + ', from the '
+        + p.month + ' average so far (' + p.observations + ' days); a statistical signal only']);
+    }
+    headline.replaceChildren(...tiles.map(([key, label, figure, detail]) => el('div', { class: 'tile', 'data-fact': key },
+      el('dt', null, label), el('dd', null, el('span', { class: 'figure' }, figure), detail ? el('span', { class: 'detail' }, detail) : null))));
+  }
+
+  // the reason the monitor gave when this spell was confirmed, if the transitions read hold it
+  function confirmingReason(s) {
+    if (!s.spell) {
+      return null;
+    }
+    const t = last.transitions.find(x => x.spread_id === s.id && x.to === 'CONFIRMED' && x.spell_id === s.spell.id);
+    return t ? t.reason : null;
+  }
+
+  // ---- quiet periods and acknowledgements ----
+
+  let quietReadAt = null;        // when the quiet periods were last read, or null
+  let quietFailed = false;       // whether the last try to read them failed
+
+  // Read apart from the rest: without them the figures are still current, so a failure is said in their panel only.
+  async function loadQuietPeriods() {
+    try {
+      const all = await fetchJson(QUIET_API.path);
+      quietPeriods = all.filter(q => q[QUIET_API.active]);
+      quietReadAt = new Date();
+      quietFailed = false;
+    } catch (e) {
+      quietFailed = true;
+    }
+  }
+
+  // an instant as the desk's shared clock shows it: minutes, UTC
+  function utc(instant) {
+    const m = /^(\d{4}-\d\d-\d\d)T(\d\d:\d\d)/.exec(String(instant));
+    return m && /Z$/.test(instant) ? m[1] + ' ' + m[2] + ' UTC' : String(instant);
+  }
+
+  function quietSubject(q) {
+    const target = q[QUIET_API.target];
+    if (q[QUIET_API.kind] === 'rule') {
+      return 'Alert rule ' + target;
+    }
+    return target.includes(':') ? target.replace(':', ' ') : target + ' on every curve';
+  }
+
+  // The quiet periods that silence a spread: one on the spread (on its curve or on every curve), or one on a rule
+  // whose condition holds for it now.
+  function quietFor(s) {
+    const rulesOn = new Set((last.alerts.open || []).filter(e => e.subject === s.id).map(e => e.rule));
+    return quietPeriods.filter(q => (q[QUIET_API.kind] === 'rule' ? rulesOn.has(q[QUIET_API.target])
+      : q[QUIET_API.target] === s.id || q[QUIET_API.target] === s.spread));
+  }
+
+  function markQuiet(card, s) {
+    const quiet = quietFor(s);
+    let note = card.querySelector('.quiet-note');
+    card.classList.toggle('is-quiet', quiet.length > 0);
+    card.dataset.quiet = String(quiet.length > 0);
+    if (quiet.length === 0) {
+      if (note) note.remove();
+      return;
+    }
+    if (!note) {
+      note = el('p', { class: 'quiet-note' });
+      card.querySelector('.card-head').after(note);
+    }
+    const longest = quiet.reduce((a, b) => (a[QUIET_API.until] >= b[QUIET_API.until] ? a : b));
+    note.replaceChildren(el('span', { class: 'quiet-tag' }, 'Quiet period'),
+      ' until ' + utc(longest[QUIET_API.until]) + ', set by ' + longest[QUIET_API.setBy]
+      + ': alerts for it are journalled, not sent.');
+  }
+
+  // An acknowledged episode sends no reminders until its condition clears; who acknowledged it is on its notices.
+  function acknowledgements() {
+    const recent = last.alerts.recent || [];
+    return (last.alerts.open || []).filter(e => e.acknowledged).map(e => {
+      const prefix = e.rule + '~' + e.subject + '~' + e.since + '~';
+      const acks = recent.filter(a => a.id.startsWith(prefix)).flatMap(a => a.acks || []);
+      acks.sort((a, b) => (a.at < b.at ? 1 : -1));
+      return { episode: e, ack: acks[0] || null };
+    });
+  }
+
+  function renderQuiet() {
+    const items = quietPeriods.map(q => el('li', { class: 'quiet-item', 'data-target': q[QUIET_API.target] },
+      el('span', { class: 'quiet-tag' }, 'Quiet period'), ' ', el('strong', null, quietSubject(q)),
+      ' until ', el('time', { datetime: q[QUIET_API.until], class: 'until' }, utc(q[QUIET_API.until])),
+      ', set by ', el('span', { class: 'who' }, q[QUIET_API.setBy]),
+      q[QUIET_API.note] ? el('span', { class: 'note' }, ': ' + q[QUIET_API.note]) : null));
+    for (const { episode, ack } of acknowledgements()) {
+      items.push(el('li', { class: 'ack-item', 'data-rule': episode.rule, 'data-subject': episode.subject },
+        el('span', { class: 'ack-tag' }, 'Acknowledged'), ' ', el('strong', null, episode.subject.replace(':', ' ')),
+        ', rule ' + episode.rule,
+        ack ? el('span', null, ' by ', el('span', { class: 'who' }, ack.by), ' at ', el('time', { datetime: ack.at }, utc(ack.at))) : null,
+        ': no reminders until the condition clears', ack && ack.note ? el('span', { class: 'note' }, ' (' + ack.note + ')') : null));
+    }
+    document.getElementById('quiet-list').replaceChildren(...items);
+    document.getElementById('quiet-empty').hidden = items.length > 0;
+    const stale = document.getElementById('quiet-stale');
+    stale.hidden = !quietFailed;
+    stale.textContent = quietFailed ? 'The quiet periods could not be read just now' + (quietReadAt
+      ? '; these are as read at ' + clock(quietReadAt) + '.' : '.') : '';
+  }
+
+  // ---- curve tables that fit their card ----
+
+  // Tenors across when that fits the card; otherwise (a narrow screen, many tenors) down the side, so that no
+  // column is cut off or hidden behind a scroll bar.
+  function fitYieldTable(box, c, tenors, before) {
+    box.replaceChildren(yieldTable(c, tenors, before, true));
+    if (box.scrollWidth > box.clientWidth) {
+      box.replaceChildren(yieldTable(c, tenors, before, false));
+    }
+  }
+
+  function yieldTable(c, tenors, before, across) {
+    const dates = before ? [c, before] : [c];
+    const caption = el('caption', { class: 'visually-hidden' }, c.curve + ' yields in percent on ' + dates.map(d => d.date).join(' and '));
+    const earlier = i => (i > 0 ? 'earlier' : null);
+    if (across) {
+      return el('table', { class: 'yields across' }, caption, el('tbody', null,
+        el('tr', null, el('th', { scope: 'row' }, 'Yield %'), ...tenors.map(t => el('th', { scope: 'col' }, t))),
+        ...dates.map((d, i) => el('tr', { class: earlier(i) }, el('th', { scope: 'row' }, d.date),
+          ...tenors.map(t => el('td', null, percent(d.yields_bp[t])))))));
+    }
+    return el('table', { class: 'yields down' }, caption,
+      el('thead', null, el('tr', null, el('th', { scope: 'col' }, 'Tenor'),
+        ...dates.map((d, i) => el('th', { scope: 'col', class: earlier(i) }, d.date + ' %')))),
+      el('tbody', null, ...tenors.map(t => el('tr', null, el('th', { scope: 'row' }, t),
+        ...dates.map((d, i) => el('td', { class: earlier(i) }, percent(d.yields_bp[t])))))));
   }
 
   // ---- start ----
