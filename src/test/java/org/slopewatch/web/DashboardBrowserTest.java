@@ -103,7 +103,7 @@ class DashboardBrowserTest {
 
     @Test
     @Order(1)
-    void anInversionPostedOverHttpAppearsOnThePageWithItsStateValueChartAndReason() {
+    void anInversionPostedOverHttpAppearsOnThePageWithItsStateValueChartAndReason() throws Exception {
         // A week at +40 bp ends any spell other tests left open; then 10Y-3M dips below zero.
         given().contentType(ContentType.JSON).body("""
                 [{"curve":"GOVT-A","date":"2026-05-04","yields":{"1M":4.30,"3M":4.40,"6M":4.45,"1Y":4.45,"2Y":4.50,"5Y":4.60,"10Y":4.80,"30Y":5.00}},
