@@ -4,5 +4,13 @@
  * client). Thin: decode, call the pipeline or the journal, shape the answer. What people send to
  * be kept (mutes, their lifts, acknowledgements) is checked first, in one place
  * ({@link org.slopewatch.web.AlertRequests}); an error answer repeats input only as an excerpt.
+ *
+ * <p>Every error answer is an RFC 9457 problem document ({@link org.slopewatch.web.Problem}, of a
+ * kind of {@link org.slopewatch.web.ProblemType}): resources throw a
+ * {@link org.slopewatch.web.ProblemException} and never build an error body themselves;
+ * {@link org.slopewatch.web.ProblemMapper} answers it and whatever the REST layer raises, and
+ * {@link org.slopewatch.web.ProblemWriter} writes every problem, those of the route handlers
+ * that answer before the REST layer included. {@link org.slopewatch.web.ApiDocument} adds to the
+ * OpenAPI document what the annotations cannot say.
  */
 package org.slopewatch.web;
