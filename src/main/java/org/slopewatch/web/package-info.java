@@ -7,5 +7,13 @@
  * Every list that grows with the journal is served a page at a time under one contract
  * ({@link org.slopewatch.web.Paging}), keeping the shape it always had; names are snake_case, old
  * spellings of query parameters are renamed before matching ({@link org.slopewatch.web.QueryAliases}).
+ *
+ * <p>Every error answer is an RFC 9457 problem document ({@link org.slopewatch.web.Problem}, of a
+ * kind of {@link org.slopewatch.web.ProblemType}): resources throw a
+ * {@link org.slopewatch.web.ProblemException} and never build an error body themselves;
+ * {@link org.slopewatch.web.ProblemMapper} answers it and whatever the REST layer raises, and
+ * {@link org.slopewatch.web.ProblemWriter} writes every problem, those of the route handlers
+ * that answer before the REST layer included. {@link org.slopewatch.web.ApiDocument} adds to the
+ * OpenAPI document what the annotations cannot say.
  */
 package org.slopewatch.web;
