@@ -134,7 +134,7 @@ public class AlertResource {
 
     @GET
     @Path("/alerts")
-    @Operation(summary = "Open alert episodes and the most recent notices with their deliveries and acknowledgements; with asOf, "
+    @Operation(summary = "Open alert episodes and the most recent notices with their deliveries and acknowledgements; with as_of, "
             + "the notices recorded by then as they stood then")
     @APIResponse(responseCode = "200", description = "open episodes and recent notices; with as_of, the notices as they stood then",
             content = @Content(mediaType = MediaType.APPLICATION_JSON, schema = @Schema(oneOf = {AlertsView.class, AlertsAsOf.class})))

@@ -59,7 +59,7 @@ public class ExportResource {
     @GET
     @Path("/export/observations")
     @Produces({CSV, MediaType.APPLICATION_JSON})
-    @Operation(summary = "Every journalled spread value (standing=false once replaced), as CSV or JSON; with asOf, as recorded by then")
+    @Operation(summary = "Every journalled spread value (standing=false once replaced), as CSV or JSON; with as_of, as recorded by then")
     @APIResponse(responseCode = "200", description = "the rows, as an attachment")
     @APIResponse(responseCode = "400", description = "invalid-parameter: the spread id, a date, asOf or format cannot be read")
     public Response observations(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
@@ -71,7 +71,7 @@ public class ExportResource {
     @GET
     @Path("/export/transitions")
     @Produces({CSV, MediaType.APPLICATION_JSON})
-    @Operation(summary = "Every transition, superseded ones marked, as CSV or JSON; with asOf, as recorded by then")
+    @Operation(summary = "Every transition, superseded ones marked, as CSV or JSON; with as_of, as recorded by then")
     @APIResponse(responseCode = "200", description = "the rows, as an attachment")
     @APIResponse(responseCode = "400", description = "invalid-parameter: the spread id, a date, asOf or format cannot be read")
     public Response transitions(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
@@ -83,7 +83,7 @@ public class ExportResource {
     @GET
     @Path("/export/alerts")
     @Produces({CSV, MediaType.APPLICATION_JSON})
-    @Operation(summary = "Every notice (spread: its subject; from/to: its market date), as CSV or JSON; with asOf, as recorded by then")
+    @Operation(summary = "Every notice (spread: its subject; from/to: its market date), as CSV or JSON; with as_of, as recorded by then")
     @APIResponse(responseCode = "200", description = "the rows, as an attachment")
     @APIResponse(responseCode = "400", description = "invalid-parameter: the spread id, a date, asOf or format cannot be read")
     public Response alerts(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,

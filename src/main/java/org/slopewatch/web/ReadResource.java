@@ -139,7 +139,7 @@ public class ReadResource {
 
     @GET
     @Path("/spreads/{id}/history")
-    @Operation(summary = "The standing value of a spread on each market date in a range; with asOf, as recorded by then")
+    @Operation(summary = "The standing value of a spread on each market date in a range; with as_of, as recorded by then")
     @APIResponse(responseCode = "200", description = "the values in market-date order; with as_of, wrapped with the moment and the rule set",
             content = @Content(mediaType = MediaType.APPLICATION_JSON,
                     schema = @Schema(oneOf = {JournalReader.HistoryPoint[].class, ApiViews.HistoryAsOf.class})))
@@ -162,7 +162,7 @@ public class ReadResource {
 
     @GET
     @Path("/transitions")
-    @Operation(summary = "Transitions in market-date order; superseded=true also shows those a revision replaced; with asOf, "
+    @Operation(summary = "Transitions in market-date order; superseded=true also shows those a revision replaced; with as_of, "
             + "as recorded by then (a transition counts as superseded only once its revision was recorded)")
     @APIResponse(responseCode = "200", description = "the transitions; with as_of, wrapped with the moment and the rule set",
             content = @Content(mediaType = MediaType.APPLICATION_JSON,
@@ -184,7 +184,12 @@ public class ReadResource {
 
     @GET
     @Path("/rejects")
-    @Operation(summary = "The most recent rejected quotes, newest first; with asOf, those recorded by then")
+    @Operation(summary = "The most recent rejected quotes, newest first; with as_of, those recorded by then")
+    @APIResponse(responseCode = "200", description = "the rejects; with as_of, wrapped with the moment and the rule set",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON,
+                    schema = @Schema(oneOf = {JournalReader.StoredReject[].class, ApiViews.RejectsAsOf.class})))
+    @APIResponse(responseCode = "400", description = "invalid-parameter: as_of is not an instant, limit not a whole number from 1, "
+            + "or after not a cursor of this list")
     public RestResponse<Object> rejects(@QueryParam("limit") String limit, @QueryParam("as_of") String asOf,
                                         @QueryParam("after") String after, @Context UriInfo uri) {
         Instant at = QueryParams.asOf(asOf);

@@ -50,7 +50,7 @@ public class TimelineResource {
     @GET
     @Path("/spreads/{id}/timeline")
     @Operation(summary = "Observations, transitions (superseded ones marked), alerts, delivery attempts and acknowledgements of a spread "
-            + "in recorded order; with asOf, as the journal held them then")
+            + "in recorded order; with as_of, as the journal held them then")
     @APIResponse(responseCode = "200", description = "the timeline",
             content = @Content(mediaType = MediaType.APPLICATION_JSON, schema = @Schema(implementation = TimelineView.class)))
     @APIResponse(responseCode = "400", description = "invalid-parameter: the id, a date or as_of cannot be read, limit not a whole "

@@ -70,7 +70,8 @@ class ErrorContractTest {
     private static final Map<String, String> BAD_VALUES = new LinkedHashMap<>();
 
     static {
-        BAD_VALUES.put("asOf", "yesterday");
+        BAD_VALUES.put("as_of", "yesterday");
+        BAD_VALUES.put("after", "not-a-cursor");
         BAD_VALUES.put("from", "2026-13-01");
         BAD_VALUES.put("to", "soon");
         BAD_VALUES.put("on_or_before", "last-week");
