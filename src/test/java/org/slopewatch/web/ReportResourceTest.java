@@ -6,6 +6,8 @@ import static org.hamcrest.Matchers.containsString;
 import static org.hamcrest.Matchers.equalTo;
 
 import io.quarkus.test.junit.QuarkusTest;
+import io.quarkus.test.junit.QuarkusTestProfile;
+import io.quarkus.test.junit.TestProfile;
 import io.restassured.http.ContentType;
 import jakarta.inject.Inject;
 import java.nio.file.Files;
@@ -14,6 +16,7 @@ import java.security.MessageDigest;
 import java.util.HexFormat;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import org.apache.commons.math3.distribution.NormalDistribution;
 import org.jsoup.Jsoup;
 import org.jsoup.nodes.Document;
@@ -24,7 +27,21 @@ import org.slopewatch.alerting.PolicyHolder;
 
 /** {@code GET /api/report}: the journal's story of a spread as one HTML page, read back with jsoup. */
 @QuarkusTest
+@TestProfile(ReportResourceTest.OwnJournal.class)
 class ReportResourceTest {
+
+    /**
+     * A journal of its own: the report states where GOVT-B stands at the end of its journal, so no
+     * other test's GOVT-B quotes may come after the days posted here.
+     */
+    public static final class OwnJournal implements QuarkusTestProfile {
+
+        @Override
+        public Map<String, String> getConfigOverrides() {
+            return Map.of("slopewatch.data-dir", java.nio.file.Path.of("target", "test-data", "report-" + java.util.UUID.randomUUID())
+                    .toAbsolutePath().toString());
+        }
+    }
 
     private static final String SPREAD = "GOVT-B:10Y-3M";
 
