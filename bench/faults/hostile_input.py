@@ -187,7 +187,7 @@ def alerting(base, token):
             by = urllib.parse.quote(json.loads(body)["lifted_by"])
             code, answer, seconds = request(base + "/api/quiet-periods/%d?lifted_by=%s" % (period, by), token, "DELETE")
         try:
-            said = json.loads(answer).get("error", "") if answer.startswith("{") else ""
+            said = json.loads(answer).get("detail", "") if answer.startswith("{") else ""
         except ValueError:
             said = ""
         ok = code == int(status) and (error == "-" or error in said) and len(answer) <= MAX_ANSWER

@@ -14,6 +14,13 @@ window.slopewatchCharts = (function () {
     }
   }
 
+  function html(tag, attrs, ...children) {
+    const node = document.createElement(tag);
+    setAttrs(node, attrs);
+    node.append(...children.filter(c => c !== null && c !== undefined));
+    return node;
+  }
+
   function svg(tag, attrs, ...children) {
     const node = document.createElementNS(SVG, tag);
     setAttrs(node, attrs);
@@ -251,12 +258,16 @@ window.slopewatchCharts = (function () {
       d: values.map((v, i) => (i === 0 ? 'M' : 'L') + x(i).toFixed(1) + ' ' + y(v).toFixed(1)).join(' ') }));
     values.forEach((v, i) => chart.append(svg('circle', { cx: x(i), cy: y(v), r: 2.8, fill: '#ffffff', stroke: '#24566b',
       'stroke-width': 1.5 }, svg('title', null, tenors[i] + ': ' + v.toFixed(2) + ' %'))));
-    if (before) {
-      chart.append(svg('text', { x: width - m.right, y: m.top + 10, 'text-anchor': 'end', class: 'legend' },
-        '\u2014 ' + c.date + '   - - ' + before.date));
-    }
     return chart;
   }
 
-  return { historyChart, curveChart, signed, bp, slug, lastOf, setAttrs };
+  // The key to a curve chart, as a caption under it: outside the plot, it cannot cover a point
+  // wherever the curve happens to lie.
+  function curveLegend(c, before) {
+    const item = (cls, text) => html('span', { class: 'legend-item' }, html('span', { class: 'swatch ' + cls, 'aria-hidden': 'true' }), text);
+    return html('figcaption', { class: 'legend' }, item('swatch-latest', c.date),
+      before ? item('swatch-earlier', before.date + ' (three months before)') : null);
+  }
+
+  return { historyChart, curveChart, curveLegend, signed, bp, slug, lastOf, setAttrs };
 }());

@@ -5,8 +5,12 @@
 (function () {
   const POLL_MS = 5000;
   const FULL_HISTORY_EVERY = 12;   // polls; between them only the newest dates are fetched
+  const MAX_PAGES = 50;            // of one list in one poll: 500,000 items at the API's 10,000 a page
   const RECENT_CHANGES = 15;
-  const { historyChart, curveChart, signed, bp, slug, lastOf, setAttrs } = window.slopewatchCharts;
+  // Quiet periods (an alert rule or a spread whose notices are journalled but not sent): where the API lists them and
+  // what its fields are called, in this one line, so that renaming the endpoint or a field is a change here only.
+  const QUIET_API = { path: '/api/quiet-periods', rule: 'rule', spread: 'spread', note: 'note', setBy: 'set_by', until: 'until', active: 'active' };
+  const { historyChart, curveChart, curveLegend, signed, bp, slug, lastOf, setAttrs } = window.slopewatchCharts;
 
   // Each state has its own colour (in the CSS) and always its name in words.
   const STATES = {
@@ -27,6 +31,7 @@
   const wanted = new URLSearchParams(window.location.search).get('spread');
   let shownWanted = false;
   let token = sessionStorage.getItem('slopewatch-token');
+  let quietPeriods = [];         // the active ones, as the last successful read found them
 
   function authorised(headers) {
     return token ? Object.assign({ Authorization: 'Bearer ' + token }, headers) : headers;
@@ -74,6 +79,27 @@
   }
 
   async function fetchJson(url) {
+    return (await fetchAnswer(url)).json();
+  }
+
+  // A list the API hands out a page at a time: each answer names the next page in a Link header
+  // (RFC 8288, rel="next") until the last; the pages joined are the list.
+  async function fetchList(url) {
+    let items = [];
+    let next = url;
+    for (let pages = 0; next; pages++) {
+      if (pages === MAX_PAGES) {
+        throw new Error('GET ' + url + ': more than ' + MAX_PAGES + ' pages');
+      }
+      const response = await fetchAnswer(next);
+      items = items.concat(await response.json());
+      const link = /<([^>]*)>\s*;\s*rel="?next"?/.exec(response.headers.get('Link') || '');
+      next = link ? link[1] : null;
+    }
+    return items;
+  }
+
+  async function fetchAnswer(url) {
     const abort = new AbortController();
     const t = setTimeout(() => abort.abort(), 8000);
     let response;
@@ -90,7 +116,7 @@
     if (!response.ok) {
       throw new Error('GET ' + url + ' answered ' + response.status + (response.statusText ? ' ' + response.statusText : ''));
     }
-    return response.json();
+    return response;
   }
 
   // ---- reading the API ----
@@ -104,14 +130,14 @@
     }
     let points;
     if (full) {
-      points = await fetchJson(base);
+      points = await fetchList(base);
     } else {
       // the newest date may have been replaced by a later quote, so it is read again
       const from = have[have.length - 1].date;
-      const fresh = await fetchJson(base + '?from=' + from);
+      const fresh = await fetchList(base + '?from=' + from);
       points = have.filter(p => p.date < from).concat(fresh);
       if (points.length !== s.observations) {
-        points = await fetchJson(base);   // an earlier date arrived late: start over
+        points = await fetchList(base);   // an earlier date arrived late: start over
       }
     }
     histories.set(s.id, points);
@@ -182,11 +208,12 @@
     const problems = [];
     try {
       const [spreads, curves, transitions, alerts] = await Promise.all(
-        [fetchJson('/api/spreads'), fetchJson('/api/curves'), fetchJson('/api/transitions'), fetchJson('/api/alerts?limit=200')]);
+        [fetchJson('/api/spreads'), fetchJson('/api/curves'), fetchList('/api/transitions'), fetchJson('/api/alerts?limit=200')]);
       const results = await Promise.allSettled([...spreads.map(loadHistory), ...curves.map(loadEarlierCurve)]);
       results.filter(r => r.status === 'rejected')
         .forEach(r => problems.push('Could not read from the slopewatch API (' + r.reason.message + ').'));
       last = { spreads, curves, transitions, alerts, spells: spellsBySpread(transitions) };
+      await loadQuietPeriods();
       lastGood = new Date();
     } catch (e) {
       problems.push('Could not read from the slopewatch API (' + e.message + ').');
@@ -242,6 +269,7 @@
 
   function render() {
     renderAlerts();
+    renderQuiet();
     renderOverview();
     renderSpreads();
     renderCurves();
@@ -273,13 +301,55 @@
     card.focus({ preventScroll: true });
   }
 
-  function odds(p) {
+  // ---- the recession probability, in words ----
+  // As the reports say it (probability.ProbabilityText): how far ahead, which spread's average of which
+  // month and whether that month is over, the band when the policy gives one, and where the model comes from.
+  // The last complete month is shown first; the month so far is marked provisional.
+
+  function monthsBetween(from, to) {
+    const [fy, fm] = from.split('-').map(Number);
+    const [ty, tm] = to.split('-').map(Number);
+    return (ty - fy) * 12 + (tm - fm);
+  }
+
+  function pctNumber(p) {
+    const v = 100 * p;
+    return v < 0.5 || v >= 99.5 ? v.toFixed(1) : v.toFixed(0);
+  }
+
+  function pct(p) {
+    return pctNumber(p) + ' %';
+  }
+
+  function band(p) {
+    return p.band90_lower === null || p.band90_lower === undefined ? null
+      : '90 % band ' + pctNumber(p.band90_lower) + '\u2013' + pct(p.band90_upper);
+  }
+
+  function observations(n) {
+    return n + (n === 1 ? ' observation' : ' observations');
+  }
+
+  function probabilityText(s, p) {
+    return monthsBetween(p.month, p.recession_month) + '-month-ahead recession probability ' + pct(p.value)
+      + ' (' + (band(p) || 'no band: the model has no covariance') + '): P(recession in ' + p.recession_month + '), from the '
+      + s.spread + ' average of ' + p.month
+      + (p.provisional ? ' so far (provisional: month to date, ' + observations(p.observations) + ')'
+        : ' (complete month, ' + observations(p.observations) + ')')
+      + '; model: ' + (p.model_source || 'no source given');
+  }
+
+  // The overview's short form: the same facts but the target month and the model, which the spread's card gives.
+  function odds(s) {
+    const p = s.probability_last_month || s.probability;
     if (!p) {
-      return '\u2014';
+      return ['\u2014'];
     }
-    const band = p.band90_lower === null || p.band90_lower === undefined ? ''
-      : ' (90% band ' + Math.round(100 * p.band90_lower) + '\u2013' + Math.round(100 * p.band90_upper) + '%)';
-    return Math.round(100 * p.value) + '%' + band + ' for ' + p.recession_month;
+    const head = pct(p.value) + (band(p) ? ' (' + band(p) + ')' : '') + ', ' + monthsBetween(p.month, p.recession_month)
+      + ' months ahead, from the ' + s.spread + ' average of ' + p.month + (p.provisional ? ' so far (provisional)' : '');
+    const toDate = s.probability_last_month && s.probability
+      ? el('span', { class: 'provisional' }, 'month to date: ' + pct(s.probability.value) + ' (provisional)') : null;
+    return [el('span', { class: 'final' }, head), toDate];
   }
 
   function renderOverview() {
@@ -291,7 +361,7 @@
       el('td', null, stateTag(s.state)),
       el('td', { class: 'num' }, String(s.days_inverted)),
       el('td', { class: 'num' }, s.quarter_to_date_average_bp === null ? '\u2014' : signed(s.quarter_to_date_average_bp, 1)),
-      el('td', { class: 'odds' }, odds(s.probability)),
+      el('td', { class: 'odds' }, ...odds(s)),
       el('td', null, el('a', { href: '#spread-' + slug(s.id), class: 'show-chart' }, 'Chart', el('span', { class: 'visually-hidden' },
         ' of ' + s.curve + ' ' + s.spread))))));
   }
@@ -365,7 +435,7 @@
       }
       if (!response.ok) {
         const body = await response.json().catch(() => ({}));
-        throw new Error(body.error || ('answered ' + response.status));
+        throw new Error(body.detail || ('answered ' + response.status)); // an RFC 9457 problem document
       }
       result.textContent = 'Acknowledged by ' + by + '.';
       schedule(300);
@@ -390,7 +460,7 @@
           el('div', { class: 'card-head' }, el('h3', { id: id + '-title' },
             el('span', { class: 'curve' }, s.curve), ' ', s.spread), el('span', { class: 'slot-state' })),
           el('div', { class: 'reading' }), el('p', { class: 'state-note' }), el('dl', { class: 'facts' }),
-          el('figure', { class: 'history' }));
+          el('div', { class: 'probability' }), el('figure', { class: 'history' }));
       }
       if (box.children[place] !== card) {
         box.insertBefore(card, box.children[place] || null);
@@ -425,14 +495,21 @@
     if (s.spell) {
       facts.push(['Deepest so far', bp(s.spell.deepest_bp) + ' on ' + s.spell.deepest_date]);
     }
-    if (s.probability) {
-      const p = s.probability;
-      const band = p.band90_lower === null ? '' : ' (90% band ' + Math.round(100 * p.band90_lower) + '–'
-        + Math.round(100 * p.band90_upper) + '%)';
-      facts.push(['Recession odds', Math.round(100 * p.value) + '%' + band + ' for ' + p.recession_month
-        + ' (' + p.month + ' average so far, ' + p.observations + ' days; a statistical signal only)']);
+    // a confirmed card gives these in its headline figures, large; the list keeps the rest
+    const listed = s.state === 'CONFIRMED' ? facts.filter(([k]) => !IN_HEADLINE.has(k)) : facts;
+    card.querySelector('.facts').replaceChildren(...listed.flatMap(([k, v]) => [el('dt', null, k), el('dd', null, v)]));
+    // a sentence each, the width of the card: the last complete month first, the month so far after it
+    const odds = [];
+    if (s.probability_last_month) {
+      odds.push(el('p', { class: 'final' }, el('strong', null, 'Recession probability: '), probabilityText(s, s.probability_last_month)));
     }
-    card.querySelector('.facts').replaceChildren(...facts.flatMap(([k, v]) => [el('dt', null, k), el('dd', null, v)]));
+    if (s.probability) {
+      odds.push(el('p', { class: 'provisional' }, el('strong', null, (s.probability_last_month ? 'Month to date (provisional)'
+        : 'Recession probability (provisional)') + ': '), probabilityText(s, s.probability)));
+    }
+    card.querySelector('.probability').replaceChildren(...odds);
+    fillConfirmed(card, s);
+    markQuiet(card, s);
 
     const figure = card.querySelector('.history');
     // the chart ends where the figures above it end, even if a newer date arrived in between
@@ -495,14 +572,9 @@
       const tenors = Object.keys(c.yields_bp);
       const figure = card.querySelector('.curve-shape');
       const width = Math.max(260, Math.round(figure.clientWidth || 520));
-      figure.replaceChildren(curveChart(c, tenors, width, before && before.date !== c.date ? before : null));
-      card.querySelector('.table-scroll').replaceChildren(el('table', { class: 'yields' },
-        el('caption', { class: 'visually-hidden' }, c.curve + ' yields on ' + c.date + ', percent'),
-        el('tbody', null,
-          el('tr', null, el('th', { scope: 'row' }, 'Tenor'), ...tenors.map(t => el('th', { scope: 'col' }, t))),
-          el('tr', null, el('th', { scope: 'row' }, 'Yield % ' + c.date), ...tenors.map(t => el('td', null, percent(c.yields_bp[t])))),
-          before && before.date !== c.date ? el('tr', { class: 'earlier' }, el('th', { scope: 'row' }, 'Yield % ' + before.date),
-            ...tenors.map(t => el('td', null, percent(before.yields_bp[t])))) : null)));
+      const then = before && before.date !== c.date ? before : null;
+      figure.replaceChildren(curveChart(c, tenors, width, then), curveLegend(c, then));
+      fitYieldTable(card.querySelector('.table-scroll'), c, tenors, then);
     });
     for (const card of [...box.children]) {
       if (!keep.has(card.id)) {
@@ -523,6 +595,180 @@
       el('td', null, t.spread_id.replace(':', ' ')),
       el('td', null, stateTag(t.from), el('span', { class: 'arrow', 'aria-label': 'to' }, '\u2192'), stateTag(t.to)),
       el('td', { class: 'reason' }, t.reason))));
+  }
+
+  // ---- a confirmed inversion, unmistakable ----
+
+  // the facts a confirmed card shows large in its headline instead of in its list
+  const IN_HEADLINE = new Set(['Days inverted', 'Deepest so far', 'Recession odds']);
+
+  // A confirmed card gets a banner and its key figures large; any other state gets neither and stays calm.
+  function fillConfirmed(card, s) {
+    let banner = card.querySelector('.alarm-banner');
+    let headline = card.querySelector('.headline');
+    if (s.state !== 'CONFIRMED') {
+      if (banner) banner.remove();
+      if (headline) headline.remove();
+      return;
+    }
+    if (!banner) {
+      banner = el('p', { class: 'alarm-banner' });
+      card.prepend(banner);
+    }
+    if (!headline) {
+      headline = el('dl', { class: 'headline' });
+      card.querySelector('.reading').after(headline);
+    }
+    const spell = s.spell || {};
+    banner.replaceChildren(el('span', { class: 'alarm-word' }, 'Confirmed inversion'),
+      spell.confirmed ? el('span', { class: 'alarm-since' }, 'since ' + spell.confirmed) : null);
+    const reason = confirmingReason(s);
+    const tiles = [
+      ['deepest', 'Deepest', bp(spell.deepest_bp), spell.deepest_date ? 'on ' + spell.deepest_date : null],
+      ['days', 'Days inverted', String(s.days_inverted), spell.start ? 'since ' + spell.start : null],
+      ['test', 'Test that held', spell.confirmed_by || 'not recorded', reason]
+    ];
+    if (s.probability) {
+      const p = s.probability;
+      const band = p.band90_lower === null || p.band90_lower === undefined ? ''
+        : ', 90% band ' + Math.round(100 * p.band90_lower) + '\u2013' + Math.round(100 * p.band90_upper) + '%';
+      tiles.push(['odds', 'Recession odds', Math.round(100 * p.value) + '%', 'for ' + p.recession_month + band + ', from the '
+        + p.month + ' average so far (' + p.observations + ' days); a statistical signal only']);
+    }
+    headline.replaceChildren(...tiles.map(([key, label, figure, detail]) => el('div', { class: 'tile', 'data-fact': key },
+      el('dt', null, label), el('dd', null, el('span', { class: 'figure' }, figure), detail ? el('span', { class: 'detail' }, detail) : null))));
+  }
+
+  // the reason the monitor gave when this spell was confirmed, if the transitions read hold it
+  function confirmingReason(s) {
+    if (!s.spell) {
+      return null;
+    }
+    const t = last.transitions.find(x => x.spread_id === s.id && x.to === 'CONFIRMED' && x.spell_id === s.spell.id);
+    return t ? t.reason : null;
+  }
+
+  // ---- quiet periods and acknowledgements ----
+
+  let quietReadAt = null;        // when the quiet periods were last read, or null
+  let quietFailed = false;       // whether the last try to read them failed
+
+  // Read apart from the rest: without them the figures are still current, so a failure is said in their panel only.
+  async function loadQuietPeriods() {
+    try {
+      const all = await fetchJson(QUIET_API.path);
+      quietPeriods = all.filter(q => q[QUIET_API.active]);
+      quietReadAt = new Date();
+      quietFailed = false;
+    } catch (e) {
+      quietFailed = true;
+    }
+  }
+
+  // an instant as the desk's shared clock shows it: minutes, UTC
+  function utc(instant) {
+    const m = /^(\d{4}-\d\d-\d\d)T(\d\d:\d\d)/.exec(String(instant));
+    return m && /Z$/.test(instant) ? m[1] + ' ' + m[2] + ' UTC' : String(instant);
+  }
+
+  // what a quiet period covers: the rule it names, or the spread
+  function quietTarget(q) {
+    return q[QUIET_API.rule] ?? q[QUIET_API.spread];
+  }
+
+  function quietSubject(q) {
+    const target = quietTarget(q);
+    if (q[QUIET_API.rule] != null) {
+      return 'Alert rule ' + target;
+    }
+    return target.includes(':') ? target.replace(':', ' ') : target + ' on every curve';
+  }
+
+  // The quiet periods that silence a spread: one on the spread (on its curve or on every curve), or one on a rule
+  // whose condition holds for it now.
+  function quietFor(s) {
+    const rulesOn = new Set((last.alerts.open || []).filter(e => e.subject === s.id).map(e => e.rule));
+    return quietPeriods.filter(q => (q[QUIET_API.rule] != null ? rulesOn.has(q[QUIET_API.rule])
+      : q[QUIET_API.spread] === s.id || q[QUIET_API.spread] === s.spread));
+  }
+
+  function markQuiet(card, s) {
+    const quiet = quietFor(s);
+    let note = card.querySelector('.quiet-note');
+    card.classList.toggle('is-quiet', quiet.length > 0);
+    card.dataset.quiet = String(quiet.length > 0);
+    if (quiet.length === 0) {
+      if (note) note.remove();
+      return;
+    }
+    if (!note) {
+      note = el('p', { class: 'quiet-note' });
+      card.querySelector('.card-head').after(note);
+    }
+    const longest = quiet.reduce((a, b) => (a[QUIET_API.until] >= b[QUIET_API.until] ? a : b));
+    note.replaceChildren(el('span', { class: 'quiet-tag' }, 'Quiet period'),
+      ' until ' + utc(longest[QUIET_API.until]) + ', set by ' + longest[QUIET_API.setBy]
+      + ': alerts for it are journalled, not sent.');
+  }
+
+  // An acknowledged episode sends no reminders until its condition clears; who acknowledged it is on its notices.
+  function acknowledgements() {
+    const recent = last.alerts.recent || [];
+    return (last.alerts.open || []).filter(e => e.acknowledged).map(e => {
+      const prefix = e.rule + '~' + e.subject + '~' + e.since + '~';
+      const acks = recent.filter(a => a.id.startsWith(prefix)).flatMap(a => a.acks || []);
+      acks.sort((a, b) => (a.at < b.at ? 1 : -1));
+      return { episode: e, ack: acks[0] || null };
+    });
+  }
+
+  function renderQuiet() {
+    const items = quietPeriods.map(q => el('li', { class: 'quiet-item', 'data-target': quietTarget(q) },
+      el('span', { class: 'quiet-tag' }, 'Quiet period'), ' ', el('strong', null, quietSubject(q)),
+      ' until ', el('time', { datetime: q[QUIET_API.until], class: 'until' }, utc(q[QUIET_API.until])),
+      ', set by ', el('span', { class: 'who' }, q[QUIET_API.setBy]),
+      q[QUIET_API.note] ? el('span', { class: 'note' }, ': ' + q[QUIET_API.note]) : null));
+    for (const { episode, ack } of acknowledgements()) {
+      items.push(el('li', { class: 'ack-item', 'data-rule': episode.rule, 'data-subject': episode.subject },
+        el('span', { class: 'ack-tag' }, 'Acknowledged'), ' ', el('strong', null, episode.subject.replace(':', ' ')),
+        ', rule ' + episode.rule,
+        ack ? el('span', null, ' by ', el('span', { class: 'who' }, ack.by), ' at ', el('time', { datetime: ack.at }, utc(ack.at))) : null,
+        ': no reminders until the condition clears', ack && ack.note ? el('span', { class: 'note' }, ' (' + ack.note + ')') : null));
+    }
+    document.getElementById('quiet-list').replaceChildren(...items);
+    document.getElementById('quiet-empty').hidden = items.length > 0;
+    const stale = document.getElementById('quiet-stale');
+    stale.hidden = !quietFailed;
+    stale.textContent = quietFailed ? 'The quiet periods could not be read just now' + (quietReadAt
+      ? '; these are as read at ' + clock(quietReadAt) + '.' : '.') : '';
+  }
+
+  // ---- curve tables that fit their card ----
+
+  // Tenors across when that fits the card; otherwise (a narrow screen, many tenors) down the side, so that no
+  // column is cut off or hidden behind a scroll bar.
+  function fitYieldTable(box, c, tenors, before) {
+    box.replaceChildren(yieldTable(c, tenors, before, true));
+    if (box.scrollWidth > box.clientWidth) {
+      box.replaceChildren(yieldTable(c, tenors, before, false));
+    }
+  }
+
+  function yieldTable(c, tenors, before, across) {
+    const dates = before ? [c, before] : [c];
+    const caption = el('caption', { class: 'visually-hidden' }, c.curve + ' yields in percent on ' + dates.map(d => d.date).join(' and '));
+    const earlier = i => (i > 0 ? 'earlier' : null);
+    if (across) {
+      return el('table', { class: 'yields across' }, caption, el('tbody', null,
+        el('tr', null, el('th', { scope: 'row' }, 'Yield %'), ...tenors.map(t => el('th', { scope: 'col' }, t))),
+        ...dates.map((d, i) => el('tr', { class: earlier(i) }, el('th', { scope: 'row' }, d.date),
+          ...tenors.map(t => el('td', null, percent(d.yields_bp[t])))))));
+    }
+    return el('table', { class: 'yields down' }, caption,
+      el('thead', null, el('tr', null, el('th', { scope: 'col' }, 'Tenor'),
+        ...dates.map((d, i) => el('th', { scope: 'col', class: earlier(i) }, d.date + ' %')))),
+      el('tbody', null, ...tenors.map(t => el('tr', null, el('th', { scope: 'row' }, t),
+        ...dates.map((d, i) => el('td', { class: earlier(i) }, percent(d.yields_bp[t])))))));
   }
 
   // ---- start ----

@@ -8,11 +8,15 @@ import java.util.ArrayList;
 import java.util.Collection;
 import java.util.HashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import java.util.function.Function;
 import org.jboss.logging.Logger;
 import org.slopewatch.delivery.AlertChannel;
 import org.slopewatch.delivery.ChannelRegistry;
+import org.slopewatch.delivery.StreamChannel;
+import org.slopewatch.delivery.StreamTransport;
 import org.slopewatch.journal.Acknowledgements;
 import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalEntries;
@@ -75,28 +79,50 @@ public class AlertDesk implements AlertStage {
 
     /**
      * What stops a policy from running with this configuration: a channel declared with one type
-     * in the policy and configured with another. A declared channel that is not configured at all
-     * is allowed (its deliveries are recorded as skipped), so that the shipped policy runs on a
-     * machine with no chat or mail server.
+     * in the policy and configured with another, or a stream channel whose events would stay in
+     * memory ({@link StreamTransport}). A declared channel that is not configured at all is
+     * allowed (its deliveries are recorded as skipped), so that the shipped policy runs on a
+     * machine with no chat or mail server or broker. Start-up and every reload ask this.
      */
     public List<String> checkChannels(Policy policy) {
+        return checkChannels(policy, channels::channel, channels.streamTransport());
+    }
+
+    static List<String> checkChannels(Policy policy, Function<String, Optional<AlertChannel>> configuredChannels, StreamTransport streams) {
         List<String> problems = new ArrayList<>();
         for (ChannelDeclaration declared : policy.channels()) {
-            Optional<AlertChannel> configured = channels.channel(declared.name());
-            if (configured.isPresent() && !configured.get().type().equals(declared.type())) {
+            Optional<AlertChannel> configured = configuredChannels.apply(declared.name());
+            if (configured.isEmpty()) {
+                continue;
+            }
+            if (!configured.get().type().equals(declared.type())) {
                 problems.add(policy.source() + ": channel " + declared.name() + " is declared as " + declared.type()
                         + " but configured as " + configured.get().type() + " (slopewatch.channels." + declared.name() + ".type)");
+            } else if (StreamChannel.TYPE.equals(declared.type())) {
+                streams.refusal(declared.name()).ifPresent(refusal -> problems.add(policy.source() + ": " + refusal));
             }
         }
         return problems;
     }
 
+    /** Whether the rules of the policy in force can reach the desk with the channels configured here. */
+    public ChannelReach reach() {
+        return reach(policies.policy());
+    }
+
+    private ChannelReach reach(Policy policy) {
+        return ChannelReach.of(policy, name -> channels.channel(name).map(AlertChannel::type));
+    }
+
     private void warnUnconfigured(Policy policy) {
-        for (ChannelDeclaration declared : policy.channels()) {
-            if (channels.channel(declared.name()).isEmpty()) {
-                LOG.warnf("channel %s (%s) is named in %s but not configured (slopewatch.channels.%s.*): its deliveries will be "
-                        + "recorded as skipped", declared.name(), declared.type(), policy.source(), declared.name());
-            }
+        ChannelReach reach = reach(policy);
+        for (ChannelDeclaration declared : reach.unconfigured()) {
+            LOG.warnf("channel %s (%s) is named in %s but not configured (slopewatch.channels.%s.*): its deliveries will be "
+                    + "recorded as skipped", declared.name(), declared.type(), policy.source(), declared.name());
+        }
+        for (ChannelReach.RuleReach rule : reach.unreached()) {
+            LOG.warnf("alert rule %s (%s) in %s %s", rule.rule(), rule.severity().name().toLowerCase(Locale.ROOT),
+                    policy.source(), rule.describe());
         }
     }
 

@@ -46,6 +46,7 @@ public class AlertDispatcher {
     private final DeliveryOutbox store;
     private final RetryPolicy retry;
     private final AlertMetrics metrics;
+    private final ChannelFailures failures;
     private final Clock clock;
     // how long a claimed delivery is this instance's alone (slopewatch.alerts.delivery-claim)
     private final Duration claim;
@@ -54,12 +55,13 @@ public class AlertDispatcher {
     private final String instance = ProcessHandle.current().pid() + "@" + UUID.randomUUID();
     private final List<Worker> all = new ArrayList<>();
 
-    AlertDispatcher(ChannelRegistry channels, DeliveryOutbox store, RetryPolicy retry, AlertMetrics metrics, AlertsConfig config,
-                    Clock clock) {
+    AlertDispatcher(ChannelRegistry channels, DeliveryOutbox store, RetryPolicy retry, AlertMetrics metrics, ChannelFailures failures,
+                    AlertsConfig config, Clock clock) {
         this.channels = channels;
         this.store = store;
         this.retry = retry;
         this.metrics = metrics;
+        this.failures = failures;
         this.clock = clock;
         this.claim = config.deliveryClaim();
         this.workers = Executors.newScheduledThreadPool(Math.max(1, channels.all().size()), r -> {
@@ -140,15 +142,18 @@ public class AlertDispatcher {
                 store.attempt(d.delivery(), attemptedAt, "delivered", detail, decision.reason(), DeliveryOutbox.Status.DELIVERED, null);
                 metrics.attempt(channel.name(), d.alert(), "delivered");
                 metrics.finished(channel.name(), "delivered");
+                failures.attempted(channel.name(), ChannelFailures.Outcome.DELIVERED, attemptedAt);
                 LOG.debugf("alert %s delivered on %s (attempt %d)", d.alert().id(), channel.name(), attempt);
             } else if (decision instanceof RetryDecision.RetryAt r) {
                 store.attempt(d.delivery(), attemptedAt, "retry", detail, decision.reason(), DeliveryOutbox.Status.PENDING, r.at());
                 metrics.attempt(channel.name(), d.alert(), "retry");
+                failures.attempted(channel.name(), ChannelFailures.Outcome.RETRY, attemptedAt);
                 LOG.warnf("alert %s on %s: %s", d.alert().id(), channel.name(), decision.reason());
             } else {
                 store.attempt(d.delivery(), attemptedAt, "failed", detail, decision.reason(), DeliveryOutbox.Status.FAILED, null);
                 metrics.attempt(channel.name(), d.alert(), "failed");
                 metrics.finished(channel.name(), "failed");
+                failures.attempted(channel.name(), ChannelFailures.Outcome.FAILED, attemptedAt);
                 LOG.errorf("alert %s on %s not delivered: %s", d.alert().id(), channel.name(), decision.reason());
             }
         }

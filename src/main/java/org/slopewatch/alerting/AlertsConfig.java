@@ -8,7 +8,7 @@ import java.time.Duration;
 @ConfigMapping(prefix = "slopewatch.alerts")
 public interface AlertsConfig {
 
-    /** How often repeats and stale feeds are evaluated (the pipeline evaluates transitions as they happen). */
+    /** How often standing notices and stale feeds are evaluated (the pipeline evaluates transitions as they happen). */
     @WithDefault("30s")
     Duration evaluateEvery();
 

@@ -5,7 +5,9 @@
  * ({@link org.slopewatch.alerting.AlertComposer}, with a text of its own for each kind of notice in
  * {@link org.slopewatch.alerting.NoticeText}, every figure from the one status the decision was
  * made on), quiet periods, and delivery from the journal's outbox with one
- * retry policy ({@link org.slopewatch.alerting.AlertDispatcher}). Depends on the journal and on
- * delivery; the pipeline depends on it.
+ * retry policy ({@link org.slopewatch.alerting.AlertDispatcher}); whether each rule can reach the
+ * desk with the channels configured ({@link org.slopewatch.alerting.ChannelReach}) and which
+ * channels' attempts are failing ({@link org.slopewatch.alerting.ChannelFailures}). Depends on the
+ * journal and on delivery; the pipeline and the health checks depend on it.
  */
 package org.slopewatch.alerting;

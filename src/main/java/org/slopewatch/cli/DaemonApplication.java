@@ -17,7 +17,9 @@ public class DaemonApplication implements QuarkusApplication {
         System.out.println("  spreads      " + base + "/api/spreads");
         System.out.println("  transitions  " + base + "/api/transitions   (and log lines starting 'transition spread=')");
         System.out.println("  metrics      " + base + "/q/metrics");
-        System.out.println("  health       " + base + "/q/health");
+        System.out.println("  health       " + base + "/q/health         (every check: DOWN when any is)");
+        System.out.println("    ready      " + base + "/q/health/ready   (takes and journals quotes)");
+        System.out.println("    well       " + base + "/q/health/well    (the desk can rely on its alerts and feeds)");
         System.out.println("  API          " + base + "/q/openapi");
         System.out.println("A statistical signal, not investment advice. Stop with Ctrl+C.");
         System.out.println();

@@ -11,7 +11,8 @@ import org.slopewatch.replay.FitReport;
 
 /**
  * The fit report as text for people: the sample, a coefficient table with both standard errors
- * side by side, goodness of fit, the band table, and the policy entry that would use the fit.
+ * side by side, goodness of fit, the band table, the caution, and last the fit as a policy's
+ * {@code probability:} section, ready to paste.
  */
 final class FitText {
 
@@ -59,18 +60,35 @@ final class FitText {
                     100 * row.lower(), 100 * row.upper());
         }
         out.println();
-        out.println("  as a policy entry (alert-rules/README.md, 'probability'; the spread must be watched):");
-        out.println("    probability:");
-        out.printf(Locale.ROOT, "      %s: { alpha: %s, beta: %s, horizon-months: %d, average: monthly,%n", r.spread(),
-                sig(r.coefficients().get(0).estimate()), sig(r.coefficients().get(1).estimate()), r.horizonMonths());
-        out.printf(Locale.ROOT, "        source: \"%s\",%n", yamlText(provenance(r)));
-        // the covariance the bands above rest on, so that the daemon shows the same band next to its live probability
-        Covariance c = r.bands().covariance().equals(CovarianceKind.NEWEY_WEST.label()) ? r.standardErrors().covarianceNeweyWest()
-                : r.standardErrors().covarianceModelBased();
-        out.printf(Locale.ROOT, "        covariance: { var-alpha: %s, cov-alpha-beta: %s, var-beta: %s } }%n", sig(c.varAlpha()),
-                sig(c.covAlphaBeta()), sig(c.varBeta()));
-        out.println();
         out.println(r.caution());
+        out.println();
+        out.print(policyBlock(r));
+    }
+
+    /**
+     * The fit as a {@code probability:} section of a policy, in the shape {@code rules.ProbabilitySectionParser}
+     * reads, starting at column 0 so that it pastes into a policy file as it is: coefficients to six
+     * significant digits, the provenance, and the covariance the bands above rest on, so that the daemon
+     * shows the same band next to its live probability.
+     */
+    static String policyBlock(FitReport r) {
+        boolean neweyWest = r.bands().covariance().equals(CovarianceKind.NEWEY_WEST.label());
+        Covariance c = neweyWest ? r.standardErrors().covarianceNeweyWest() : r.standardErrors().covarianceModelBased();
+        String kind = r.bands().covariance() + (neweyWest ? ", lag " + r.standardErrors().neweyWestLagMonths() : "");
+        String nl = System.lineSeparator();
+        return "# The fit as a policy's 'probability' section (alert-rules/README.md): paste it into a policy that watches "
+                + r.spread() + "," + nl
+                + "# or put the " + r.spread() + " entry under the 'probability:' the policy already has." + nl
+                + "probability:" + nl
+                + "  " + r.spread() + ":" + nl
+                + "    alpha: " + sig(r.coefficients().get(0).estimate()) + nl
+                + "    beta: " + sig(r.coefficients().get(1).estimate()) + nl
+                + "    horizon-months: " + r.horizonMonths() + nl
+                + "    average: monthly" + nl
+                + "    source: \"" + yamlText(provenance(r)) + "\"" + nl
+                + "    # covariance of (alpha, beta), " + kind + ": the daemon's 90 % band rests on it" + nl
+                + "    covariance: { var-alpha: " + sig(c.varAlpha()) + ", cov-alpha-beta: " + sig(c.covAlphaBeta()) + ", var-beta: "
+                + sig(c.varBeta()) + " }" + nl;
     }
 
     /** A provenance note for the policy: what was fitted on which data. */

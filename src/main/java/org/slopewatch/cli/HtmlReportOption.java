@@ -7,16 +7,23 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
+import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.probability.RecessionCalendarCsv;
+import org.slopewatch.replay.Replay;
+import org.slopewatch.replay.ReplayReport;
 import org.slopewatch.report.PolicySummary;
 import org.slopewatch.report.RecessionDates;
 import org.slopewatch.report.ReplayDocument;
 import org.slopewatch.report.ReportFile;
 import org.slopewatch.report.ReportHtml;
-import org.slopewatch.replay.Replay;
-import org.slopewatch.replay.ReplayReport;
+import org.slopewatch.report.SpreadProbability;
+import org.slopewatch.rules.PolicyException;
+import org.slopewatch.rules.PolicyParser;
+import org.slopewatch.rules.ProbabilityModels;
 
 /** {@code replay --report FILE}: the replay as one self-contained HTML page. */
 final class HtmlReportOption {
@@ -43,12 +50,34 @@ final class HtmlReportOption {
                     dates = new RecessionDates(recessions.toString(), RecessionCalendarCsv.read(r, recessions.toString()).recessions());
                 }
             }
-            String html = ReportHtml.render(ReplayDocument.of(report, replay.values(), summary, dates, Clock.systemUTC().instant()));
+            String html = ReportHtml.render(ReplayDocument.of(report, replay.values(), summary, dates, probabilities(policy, replay),
+                    Clock.systemUTC().instant()));
             ReportFile.write(target, html);
             return 0;
         } catch (IOException e) {
             err.println("slopewatch replay: cannot write the report " + target + ": " + e);
             return 1;
+        } catch (PolicyException e) {
+            // read once already for the replay: the file changed in between
+            err.println("slopewatch replay: cannot write the report " + target + ": the policy file changed and is no longer valid: "
+                    + e.getMessage());
+            return 1;
         }
+    }
+
+    /** By spread id, the recession probability at the end of the data, from the policy's models (none without a policy file). */
+    private static Map<String, SpreadProbability> probabilities(Path policy, Replay replay) throws IOException, PolicyException {
+        Map<String, SpreadProbability> out = new HashMap<>();
+        if (policy == null) {
+            return out;
+        }
+        ProbabilityModels models = PolicyParser.parse(policy.toString(), Files.readAllBytes(policy)).probability();
+        for (SpreadStatus status : replay.statuses()) {
+            SpreadProbability p = SpreadProbability.of(models, status);
+            if (p != null) {
+                out.put(status.id(), p);
+            }
+        }
+        return out;
     }
 }

@@ -19,13 +19,12 @@ import org.slopewatch.monitor.DaysInverted;
 import org.slopewatch.monitor.MonitorDefinition;
 import org.slopewatch.monitor.PersistenceTest;
 import org.slopewatch.monitor.QuarterAverage;
-import org.slopewatch.monitor.RollingAverage;
-import org.slopewatch.monitor.ShareInverted;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.probability.LeadTimeAnalysis;
 import org.slopewatch.probability.RecessionCalendarCsv;
 import org.slopewatch.replay.Replay;
 import org.slopewatch.replay.ReplayReport;
+import org.slopewatch.rules.PersistenceForms;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.Policy;
 import org.slopewatch.rules.PolicyParser;
@@ -156,7 +155,7 @@ final class ReplayCommand implements Callable<Integer> {
         return dot > 0 ? name.substring(0, dot) : name;
     }
 
-    private List<Watch> watches(PrintWriter err) throws IOException, PolicyException {
+    List<Watch> watches(PrintWriter err) throws IOException, PolicyException {
         if (policy != null) {
             if (!spreads.isEmpty() || !persistence.isEmpty()) {
                 throw new IllegalArgumentException("give either --policy or --spread/--persistence, not both");
@@ -170,7 +169,7 @@ final class ReplayCommand implements Callable<Integer> {
         }
         List<PersistenceTest> tests = new ArrayList<>();
         for (String p : persistence.isEmpty() ? List.of(QuarterAverage.NAME) : persistence) {
-            tests.add(test(p));
+            tests.add(PersistenceForms.parse(p, entryBp));
         }
         MonitorDefinition rules = new MonitorDefinition(entryBp, exitBp == null ? entryBp : exitBp, exitObservations, holdDays, tests);
         List<Watch> out = new ArrayList<>();
@@ -178,25 +177,5 @@ final class ReplayCommand implements Callable<Integer> {
             out.add(new Watch(SpreadDefinition.parse(s), rules, Set.of()));
         }
         return out;
-    }
-
-    private PersistenceTest test(String text) {
-        String[] p = text.strip().split(":");
-        try {
-            return switch (p[0]) {
-                case QuarterAverage.NAME -> p.length == 1 ? new QuarterAverage(entryBp) : bad(text);
-                case DaysInverted.NAME -> p.length == 2 ? new DaysInverted(Integer.parseInt(p[1])) : bad(text);
-                case RollingAverage.NAME -> p.length == 2 ? new RollingAverage(Integer.parseInt(p[1]), entryBp) : bad(text);
-                case ShareInverted.NAME -> p.length == 3 ? new ShareInverted(Integer.parseInt(p[1]), Double.parseDouble(p[2])) : bad(text);
-                default -> bad(text);
-            };
-        } catch (NumberFormatException e) {
-            return bad(text);
-        }
-    }
-
-    private static PersistenceTest bad(String text) {
-        throw new IllegalArgumentException("unknown persistence test " + Excerpt.quoted(text) + " (expected quarter-average, days-inverted:DAYS, "
-                + "rolling-average:DAYS or share-inverted:DAYS:SHARE)");
     }
 }

@@ -31,6 +31,7 @@ public class ChannelRegistry {
     private static final Logger LOG = Logger.getLogger(ChannelRegistry.class);
 
     private final Map<String, AlertChannel> channels;
+    private final StreamTransport streamTransport;
 
     @Inject
     ChannelRegistry(ChannelsConfig config, DeliveryConfig delivery, Config rawConfig, Mailer mailer,
@@ -45,6 +46,7 @@ public class ChannelRegistry {
         ChannelFactory factory = ChannelFactory.standard(() -> mailer, Redactor.of(smtpPassword.stream().toList()), stream,
                 new HostAllowlist(delivery.allowedHosts().orElse(List.of())), delivery.cloudEventsSource());
         this.channels = factory.createAll(settings);
+        this.streamTransport = new StreamTransport(rawConfig.getOptionalValue(StreamTransport.CONNECTOR_KEY, String.class).orElse(null));
         LOG.infof("delivery channels: %s", summary(channels.values()));
     }
 
@@ -66,6 +68,11 @@ public class ChannelRegistry {
     /** The configured names, sorted. */
     public Set<String> names() {
         return channels.keySet();
+    }
+
+    /** What the events of stream channels travel on. */
+    public StreamTransport streamTransport() {
+        return streamTransport;
     }
 
     public Collection<AlertChannel> all() {

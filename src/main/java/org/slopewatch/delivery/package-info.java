@@ -8,6 +8,7 @@
  * it never retries on its own. Webhook URLs, passwords and tokens never reach a log line or an
  * error message: every foreign string passes through a {@link org.slopewatch.delivery.Redactor}
  * ({@code SecretsNeverLeakTest} holds each channel type to it). The retry policy reads time only
- * from its injected clock.
+ * from its injected clock. Stream channels publish only to Kafka
+ * ({@link org.slopewatch.delivery.StreamTransport}): the in-process connector would keep every event.
  */
 package org.slopewatch.delivery;

@@ -8,7 +8,7 @@ import javax.sql.DataSource;
 
 /**
  * Acknowledgements of notices, journalled with who and when: an acknowledged episode sends no more
- * repeats, and the desk asks here after a restart whether an open episode was acknowledged. The
+ * standing notices, and the desk asks here after a restart whether an open episode was acknowledged. The
  * API lists them with their notices ({@link AlertHistory}).
  */
 public final class Acknowledgements {

@@ -1,7 +1,6 @@
 package org.slopewatch.journal;
 
 import java.io.IOException;
-import java.sql.Timestamp;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.util.ArrayList;
@@ -13,9 +12,10 @@ import javax.sql.DataSource;
 import org.slopewatch.rules.Alert;
 
 /**
- * The stored notices read back: for the API with their deliveries and acknowledgements (now or
- * as they stood at a moment), streamed for exports, the latest of each episode for the desk's
- * recovery, and those of some kinds for a what-if to compare with. Notices are written by
+ * The stored notices read back: one for the API with its deliveries and acknowledgements, streamed
+ * for exports, the latest of each episode for the desk's recovery, and those of some kinds for a
+ * what-if to compare with; the API's lists read them a page at a time ({@link NewestAlerts},
+ * {@link TimelineRows}, through the same {@link #filter} of a range). Notices are written by
  * {@link JournalWriter} in the transaction of the step that decided them ({@link AlertRows#insert}).
  */
 public final class AlertHistory {
@@ -40,36 +40,11 @@ public final class AlertHistory {
         this.views = new AlertViews(sql, new DeliveryAttempts(dataSource));
     }
 
-    /** The newest alerts with their deliveries and acknowledgements, newest first. */
-    public List<AlertView> recent(int limit) {
-        return views.of(alerts("SELECT " + AlertRows.ALERT_COLUMNS + " FROM alert a ORDER BY a.created_at DESC, a.id DESC FETCH FIRST "
-                + limit + " ROWS ONLY", JournalSql.NONE), null);
-    }
-
     /** One alert with its deliveries and acknowledgements, or null. */
     public AlertView find(String id) {
         List<AlertView> found = views.of(alerts("SELECT " + AlertRows.ALERT_COLUMNS + " FROM alert a WHERE a.id = ?",
                 s -> s.setString(1, id)), null);
         return found.isEmpty() ? null : found.get(0);
-    }
-
-    /** The newest alerts recorded at or before {@code asOf}, with their deliveries and acknowledgements as they stood then. */
-    public List<AlertView> recent(int limit, Instant asOf) {
-        if (asOf == null) {
-            return recent(limit);
-        }
-        return views.of(alerts("SELECT " + AlertRows.ALERT_COLUMNS + " FROM alert a WHERE a.recorded_at <= ? "
-                + "ORDER BY a.created_at DESC, a.id DESC FETCH FIRST " + limit + " ROWS ONLY",
-                s -> s.setTimestamp(1, Timestamp.from(asOf))), asOf);
-    }
-
-    /**
-     * The alerts about one subject (a spread id) of a range, oldest first, at most {@code limit}:
-     * those with a market date in the range, or with none; as the journal held them at the range's moment.
-     */
-    public List<AlertView> forSubject(JournalRange range, int limit) {
-        return views.of(alerts("SELECT " + AlertRows.ALERT_COLUMNS + " FROM alert a WHERE " + filter(range)
-                + " ORDER BY a.recorded_at, a.created_at, a.id FETCH FIRST " + limit + " ROWS ONLY", range::bind), range.asOf());
     }
 
     /** Every alert of a range ({@code spreadId} is the subject, null for all), streamed oldest first. */
@@ -82,7 +57,12 @@ public final class AlertHistory {
         }, "alerts");
     }
 
-    private static String filter(JournalRange range) {
+    /**
+     * The notices of a range, for a query that reads {@code alert a} and binds the range with
+     * {@link JournalRange#bind} first: a market date in the range, or none (a stale feed's notice
+     * belongs to every range); the range's spread as subject; recorded by its moment.
+     */
+    static String filter(JournalRange range) {
         // notices without a market date (a stale feed) belong to every range
         return "(a.market_date IS NULL OR (a.market_date >= ? AND a.market_date <= ?))"
                 + (range.spreadId() == null ? "" : " AND a.subject = ?") + (range.asOf() == null ? "" : " AND a.recorded_at <= ?");

@@ -62,7 +62,8 @@ final class AlertViews {
         return out;
     }
 
-    private static AlertHistory.Ack ack(ResultSet rs) throws SQLException {
+    /** An acknowledgement read with its alert id, who, note and time as the first four columns. */
+    static AlertHistory.Ack ack(ResultSet rs) throws SQLException {
         return new AlertHistory.Ack(rs.getString(1), rs.getString(2), rs.getString(3), JournalSql.instant(rs, 4));
     }
 }

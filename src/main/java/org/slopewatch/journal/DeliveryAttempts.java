@@ -1,5 +1,7 @@
 package org.slopewatch.journal;
 
+import java.sql.ResultSet;
+import java.sql.SQLException;
 import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.ArrayList;
@@ -23,6 +25,10 @@ public final class DeliveryAttempts {
                                 Instant attemptedAt, Instant recordedAt) {
     }
 
+    /** The columns {@link #stored} reads, of {@code delivery_attempt} as {@code x}. */
+    static final String STORED_COLUMNS = "x.id, x.alert_id, x.channel, x.attempt, x.outcome, x.detail, x.decision, x.attempted_at, "
+            + "x.recorded_at";
+
     private final JournalSql sql;
 
     public DeliveryAttempts(DataSource dataSource) {
@@ -33,15 +39,13 @@ public final class DeliveryAttempts {
     public List<StoredAttempt> attempts(List<String> alertIds, Instant asOf) {
         List<StoredAttempt> out = new ArrayList<>();
         for (List<String> ids : JournalSql.chunks(alertIds)) {
-            sql.query("SELECT id, alert_id, channel, attempt, outcome, detail, decision, attempted_at, recorded_at FROM delivery_attempt "
-                    + "WHERE alert_id IN (" + JournalSql.placeholders(ids.size()) + ")" + (asOf == null ? "" : " AND recorded_at <= ?")
-                    + " ORDER BY id", s -> {
+            sql.query("SELECT " + STORED_COLUMNS + " FROM delivery_attempt x WHERE x.alert_id IN (" + JournalSql.placeholders(ids.size())
+                    + ")" + (asOf == null ? "" : " AND x.recorded_at <= ?") + " ORDER BY x.id", s -> {
                         JournalSql.bind(s, ids);
                         if (asOf != null) {
                             s.setTimestamp(ids.size() + 1, Timestamp.from(asOf));
                         }
-                    }, rs -> out.add(new StoredAttempt(rs.getLong(1), rs.getString(2), rs.getString(3), rs.getInt(4), rs.getString(5),
-                            rs.getString(6), rs.getString(7), JournalSql.instant(rs, 8), JournalSql.instant(rs, 9))), "alerts");
+                    }, rs -> out.add(stored(rs)), "alerts");
         }
         out.sort(Comparator.comparingLong(StoredAttempt::id));
         return out;
@@ -54,5 +58,11 @@ public final class DeliveryAttempts {
                 s -> s.setString(1, alertId), rs -> out.add(new Attempt(rs.getString(1), rs.getInt(2), rs.getString(3), rs.getString(4),
                         rs.getString(5), JournalSql.instant(rs, 6))), "alerts");
         return out;
+    }
+
+    /** A row read with {@link #STORED_COLUMNS} first. */
+    static StoredAttempt stored(ResultSet rs) throws SQLException {
+        return new StoredAttempt(rs.getLong(1), rs.getString(2), rs.getString(3), rs.getInt(4), rs.getString(5), rs.getString(6),
+                rs.getString(7), JournalSql.instant(rs, 8), JournalSql.instant(rs, 9));
     }
 }

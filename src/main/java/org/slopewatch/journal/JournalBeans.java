@@ -106,4 +106,16 @@ public class JournalBeans {
     PolicyVersions policyVersions(AgroalDataSource ds, Clock clock) {
         return new PolicyVersions(ds, clock);
     }
+
+    @Produces
+    @Singleton
+    NewestAlerts newestAlerts(AgroalDataSource ds) {
+        return new NewestAlerts(ds);
+    }
+
+    @Produces
+    @Singleton
+    TimelineRows timelineRows(AgroalDataSource ds) {
+        return new TimelineRows(ds);
+    }
 }

@@ -27,6 +27,10 @@ public final class JournalReader {
                                    long spellId, long seq, Long supersededBy, Instant recordedAt) {
     }
 
+    /** Where a page of transitions ended: the market date and id of its last transition (the list's order). */
+    public record TransitionPosition(LocalDate date, long id) {
+    }
+
     /** A stored reject. */
     public record StoredReject(long id, String origin, String reason, String detail, int item, String raw, Instant recordedAt) {
     }
@@ -144,24 +148,33 @@ public final class JournalReader {
      * the value of a date is the last one recorded at or before that moment. Null: now.
      */
     public List<HistoryPoint> history(String spreadId, LocalDate from, LocalDate to, Instant asOf) {
+        return history(spreadId, from, to, asOf, Integer.MAX_VALUE);
+    }
+
+    /** As {@link #history(String, LocalDate, LocalDate, Instant)}, the first {@code limit} dates only. */
+    public List<HistoryPoint> history(String spreadId, LocalDate from, LocalDate to, Instant asOf, int limit) {
         String sql = "SELECT market_date, value_bp, seq FROM observation WHERE spread_id = ? AND market_date >= ? AND market_date <= ? "
                 + (asOf == null ? "" : "AND recorded_at <= ? ") + "ORDER BY market_date, id";
         Map<LocalDate, HistoryPoint> byDate = new LinkedHashMap<>();
-        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
-            s.setString(1, spreadId);
-            s.setDate(2, Date.valueOf(from));
-            s.setDate(3, Date.valueOf(to));
-            if (asOf != null) {
-                s.setTimestamp(4, Timestamp.from(asOf));
-            }
-            try (ResultSet rs = s.executeQuery()) {
+        try {
+            stream(sql, s -> {
+                s.setString(1, spreadId);
+                s.setDate(2, Date.valueOf(from));
+                s.setDate(3, Date.valueOf(to));
+                if (asOf != null) {
+                    s.setTimestamp(4, Timestamp.from(asOf));
+                }
+            }, rs -> {
                 while (rs.next()) {
                     LocalDate d = rs.getDate(1).toLocalDate();
+                    if (!byDate.containsKey(d) && byDate.size() == limit) {
+                        return; // the rows come by date: the dates asked for are complete
+                    }
                     byDate.put(d, new HistoryPoint(d, rs.getDouble(2), rs.getLong(3)));
                 }
-            }
-        } catch (SQLException e) {
-            throw new JournalException("cannot read the history of " + spreadId, e);
+            }, "the history of " + spreadId);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e); // the rows go to a map, which never throws it
         }
         return new ArrayList<>(byDate.values());
     }
@@ -182,9 +195,24 @@ public final class JournalReader {
      * recorded by then too (before a revision, the transitions it later replaced were standing).
      */
     public List<StoredTransition> transitions(JournalRange range, boolean includeSuperseded, int limit) {
+        return transitions(range, includeSuperseded, null, limit);
+    }
+
+    /**
+     * As {@link #transitions(JournalRange, boolean, int)}, those after {@code after} in the same
+     * order (null: from the first): one page of the list, whichever pages came before.
+     */
+    public List<StoredTransition> transitions(JournalRange range, boolean includeSuperseded, TransitionPosition after, int limit) {
         List<StoredTransition> out = new ArrayList<>();
-        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(transitionSql(range, includeSuperseded))) {
-            bindTransitions(s, range, includeSuperseded);
+        String sql = transitionSql(range, includeSuperseded, after == null ? "" : " AND (t.market_date > ? OR (t.market_date = ? AND t.id > ?))",
+                "t.market_date, t.id");
+        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
+            int next = bindTransitions(s, range, includeSuperseded);
+            if (after != null) {
+                s.setDate(next, Date.valueOf(after.date()));
+                s.setDate(next + 1, Date.valueOf(after.date()));
+                s.setLong(next + 2, after.id());
+            }
             s.setMaxRows(limit);
             try (ResultSet rs = s.executeQuery()) {
                 while (rs.next()) {
@@ -199,14 +227,18 @@ public final class JournalReader {
 
     /** Every transition of a range, superseded ones included and marked as of the range's moment, streamed in market-date order. */
     public void eachTransition(JournalRange range, RowSink<StoredTransition> sink) throws IOException {
-        stream(transitionSql(range, true), s -> bindTransitions(s, range, true), rs -> {
+        stream(transitionSql(range, true, "", "t.market_date, t.id"), s -> bindTransitions(s, range, true), rs -> {
             while (rs.next()) {
                 sink.accept(transition(rs, range.asOf()));
             }
         }, "transitions");
     }
 
-    private static String transitionSql(JournalRange range, boolean includeSuperseded) {
+    /**
+     * The query of a range's transitions: {@code condition} (with its own parameters, bound after
+     * those of {@link #bindTransitions}) narrows it further, {@code order} is its ORDER BY.
+     */
+    static String transitionSql(JournalRange range, boolean includeSuperseded, String condition, String order) {
         // the revision's own time decides whether a transition was superseded at the moment asked about
         StringBuilder sql = new StringBuilder("SELECT t.id, t.spread_id, t.market_date, t.from_state, t.to_state, t.reason, t.test, "
                 + "t.window_label, t.measured, t.limit_value, t.value_bp, t.days_inverted, t.spell_id, t.seq, t.superseded_by, t.recorded_at, "
@@ -220,17 +252,19 @@ public final class JournalReader {
         if (!includeSuperseded) {
             sql.append(range.asOf() == null ? " AND t.superseded_by IS NULL" : " AND (t.superseded_by IS NULL OR r.recorded_at > ?)");
         }
-        return sql.append(" ORDER BY t.market_date, t.id").toString();
+        return sql.append(condition).append(" ORDER BY ").append(order).toString();
     }
 
-    private static void bindTransitions(PreparedStatement s, JournalRange range, boolean includeSuperseded) throws SQLException {
+    /** @return the index of the next parameter */
+    static int bindTransitions(PreparedStatement s, JournalRange range, boolean includeSuperseded) throws SQLException {
         int next = range.bind(s);
         if (range.asOf() != null && !includeSuperseded) {
-            s.setTimestamp(next, Timestamp.from(range.asOf()));
+            s.setTimestamp(next++, Timestamp.from(range.asOf()));
         }
+        return next;
     }
 
-    private static StoredTransition transition(ResultSet rs, Instant asOf) throws SQLException {
+    static StoredTransition transition(ResultSet rs, Instant asOf) throws SQLException {
         long superseded = rs.getLong(15);
         boolean marked = !rs.wasNull();
         Timestamp revisedAt = rs.getTimestamp(17);
@@ -292,12 +326,24 @@ public final class JournalReader {
 
     /** The most recent rejects recorded at or before {@code asOf} (null: now), newest first. */
     public List<StoredReject> rejects(int limit, Instant asOf) {
+        return rejects(limit, asOf, null);
+    }
+
+    /**
+     * As {@link #rejects(int, Instant)}, those after the reject {@code before} in the same order
+     * (ids below it; null: from the newest): one page of the list.
+     */
+    public List<StoredReject> rejects(int limit, Instant asOf, Long before) {
         List<StoredReject> out = new ArrayList<>();
         try (Connection c = dataSource.getConnection();
-             PreparedStatement s = c.prepareStatement("SELECT id, origin, reason, detail, item, raw, recorded_at FROM reject"
-                     + (asOf == null ? "" : " WHERE recorded_at <= ?") + " ORDER BY id DESC")) {
+             PreparedStatement s = c.prepareStatement("SELECT id, origin, reason, detail, item, raw, recorded_at FROM reject WHERE 1 = 1"
+                     + (asOf == null ? "" : " AND recorded_at <= ?") + (before == null ? "" : " AND id < ?") + " ORDER BY id DESC")) {
+            int i = 1;
             if (asOf != null) {
-                s.setTimestamp(1, Timestamp.from(asOf));
+                s.setTimestamp(i++, Timestamp.from(asOf));
+            }
+            if (before != null) {
+                s.setLong(i, before);
             }
             s.setMaxRows(limit);
             try (ResultSet rs = s.executeQuery()) {

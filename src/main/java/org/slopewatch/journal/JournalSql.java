@@ -62,8 +62,17 @@ final class JournalSql {
 
     /** Runs a query and hands each row to {@code row}; a failure reads "cannot read WHAT from the journal". */
     void query(String sql, Binder binder, Row row, String what) {
+        query(sql, binder, 0, row, what);
+    }
+
+    /**
+     * As {@link #query(String, Binder, Row, String)}, the first {@code maxRows} rows only (0: all):
+     * a page of a list, whose query orders its rows.
+     */
+    void query(String sql, Binder binder, int maxRows, Row row, String what) {
         try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
             binder.bind(s);
+            s.setMaxRows(maxRows);
             try (ResultSet rs = s.executeQuery()) {
                 while (rs.next()) {
                     row.read(rs);

@@ -5,8 +5,9 @@
  * with plain batched JDBC. {@link org.slopewatch.journal.JournalWriter} writes a step, its notices
  * with their outbox rows included ({@code AlertRows}); each alert table is read and written
  * through a store with one job ({@code AlertHistory}, {@code DeliveryOutbox},
- * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code QuietPeriodBook}, {@code PolicyVersions});
- * all of them go through {@code JournalSql}, the one JDBC helper.
+ * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code QuietPeriodBook}, {@code PolicyVersions}), and
+ * the API's pages of notices and of a spread's timeline are read by {@code NewestAlerts} and
+ * {@code TimelineRows}; all of them go through {@code JournalSql}, the one JDBC helper.
  *
  * <p>Invariants: one processing step is one transaction, on disk when the write returns
  * ({@link org.slopewatch.journal.JournalDurability}: H2 without write delay and forced after each
@@ -14,6 +15,8 @@
  * so that nothing is answered for, and no delivery attempt is recorded, before it is durable; rows
  * are stamped with the time they were recorded; transitions are never deleted (a revision marks
  * them superseded); a notice id is stored once; the in-memory state can always be rebuilt by
- * replaying the quotes in recorded order.
+ * replaying the quotes in recorded order. The API's lists are read a page at a time after a
+ * position in a total order of their own (keys the database compares itself, so that a page
+ * boundary never splits or repeats a row).
  */
 package org.slopewatch.journal;

@@ -10,9 +10,9 @@ import org.slopewatch.pipeline.FeedFreshness;
 
 /**
  * Feed freshness per watched curve: DOWN when a curve has had no accepted quote for more than the
- * configured business hours (counted from start-up for a curve never heard from). A wellness
- * check, so that a quiet feed shows in {@code /q/health} without taking the daemon out of a load
- * balancer.
+ * configured business hours, or has never been quoted at all (no quote in the journal). A
+ * wellness check, so that a quiet feed shows in {@code /q/health} without taking the daemon out of
+ * a load balancer.
  */
 @Wellness
 @ApplicationScoped
@@ -32,10 +32,14 @@ public class FeedFreshnessCheck implements HealthCheck {
                 b.withData(feed.curve(), "owned by another instance of the consumer group, which reports its feed");
                 continue;
             }
-            b.withData(feed.curve(), String.format(Locale.ROOT, "%s: last quote %s, %.1f business hours ago",
-                    feed.stale() ? "stale" : "fresh", feed.lastQuote() == null ? "none yet" : feed.lastQuote().toString(),
-                    feed.quietBusinessHours()));
-            if (feed.stale()) {
+            if (feed.neverQuoted()) {
+                b.withData(feed.curve(), String.format(Locale.ROOT, "never quoted: no quote in the journal, %.1f business hours since "
+                        + "start-up", feed.quietBusinessHours()));
+            } else {
+                b.withData(feed.curve(), String.format(Locale.ROOT, "%s: last quote %s, %.1f business hours ago",
+                        feed.stale() ? "stale" : "fresh", feed.lastQuote(), feed.quietBusinessHours()));
+            }
+            if (feed.stale() || feed.neverQuoted()) {
                 b.down();
             }
         }

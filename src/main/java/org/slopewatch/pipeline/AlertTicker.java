@@ -9,7 +9,7 @@ import org.jboss.logging.Logger;
 import org.slopewatch.alerting.AlertsConfig;
 
 /**
- * Runs the clock-driven half of alerting at {@code slopewatch.alerts.evaluate-every}: repeats of
+ * Runs the clock-driven half of alerting at {@code slopewatch.alerts.evaluate-every}: standing notices of
  * conditions that still hold, and stale feeds. Transitions do not wait for it; the pipeline
  * decides those as they happen. Only for the curves this instance owns: with several instances
  * on one consumer group, each curve's clock-driven notices come from the one holding its partition.

@@ -13,7 +13,9 @@ import java.util.Map;
  * Whether each watched curve's feed is fresh: stale after the configured business hours without
  * an accepted quote, counted from the curve's latest quote in the journal (whichever instance
  * journalled it, before a restart too), or from start-up for a curve never heard from. The one
- * place for the rule; the health check and the stale-feed alerts both read it.
+ * place for the rule; the health check and the stale-feed alerts both read it. A curve with no
+ * quote at all is also reported as never quoted ({@link CurveFeed#neverQuoted()}): the health
+ * check counts it as not fresh from the start.
  *
  * <p>A curve another instance owns (several instances on one consumer group) is never stale here:
  * its quotes go to the other instance, which answers for its feed.
@@ -21,9 +23,18 @@ import java.util.Map;
 @ApplicationScoped
 public class FeedFreshness {
 
-    /** One curve's feed now. */
+    /** One curve's feed now; {@code lastQuote} null when the journal holds no quote of the curve. */
     public record CurveFeed(String curve, boolean ownedHere, Instant lastQuote, Instant quietSince, double quietBusinessHours,
                             boolean stale) {
+
+        /**
+         * An owned curve with no quote at all, in the journal or since start-up: not fresh, whatever
+         * the business hours say (a feed that never started is not a quiet one), though its stale
+         * alert still waits for the limit, counted from start-up.
+         */
+        public boolean neverQuoted() {
+            return ownedHere && lastQuote == null;
+        }
     }
 
     private final QuotePipeline pipeline;

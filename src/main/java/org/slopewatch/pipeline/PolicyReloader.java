@@ -7,8 +7,11 @@ import jakarta.inject.Singleton;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.time.Clock;
 import java.time.Duration;
+import java.time.Instant;
 import java.util.List;
+import java.util.Optional;
 import org.jboss.logging.Logger;
 import org.slopewatch.alerting.AlertDesk;
 import org.slopewatch.alerting.AlertMetrics;
@@ -23,7 +26,9 @@ import org.slopewatch.rules.PolicyHash;
  * hash is compared with the one in force; a changed, valid file replaces the policy as a whole
  * (the monitors are rebuilt from the journal under the new watch list, open alert episodes of
  * rules kept by name carry over) and is journalled with its hash. An invalid file is rejected
- * with its problems logged, counted and journalled, and the previous policy keeps running.
+ * with its problems logged, counted and journalled, and the previous policy keeps running; the
+ * rejection stays visible ({@link #rejected()}, reported by the wellness check) until the file is
+ * applied or is back to the content in force.
  *
  * <p>Polling the content rather than watching the directory: it also sees files replaced by a
  * symlink swap (as Kubernetes does with a mounted ConfigMap) and costs one small read.
@@ -38,15 +43,40 @@ public class PolicyReloader {
     public record Outcome(String result, String hash, String detail) {
     }
 
+    // stands for the content of a file that could not be read, so that it is rejected once; short
+    // enough for the journal's content_hash column (64 characters), which holds it
+    private static final String UNREADABLE = "unreadable";
+
+    /**
+     * The file on disk as last rejected, while it stays so: the previous policy keeps running.
+     *
+     * @param hash     the SHA-256 of the rejected content, or a mark for a file that could not be read
+     * @param problems one line each, as logged and journalled
+     */
+    public record Rejection(String file, String hash, Instant at, List<String> problems) {
+
+        public Rejection {
+            problems = List.copyOf(problems);
+        }
+
+        /** The rejected content's SHA-256; empty when the file could not be read. */
+        public Optional<String> contentHash() {
+            return UNREADABLE.equals(hash) ? Optional.empty() : Optional.of(hash);
+        }
+    }
+
     private final PolicyHolder policies;
     private final QuotePipeline pipeline;
     private final AlertDesk desk;
     private final PolicyVersions store;
     private final AlertMetrics metrics;
-    private String lastRejectedHash;
+    private final Clock clock;
+    // the file's content as last rejected, until a check finds other content
+    private volatile Rejection rejected;
 
     PolicyReloader(PolicyHolder policies, QuotePipeline pipeline, AlertDesk desk, PolicyVersions store, AlertMetrics metrics,
-                   AlertsConfig config, Scheduler scheduler) {
+                   AlertsConfig config, Clock clock, Scheduler scheduler) {
+        this.clock = clock;
         this.policies = policies;
         this.pipeline = pipeline;
         this.desk = desk;
@@ -81,13 +111,15 @@ public class PolicyReloader {
         try {
             bytes = Files.readAllBytes(Path.of(file));
         } catch (IOException e) {
-            return reject(file, "unreadable:" + file, List.of("cannot read " + file + ": " + e.getMessage()));
+            return reject(file, UNREADABLE, List.of("cannot read " + file + ": " + e.getMessage()));
         }
         String hash = PolicyHash.of(bytes);
         if (hash.equals(current.hash())) {
+            rejected = null; // the file is back to the policy in force
             return new Outcome("unchanged", hash, "the policy in force has this content");
         }
-        if (hash.equals(lastRejectedHash)) {
+        Rejection last = rejected;
+        if (last != null && hash.equals(last.hash())) {
             return new Outcome("rejected", hash, "this content was rejected before; the previous policy keeps running");
         }
         PolicyHolder.Loaded next;
@@ -111,7 +143,7 @@ public class PolicyReloader {
         }
         store.policyVersion(hash, file, "applied", "reloaded");
         metrics.reload("applied");
-        lastRejectedHash = null;
+        rejected = null;
         LOG.infof("policy %s reloaded (sha256 %s): %d watch(es), %d alert rule(s)", file, hash, next.policy().watches().size(),
                 next.policy().alerts().size());
         warn(next);
@@ -129,7 +161,7 @@ public class PolicyReloader {
      */
     private Outcome reject(String file, String hash, List<String> problems) {
         String why = String.join(System.lineSeparator(), problems);
-        lastRejectedHash = hash;
+        rejected = new Rejection(file, hash, clock.instant(), problems);
         metrics.reload("rejected");
         store.policyVersion(hash, file, "rejected", why);
         // one log line per problem: a record never spans lines (the log guard escapes line breaks)
@@ -138,5 +170,10 @@ public class PolicyReloader {
             LOG.errorf("policy rejected: %s", problem);
         }
         return new Outcome("rejected", hash, why);
+    }
+
+    /** The policy file's rejection while the file on disk stays rejected; empty once it is applied or back to the policy in force. */
+    public Optional<Rejection> rejected() {
+        return Optional.ofNullable(rejected);
     }
 }

@@ -144,7 +144,7 @@ public final class QuotePipeline {
     }
 
     /**
-     * Decides the notices due by the clock alone (repeats, stale feeds) and journals them, for the
+     * Decides the notices due by the clock alone (standing notices, stale feeds) and journals them, for the
      * curves this instance owns.
      *
      * @param staleCurves every owned curve → the date its feed went quiet, or null while fresh

@@ -2,7 +2,8 @@
  * Recession probability: the probit model P = Φ(α + β·s) on a term spread s in percentage
  * points, calendar-month averaging, recession calendars, and the maximum-likelihood fit with
  * model-based and Newey–West standard errors, and lead-time analysis of confirmations against
- * business-cycle peaks.
+ * business-cycle peaks; and a live probability put in words ({@link org.slopewatch.probability.ProbabilityText}),
+ * so that it is never shown without its spread, horizon, month and model.
  *
  * <p>Invariants: plain Java and Commons Math only (no container, no clock); spreads here are in
  * percentage points, not basis points; a recession occupies the months after a peak through its

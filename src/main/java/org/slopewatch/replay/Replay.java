@@ -15,6 +15,7 @@ import org.slopewatch.monitor.Revision;
 import org.slopewatch.monitor.SignalEngine;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadState;
+import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.monitor.SpreadTrack;
 import org.slopewatch.monitor.Transition;
 import org.slopewatch.monitor.Watch;
@@ -79,6 +80,14 @@ public final class Replay {
             out.add(new SpreadValues(track.spread().id(), days, bp));
         }
         return out;
+    }
+
+    /**
+     * After {@link #run}: where each spread stands at the end of the data, as the daemon's status of
+     * it would read, in the order of the report's spreads (a probability model reads its month averages).
+     */
+    public List<SpreadStatus> statuses() {
+        return engine.tracks().stream().map(SpreadStatus::of).toList();
     }
 
     private void record(List<MonitorEvent> events) {

@@ -37,7 +37,7 @@ final class ChartText {
         dates(b, s, SpreadState.CONFIRMED, "Confirmed on ");
         dates(b, s, SpreadState.RESTEEPENING, "Re-steepened on ");
         if (!recessions.isEmpty()) {
-            b.append(recessions.size()).append(recessions.size() == 1 ? " recession shaded: " : " recessions shaded: ")
+            b.append(recessions.size()).append(recessions.size() == 1 ? " recession marked along the bottom: " : " recessions marked along the bottom: ")
                     .append(recessions.stream().map(r -> "peak " + r.peak() + " to trough " + r.trough())
                             .collect(Collectors.joining("; "))).append(".");
         }

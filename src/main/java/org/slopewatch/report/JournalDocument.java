@@ -25,8 +25,10 @@ public final class JournalDocument {
      * @param rules       the rules of the policy in force for it, in one line
      * @param values      the standing value on each date, in date order
      * @param transitions in market-date order
+     * @param probability the recession probability now, or null when no model covers the spread
      */
-    public record SpreadInput(SpreadKey key, String rules, List<ChartPoint> values, List<SpreadReport.TransitionRow> transitions) {
+    public record SpreadInput(SpreadKey key, String rules, List<ChartPoint> values, List<SpreadReport.TransitionRow> transitions,
+                              SpreadProbability probability) {
 
         public SpreadInput {
             Objects.requireNonNull(key, "key");
@@ -47,7 +49,7 @@ public final class JournalDocument {
             sections.add(new SpreadSection(in.key().id(), in.key().curve(), in.key().spread(), in.rules(), state,
                     end == null ? null : end.date(), end == null ? null : end.valueBp(), v.size(),
                     ChartPoints.thin(v.size(), i -> v.get(i).date(), i -> v.get(i).valueBp(), ChartPoints.MAX_POINTS),
-                    SpellBand.fromTransitions(in.transitions()), in.transitions(), null, null, null));
+                    SpellBand.fromTransitions(in.transitions()), in.transitions(), null, null, null, in.probability()));
             if (!v.isEmpty()) {
                 first = first == null || v.get(0).date().isBefore(first) ? v.get(0).date() : first;
                 last = last == null || end.date().isAfter(last) ? end.date() : last;

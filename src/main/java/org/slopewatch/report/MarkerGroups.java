@@ -27,6 +27,7 @@ final class MarkerGroups extends XYLineAndShapeRenderer {
     }
 
     private final transient Map<Marker, Tag> tags = new IdentityHashMap<>();
+    private final transient RecessionBar.LabelRows recessionLabels = new RecessionBar.LabelRows();
     private final String lineTitle;
 
     MarkerGroups(String lineTitle) {
@@ -47,7 +48,11 @@ final class MarkerGroups extends XYLineAndShapeRenderer {
     public void drawDomainMarker(Graphics2D g2, XYPlot plot, ValueAxis axis, Marker marker, Rectangle2D area) {
         Tag tag = tags.get(marker);
         begin(g2, tag);
-        super.drawDomainMarker(g2, plot, axis, marker, area);
+        if (marker instanceof RecessionBar bar) {
+            bar.draw(g2, plot, axis, area, recessionLabels);
+        } else {
+            super.drawDomainMarker(g2, plot, axis, marker, area);
+        }
         end(g2, tag);
     }
 

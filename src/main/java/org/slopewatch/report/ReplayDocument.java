@@ -20,11 +20,12 @@ public final class ReplayDocument {
 
     /**
      * @param values      {@link org.slopewatch.replay.Replay#values()} of the same replay
-     * @param recessions  the dates the lead times were measured against, or null
-     * @param generatedAt when the report was made (the caller's clock)
+     * @param recessions    the dates the lead times were measured against, or null
+     * @param probabilities by spread id, the probability at the end of the data; spreads without a model are absent
+     * @param generatedAt   when the report was made (the caller's clock)
      */
     public static ReportDocument of(ReplayReport report, List<SpreadValues> values, PolicySummary policy, RecessionDates recessions,
-                                    Instant generatedAt) {
+                                    Map<String, SpreadProbability> probabilities, Instant generatedAt) {
         Map<String, SpreadValues> byId = values.stream().collect(Collectors.toMap(SpreadValues::spreadId, Function.identity()));
         List<SpreadSection> sections = new ArrayList<>();
         for (SpreadReport s : report.spreads()) {
@@ -35,7 +36,7 @@ public final class ReplayDocument {
             sections.add(new SpreadSection(s.id(), s.curve(), s.spread(), s.rules(), s.finalState(), s.lastDate(), s.lastValueBp(),
                     s.observations(), ChartPoints.thin(v.size(), v::date, v::valueBp, ChartPoints.MAX_POINTS),
                     s.spells().stream().map(SpellBand::of).toList(), s.transitions(), s.leads(), s.missedPeaks(),
-                    s.unassessedPeaks()));
+                    s.unassessedPeaks(), probabilities.get(s.id())));
         }
         List<ReportSource.Detail> details = new ArrayList<>();
         details.add(new ReportSource.Detail("Read", String.format(Locale.ROOT, "%,d rows, %,d quotes, %,d curve snapshots",

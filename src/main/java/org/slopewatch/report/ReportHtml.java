@@ -1,5 +1,11 @@
 package org.slopewatch.report;
 
+import static org.slopewatch.report.Cells.date;
+import static org.slopewatch.report.Cells.esc;
+import static org.slopewatch.report.Cells.num;
+import static org.slopewatch.report.Cells.td;
+import static org.slopewatch.report.Cells.th;
+
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
@@ -13,7 +19,6 @@ import org.slopewatch.monitor.PersistenceTest;
 import org.slopewatch.probability.LeadTime;
 import org.slopewatch.probability.Recession;
 import org.slopewatch.replay.SpreadReport;
-import org.slopewatch.text.Html;
 
 /**
  * Writes a {@link ReportDocument} as one HTML page that needs nothing else: the style sheet is
@@ -42,17 +47,19 @@ public final class ReportHtml {
         out.append("<header class=\"masthead\">\n<h1>").append(esc(doc.title())).append("</h1>\n<p>")
                 .append(esc(doc.source().kind())).append(": ").append(esc(doc.source().name())).append(" &middot; generated ")
                 .append(esc(doc.source().generatedAt().truncatedTo(ChronoUnit.SECONDS).toString())).append("</p>\n</header>\n<main>\n");
+        // findings first, then the charts and tables behind them, then what the report was made from
+        FindingsHtml.write(out, doc);
         caution(doc.caution());
         contents(doc);
-        source(doc);
-        policy(doc.policy());
-        if (doc.recessions() != null) {
-            recessions(doc);
-        }
         int index = 0;
         for (SpreadSection s : doc.spreads()) {
             spread(doc, s, ++index);
         }
+        source(doc);
+        if (doc.recessions() != null) {
+            recessions(doc);
+        }
+        policy(doc.policy());
         out.append("</main>\n<footer>\n");
         caution(doc.caution());
         out.append("<p>Written by slopewatch. Values in basis points (bp) unless stated; dates are market dates.</p>\n</footer>\n")
@@ -65,16 +72,16 @@ public final class ReportHtml {
     }
 
     private void contents(ReportDocument doc) {
-        out.append("<nav class=\"contents\" aria-label=\"Contents\">\n<ul>\n")
-                .append("<li><a href=\"#source\">What the report covers</a></li>\n<li><a href=\"#policy\">Policy</a></li>\n");
-        if (doc.recessions() != null) {
-            out.append("<li><a href=\"#recessions\">Recession dates</a></li>\n");
-        }
+        out.append("<nav class=\"contents\" aria-label=\"Contents\">\n<ul>\n<li><a href=\"#findings\">Findings</a></li>\n");
         int index = 0;
         for (SpreadSection s : doc.spreads()) {
             out.append("<li><a href=\"#spread-").append(++index).append("\">").append(esc(s.id())).append("</a></li>\n");
         }
-        out.append("</ul>\n</nav>\n");
+        out.append("<li><a href=\"#source\">What the report covers</a></li>\n");
+        if (doc.recessions() != null) {
+            out.append("<li><a href=\"#recessions\">Recession dates</a></li>\n");
+        }
+        out.append("<li><a href=\"#policy\">Policy</a></li>\n</ul>\n</nav>\n");
     }
 
     private void source(ReportDocument doc) {
@@ -124,7 +131,8 @@ public final class ReportHtml {
         fact("File", "<code>" + esc(r.source()) + "</code>");
         fact("Recessions in the file", Integer.toString(r.recessions().size()));
         fact("False alarm", "a confirmation with no peak within " + doc.falseAlarmWindowMonths() + " months");
-        out.append("</dl>\n<p>A recession is shaded from the month after its peak through its trough month.</p>\n</section>\n");
+        out.append("</dl>\n<p>In the charts a recession is a bar along the bottom of the plot, from the month after its peak through "
+                + "its trough month, labelled with its peak month.</p>\n</section>\n");
     }
 
     private void spread(ReportDocument doc, SpreadSection s, int index) {
@@ -134,7 +142,8 @@ public final class ReportHtml {
         long confirmed = s.spells().stream().filter(b -> b.confirmed() != null).count();
         out.append("<p class=\"summary\">");
         if (s.lastDate() != null) {
-            out.append("At the end: <strong>").append(esc(s.finalState())).append("</strong> on ").append(s.lastDate());
+            out.append("At the end: <strong>").append(esc(s.finalState())).append("</strong> on <span class=\"date\">").append(s.lastDate())
+                    .append("</span>");
             if (s.lastValueBp() != null) {
                 out.append(String.format(Locale.ROOT, " at %+.1f bp", s.lastValueBp()));
             }
@@ -166,9 +175,9 @@ public final class ReportHtml {
                 .append(" (shaded in the chart)</caption>\n<thead><tr>").append(th("Spell", true)).append(th("Start"))
                 .append(th("Confirmed")).append(th("Ended")).append("</tr></thead>\n<tbody>\n");
         for (SpellBand b : s.spells()) {
-            out.append("<tr>").append(num(Long.toString(b.id()))).append(td(b.start().toString()))
-                    .append(td(b.confirmed() == null ? "not confirmed" : b.confirmed().toString()))
-                    .append(td(b.end() == null ? "still open" : b.end().toString())).append("</tr>\n");
+            out.append("<tr>").append(num(Long.toString(b.id()))).append(date(b.start().toString()))
+                    .append(date(b.confirmed() == null ? "not confirmed" : b.confirmed().toString()))
+                    .append(date(b.end() == null ? "still open" : b.end().toString())).append("</tr>\n");
         }
         out.append("</tbody>\n</table></div>\n");
     }
@@ -181,10 +190,10 @@ public final class ReportHtml {
                 .append(th("Confirmed")).append(th("Peak")).append(th("Months, confirmation to peak", true)).append(th("Outcome"))
                 .append(th("Re-steepened")).append(th("Months, re-steepening to peak", true)).append("</tr></thead>\n<tbody>\n");
         for (LeadTime l : s.leads()) {
-            out.append("<tr>").append(td(l.confirmed().toString())).append(td(l.peak() == null ? "-" : l.peak().toString()))
+            out.append("<tr>").append(date(l.confirmed().toString())).append(date(l.peak() == null ? "-" : l.peak().toString()))
                     .append(num(l.months() == null ? "-" : l.months().toString()))
                     .append(td(l.late() ? "late: recession already under way" : l.outcome()))
-                    .append(td(l.resteepened() == null ? "not yet" : l.resteepened().toString()))
+                    .append(date(l.resteepened() == null ? "not yet" : l.resteepened().toString()))
                     .append(num(l.monthsFromResteepening() == null ? "-" : l.monthsFromResteepening().toString())).append("</tr>\n");
         }
         if (s.leads().isEmpty()) {
@@ -212,7 +221,7 @@ public final class ReportHtml {
                 .append(" with their evidence</caption>\n<thead><tr>").append(th("Date")).append(th("From")).append(th("To"))
                 .append(th("Test")).append(th("Value", true)).append(th("Spell", true)).append(th("Reason")).append("</tr></thead>\n<tbody>\n");
         for (SpreadReport.TransitionRow t : s.transitions()) {
-            out.append("<tr>").append(td(t.date().toString())).append(td(t.from())).append(td(t.to())).append(td(t.test()))
+            out.append("<tr>").append(date(t.date().toString())).append(td(t.from())).append(td(t.to())).append(td(t.test()))
                     .append(num(String.format(Locale.ROOT, "%+.1f bp", t.valueBp())))
                     .append(num(t.spell() == 0 ? "-" : Long.toString(t.spell()))).append(td(t.reason())).append("</tr>\n");
         }
@@ -225,26 +234,6 @@ public final class ReportHtml {
 
     private static String months(List<YearMonth> months) {
         return months == null || months.isEmpty() ? "none" : months.stream().map(YearMonth::toString).collect(Collectors.joining(", "));
-    }
-
-    private static String th(String text) {
-        return th(text, false);
-    }
-
-    private static String th(String text, boolean numeric) {
-        return "<th scope=\"col\"" + (numeric ? " class=\"num\"" : "") + ">" + esc(text) + "</th>";
-    }
-
-    private static String td(String text) {
-        return "<td>" + esc(text) + "</td>";
-    }
-
-    private static String num(String text) {
-        return "<td class=\"num\">" + esc(text) + "</td>";
-    }
-
-    private static String esc(String text) {
-        return Html.escape(text);
     }
 
     private static String css() {

@@ -36,7 +36,8 @@ import org.slopewatch.text.Html;
 
 /**
  * Draws one spread over time as inline SVG: the value in bp with a zero line, inverted spells
- * shaded, confirmations and re-steepenings marked, and recessions shaded when dates are given.
+ * shaded, confirmations and re-steepenings marked, and, when dates are given, each recession as a
+ * bar along the bottom labelled with its peak month ({@link RecessionBar}).
  * JFreeChart lays the chart out; JFreeSVG turns its drawing into SVG text.
  */
 final class SpreadChart {
@@ -49,7 +50,6 @@ final class SpreadChart {
     private static final Color LINE = new Color(0x1f, 0x3a, 0x5f);
     private static final Color ZERO = new Color(0x26, 0x26, 0x26);
     private static final Color SPELL = new Color(0xe3, 0x8b, 0x2c, 90);
-    private static final Color RECESSION = new Color(0x6b, 0x6f, 0x86, 70);
     private static final Color CONFIRMED = new Color(0xa3, 0x1f, 0x34);
     private static final Color RESTEEPENED = new Color(0x1d, 0x6e, 0x45);
     private static final Color GRID = new Color(0xdd, 0xe1, 0xe6);
@@ -74,15 +74,6 @@ final class SpreadChart {
         LocalDate last = s.lastPlottedDate();
         MarkerGroups renderer = new MarkerGroups(s.id() + " in bp");
         XYPlot plot = plot(s, first, last, renderer, recessions);
-        for (Recession r : recessions) {
-            LocalDate from = max(RecessionDates.start(r), first);
-            LocalDate to = min(RecessionDates.end(r), last);
-            IntervalMarker m = new IntervalMarker(millis(from), millis(to), RECESSION);
-            m.setAlpha(1f);
-            plot.addDomainMarker(m, Layer.BACKGROUND);
-            renderer.tag(m, "recession", data("peak", r.peak().toString(), "trough", r.trough().toString()),
-                    "Recession: peak " + r.peak() + ", trough " + r.trough());
-        }
         for (SpellBand b : s.spells()) {
             LocalDate end = b.end() == null ? last : b.end();
             IntervalMarker m = new IntervalMarker(millis(b.start()), millis(end), SPELL);
@@ -99,6 +90,15 @@ final class SpreadChart {
                 renderer.tag(m, confirmed ? "confirmation" : "resteepening", data("date", t.date().toString(), "spell",
                         Long.toString(t.spell())), (confirmed ? "Confirmed on " : "Re-steepened on ") + t.date());
             }
+        }
+        // last, so that the peak labels sit on top of the dashed marks
+        for (Recession r : recessions) {
+            LocalDate from = max(RecessionDates.start(r), first);
+            LocalDate to = min(RecessionDates.end(r), last);
+            RecessionBar m = new RecessionBar(millis(from), millis(to), r.peak().toString());
+            plot.addDomainMarker(m, Layer.FOREGROUND);
+            renderer.tag(m, "recession", data("peak", r.peak().toString(), "trough", r.trough().toString()),
+                    "Recession: peak " + r.peak() + ", trough " + r.trough());
         }
         ValueMarker zero = new ValueMarker(0, ZERO, new BasicStroke(1.2f));
         plot.addRangeMarker(zero, Layer.FOREGROUND);
@@ -133,6 +133,11 @@ final class SpreadChart {
         x.setRange(millis(from), millis(to));
         NumberAxis y = new NumberAxis("spread (bp)");
         y.setAutoRangeIncludesZero(true);
+        if (!recessions.isEmpty()) {
+            // room below the lowest value for the recession bars, also when that value is zero
+            y.setAutoRangeStickyZero(false);
+            y.setLowerMargin(RecessionBar.STRIP_SHARE);
+        }
         for (var axis : List.of(x, y)) {
             axis.setTickLabelPaint(TEXT);
             axis.setLabelPaint(TEXT);
@@ -164,7 +169,8 @@ final class SpreadChart {
             items.add(new LegendItem("re-steepened", null, null, null, line, DASHED, RESTEEPENED));
         }
         if (!recessions.isEmpty()) {
-            items.add(new LegendItem("recession (after peak through trough)", null, null, null, box, RECESSION));
+            items.add(new LegendItem("recession: month after the peak through the trough, labelled with the peak", null, null,
+                    null, new Rectangle2D.Double(-8, -2.5, 16, RecessionBar.BAR_HEIGHT), RecessionBar.COLOUR));
         }
         return items;
     }

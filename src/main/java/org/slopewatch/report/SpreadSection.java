@@ -13,11 +13,12 @@ import org.slopewatch.replay.SpreadReport;
  * @param observations values the monitor saw; {@code points} may hold fewer (see {@link ChartPoints})
  * @param leads        one per confirmation, or null without recession dates
  * @param missedPeaks  null without recession dates
+ * @param probability  the recession probability at the end, or null when no model covers the spread
  */
 public record SpreadSection(String id, String curve, String spread, String rules, String finalState, LocalDate lastDate,
                             Double lastValueBp, long observations, List<ChartPoint> points, List<SpellBand> spells,
                             List<SpreadReport.TransitionRow> transitions, List<LeadTime> leads, List<YearMonth> missedPeaks,
-                            List<YearMonth> unassessedPeaks) {
+                            List<YearMonth> unassessedPeaks, SpreadProbability probability) {
 
     public SpreadSection {
         points = List.copyOf(points);

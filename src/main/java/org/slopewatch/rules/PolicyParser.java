@@ -2,17 +2,14 @@ package org.slopewatch.rules;
 
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
+import java.util.EnumMap;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
-import org.slopewatch.monitor.DaysInverted;
 import org.slopewatch.monitor.MonitorDefinition;
 import org.slopewatch.monitor.PersistenceTest;
-import org.slopewatch.monitor.QuarterAverage;
-import org.slopewatch.monitor.RollingAverage;
-import org.slopewatch.monitor.ShareInverted;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.spread.SpreadDefinition;
 import org.slopewatch.text.Excerpt;
@@ -55,7 +52,6 @@ public final class PolicyParser {
     static final Set<String> TOP_KEYS = ordered("watch", "probability", "channels", "alerts");
     static final Set<String> WATCH_KEYS = ordered("spread", "curves", "enter-below-bp", "exit-at-or-above-bp",
             "exit-after-observations", "hold-days", "confirm");
-    static final Set<String> TEST_KEYS = ordered(QuarterAverage.NAME, DaysInverted.NAME, RollingAverage.NAME, ShareInverted.NAME);
 
     private static final int DEFAULT_HOLD_DAYS = 365;
 
@@ -199,7 +195,7 @@ public final class PolicyParser {
         YamlNode confirm = keys.get("confirm");
         if (confirm == null) {
             item.problem("a watch entry needs 'confirm': at least one persistence test ("
-                    + String.join(", ", TEST_KEYS) + ")");
+                    + PersistenceForms.TEXT_FORMS + ")");
         } else {
             for (YamlNode t : confirm.sequence("'confirm'")) {
                 PersistenceTest test = test(t, entry);
@@ -220,88 +216,52 @@ public final class PolicyParser {
         }
     }
 
-    /** One confirm item: a test name alone (defaults) or a one-key mapping of name to parameters. */
+    /**
+     * One confirm item: text such as {@code quarter-average} or {@code days-inverted:90}, or a one-key
+     * mapping of a test's name to its parameters; both read by {@link PersistenceForms}, as the
+     * command line's {@code --persistence} is.
+     */
     private static PersistenceTest test(YamlNode t, double entry) {
-        String name;
-        YamlNode params = null;
-        if (t.isMapping()) {
-            Map<String, YamlNode> one = t.mapping("a confirm item", TEST_KEYS);
-            if (one.size() != 1) {
-                if (one.size() > 1) {
-                    t.problem("a confirm item names one test; write one item per test");
+        if (!t.isMapping()) {
+            String text = t.string("a confirm item");
+            return text == null ? null : PersistenceForms.read(text, entry, t::problem);
+        }
+        List<YamlNode.Entry> one = t.entries("a confirm item");
+        if (one.size() != 1) {
+            if (one.size() > 1) {
+                t.problem("a confirm item names one test; write one item per test");
+            }
+            return null;
+        }
+        String name = one.get(0).key();
+        if (!PersistenceForms.NAMES.contains(name)) {
+            one.get(0).keyNode().problem(PersistenceForms.unknown(name));
+            return null;
+        }
+        YamlNode params = one.get(0).value();
+        Map<String, YamlNode> given = params.isNull() ? Map.of() : params.mapping("'" + name + "'", PersistenceForms.keys(name));
+        Map<PersistenceForms.Parameter, Number> values = new EnumMap<>(PersistenceForms.Parameter.class);
+        Map<PersistenceForms.Parameter, YamlNode> written = new EnumMap<>(PersistenceForms.Parameter.class);
+        for (PersistenceForms.Parameter p : PersistenceForms.Parameter.values()) {
+            YamlNode n = given.get(p.key);
+            if (n == null) {
+                continue;
+            }
+            written.put(p, n);
+            String what = "'" + p.key + "'";
+            if (p == PersistenceForms.Parameter.DAYS) {
+                int v = n.integer(what);
+                if (v != Integer.MIN_VALUE) {
+                    values.put(p, v);
                 }
-                return null;
-            }
-            name = one.keySet().iterator().next();
-            params = one.get(name);
-        } else {
-            name = t.string("a confirm item");
-            if (name == null) {
-                return null;
-            }
-            if (!TEST_KEYS.contains(name)) {
-                t.problem("unknown persistence test " + Excerpt.quoted(name) + " (known: " + String.join(", ", TEST_KEYS) + ")");
-                return null;
+            } else {
+                double v = n.number(what);
+                if (!Double.isNaN(v)) {
+                    values.put(p, v);
+                }
             }
         }
-        return switch (name) {
-            case QuarterAverage.NAME -> {
-                Map<String, YamlNode> p = params(params, name, "below-bp");
-                double below = p.containsKey("below-bp") ? p.get("below-bp").number("'below-bp'") : entry;
-                yield Double.isNaN(below) ? null : new QuarterAverage(below);
-            }
-            case DaysInverted.NAME -> {
-                Map<String, YamlNode> p = params(params, name, "days");
-                int days = required(p, "days", t, name);
-                if (days != Integer.MIN_VALUE && days < 1) {
-                    p.get("days").problem("'days' must be at least 1, got " + days);
-                    yield null;
-                }
-                yield days == Integer.MIN_VALUE ? null : new DaysInverted(days);
-            }
-            case RollingAverage.NAME -> {
-                Map<String, YamlNode> p = params(params, name, "days", "below-bp");
-                int days = required(p, "days", t, name);
-                double below = p.containsKey("below-bp") ? p.get("below-bp").number("'below-bp'") : entry;
-                if (days != Integer.MIN_VALUE && days < 1) {
-                    p.get("days").problem("'days' must be at least 1, got " + days);
-                    yield null;
-                }
-                yield days == Integer.MIN_VALUE || Double.isNaN(below) ? null : new RollingAverage(days, below);
-            }
-            default -> {
-                Map<String, YamlNode> p = params(params, name, "days", "share");
-                int days = required(p, "days", t, name);
-                double share = p.containsKey("share") ? p.get("share").number("'share'") : Double.NaN;
-                if (!p.containsKey("share")) {
-                    t.problem("'" + name + "' needs 'share' (a fraction such as 0.8)");
-                } else if (!Double.isNaN(share) && !(share > 0 && share <= 1)) {
-                    p.get("share").problem("impossible threshold: 'share' must be above 0 and at most 1, got " + share);
-                    yield null;
-                }
-                if (days != Integer.MIN_VALUE && days < 1) {
-                    p.get("days").problem("'days' must be at least 1, got " + days);
-                    yield null;
-                }
-                yield days == Integer.MIN_VALUE || Double.isNaN(share) ? null : new ShareInverted(days, share);
-            }
-        };
-    }
-
-    private static Map<String, YamlNode> params(YamlNode params, String test, String... keys) {
-        if (params == null || params.isNull()) {
-            return Map.of();
-        }
-        return params.mapping("'" + test + "'", ordered(keys));
-    }
-
-    private static int required(Map<String, YamlNode> p, String key, YamlNode item, String test) {
-        YamlNode n = p.get(key);
-        if (n == null) {
-            item.problem("'" + test + "' needs '" + key + "'");
-            return Integer.MIN_VALUE;
-        }
-        return n.integer("'" + key + "'");
+        return PersistenceForms.build(name, values, written.keySet(), entry, (at, message) -> (at == null ? t : written.get(at)).problem(message));
     }
 
     private static Set<String> ordered(String... keys) {

@@ -8,7 +8,10 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.function.BinaryOperator;
+import java.util.function.Consumer;
 import java.util.regex.Pattern;
+import org.slopewatch.text.Excerpt;
+import org.snakeyaml.engine.v2.api.LoadSettings;
 import org.snakeyaml.engine.v2.exceptions.Mark;
 import org.snakeyaml.engine.v2.nodes.MappingNode;
 import org.snakeyaml.engine.v2.nodes.Node;
@@ -16,7 +19,7 @@ import org.snakeyaml.engine.v2.nodes.NodeTuple;
 import org.snakeyaml.engine.v2.nodes.ScalarNode;
 import org.snakeyaml.engine.v2.nodes.SequenceNode;
 import org.snakeyaml.engine.v2.nodes.Tag;
-import org.slopewatch.text.Excerpt;
+import org.snakeyaml.engine.v2.resolver.ScalarResolver;
 
 /**
  * Typed, position-aware reading of a composed YAML tree. Every failed expectation is recorded
@@ -27,6 +30,8 @@ final class YamlNode {
 
     /** YAML's spellings of infinity and not-a-number, which the core schema tags as floats. */
     private static final Pattern NON_FINITE = Pattern.compile("[-+]?\\.(inf|Inf|INF|nan|NaN|NAN)");
+    /** The resolver of the schema {@link PolicyParser} reads with (the reader's default). */
+    private static final ScalarResolver RESOLVER = LoadSettings.builder().build().getSchema().getScalarResolver();
 
     private final String file;
     private final Node node;
@@ -169,24 +174,42 @@ final class YamlNode {
 
     /** A finite number; NaN (with a problem) for anything else, including .inf, .nan and overflow. */
     double number(String what) {
-        if (node instanceof ScalarNode s && (Tag.INT.equals(s.getTag()) || Tag.FLOAT.equals(s.getTag()))) {
-            if (NON_FINITE.matcher(s.getValue()).matches()) {
-                problem(what + " must be a finite number, got " + describe());
+        if (node instanceof ScalarNode s) {
+            return number(what, s.getTag(), s.getValue(), this::problem);
+        }
+        problem(what + " must be a number, got " + describe());
+        return Double.NaN;
+    }
+
+    /**
+     * A scalar's value as a finite number, read as {@link #number(String)} reads a node's: NaN (with
+     * a problem) for anything else. For text that arrives outside a YAML file, such as a command
+     * line's {@code share-inverted:90:0.8}, with the tag from {@link #resolve}, so that both agree.
+     */
+    static double number(String what, Tag tag, String value, Consumer<String> problem) {
+        if (Tag.INT.equals(tag) || Tag.FLOAT.equals(tag)) {
+            if (NON_FINITE.matcher(value).matches()) {
+                problem.accept(what + " must be a finite number, got " + Excerpt.quoted(value));
                 return Double.NaN;
             }
             try {
-                double v = Double.parseDouble(s.getValue());
+                double v = Double.parseDouble(value);
                 if (Double.isFinite(v)) {
                     return v;
                 }
-                problem(what + " must be a finite number, got " + describe());
+                problem.accept(what + " must be a finite number, got " + Excerpt.quoted(value));
                 return Double.NaN;
             } catch (NumberFormatException ignored) {
                 // reported below
             }
         }
-        problem(what + " must be a number, got " + describe());
+        problem.accept(what + " must be a number, got " + Excerpt.quoted(value));
         return Double.NaN;
+    }
+
+    /** The tag the policy reader gives a plain (unquoted) scalar of this text: int, float, str and so on. */
+    static Tag resolve(String plain) {
+        return RESOLVER.resolve(plain, true);
     }
 
     /** True for a scalar written as a whole number. */
@@ -205,14 +228,23 @@ final class YamlNode {
 
     /** A whole number; {@code Integer.MIN_VALUE} (with a problem) for anything else. */
     int integer(String what) {
-        if (node instanceof ScalarNode s && Tag.INT.equals(s.getTag())) {
+        if (node instanceof ScalarNode s) {
+            return integer(what, s.getTag(), s.getValue(), this::problem);
+        }
+        problem(what + " must be a whole number, got " + describe());
+        return Integer.MIN_VALUE;
+    }
+
+    /** A scalar's value as a whole number, read as {@link #integer(String)} reads a node's (see {@link #number(String, Tag, String, Consumer)}). */
+    static int integer(String what, Tag tag, String value, Consumer<String> problem) {
+        if (Tag.INT.equals(tag)) {
             try {
-                return Integer.parseInt(s.getValue());
+                return Integer.parseInt(value);
             } catch (NumberFormatException ignored) {
                 // reported below
             }
         }
-        problem(what + " must be a whole number, got " + describe());
+        problem.accept(what + " must be a whole number, got " + Excerpt.quoted(value));
         return Integer.MIN_VALUE;
     }
 

@@ -9,9 +9,11 @@
  * model; any text, however hostile, is answered with a policy or such problems, never another
  * exception, and nothing in it is evaluated; the answer stays small whatever the text (limits on
  * length, nesting and expansion through aliases, quoted values as excerpts, at most a hundred
- * problems listed). Policy keys renamed in the present vocabulary are still read under their old
- * names for one release, with a warning ({@code DeprecatedNames}); warnings never stop a policy.
- * Notices speak of a spread's figures through {@code SpreadText}, so that every text gives the
- * same numbers. Plain Java and a YAML reader only.
+ * problems listed); a persistence test is read by {@link org.slopewatch.rules.PersistenceForms}
+ * whichever way it is written, in a policy or on replay's command line, so it means the same and is
+ * refused in the same words. Policy keys renamed in the present vocabulary are still read under
+ * their old names for one release, with a warning ({@code DeprecatedNames}); warnings never stop a
+ * policy. Notices speak of a spread's figures through {@code SpreadText}, so that every text gives
+ * the same numbers. Plain Java and a YAML reader only.
  */
 package org.slopewatch.rules;

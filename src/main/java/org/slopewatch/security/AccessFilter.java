@@ -1,7 +1,6 @@
 package org.slopewatch.security;
 
 import io.quarkus.runtime.Startup;
-import io.vertx.core.json.JsonObject;
 import io.vertx.ext.web.Router;
 import io.vertx.ext.web.RoutingContext;
 import jakarta.enterprise.event.Observes;
@@ -9,12 +8,16 @@ import jakarta.inject.Singleton;
 import java.util.List;
 import java.util.Optional;
 import org.jboss.logging.Logger;
+import org.slopewatch.web.Problem;
+import org.slopewatch.web.ProblemType;
+import org.slopewatch.web.ProblemWriter;
 
 /**
  * Applies the {@link AccessRule} to every HTTP request, on its raw path, before the API, the
  * metrics or the dashboard's files see it: a matrix parameter is 400, no token or an unknown one
- * is 401, a read token asking to write is 403. Answers say why in a few words and never repeat the
- * token, and are counted in the HTTP metrics under one label ({@link RefusedRequests}). Changes
+ * is 401, a read token asking to write is 403. Answers are the API's problem documents
+ * ({@link Problem}, written here because the filter answers before the REST layer), say why in a
+ * few words and never repeat the token, and are counted in the HTTP metrics under one label ({@link RefusedRequests}). Changes
  * that pass are logged with the token's fingerprint ({@link WriteAudit}). With
  * security on and no write token configured, start-up stops: a daemon nobody can feed is a
  * misconfiguration, not a mode.
@@ -30,8 +33,10 @@ public class AccessFilter {
     private final boolean enabled;
     private final AccessRule rule;
     private final TokenBook tokens;
+    private final ProblemWriter problems;
 
-    AccessFilter(SecurityConfig config) {
+    AccessFilter(SecurityConfig config, ProblemWriter problems) {
+        this.problems = problems;
         this.enabled = config.enabled();
         this.rule = new AccessRule(config.openReads(), config.openMetrics());
         try {
@@ -65,22 +70,22 @@ public class AccessFilter {
             return;
         }
         if (needed instanceof Access.Malformed malformed) {
-            refuse(rc, 400, malformed.reason());
+            refuse(rc, ProblemType.MALFORMED_PATH, malformed.reason());
             return;
         }
         Role role = ((Access.Token) needed).role();
         String header = rc.request().getHeader("Authorization");
         String what = role == Role.WRITE ? "a token with the write role" : "a token with the read role";
         if (header == null || !header.regionMatches(true, 0, "Bearer ", 0, 7) || header.length() <= 7) {
-            refuse(rc, 401, "this request needs " + what + " (Authorization: Bearer <token>)");
+            refuse(rc, ProblemType.UNAUTHORIZED, "this request needs " + what + " (Authorization: Bearer <token>)");
             return;
         }
         String token = header.substring(7).strip();
         Optional<Role> presented = tokens.roleOf(token);
         if (presented.isEmpty()) {
-            refuse(rc, 401, "the bearer token is not valid");
+            refuse(rc, ProblemType.UNAUTHORIZED, "the bearer token is not valid");
         } else if (!presented.get().covers(role)) {
-            refuse(rc, 403, "this token may read but not change anything; this request needs " + what);
+            refuse(rc, ProblemType.FORBIDDEN, "this token may read but not change anything; this request needs " + what);
         } else {
             if (role == Role.WRITE) {
                 WriteAudit.record(rc, token);
@@ -89,12 +94,11 @@ public class AccessFilter {
         }
     }
 
-    private static void refuse(RoutingContext rc, int status, String reason) {
+    private void refuse(RoutingContext rc, ProblemType kind, String reason) {
         RefusedRequests.label(rc);
-        var response = rc.response().setStatusCode(status).putHeader("Content-Type", "application/json");
-        if (status == 401) {
-            response.putHeader("WWW-Authenticate", "Bearer realm=\"slopewatch\"");
+        if (kind == ProblemType.UNAUTHORIZED) {
+            rc.response().putHeader("WWW-Authenticate", "Bearer realm=\"slopewatch\"");
         }
-        response.end(new JsonObject().put("error", reason).encode());
+        problems.send(rc, Problem.of(kind, reason, rc.request().path()));
     }
 }

@@ -11,6 +11,9 @@
  * ({@link org.slopewatch.security.RawPath}). Every other request needs the read role (GET, HEAD,
  * OPTIONS) or the write role (any other method), whatever layer would answer it. A path with a
  * matrix parameter is refused with 400. Refusals never repeat the token and are counted in the HTTP
- * metrics under one {@code uri} label ({@link org.slopewatch.security.RefusedRequests}).
+ * metrics under one {@code uri} label ({@link org.slopewatch.security.RefusedRequests}). Refusals
+ * are the API's problem documents ({@link org.slopewatch.web.Problem}); the OpenAPI document
+ * declares the bearer scheme on the operations the rule says need a token
+ * ({@link org.slopewatch.security.AccessDocument}).
  */
 package org.slopewatch.security;

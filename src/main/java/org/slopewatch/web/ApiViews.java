@@ -6,6 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.slopewatch.curve.CurveSnapshot;
+import org.slopewatch.journal.JournalReader;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.probability.LiveProbability;
@@ -67,8 +68,23 @@ final class ApiViews {
         }
     }
 
-    /** A list as the journal held it at {@code as_of}, with the content hash of the rule set in force then. */
-    record AsOfList<T>(Instant asOf, String policyHash, List<T> items) {
+    /*
+     * Lists as the journal held them at as_of, with the content hash of the rule set in force then:
+     * one record per kind of row rather than one generic one, so that the OpenAPI document can name
+     * the rows (an annotation takes a class, never a class with type arguments); next is where the
+     * rest is when truncated.
+     */
+
+    /** The standing value of a spread on each market date, as recorded by {@code as_of}. */
+    record HistoryAsOf(Instant asOf, String policyHash, List<JournalReader.HistoryPoint> items, boolean truncated, String next) {
+    }
+
+    /** Transitions as recorded by {@code as_of}. */
+    record TransitionsAsOf(Instant asOf, String policyHash, List<JournalReader.StoredTransition> items, boolean truncated, String next) {
+    }
+
+    /** Rejected quotes as recorded by {@code as_of}. */
+    record RejectsAsOf(Instant asOf, String policyHash, List<JournalReader.StoredReject> items, boolean truncated, String next) {
     }
 
     /**

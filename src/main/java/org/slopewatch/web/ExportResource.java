@@ -16,6 +16,7 @@ import java.time.LocalDate;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.eclipse.microprofile.openapi.annotations.responses.APIResponse;
 import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
@@ -58,9 +59,11 @@ public class ExportResource {
     @GET
     @Path("/export/observations")
     @Produces({CSV, MediaType.APPLICATION_JSON})
-    @Operation(summary = "Every journalled spread value (standing=false once replaced), as CSV or JSON; with asOf, as recorded by then")
+    @Operation(summary = "Every journalled spread value (standing=false once replaced), as CSV or JSON; with as_of, as recorded by then")
+    @APIResponse(responseCode = "200", description = "the rows, as an attachment")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the spread id, a date, asOf or format cannot be read")
     public Response observations(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
-                                 @QueryParam("asOf") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
+                                 @QueryParam("as_of") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
         Request r = request(spread, from, to, asOf, format);
         return export(ExportTable.OBSERVATIONS, r, sink -> journal.eachObservation(r.range(), sink));
     }
@@ -68,9 +71,11 @@ public class ExportResource {
     @GET
     @Path("/export/transitions")
     @Produces({CSV, MediaType.APPLICATION_JSON})
-    @Operation(summary = "Every transition, superseded ones marked, as CSV or JSON; with asOf, as recorded by then")
+    @Operation(summary = "Every transition, superseded ones marked, as CSV or JSON; with as_of, as recorded by then")
+    @APIResponse(responseCode = "200", description = "the rows, as an attachment")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the spread id, a date, asOf or format cannot be read")
     public Response transitions(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
-                                @QueryParam("asOf") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
+                                @QueryParam("as_of") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
         Request r = request(spread, from, to, asOf, format);
         return export(ExportTable.TRANSITIONS, r, sink -> journal.eachTransition(r.range(), sink));
     }
@@ -78,9 +83,11 @@ public class ExportResource {
     @GET
     @Path("/export/alerts")
     @Produces({CSV, MediaType.APPLICATION_JSON})
-    @Operation(summary = "Every notice (spread: its subject; from/to: its market date), as CSV or JSON; with asOf, as recorded by then")
+    @Operation(summary = "Every notice (spread: its subject; from/to: its market date), as CSV or JSON; with as_of, as recorded by then")
+    @APIResponse(responseCode = "200", description = "the rows, as an attachment")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the spread id, a date, asOf or format cannot be read")
     public Response alerts(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
-                           @QueryParam("asOf") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
+                           @QueryParam("as_of") String asOf, @QueryParam("format") @DefaultValue("csv") String format) {
         Request r = request(spread, from, to, asOf, format);
         return export(ExportTable.ALERTS, r, sink -> alerts.eachAlert(r.range(), sink));
     }

@@ -1,6 +1,8 @@
 package org.slopewatch.web;
 
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import org.slopewatch.pipeline.BatchOutcome;
 import org.slopewatch.pipeline.Reject;
 
@@ -22,8 +24,28 @@ public record IngestAnswer(boolean processed, int accepted, int duplicates, int 
         }
     }
 
+    /** Nothing taken, for one reason about the whole request. */
+    static IngestAnswer refused(String reason, String detail) {
+        return new IngestAnswer(false, 0, 0, 0, 0, List.of(new Error(null, reason, detail)));
+    }
+
     static IngestAnswer of(boolean processed, BatchOutcome o) {
         return new IngestAnswer(processed, o.accepted(), o.duplicates(), o.rejected(), o.transitions(),
                 o.rejects().stream().limit(MAX_ERRORS).map(Error::of).toList());
+    }
+
+    /**
+     * The answer's members under their JSON names, for a problem document that refuses the
+     * submission: a client reads the counts and {@code errors} of a refusal as of a success.
+     */
+    Map<String, Object> members() {
+        Map<String, Object> members = new LinkedHashMap<>();
+        members.put("processed", processed);
+        members.put("accepted", accepted);
+        members.put("duplicates", duplicates);
+        members.put("rejected", rejected);
+        members.put("transitions", transitions);
+        members.put("errors", errors);
+        return members;
     }
 }

@@ -8,37 +8,36 @@ import jakarta.ws.rs.Path;
 import jakarta.ws.rs.PathParam;
 import jakarta.ws.rs.Produces;
 import jakarta.ws.rs.QueryParam;
+import jakarta.ws.rs.core.Context;
 import jakarta.ws.rs.core.MediaType;
 import jakarta.ws.rs.core.Response;
+import jakarta.ws.rs.core.UriBuilder;
+import jakarta.ws.rs.core.UriInfo;
 import java.time.Clock;
 import java.time.Instant;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
 import org.eclipse.microprofile.openapi.annotations.Operation;
-import org.slopewatch.alerting.AlertDesk;
+import org.eclipse.microprofile.openapi.annotations.responses.APIResponse;
+import org.jboss.resteasy.reactive.RestResponse;
 import org.slopewatch.journal.QuietPeriodBook;
 
 /**
  * {@code /api/mutes}, the path quiet periods had before, kept for one release with its old fields
  * (vocabulary: deprecation path): {@code {rule|spread, duration|until, reason, by}} in, the old
- * shapes out, lifts with {@code ?by=}. Every answer carries {@code Deprecation: true} and
- * {@code Link: </api/quiet-periods>; rel="successor-version"}; the checks and the journal are
- * those of {@link QuietPeriodResource}, to which each request is handed in the new fields.
+ * shapes out, lifts with {@code ?by=}. Every answer, problems included, says it is deprecated
+ * ({@link Superseded}); the checks, the paging and the journal are those of
+ * {@link QuietPeriodResource}, to which each request is handed in the new fields.
  */
 @Path("/api/mutes")
 @Produces(MediaType.APPLICATION_JSON)
+@Superseded
 public class MuteAliasResource {
 
-    static final String SUCCESSOR = "</api/quiet-periods>; rel=\"successor-version\"";
-
     private final QuietPeriodResource quietPeriods;
-    private final AlertDesk desk;
     private final Clock clock;
 
-    MuteAliasResource(QuietPeriodResource quietPeriods, AlertDesk desk, Clock clock) {
+    MuteAliasResource(QuietPeriodResource quietPeriods, Clock clock) {
         this.quietPeriods = quietPeriods;
-        this.desk = desk;
         this.clock = clock;
     }
 
@@ -46,54 +45,53 @@ public class MuteAliasResource {
     public record MuteRequest(String rule, String spread, String duration, String until, String reason, String by) {
     }
 
+    /** A quiet period in the old fields: {@code kind} rule or spread, {@code target} its name. */
+    public record MuteView(long id, String kind, String target, Instant until, String reason, String by, Instant createdAt,
+                           boolean active) {
+
+        static MuteView of(QuietPeriodBook.QuietPeriod q, Instant now) {
+            return new MuteView(q.id(), q.kind(), q.target(), q.until(), q.note(), q.setBy(), q.setAt(), q.activeAt(now));
+        }
+    }
+
     @GET
     @Operation(summary = "Deprecated: GET /api/quiet-periods", deprecated = true)
-    public Response list() {
+    @APIResponse(responseCode = "200", description = "a page of quiet periods in the old fields, newest first")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: limit not a whole number from 1, after not a cursor of this list")
+    public RestResponse<List<MuteView>> list(@QueryParam("limit") String limit, @QueryParam("after") String after, @Context UriInfo uri) {
+        return quietPeriods.page(limit, after, uri, MuteView::of);
+    }
+
+    @GET
+    @Path("/{id}")
+    @Operation(summary = "Deprecated: GET /api/quiet-periods/{id}", deprecated = true)
+    @APIResponse(responseCode = "200", description = "the quiet period in the old fields")
+    @APIResponse(responseCode = "404", description = "not-found: no quiet period with this id")
+    public MuteView one(@PathParam("id") long id) {
         Instant now = clock.instant();
-        List<Map<String, Object>> out = desk.quietPeriods().stream().map(q -> old(q, now)).toList();
-        return deprecated(Response.ok(out)).build();
+        return quietPeriods.kept(id).map(q -> MuteView.of(q, now)).orElseThrow(() -> ProblemException.notFound("no quiet period " + id));
     }
 
     @POST
     @Consumes(MediaType.APPLICATION_JSON)
     @Operation(summary = "Deprecated: POST /api/quiet-periods", deprecated = true)
+    @APIResponse(responseCode = "201", description = "the quiet period set, in the old fields")
+    @APIResponse(responseCode = "400", description = "invalid-body: as POST /api/quiet-periods")
+    @APIResponse(responseCode = "415", description = "unsupported-media-type: the body is not application/json")
     public Response mute(MuteRequest r) {
-        Response answer = quietPeriods.set(r == null ? null
+        QuietPeriodBook.QuietPeriod q = quietPeriods.keep(r == null ? null
                 : new QuietPeriodResource.QuietPeriodRequest(r.rule(), r.spread(), r.duration(), r.until(), r.reason(), r.by()));
-        if (answer.getEntity() instanceof QuietPeriodResource.QuietPeriodView v) {
-            Map<String, Object> created = new LinkedHashMap<>();
-            created.put("id", v.id());
-            created.put("kind", v.rule() != null ? "rule" : "spread");
-            created.put("target", v.rule() != null ? v.rule() : v.spread());
-            created.put("until", v.until());
-            created.put("reason", v.note());
-            created.put("by", v.setBy());
-            return deprecated(Response.status(answer.getStatus()).entity(created)).build();
-        }
-        return deprecated(Response.fromResponse(answer)).build();
+        return Response.created(UriBuilder.fromPath("/api/mutes/{id}").build(q.id())).entity(MuteView.of(q, clock.instant())).build();
     }
 
     @DELETE
     @Path("/{id}")
     @Operation(summary = "Deprecated: DELETE /api/quiet-periods/{id}?lifted_by=", deprecated = true)
+    @APIResponse(responseCode = "204", description = "lifted")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: no by, or one too long or holding a control character")
+    @APIResponse(responseCode = "404", description = "not-found: no active quiet period with this id (or an id that is not a number)")
     public Response lift(@PathParam("id") long id, @QueryParam("by") String by) {
-        return deprecated(Response.fromResponse(quietPeriods.lift(id, by))).build();
-    }
-
-    private static Map<String, Object> old(QuietPeriodBook.QuietPeriod q, Instant now) {
-        Map<String, Object> m = new LinkedHashMap<>();
-        m.put("id", q.id());
-        m.put("kind", q.kind());
-        m.put("target", q.target());
-        m.put("until", q.until());
-        m.put("reason", q.note());
-        m.put("by", q.setBy());
-        m.put("created_at", q.setAt());
-        m.put("active", q.activeAt(now));
-        return m;
-    }
-
-    private static Response.ResponseBuilder deprecated(Response.ResponseBuilder b) {
-        return b.header("Deprecation", "true").header("Link", SUCCESSOR);
+        quietPeriods.liftAs(id, by, "by");
+        return Response.noContent().build();
     }
 }

@@ -1,12 +1,8 @@
 package org.slopewatch.web;
 
-import jakarta.ws.rs.BadRequestException;
-import jakarta.ws.rs.core.MediaType;
-import jakarta.ws.rs.core.Response;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
-import java.util.Map;
 import org.slopewatch.spread.SpreadKey;
 import org.slopewatch.text.Excerpt;
 
@@ -19,7 +15,7 @@ final class QueryParams {
     private QueryParams() {
     }
 
-    /** {@code asOf}: an ISO-8601 instant, or null when absent (meaning now). */
+    /** {@code as_of}: an ISO-8601 instant, or null when absent (meaning now). */
     static Instant asOf(String text) {
         if (text == null || text.isBlank()) {
             return null;
@@ -27,7 +23,7 @@ final class QueryParams {
         try {
             return Instant.parse(text.strip());
         } catch (DateTimeParseException e) {
-            throw bad("unparsable asOf " + Excerpt.quoted(text) + " (expected an ISO-8601 instant such as 2026-04-01T17:30:00Z; "
+            throw bad("unparsable as_of " + Excerpt.quoted(text) + " (expected an ISO-8601 instant such as 2026-04-01T17:30:00Z; "
                     + "write + in an offset as %2B)");
         }
     }
@@ -55,9 +51,8 @@ final class QueryParams {
         }
     }
 
-    /** A 400 whose body says what was wrong (a bare exception message does not reach the client). */
-    static BadRequestException bad(String message) {
-        return new BadRequestException(Response.status(Response.Status.BAD_REQUEST).type(MediaType.APPLICATION_JSON)
-                .entity(Map.of("error", message)).build());
+    /** A 400 whose detail says what was wrong. */
+    static ProblemException bad(String message) {
+        return ProblemException.invalidParameter(message);
     }
 }

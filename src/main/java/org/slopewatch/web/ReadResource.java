@@ -1,19 +1,23 @@
 package org.slopewatch.web;
 
-import jakarta.ws.rs.BadRequestException;
 import jakarta.ws.rs.DefaultValue;
 import jakarta.ws.rs.GET;
-import jakarta.ws.rs.NotFoundException;
 import jakarta.ws.rs.Path;
 import jakarta.ws.rs.PathParam;
 import jakarta.ws.rs.Produces;
 import jakarta.ws.rs.QueryParam;
+import jakarta.ws.rs.core.Context;
 import jakarta.ws.rs.core.MediaType;
+import jakarta.ws.rs.core.UriInfo;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.util.List;
 import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.eclipse.microprofile.openapi.annotations.media.Content;
+import org.eclipse.microprofile.openapi.annotations.media.Schema;
+import org.eclipse.microprofile.openapi.annotations.responses.APIResponse;
+import org.jboss.resteasy.reactive.RestResponse;
 import org.slopewatch.alerting.PolicyHolder;
 import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
@@ -26,14 +30,18 @@ import org.slopewatch.text.Excerpt;
 
 /**
  * The read API: curves, spreads, their history, transitions and rejects. The history endpoints
- * take {@code asOf} (an instant) and then answer with what the journal held at that moment,
+ * take {@code as_of} (an instant) and then answer with what the journal held at that moment,
  * wrapped with that moment and the rule set in force then; without it they answer as before.
+ * The lists that grow with the journal come a page at a time ({@link Paging}).
  */
 @Path("/api")
 @Produces(MediaType.APPLICATION_JSON)
 public class ReadResource {
 
-    private static final int MAX_ROWS = 10_000;
+    /** Items of a page of transitions, of a history (dates) and of rejects: what one answer may hold. */
+    static final int MAX_ROWS = 10_000;
+    /** Rejects a page holds unless {@code limit} says otherwise; the others default to the maximum. */
+    static final int REJECTS_BY_DEFAULT = 100;
 
     private final QuotePipeline pipeline;
     private final JournalReader journal;
@@ -59,10 +67,13 @@ public class ReadResource {
     @GET
     @Path("/curves/{curve}/{date}")
     @Operation(summary = "A curve's snapshot on one market date, yields in basis points")
+    @APIResponse(responseCode = "200", description = "the snapshot")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the date is not YYYY-MM-DD")
+    @APIResponse(responseCode = "404", description = "not-found: no quotes for the curve on that date")
     public ApiViews.CurveView curve(@PathParam("curve") String curve, @PathParam("date") String date) {
         var snapshot = pipeline.curve(curve, date(date, null));
         if (snapshot == null) {
-            throw new NotFoundException("no quotes for " + Excerpt.of(curve) + " on " + Excerpt.of(date));
+            throw ProblemException.notFound("no quotes for " + Excerpt.of(curve) + " on " + Excerpt.of(date));
         }
         return ApiViews.CurveView.of(snapshot);
     }
@@ -70,13 +81,16 @@ public class ReadResource {
     @GET
     @Path("/curves/{curve}")
     @Operation(summary = "A curve's snapshot on the latest market date on or before a date (e.g. three months back, for comparison)")
+    @APIResponse(responseCode = "200", description = "the snapshot")
+    @APIResponse(responseCode = "400", description = "invalid-parameter: on_or_before missing or not YYYY-MM-DD")
+    @APIResponse(responseCode = "404", description = "not-found: no quotes for the curve on or before that date")
     public ApiViews.CurveView curveOnOrBefore(@PathParam("curve") String curve, @QueryParam("on_or_before") String onOrBefore) {
         if (onOrBefore == null) {
-            throw new BadRequestException("give on_or_before=YYYY-MM-DD");
+            throw QueryParams.bad("give on_or_before=YYYY-MM-DD");
         }
         var snapshot = pipeline.curveOnOrBefore(curve, date(onOrBefore, null));
         if (snapshot == null) {
-            throw new NotFoundException("no quotes for " + Excerpt.of(curve) + " on or before " + Excerpt.of(onOrBefore));
+            throw ProblemException.notFound("no quotes for " + Excerpt.of(curve) + " on or before " + Excerpt.of(onOrBefore));
         }
         return ApiViews.CurveView.of(snapshot);
     }
@@ -93,14 +107,19 @@ public class ReadResource {
     @Path("/spreads/{id}")
     @Operation(summary = "One spread's status; the id is CURVE:SPREAD, e.g. GOVT-A:10Y-3M. With asOf, its status at that moment, "
             + "rebuilt from the quotes recorded by then")
-    public Object spread(@PathParam("id") String id, @QueryParam("asOf") String asOf) {
+    @APIResponse(responseCode = "200", description = "the spread's status; with as_of, wrapped with the moment and the rule sets",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON,
+                    schema = @Schema(oneOf = {ApiViews.SpreadView.class, ApiViews.SpreadAsOfView.class})))
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the id is not CURVE:SPREAD, or as_of is not an instant")
+    @APIResponse(responseCode = "404", description = "not-found: no such spread, or no value of it recorded by as_of")
+    public Object spread(@PathParam("id") String id, @QueryParam("as_of") String asOf) {
         Instant at = QueryParams.asOf(asOf);
         if (at != null) {
             return spreadAsOf(key(id), at);
         }
         SpreadStatus s = pipeline.spread(key(id));
         if (s == null) {
-            throw new NotFoundException("no spread " + Excerpt.of(id));
+            throw ProblemException.notFound("no spread " + Excerpt.of(id));
         }
         return ApiViews.SpreadView.of(s, policies.policy().probability());
     }
@@ -110,7 +129,7 @@ public class ReadResource {
         String now = ruleSets.current();
         AsOfRebuild.Rebuilt r = rebuild.spread(key, at, pipeline.watches());
         if (r.status() == null) {
-            throw new NotFoundException("no value of " + key.id() + " recorded at or before " + at);
+            throw ProblemException.notFound("no value of " + key.id() + " recorded at or before " + at);
         }
         return new ApiViews.SpreadAsOfView(at, ruleSets.hash(at), now, r.quotes(),
                 "recomputed: the " + r.quotes() + " quote message(s) of " + key.curve() + " recorded at or before as_of, replayed in "
@@ -120,45 +139,81 @@ public class ReadResource {
 
     @GET
     @Path("/spreads/{id}/history")
-    @Operation(summary = "The standing value of a spread on each market date in a range; with asOf, as recorded by then")
-    public Object history(@PathParam("id") String id, @QueryParam("from") String from, @QueryParam("to") String to,
-                          @QueryParam("asOf") String asOf) {
+    @Operation(summary = "The standing value of a spread on each market date in a range; with as_of, as recorded by then")
+    @APIResponse(responseCode = "200", description = "the values in market-date order; with as_of, wrapped with the moment and the rule set",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON,
+                    schema = @Schema(oneOf = {JournalReader.HistoryPoint[].class, ApiViews.HistoryAsOf.class})))
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the id, a date or as_of cannot be read, limit not a whole number from 1, or after not a cursor of this list")
+    public RestResponse<Object> history(@PathParam("id") String id, @QueryParam("from") String from, @QueryParam("to") String to,
+                                        @QueryParam("as_of") String asOf, @QueryParam("limit") String limit,
+                                        @QueryParam("after") String after, @Context UriInfo uri) {
         key(id);
         Instant at = QueryParams.asOf(asOf);
-        List<JournalReader.HistoryPoint> points = journal.history(id, date(from, LocalDate.of(1900, 1, 1)),
-                date(to, LocalDate.of(9999, 12, 31)), at);
-        return at == null ? points : new ApiViews.AsOfList<>(at, ruleSets.hash(at), points);
+        int n = Paging.limit(limit, MAX_ROWS, MAX_ROWS);
+        LocalDate first = date(from, LocalDate.of(1900, 1, 1));
+        LocalDate last = Cursors.historyPoint(after);
+        if (last != null && !last.isBefore(first)) {
+            first = last.plusDays(1); // one value per date: the page after a date starts the next day
+        }
+        Paging.Page<JournalReader.HistoryPoint> page = Paging.Page.of(journal.history(id, first, date(to, LocalDate.of(9999, 12, 31)),
+                at, n + 1), n, Cursors::historyPoint);
+        return list(page, at, uri, ApiViews.HistoryAsOf::new);
     }
 
     @GET
     @Path("/transitions")
-    @Operation(summary = "Transitions in market-date order; superseded=true also shows those a revision replaced; with asOf, "
+    @Operation(summary = "Transitions in market-date order; superseded=true also shows those a revision replaced; with as_of, "
             + "as recorded by then (a transition counts as superseded only once its revision was recorded)")
-    public Object transitions(@QueryParam("spread") String spread, @QueryParam("from") String from, @QueryParam("to") String to,
-                              @QueryParam("superseded") @DefaultValue("false") boolean superseded, @QueryParam("asOf") String asOf) {
+    @APIResponse(responseCode = "200", description = "the transitions; with as_of, wrapped with the moment and the rule set",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON,
+                    schema = @Schema(oneOf = {JournalReader.StoredTransition[].class, ApiViews.TransitionsAsOf.class})))
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the spread id, a date or as_of cannot be read, limit not a whole number from 1, or after not a cursor of this list")
+    public RestResponse<Object> transitions(@QueryParam("spread") String spread, @QueryParam("from") String from,
+                                            @QueryParam("to") String to, @QueryParam("superseded") @DefaultValue("false") boolean superseded,
+                                            @QueryParam("as_of") String asOf, @QueryParam("limit") String limit,
+                                            @QueryParam("after") String after, @Context UriInfo uri) {
         if (spread != null) {
             key(spread);
         }
         Instant at = QueryParams.asOf(asOf);
+        int n = Paging.limit(limit, MAX_ROWS, MAX_ROWS);
         List<JournalReader.StoredTransition> rows = journal.transitions(new JournalRange(spread, date(from, LocalDate.of(1900, 1, 1)),
-                date(to, LocalDate.of(9999, 12, 31)), at), superseded, MAX_ROWS);
-        return at == null ? rows : new ApiViews.AsOfList<>(at, ruleSets.hash(at), rows);
+                date(to, LocalDate.of(9999, 12, 31)), at), superseded, Cursors.transition(after), n + 1);
+        return list(Paging.Page.of(rows, n, Cursors::transition), at, uri, ApiViews.TransitionsAsOf::new);
     }
 
     @GET
     @Path("/rejects")
-    @Operation(summary = "The most recent rejected quotes, newest first; with asOf, those recorded by then")
-    public Object rejects(@QueryParam("limit") @DefaultValue("100") int limit, @QueryParam("asOf") String asOf) {
+    @Operation(summary = "The most recent rejected quotes, newest first; with as_of, those recorded by then")
+    @APIResponse(responseCode = "200", description = "the rejects; with as_of, wrapped with the moment and the rule set",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON,
+                    schema = @Schema(oneOf = {JournalReader.StoredReject[].class, ApiViews.RejectsAsOf.class})))
+    @APIResponse(responseCode = "400", description = "invalid-parameter: as_of is not an instant, limit not a whole number from 1, "
+            + "or after not a cursor of this list")
+    public RestResponse<Object> rejects(@QueryParam("limit") String limit, @QueryParam("as_of") String asOf,
+                                        @QueryParam("after") String after, @Context UriInfo uri) {
         Instant at = QueryParams.asOf(asOf);
-        List<JournalReader.StoredReject> rows = journal.rejects(Math.max(1, Math.min(limit, MAX_ROWS)), at);
-        return at == null ? rows : new ApiViews.AsOfList<>(at, ruleSets.hash(at), rows);
+        int n = Paging.limit(limit, REJECTS_BY_DEFAULT, MAX_ROWS);
+        List<JournalReader.StoredReject> rows = journal.rejects(n + 1, at, Cursors.rowId(after));
+        return list(Paging.Page.of(rows, n, r -> Cursors.rowId(r.id())), at, uri, ApiViews.RejectsAsOf::new);
+    }
+
+    /** The record a page read as of a moment is wrapped in: one per row type, so that the OpenAPI document can name it. */
+    private interface AsOfPage<T> {
+        Object wrap(Instant asOf, String policyHash, List<T> items, boolean truncated, String next);
+    }
+
+    /** A page of a history list: the plain list, or with as_of wrapped with that moment and its rule set. */
+    private <T> RestResponse<Object> list(Paging.Page<T> page, Instant at, UriInfo uri, AsOfPage<T> asOf) {
+        String next = Paging.next(uri, page);
+        return Paging.answer(at == null ? page.items() : asOf.wrap(at, ruleSets.hash(at), page.items(), page.truncated(), next), next);
     }
 
     private static SpreadKey key(String id) {
         try {
             return SpreadKey.parse(id);
         } catch (IllegalArgumentException e) {
-            throw new BadRequestException(e.getMessage());
+            throw QueryParams.bad(e.getMessage());
         }
     }
 
@@ -169,7 +224,7 @@ public class ReadResource {
         try {
             return LocalDate.parse(text);
         } catch (DateTimeParseException e) {
-            throw new BadRequestException("unparsable date " + Excerpt.quoted(text) + " (expected YYYY-MM-DD)");
+            throw QueryParams.bad("unparsable date " + Excerpt.quoted(text) + " (expected YYYY-MM-DD)");
         }
     }
 }

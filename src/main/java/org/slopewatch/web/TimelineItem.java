@@ -3,6 +3,7 @@ package org.slopewatch.web;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.util.List;
+import org.eclipse.microprofile.openapi.annotations.media.Schema;
 import org.slopewatch.journal.AlertHistory;
 import org.slopewatch.journal.DeliveryAttempts;
 import org.slopewatch.journal.JournalReader;
@@ -11,6 +12,8 @@ import org.slopewatch.journal.JournalReader;
  * One entry of a spread's timeline. {@code kind} names the alternative; {@code recorded_at} is
  * when the journal learned of it, the order of the timeline.
  */
+@Schema(oneOf = {TimelineItem.ObservationItem.class, TimelineItem.TransitionItem.class, TimelineItem.AlertItem.class,
+        TimelineItem.AttemptItem.class, TimelineItem.AckItem.class})
 sealed interface TimelineItem permits TimelineItem.ObservationItem, TimelineItem.TransitionItem, TimelineItem.AlertItem,
         TimelineItem.AttemptItem, TimelineItem.AckItem {
 

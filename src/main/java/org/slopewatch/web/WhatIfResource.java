@@ -14,10 +14,14 @@ import java.net.URI;
 import java.nio.charset.StandardCharsets;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.eclipse.microprofile.openapi.annotations.Operation;
+import org.eclipse.microprofile.openapi.annotations.media.Content;
+import org.eclipse.microprofile.openapi.annotations.media.Schema;
+import org.eclipse.microprofile.openapi.annotations.responses.APIResponse;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.history.HistoryCsvReader;
@@ -81,10 +85,16 @@ public class WhatIfResource {
     @Consumes(MediaType.APPLICATION_JSON)
     @Operation(summary = "Start a what-if: what another policy's alert rules would have fired on the stored history (or on "
             + "'history', a CSV), compared with what fired; answers 202 with the job's id")
+    @APIResponse(responseCode = "202", description = "started; the job's state is at location",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON, schema = @Schema(implementation = Started.class)))
+    @APIResponse(responseCode = "400", description = "invalid-policy (problems, line, column), invalid-history (line, column) or "
+            + "invalid-body: no policy, an unknown spread or unit, or not JSON")
+    @APIResponse(responseCode = "415", description = "unsupported-media-type: the body is not application/json")
+    @APIResponse(responseCode = "429", description = "busy: what-ifs are queued to the limit")
     public Response start(WhatIfRequest request) {
         if (request == null || request.policy() == null || request.policy().isBlank()) {
-            return error(Response.Status.BAD_REQUEST, "give the policy to try: {\"policy\": \"<the policy file's YAML>\", "
-                    + "\"spreads\": [\"GOVT-A:10Y-3M\"]}", List.of());
+            throw ProblemException.invalidBody("give the policy to try: {\"policy\": \"<the policy file's YAML>\", "
+                    + "\"spreads\": [\"GOVT-A:10Y-3M\"]}");
         }
         CandidatePolicy policy;
         SpreadFilter filter;
@@ -92,10 +102,9 @@ public class WhatIfResource {
             policy = CandidatePolicy.parse(POLICY_SOURCE, request.policy().getBytes(StandardCharsets.UTF_8));
             filter = SpreadFilter.of(request.spreads());
         } catch (PolicyException e) {
-            return error(Response.Status.BAD_REQUEST, "the policy has problems; nothing was run",
-                    e.lines());
+            throw policyProblems(e);
         } catch (IllegalArgumentException e) {
-            return error(Response.Status.BAD_REQUEST, e.getMessage(), List.of());
+            throw ProblemException.invalidBody(e.getMessage());
         }
         Optional<WhatIfJob> job;
         if (request.history() == null) {
@@ -107,16 +116,17 @@ public class WhatIfResource {
                 HistoryCsvReader.read(HISTORY_SOURCE, new ByteArrayInputStream(request.history().getBytes(StandardCharsets.UTF_8)),
                         new HistoryCsvReader.Options(request.curve() == null ? "?" : request.curve(), unit, rules.bounds()),
                         snapshots::add, () -> { });
-            } catch (HistoryFormatException | IllegalArgumentException e) {
-                return error(Response.Status.BAD_REQUEST, e.getMessage(), List.of());
+            } catch (HistoryFormatException e) {
+                throw new ProblemException(ProblemType.INVALID_HISTORY, e.getMessage(), place(e.line(), e.column()));
+            } catch (IllegalArgumentException e) {
+                throw ProblemException.invalidBody(e.getMessage());
             } catch (IOException e) {
                 throw new IllegalStateException("cannot read the request body", e);
             }
             job = jobs.onHistory(policy, filter, HISTORY_SOURCE, snapshots);
         }
         if (job.isEmpty()) {
-            return error(Response.Status.TOO_MANY_REQUESTS, "what-ifs are queued to the limit; try again when one has finished",
-                    List.of());
+            throw new ProblemException(ProblemType.BUSY, "what-ifs are queued to the limit; try again when one has finished");
         }
         String location = "/api/what-if/" + job.get().id();
         return Response.accepted(new Started(job.get().id(), job.get().state().label(), location)).location(URI.create(location)).build();
@@ -125,13 +135,27 @@ public class WhatIfResource {
     @GET
     @Path("/{id}")
     @Operation(summary = "A what-if's state (running, done or failed), progress in quote messages, and its report when done")
-    public Response job(@PathParam("id") String id) {
-        return jobs.find(id).map(j -> Response.ok(JobView.of(j)).build())
-                .orElseGet(() -> error(Response.Status.NOT_FOUND, "no what-if " + Excerpt.of(id) + " (finished ones are kept for a while)", List.of()));
+    @APIResponse(responseCode = "200", description = "the job")
+    @APIResponse(responseCode = "404", description = "not-found: no what-if with this id (finished ones are kept for a while)")
+    public JobView job(@PathParam("id") String id) {
+        return jobs.find(id).map(JobView::of)
+                .orElseThrow(() -> ProblemException.notFound("no what-if " + Excerpt.of(id) + " (finished ones are kept for a while)"));
     }
 
-    private static Response error(Response.Status status, String message, List<String> problems) {
-        Map<String, Object> body = problems.isEmpty() ? Map.of("error", message) : Map.of("error", message, "problems", problems);
-        return Response.status(status).type(MediaType.APPLICATION_JSON).entity(body).build();
+    /** The policy's problems, each as file:line:column: message, and the place of the first as line and column. */
+    private static ProblemException policyProblems(PolicyException e) {
+        Map<String, Object> members = new LinkedHashMap<>();
+        members.put("problems", e.lines());
+        if (!e.problems().isEmpty()) {
+            members.putAll(place(e.problems().get(0).line(), e.problems().get(0).column()));
+        }
+        return new ProblemException(ProblemType.INVALID_POLICY, "the policy has problems; nothing was run", members);
+    }
+
+    private static Map<String, Object> place(long line, int column) {
+        Map<String, Object> place = new LinkedHashMap<>();
+        place.put("line", line);
+        place.put("column", column);
+        return place;
     }
 }

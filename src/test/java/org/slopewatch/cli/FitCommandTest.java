@@ -8,6 +8,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.time.YearMonth;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -15,6 +16,11 @@ import java.util.Map;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.slopewatch.probability.LiveProbability;
+import org.slopewatch.rules.Policy;
+import org.slopewatch.rules.PolicyException;
+import org.slopewatch.rules.PolicyParser;
+import org.slopewatch.rules.SpreadProbabilityModel;
 
 /**
  * {@code slopewatch fit} on real data, against R.
@@ -76,21 +82,68 @@ class FitCommandTest {
         throw new AssertionError("no row '" + name + "' in\n" + out);
     }
 
+    /** What the command prints last: the fit as a policy's 'probability' section, from its first comment line to the end. */
+    private static String policyBlock(String out) {
+        int from = out.indexOf("# The fit as a policy's 'probability' section");
+        assertThat(from).as("a policy block in\n%s", out).isNotNegative();
+        return out.substring(from);
+    }
+
+    /** Pasted as printed, below the 'watch' part of a policy that watches 10Y-1Y. */
+    private static SpreadProbabilityModel pasted(String block) throws PolicyException {
+        Policy policy = PolicyParser.parse("pasted.yaml", "watch:\n  - spread: 10Y-1Y\n    confirm: [quarter-average]\n" + block);
+        return policy.probability().forSpread("10Y-1Y").orElseThrow();
+    }
+
+    /** The printed value is the fitted one to the printed precision, six significant digits. */
+    private static void sixDigits(double printed, double fitted, String what) {
+        double halfUnit = 0.5 * Math.pow(10, Math.floor(Math.log10(Math.abs(fitted))) - 5);
+        assertThat(Math.abs(printed - fitted)).as("%s: printed %s, fitted %s", what, printed, fitted).isLessThanOrEqualTo(halfUnit * (1 + 1e-9));
+    }
+
     /*
-     * The policy entry the command prints, pasted under a policy's 'probability' section, makes the
-     * daemon show R's 90 % Newey-West band at a spread of -1 pp (probit-10y1y-h12.csv,
-     * band90_newey_west_*_at_m1).
+     * The block printed after the report, pasted into a policy as it is (no re-indenting), parses with the
+     * policy parser and gives back the fitted coefficients and covariance to the printed precision (checked
+     * against the same fit's JSON), which are R's to four digits (probit-10y1y-h12.csv).
      */
     @Test
-    void thePrintedPolicyEntryGivesTheDaemonRsBand() throws Exception {
-        String out = fit(history).out();
-        int from = out.indexOf("    probability:");
-        String entry = out.substring(from, out.indexOf("\n\n", from)).replace("\n    ", "\n").strip();
-        org.slopewatch.rules.Policy policy = org.slopewatch.rules.PolicyParser.parse("pasted.yaml",
-                "watch:\n  - spread: 10Y-1Y\n    confirm: [quarter-average]\n" + entry + "\n");
-        org.slopewatch.rules.SpreadProbabilityModel m = policy.probability().forSpread("10Y-1Y").orElseThrow();
-        org.slopewatch.probability.LiveProbability live = org.slopewatch.probability.LiveProbability.of(m.model(), m.covariance(),
-                m.horizonMonths(), java.time.YearMonth.of(2026, 1), -100.0, 21, true);
+    void thePrintedBlockPastedIntoAPolicyGivesTheFittedCoefficientsBack() throws Exception {
+        CliRun text = fit(history);
+        assertThat(text.exitCode()).as(text.err()).isZero();
+        String block = policyBlock(text.out());
+        assertThat(text.out().indexOf("not investment advice")).as("the block comes after the report and its caution")
+                .isLessThan(text.out().indexOf(block));
+        SpreadProbabilityModel m = pasted(block);
+
+        JsonNode j = new ObjectMapper().readTree(fit(history, "--json").out());
+        sixDigits(m.model().alpha(), j.get("coefficients").get(0).get("estimate").asDouble(), "alpha");
+        sixDigits(m.model().beta(), j.get("coefficients").get(1).get("estimate").asDouble(), "beta");
+        JsonNode nw = j.get("standard_errors").get("covariance_newey_west");
+        sixDigits(m.covariance().varAlpha(), nw.get("var_alpha").asDouble(), "var-alpha");
+        sixDigits(m.covariance().covAlphaBeta(), nw.get("cov_alpha_beta").asDouble(), "cov-alpha-beta");
+        sixDigits(m.covariance().varBeta(), nw.get("var_beta").asDouble(), "var-beta");
+        fourDigits(m.model().alpha(), "alpha");
+        fourDigits(m.model().beta(), "beta");
+        fourDigits(Math.sqrt(m.covariance().varAlpha()), "se_alpha_newey_west");
+        fourDigits(Math.sqrt(m.covariance().varBeta()), "se_beta_newey_west");
+        assertThat(m.horizonMonths()).isEqualTo(12);
+        assertThat(m.model().provenance()).as("what it was fitted on").isEqualTo("slopewatch fit on us-cmt-monthly-1953-1999.csv (curve "
+                + "us-cmt-monthly-1953-1999), 1953-04 to 1998-09, 546 months, recession 12 months ahead per us-business-cycle-dates.csv");
+
+        // with --covariance model, the block carries the model-based covariance the bands then rest on
+        SpreadProbabilityModel modelBased = pasted(policyBlock(fit(history, "--covariance", "model").out()));
+        fourDigits(Math.sqrt(modelBased.covariance().varAlpha()), "se_alpha_model");
+        fourDigits(Math.sqrt(modelBased.covariance().varBeta()), "se_beta_model");
+    }
+
+    /*
+     * The pasted block makes the daemon show R's 90 % Newey-West band at a spread of -1 pp
+     * (probit-10y1y-h12.csv, band90_newey_west_*_at_m1).
+     */
+    @Test
+    void thePrintedBlockGivesTheDaemonRsBand() throws Exception {
+        SpreadProbabilityModel m = pasted(policyBlock(fit(history).out()));
+        LiveProbability live = LiveProbability.of(m.model(), m.covariance(), m.horizonMonths(), YearMonth.of(2026, 1), -100.0, 21, true);
         fourDigits(live.probability(), "p_at_m1");
         fourDigits(live.band().lower(), "band90_newey_west_lower_at_m1");
         fourDigits(live.band().upper(), "band90_newey_west_upper_at_m1");

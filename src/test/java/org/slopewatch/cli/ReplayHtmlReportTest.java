@@ -17,6 +17,10 @@ import java.util.ArrayList;
 import java.util.HexFormat;
 import java.util.List;
 import java.util.Locale;
+import java.util.TreeMap;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.apache.commons.math3.distribution.NormalDistribution;
 import org.jsoup.Jsoup;
 import org.jsoup.nodes.Attribute;
 import org.jsoup.nodes.Document;
@@ -131,6 +135,31 @@ class ReplayHtmlReportTest {
         for (int i = 0; i < ids().size(); i++) {
             Elements bands = chart(i).select("g.recession");
             assertThat(bands.eachAttr("data-peak")).as("recession bands of %s", ids().get(i)).containsExactlyElementsOf(nberPeaks);
+            for (Element band : bands) {
+                assertThat(band.select("text").text()).as("each recession labelled with its peak month").isEqualTo(band.attr("data-peak"));
+            }
+        }
+    }
+
+    /*
+     * Our own mark for a recession: a thin bar along the bottom of the plot in violet, not a band over the
+     * whole height in grey. The bar is the group's first rect (the second is the white ground of the label).
+     */
+    @Test
+    void aRecessionIsAThinVioletBarNotAGreyBand() {
+        Element chart = chart(0);
+        double plotHeight = Double.parseDouble(chart.selectFirst("g.spell rect").attr("height"));
+        for (Element band : chart.select("g.recession")) {
+            Element bar = band.selectFirst("rect");
+            assertThat(Double.parseDouble(bar.attr("height"))).as("bar of %s against a plot %s high", band.attr("data-peak"), plotHeight)
+                    .isLessThanOrEqualTo(6.0).isLessThan(plotHeight / 20);
+            Matcher rgb = Pattern.compile("fill:\\s*rgb\\((\\d+),(\\d+),(\\d+)\\)").matcher(bar.attr("style"));
+            assertThat(rgb.find()).as("a solid fill: %s", bar.attr("style")).isTrue();
+            int r = Integer.parseInt(rgb.group(1));
+            int g = Integer.parseInt(rgb.group(2));
+            int b = Integer.parseInt(rgb.group(3));
+            assertThat(Math.max(r, Math.max(g, b)) - Math.min(r, Math.min(g, b))).as("a hue, not a grey: rgb(%d,%d,%d)", r, g, b)
+                    .isGreaterThan(60);
         }
     }
 
@@ -205,11 +234,124 @@ class ReplayHtmlReportTest {
     }
 
     @Test
-    void theCautionIsShownAtTheTopAndTheFoot() {
+    void theCautionIsShownUnderTheFindingsAndAtTheFoot() {
         Elements caution = page.select(".caution");
         assertThat(caution).hasSize(2);
         assertThat(caution.first().text()).contains("not investment advice").contains(org.slopewatch.replay.ReplayReport.CAUTION);
-        assertThat(page.selectFirst("header + main > .caution")).as("first thing under the title").isNotNull();
+        assertThat(page.selectFirst("header + main > section.findings + .caution")).as("right after the findings").isNotNull();
+    }
+
+    @Test
+    void thePageOpensWithItsFindingsThenTheChartsThenWhatItWasMadeFromAndThePolicy() {
+        Elements parts = page.select("main > *");
+        assertThat(parts.first().is("section.findings")).as("the first thing under the title: %s", parts.first().tagName()).isTrue();
+        int firstChart = parts.indexOf(page.selectFirst("main > section.spread"));
+        int source = parts.indexOf(page.getElementById("source").parent());
+        int policy = parts.indexOf(page.getElementById("policy").parent());
+        assertThat(firstChart).as("charts after the findings").isGreaterThan(0);
+        assertThat(source).as("what the report covers after the charts").isGreaterThan(parts.indexOf(page.select("main > section.spread").last()));
+        assertThat(policy).as("the policy last").isEqualTo(parts.size() - 1);
+    }
+
+    /*
+     * Per business-cycle peak, the FIRST confirmation before it. 10Y-1Y of the H.15 file was confirmed
+     * twice before the 1969-12 peak (NBER dates, from memory): quarters averaging below zero in 1968Q2 and
+     * 1968Q4 (confirmed 1968-07-01 and 1969-01-01, as the replay's lead table lists them). The peak was
+     * signalled once, 17 months ahead (1968-07 to 1969-12); the second confirmation is mentioned, not
+     * counted again.
+     */
+    @Test
+    void eachPeakIsSignalledByItsFirstConfirmationAndLaterOnesAreMentioned() {
+        Element row = findings(0).selectFirst("table.peaks tr[data-peak=1969-12]");
+        assertThat(row.attr("data-outcome")).isEqualTo("ahead");
+        assertThat(row.select("td").eachText()).containsExactly("signalled 17 months ahead", "1968-07-01", "17",
+                "1969-01-01 (11 months before)");
+        for (int i = 0; i < ids().size(); i++) {
+            JsonNode spread = json.get("spreads").get(i);
+            // from the replay's JSON: each peak's confirmations in date order; the first not late signals it
+            TreeMap<String, List<JsonNode>> byPeak = new TreeMap<>();
+            spread.get("leads").forEach(l -> {
+                if (!l.get("peak").isNull()) {
+                    byPeak.computeIfAbsent(l.get("peak").asText(), p -> new ArrayList<>()).add(l);
+                }
+            });
+            TreeMap<String, String> outcomes = new TreeMap<>();
+            byPeak.forEach((peak, leads) -> outcomes.put(peak, leads.stream().anyMatch(l -> !l.get("late").asBoolean()) ? "ahead" : "late"));
+            spread.get("missed_peaks").forEach(m -> outcomes.put(m.asText(), "missed"));
+            spread.get("unassessed_peaks").forEach(m -> outcomes.put(m.asText(), "not_assessed"));
+            Elements rows = findings(i).select("table.peaks tbody tr");
+            assertThat(rows.eachAttr("data-peak")).as("one row per peak of %s", ids().get(i)).containsExactlyElementsOf(outcomes.keySet());
+            assertThat(rows.eachAttr("data-outcome")).containsExactlyElementsOf(outcomes.values());
+            for (Element r : rows) {
+                List<JsonNode> leads = byPeak.getOrDefault(r.attr("data-peak"), List.of());
+                JsonNode first = leads.stream().filter(l -> !l.get("late").asBoolean()).findFirst().orElse(leads.isEmpty() ? null : leads.get(0));
+                List<String> cells = r.select("td").eachText();
+                assertThat(cells.get(1)).as("first confirmation of %s", r.attr("data-peak")).isEqualTo(first == null ? "none" : first.get("confirmed").asText());
+                assertThat(cells.get(2)).isEqualTo(first == null ? "-" : first.get("months").asText());
+                assertThat(cells.get(3).equals("none")).as("other confirmations of %s: %s", r.attr("data-peak"), cells.get(3))
+                        .isEqualTo(leads.size() <= 1);
+            }
+            long ahead = outcomes.values().stream().filter("ahead"::equals).count();
+            long assessed = outcomes.values().stream().filter(o -> !o.equals("not_assessed")).count();
+            assertThat(findings(i).selectFirst("dd.peak-summary").text()).startsWith(ahead + " of " + assessed + " assessed peaks signalled ahead");
+            List<String> falseAlarms = new ArrayList<>();
+            spread.get("leads").forEach(l -> {
+                if (l.get("false_alarm").asBoolean()) {
+                    falseAlarms.add(l.get("confirmed").asText());
+                }
+            });
+            String listed = findings(i).selectFirst("dd.false-alarms").text();
+            assertThat(listed).startsWith(falseAlarms.isEmpty() ? "none" : falseAlarms.size() + ": ");
+            falseAlarms.forEach(d -> assertThat(listed).contains("confirmed " + d));
+        }
+    }
+
+    @Test
+    void theFindingsSayWhereEachSpreadStandsAndSinceWhen() {
+        for (int i = 0; i < ids().size(); i++) {
+            JsonNode spread = json.get("spreads").get(i);
+            JsonNode transitions = spread.get("transitions");
+            JsonNode last = transitions.get(transitions.size() - 1);
+            assertThat(last.get("to").asText()).isEqualTo(spread.get("final_state").asText());
+            assertThat(findings(i).selectFirst("dd.state-now").text()).isEqualTo(String.format(Locale.ROOT, "%s since %s; %+.1f bp on %s",
+                    spread.get("final_state").asText(), last.get("date").asText(), spread.get("last_value_bp").asDouble(),
+                    spread.get("last_date").asText()));
+        }
+    }
+
+    /*
+     * The policy's probit for 10Y-1Y (R's coefficients, policies/reference-report.yaml) on the file's last
+     * months: 1999-08 is complete, 10Y - 1Y = 5.94 - 5.20 = 0.74 pp; 1999-09 is the month so far,
+     * 5.92 - 5.25 = 0.67 pp. P = Phi(alpha + beta * s) recomputed with Commons Math's NormalDistribution.
+     */
+    @Test
+    void theProbabilitySaysWhichSpreadHorizonMonthAndModelAndMarksTheMonthToDateProvisional() {
+        NormalDistribution phi = new NormalDistribution();
+        Element spread = findings(0);
+        String complete = spread.selectFirst("dd.probability.final").text();
+        assertThat(complete).isEqualTo(String.format(Locale.ROOT, "12-month-ahead recession probability %.0f %% (no band: the model has no "
+                + "covariance): P(recession in 2000-08), from the 10Y-1Y average of 1999-08 (complete month, 1 observation); model: "
+                + "R glm probit on us-cmt-monthly-1953-1999.csv and us-business-cycle-dates.csv, 10Y-1Y, 1953-04 to 1998-09, 546 months, "
+                + "recession 12 months ahead", 100 * phi.cumulativeProbability(-0.809715 - 0.940699 * (5.94 - 5.20))));
+        String toDate = spread.selectFirst("dd.probability.provisional").text();
+        assertThat(toDate).startsWith(String.format(Locale.ROOT, "12-month-ahead recession probability %.0f %%",
+                100 * phi.cumulativeProbability(-0.809715 - 0.940699 * (5.92 - 5.25))))
+                .contains("P(recession in 2000-09), from the 10Y-1Y average of 1999-09 so far (provisional: month to date, 1 observation)");
+        assertThat(spread.selectFirst("dd.probability.provisional").previousElementSibling().text()).isEqualTo("Month to date (provisional)");
+        assertThat(findings(1).select("dd.probability")).as("the policy has no model for 10Y-3Y").isEmpty();
+    }
+
+    @Test
+    void datesInTablesDoNotWrap() {
+        assertThat(page.selectFirst("style").data()).contains(".date, td.date, th.date { white-space: nowrap; }");
+        int dates = 0;
+        for (Element cell : page.select("table td, table th")) {
+            if (cell.text().matches("\\d{4}-\\d{2}(-\\d{2})?")) {
+                assertThat(cell.hasClass("date")).as("a date cell of table.%s: %s", cell.closest("table").className(), cell.text()).isTrue();
+                dates++;
+            }
+        }
+        assertThat(dates).as("dates in the spells, lead, peak and transition tables").isGreaterThan(100);
     }
 
     @Test
@@ -235,7 +377,7 @@ class ReplayHtmlReportTest {
     void thePageIsStructuredForAssistiveTechnology() {
         assertThat(page.selectFirst("html").attr("lang")).isEqualTo("en");
         assertThat(page.select("h1")).hasSize(1);
-        assertThat(page.select("h2").eachText()).contains("What the report covers", "Policy", "Recession dates");
+        assertThat(page.select("h2").eachText()).contains("Findings", "What the report covers", "Policy", "Recession dates");
         Elements tables = page.select("table");
         assertThat(tables).hasSizeGreaterThan(5);
         for (Element table : tables) {
@@ -252,7 +394,9 @@ class ReplayHtmlReportTest {
         Document bare = Jsoup.parse(Files.readString(out));
         assertThat(bare.select(".policy-hash")).isEmpty();
         assertThat(bare.select("dl.policy").text()).contains("none: rules from the command line");
-        assertThat(bare.select("table.leads")).isEmpty();
+        assertThat(bare.select("table.leads, table.peaks, dd.peak-summary")).isEmpty();
+        assertThat(bare.selectFirst("section.findings p.scope").text()).isEqualTo("No business-cycle dates were given, so no peak is assessed.");
+        assertThat(bare.selectFirst("section.findings dd.state-now").text()).startsWith("NORMAL since ");
         assertThat(bare.select("g.recession")).isEmpty();
         assertThat(bare.select("svg.chart g.spell")).hasSize(new ObjectMapper().readTree(run.out()).get("spreads").get(0).get("spells").size());
     }
@@ -324,6 +468,12 @@ class ReplayHtmlReportTest {
 
     private static Element section(int i) {
         return page.select("section.spread").get(i);
+    }
+
+    private static Element findings(int i) {
+        Elements blocks = page.select("section.findings div.spread-findings");
+        assertThat(blocks.eachAttr("data-spread")).containsExactlyElementsOf(ids());
+        return blocks.get(i);
     }
 
     private static Element chart(int i) {

@@ -28,6 +28,13 @@ class ChannelRegistryTest {
     }
 
     @Test
+    void streamChannelsTravelOnTheConnectorConfiguredForAlertsOut() {
+        // application.properties: mp.messaging.outgoing.alerts-out.connector=smallrye-in-memory outside the kafka profile
+        assertThat(registry.streamTransport()).isEqualTo(new StreamTransport("smallrye-in-memory"));
+        assertThat(registry.streamTransport().isKafka()).isFalse();
+    }
+
+    @Test
     void theRetryPolicyComesFromConfiguration() {
         assertThat(retryPolicy.base()).isEqualTo(Duration.ofSeconds(30));
         assertThat(retryPolicy.cap()).isEqualTo(Duration.ofMinutes(30));

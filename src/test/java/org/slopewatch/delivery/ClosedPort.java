@@ -6,12 +6,12 @@ import java.net.InetAddress;
 import java.net.ServerSocket;
 
 /** A loopback port that nothing listens on, so that a connection to it is refused. */
-final class ClosedPort {
+public final class ClosedPort {
 
     private ClosedPort() {
     }
 
-    static int find() {
+    public static int find() {
         try (ServerSocket socket = new ServerSocket(0, 1, InetAddress.getLoopbackAddress())) {
             return socket.getLocalPort();
         } catch (IOException e) {

@@ -28,7 +28,7 @@ abstract class DeliveryOutboxChecks extends AlertJournalFixture {
         DeliveryOutbox store = new DeliveryOutbox(ds, clock);
         AlertHistory history = new AlertHistory(ds);
 
-        assertThat(history.recent(10)).hasSize(1);
+        assertThat(new NewestAlerts(ds).page(10, null, null)).hasSize(1);
         assertThat(store.backlog()).isEqualTo(1);
         List<DeliveryOutbox.Due> due = store.due("log", T0, 10);
         assertThat(due).singleElement().satisfies(d -> {

@@ -34,7 +34,7 @@ abstract class OldStoredKindsChecks extends AlertJournalFixture {
         }
 
         AlertHistory history = new AlertHistory(ds);
-        assertThat(history.recent(10)).extracting(v -> v.stored().alert().kind())
+        assertThat(new NewestAlerts(ds).page(10, null, null)).extracting(v -> v.stored().alert().kind())
                 .containsExactlyInAnyOrder(Alert.Kind.OPENING, Alert.Kind.STANDING, Alert.Kind.CLOSING);
         assertThat(history.notices(EnumSet.of(Alert.Kind.OPENING, Alert.Kind.CLOSING))).extracting(a -> a.alert().kind())
                 .as("the query by kind finds the old names").containsExactly(Alert.Kind.OPENING, Alert.Kind.CLOSING);

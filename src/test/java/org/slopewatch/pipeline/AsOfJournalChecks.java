@@ -26,7 +26,9 @@ import org.slopewatch.journal.JournalEntries;
 import org.slopewatch.journal.JournalRange;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
+import org.slopewatch.journal.NewestAlerts;
 import org.slopewatch.journal.PolicyVersions;
+import org.slopewatch.journal.TimelineRows;
 import org.slopewatch.monitor.MonitorDefinition;
 import org.slopewatch.monitor.QuarterAverage;
 import org.slopewatch.monitor.SpreadStatus;
@@ -70,6 +72,8 @@ abstract class AsOfJournalChecks {
     private JournalReader reader;
     private PolicyVersions policies;
     private AlertHistory history;
+    private NewestAlerts newest;
+    private TimelineRows timeline;
     private SpreadStatus liveAtT1;
     private int businessDays;
 
@@ -96,6 +100,8 @@ abstract class AsOfJournalChecks {
         reader = new JournalReader(ds);
         policies = new PolicyVersions(ds, clock);
         history = new AlertHistory(ds);
+        newest = new NewestAlerts(ds);
+        timeline = new TimelineRows(ds);
         pipeline = new QuotePipeline(WATCHES, new JournalWriter(ds, clock), reader, PipelineListener.NONE, clock);
         pipeline.recover();
         policies.policyVersion("rules-one", "policy.yaml", "applied", "loaded at start-up");
@@ -227,23 +233,23 @@ abstract class AsOfJournalChecks {
         clock.set(delivered.plus(Duration.ofMinutes(10)));
         new Acknowledgements(ds, clock).ack(id, "desk-lead", "seen");
 
-        assertThat(history.recent(10, T1)).as("not recorded yet at T1").isEmpty();
-        assertThat(chat(history.recent(10, T1.plusSeconds(1)).get(0)))
+        assertThat(newest.page(10, T1, null)).as("not recorded yet at T1").isEmpty();
+        assertThat(chat(newest.page(10, T1.plusSeconds(1), null).get(0)))
                 .as("as written: due at once, never tried")
                 .isEqualTo(new DeliveryOutbox.Delivery(id, "desk-chat", DeliveryOutbox.Status.PENDING, 0, T1, null, null, T1.plusSeconds(1)));
-        assertThat(chat(history.recent(10, BETWEEN).get(0)))
+        assertThat(chat(newest.page(10, BETWEEN, null).get(0)))
                 .as("after the 503: pending, one attempt; when the retry was due is kept only in the current row")
                 .isEqualTo(new DeliveryOutbox.Delivery(id, "desk-chat", DeliveryOutbox.Status.PENDING, 1, null, tried, "retry in 30m", tried));
-        AlertHistory.AlertView later = history.recent(10, delivered.plus(Duration.ofMinutes(5))).get(0);
+        AlertHistory.AlertView later = newest.page(10, delivered.plus(Duration.ofMinutes(5)), null).get(0);
         assertThat(chat(later)).as("replayed to the end it is the stored row").isEqualTo(chat(history.find(id)));
         assertThat(later.deliveries()).filteredOn(d -> d.channel().equals("risk-email")).extracting(DeliveryOutbox.Delivery::status)
                 .containsExactly(DeliveryOutbox.Status.SKIPPED);
         assertThat(later.acks()).as("acknowledged afterwards").isEmpty();
-        assertThat(history.recent(10, Instant.parse("2030-01-01T00:00:00Z")).get(0).acks()).extracting(AlertHistory.Ack::by)
+        assertThat(newest.page(10, Instant.parse("2030-01-01T00:00:00Z"), null).get(0).acks()).extracting(AlertHistory.Ack::by)
                 .containsExactly("desk-lead");
 
-        assertThat(history.forSubject(range(BETWEEN), 10)).extracting(v -> v.stored().alert().id()).containsExactly(id);
-        assertThat(history.forSubject(new JournalRange(KEY.id(), LocalDate.of(2026, 5, 1), LocalDate.of(2026, 5, 31), null), 10))
+        assertThat(timeline.alerts(range(BETWEEN), null, 10)).extracting(r -> r.value().stored().alert().id()).containsExactly(id);
+        assertThat(timeline.alerts(new JournalRange(KEY.id(), LocalDate.of(2026, 5, 1), LocalDate.of(2026, 5, 31), null), null, 10))
                 .as("outside the market-date range").isEmpty();
         assertThat(new DeliveryAttempts(ds).attempts(List.of(id), BETWEEN)).extracting(DeliveryAttempts.StoredAttempt::outcome).containsExactly("retry");
         List<String> exported = new ArrayList<>();

@@ -31,6 +31,18 @@ class FeedFreshnessTest {
     }
 
     @Test
+    void aCurveWithNoQuoteAtAllIsNeverQuotedFromTheStartThoughNotYetStale() {
+        Map<String, FeedFreshness.CurveFeed> feeds = FeedFreshness.assess(CURVES, Map.of("GOVT-A", LUNCH), LUNCH, LUNCH.plusSeconds(60), 4,
+                CurveOwnership.ALL);
+
+        assertThat(feeds.get("GOVT-B").neverQuoted()).as("no quote in the journal").isTrue();
+        assertThat(feeds.get("GOVT-B").stale()).as("one minute since start-up, limit 4 business hours").isFalse();
+        assertThat(feeds.get("GOVT-A").neverQuoted()).isFalse();
+        assertThat(FeedFreshness.assess(CURVES, Map.of(), LUNCH, NOW, 4, "GOVT-A"::equals).get("GOVT-B").neverQuoted())
+                .as("a curve another instance owns is that instance's to report").isFalse();
+    }
+
+    @Test
     void aCurveOwnedByAnotherInstanceIsNeverStaleHereAndNoRuleHereDecidesOnIt() {
         CurveOwnership onlyB = "GOVT-B"::equals;
 

@@ -106,7 +106,7 @@ class PolicyParserHostileTest {
         // was: the whole value quoted, here 300,000 characters of message for one problem
         PolicyException e = problems("watch:\n  - spread: 10Y-3M\n    confirm: [" + "q".repeat(300_000) + "]\n");
         assertThat(e.getMessage()).isEqualTo("p.yaml:3:15: unknown persistence test '" + "q".repeat(200) + "…' (300000 characters) "
-                + "(known: quarter-average, days-inverted, rolling-average, share-inverted)");
+                + "(expected quarter-average, days-inverted:DAYS, rolling-average:DAYS or share-inverted:DAYS:SHARE)");
     }
 
     @Test
@@ -124,8 +124,8 @@ class PolicyParserHostileTest {
     void aLineBreakInAQuotedValueIsEscapedSoEachProblemIsOneLine() {
         // was: a value holding a line break was quoted as it is, and its problem spread over two lines of the message
         PolicyException e = problems("watch:\n  - spread: 10Y-3M\n    confirm: [\"weekly\\nstate: CONFIRMED\"]\n");
-        assertThat(e.getMessage()).isEqualTo("p.yaml:3:15: unknown persistence test 'weekly\\nstate: CONFIRMED' (known: quarter-average, "
-                + "days-inverted, rolling-average, share-inverted)");
+        assertThat(e.getMessage()).isEqualTo("p.yaml:3:15: unknown persistence test 'weekly\\nstate: CONFIRMED' (expected quarter-average, "
+                + "days-inverted:DAYS, rolling-average:DAYS or share-inverted:DAYS:SHARE)");
     }
 
     @Test

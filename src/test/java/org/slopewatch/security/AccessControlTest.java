@@ -12,6 +12,10 @@ import io.quarkus.test.junit.QuarkusTest;
 import io.quarkus.test.junit.QuarkusTestProfile;
 import io.quarkus.test.junit.TestProfile;
 import io.restassured.specification.RequestSpecification;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -29,18 +33,37 @@ import org.slopewatch.delivery.LogCapture;
  */
 @QuarkusTest
 @TestProfile(AccessControlTest.Locked.class)
-class AccessControlTest {
+public class AccessControlTest {
 
-    static final String READ = "read-" + UUID.randomUUID();
-    static final String WRITE = "write-" + UUID.randomUUID();
+    public static final String READ = "read-" + UUID.randomUUID();
+    public static final String WRITE = "write-" + UUID.randomUUID();
     static final String WRONG = "wrong-" + UUID.randomUUID();
 
-    /** Access control on, a read and a write token, metrics behind the read role, small limits. */
+    /**
+     * Access control on, a read and a write token, metrics behind the read role, small limits,
+     * and a copy of the shipped policy that a test may spoil and restore ({@link #policyFile()}).
+     */
     public static final class Locked implements QuarkusTestProfile {
+
+        private static Path policy;
+
+        /** The policy file in force, a copy of {@code alert-rules/default.yaml} of this profile's own. */
+        public static synchronized Path policyFile() {
+            if (policy == null) {
+                try {
+                    Path dir = Files.createDirectories(Path.of("target", "test-data", "access-policy-" + UUID.randomUUID()));
+                    policy = Files.copy(Path.of("alert-rules", "default.yaml"), dir.resolve("policy.yaml"));
+                } catch (IOException e) {
+                    throw new UncheckedIOException(e);
+                }
+            }
+            return policy;
+        }
 
         @Override
         public Map<String, String> getConfigOverrides() {
             Map<String, String> config = new LinkedHashMap<>();
+            config.put("slopewatch.ingest.policy", policyFile().toString());
             config.put("slopewatch.security.enabled", "true");
             config.put("slopewatch.security.read-tokens", READ);
             config.put("slopewatch.security.write-tokens", "sha256:" + HexFormat.of().formatHex(TokenBook.sha256(WRITE)));
@@ -62,8 +85,8 @@ class AccessControlTest {
     void readsNeedTheReadRole() {
         as(null).get("/api/spreads").then().statusCode(401)
                 .header("WWW-Authenticate", containsString("Bearer"))
-                .body("error", containsString("needs a token with the read role"));
-        as(WRONG).get("/api/spreads").then().statusCode(401).body("error", equalTo("the bearer token is not valid"))
+                .body("detail", containsString("needs a token with the read role"));
+        as(WRONG).get("/api/spreads").then().statusCode(401).body("detail", equalTo("the bearer token is not valid"))
                 .body(not(containsString(WRONG)));
         as(READ).get("/api/spreads").then().statusCode(200);
         as(WRITE).get("/api/spreads").then().statusCode(200); // a write token may read too
@@ -75,7 +98,7 @@ class AccessControlTest {
     void writesNeedTheWriteRole() {
         as(null).contentType("application/json").body(QUOTE).post("/api/quotes").then().statusCode(401);
         as(READ).contentType("application/json").body(QUOTE).post("/api/quotes").then().statusCode(403)
-                .body("error", containsString("may read but not change anything")).body(not(containsString(READ)));
+                .body("detail", containsString("may read but not change anything")).body(not(containsString(READ)));
         as(WRITE).contentType("application/json").body(QUOTE).post("/api/quotes").then().statusCode(200).body("accepted", equalTo(1));
 
         as(READ).contentType("application/json").body("{\"by\":\"x\"}").post("/api/alerts/any~id~2026-01-01~1/ack").then().statusCode(403);
@@ -108,7 +131,7 @@ class AccessControlTest {
         as(null).get("/favicon.ico").then().statusCode(401);
         as(null).get("/q/openapi").then().statusCode(401);
         as(READ).get("/q/openapi").then().statusCode(200);
-        as(READ).get("/api;x/spreads").then().statusCode(400).body("error", containsString("matrix parameters"));
+        as(READ).get("/api;x/spreads").then().statusCode(400).body("detail", containsString("matrix parameters"));
     }
 
     @Test

@@ -13,6 +13,7 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
+import java.util.TreeMap;
 import java.util.TreeSet;
 import java.util.stream.Stream;
 
@@ -22,28 +23,28 @@ import java.util.stream.Stream;
  * access tests without anyone listing it: a class with {@code @Path}, each of its methods with an
  * HTTP method annotation (one meta-annotated with {@link HttpMethod}) and its own {@code @Path}.
  */
-record ApiRoutes(List<Route> routes) {
+public record ApiRoutes(List<Route> routes) {
 
     /**
      * One route: its HTTP method, its path template ({@code /api/spreads/{id}/history}) and the
      * query its required parameters need ({@code ?spread=GOVT-A:10Y-3M}, or empty).
      */
-    record Route(String method, String template, String query) {
+    public record Route(String method, String template, String query) {
 
-        Route(String method, String template) {
+        public Route(String method, String template) {
             this(method, template, "");
         }
 
-        boolean reads() {
+        public boolean reads() {
             return method.equals("GET") || method.equals("HEAD") || method.equals("OPTIONS");
         }
 
-        boolean templated() {
+        public boolean templated() {
             return template.contains("{");
         }
 
         /** The template with a sample for each parameter: names that exist where the test posted a quote, others that do not. */
-        String sample() {
+        public String sample() {
             String[] segments = template.split("/");
             StringBuilder path = new StringBuilder();
             for (int i = 1; i < segments.length; i++) {
@@ -68,23 +69,37 @@ record ApiRoutes(List<Route> routes) {
         }
     }
 
-    static ApiRoutes scan() {
+    public static ApiRoutes scan() {
+        TreeSet<Route> found = new TreeSet<>(ORDER);
+        found.addAll(handlers().keySet());
+        return new ApiRoutes(new ArrayList<>(found));
+    }
+
+    private static final Comparator<Route> ORDER = Comparator.comparing(Route::template).thenComparing(Route::method)
+            .thenComparing(Route::query);
+
+    /**
+     * Every route with the Java methods that answer it (two where they differ in the media type
+     * they take), for tests that read more of their annotations: query parameters, the media
+     * types they take and give.
+     */
+    public static Map<Route, List<Method>> handlers() {
         java.nio.file.Path root = java.nio.file.Path.of("target", "classes");
         ClassLoader loader = Thread.currentThread().getContextClassLoader();
-        TreeSet<Route> found = new TreeSet<>(Comparator.comparing(Route::template).thenComparing(Route::method).thenComparing(Route::query));
+        Map<Route, List<Method>> found = new TreeMap<>(ORDER);
         try (Stream<java.nio.file.Path> files = Files.walk(root.resolve("org/slopewatch"))) {
-            for (java.nio.file.Path file : files.filter(f -> f.toString().endsWith(".class")).toList()) {
+            for (java.nio.file.Path file : files.filter(f -> f.toString().endsWith(".class")).sorted().toList()) {
                 String name = root.relativize(file).toString().replace('/', '.').replace('\\', '.').replaceAll("\\.class$", "");
                 Class<?> type = Class.forName(name, false, loader);
                 Path base = type.getAnnotation(Path.class);
                 if (base == null) {
                     continue;
                 }
-                for (Method m : type.getDeclaredMethods()) {
+                for (Method m : Stream.of(type.getDeclaredMethods()).sorted(Comparator.comparing(Method::getName)).toList()) {
                     String verb = httpMethod(m);
                     if (verb != null) {
                         Path sub = m.getAnnotation(Path.class);
-                        found.add(new Route(verb, join(base.value(), sub == null ? "" : sub.value()), query(m)));
+                        found.computeIfAbsent(new Route(verb, join(base.value(), sub == null ? "" : sub.value()), query(m)), r -> new ArrayList<>()).add(m);
                     }
                 }
             }
@@ -93,7 +108,7 @@ record ApiRoutes(List<Route> routes) {
         } catch (ClassNotFoundException e) {
             throw new IllegalStateException(e);
         }
-        return new ApiRoutes(new ArrayList<>(found));
+        return found;
     }
 
     /** Samples for the query parameters some routes refuse to go without (400), where the test posted a quote. */

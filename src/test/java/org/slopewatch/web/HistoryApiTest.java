@@ -110,14 +110,14 @@ class HistoryApiTest {
     @Test
     @Order(2)
     void transitionsAsOfT1ShowTheOldOnesStandingAndNowTheyAreSuperseded() throws IOException {
-        JsonNode then = json(given().get("/api/transitions?spread=" + SPREAD + "&superseded=true&asOf=" + t1));
+        JsonNode then = json(given().get("/api/transitions?spread=" + SPREAD + "&superseded=true&as_of=" + t1));
         assertThat(then.get("as_of").asText()).isEqualTo(t1.toString());
         assertThat(then.get("policy_hash").asText()).as("the rule set of the original file").isEqualTo(originalHash);
         assertThat(dates(then.get("items"))).as("before the revision: inverted from 2 January").containsExactly("2026-01-02", "2026-04-01");
         then.get("items").forEach(t -> assertThat(t.get("superseded_by").isNull()).as("not superseded at T1").isTrue());
 
         JsonNode standing = json(given().get("/api/transitions?spread=" + SPREAD));
-        assertThat(standing.isArray()).as("without asOf the answer keeps its old shape, a plain list").isTrue();
+        assertThat(standing.isArray()).as("without as_of the answer keeps its old shape, a plain list").isTrue();
         assertThat(dates(standing)).as("after the revision: inverted from 5 January").containsExactly("2026-01-05", "2026-04-01");
         JsonNode all = json(given().get("/api/transitions?spread=" + SPREAD + "&superseded=true"));
         assertThat(all).hasSize(4);
@@ -125,16 +125,16 @@ class HistoryApiTest {
             boolean fromT1 = Instant.parse(t.get("recorded_at").asText()).isBefore(t1);
             assertThat(t.get("superseded_by").isNull()).as("recorded before T1 means replaced by the revision: %s", t).isEqualTo(!fromT1);
         }
-        JsonNode now = json(given().get("/api/transitions?spread=" + SPREAD + "&asOf=" + Instant.now()));
+        JsonNode now = json(given().get("/api/transitions?spread=" + SPREAD + "&as_of=" + Instant.now()));
         assertThat(now.get("policy_hash").asText()).as("the reloaded rule set").isEqualTo(reloadedHash);
         assertThat(dates(now.get("items"))).containsExactly("2026-01-05", "2026-04-01");
-        given().get("/api/transitions?asOf=yesterday").then().statusCode(400).body(containsString("ISO-8601 instant"));
+        given().get("/api/transitions?as_of=yesterday").then().statusCode(400).body(containsString("ISO-8601 instant"));
     }
 
     @Test
     @Order(3)
     void theSpreadAsOfT1IsTheStateBeforeTheRevision() throws IOException {
-        JsonNode then = json(given().get("/api/spreads/" + SPREAD + "?asOf=" + t1));
+        JsonNode then = json(given().get("/api/spreads/" + SPREAD + "?as_of=" + t1));
         assertThat(then.get("policy_hash").asText()).isEqualTo(originalHash);
         assertThat(then.get("recomputed_under").asText()).as("replayed under the rules in force now").isEqualTo(reloadedHash);
         assertThat(then.get("quotes_replayed").asInt()).as("the quarter's business days and 1 April, one message each")
@@ -142,15 +142,15 @@ class HistoryApiTest {
         assertThat(then.get("spread").get("state").asText()).isEqualTo("CONFIRMED");
         assertThat(then.get("spread").get("spell").get("start").asText()).isEqualTo("2026-01-02");
         assertThat(json(given().get("/api/spreads/" + SPREAD)).get("spell").get("start").asText()).isEqualTo("2026-01-05");
-        given().get("/api/spreads/" + SPREAD + "?asOf=" + beforeAnything).then().statusCode(404);
+        given().get("/api/spreads/" + SPREAD + "?as_of=" + beforeAnything).then().statusCode(404);
 
-        JsonNode history = json(given().get("/api/spreads/" + SPREAD + "/history?from=2026-01-02&to=2026-01-02&asOf=" + t1));
+        JsonNode history = json(given().get("/api/spreads/" + SPREAD + "/history?from=2026-01-02&to=2026-01-02&as_of=" + t1));
         assertThat(history.get("items").get(0).get("value_bp").asDouble()).as("the value standing at T1").isEqualTo(-20.0);
         given().get("/api/spreads/" + SPREAD + "/history?from=2026-01-02&to=2026-01-02").then().statusCode(200)
                 .body("value_bp", equalTo(List.of(30.0f)));
-        assertThat(json(given().get("/api/rejects?asOf=" + t1)).get("items")).as("the reject came after T1").isEmpty();
+        assertThat(json(given().get("/api/rejects?as_of=" + t1)).get("items")).as("the reject came after T1").isEmpty();
         assertThat(json(given().get("/api/rejects")).findValuesAsText("detail")).contains("unknown field 'yeild'");
-        JsonNode alertsThen = json(given().get("/api/alerts?asOf=" + t1));
+        JsonNode alertsThen = json(given().get("/api/alerts?as_of=" + t1));
         assertThat(alertsThen.get("policy_hash").asText()).isEqualTo(originalHash);
         assertThat(alertsThen.get("items").findValuesAsText("id")).contains(FIRST, CONFIRMED);
     }
@@ -185,7 +185,7 @@ class HistoryApiTest {
         assertThat(index(items, "delivery-attempt", "alert_id", CONFIRMED)).isGreaterThan(confirmAlert);
         assertThat(kind(items.get(items.size() - 1))).as("the acknowledgement came last").isEqualTo("ack");
 
-        JsonNode then = json(given().get("/api/spreads/" + SPREAD + "/timeline?asOf=" + t1));
+        JsonNode then = json(given().get("/api/spreads/" + SPREAD + "/timeline?as_of=" + t1));
         assertThat(then.get("policy_hash").asText()).isEqualTo(originalHash);
         List<String> kinds = then.get("items").findValuesAsText("kind");
         assertThat(kinds.stream().filter("observation"::equals)).hasSize(UNTIL_T1);
@@ -204,7 +204,7 @@ class HistoryApiTest {
     @Order(5)
     void csvAndJsonExportsCarryTheSameRows() throws IOException {
         for (String what : List.of("observations", "transitions", "alerts")) {
-            for (String asOf : new String[] {"", "&asOf=" + t1}) {
+            for (String asOf : new String[] {"", "&as_of=" + t1}) {
                 String query = "/api/export/" + what + "?spread=" + SPREAD + asOf;
                 Response csv = given().get(query + "&format=csv");
                 csv.then().statusCode(200).contentType(containsString("text/csv"))
@@ -218,7 +218,7 @@ class HistoryApiTest {
                 assertSameRows(what + asOf, records, doc.get("items"));
             }
         }
-        List<CsvRecord> observations = csv(given().get("/api/export/observations?spread=" + SPREAD + "&asOf=" + t1).asString());
+        List<CsvRecord> observations = csv(given().get("/api/export/observations?spread=" + SPREAD + "&as_of=" + t1).asString());
         assertThat(observations.get(0).getFields()).containsExactly("id", "spread_id", "market_date", "value_bp", "seq", "standing",
                 "recorded_at");
         assertThat(observations.subList(1, observations.size())).as("every day at 480 − 500 bp, all standing at T1").hasSize(UNTIL_T1)

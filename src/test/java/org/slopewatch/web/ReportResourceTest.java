@@ -6,6 +6,8 @@ import static org.hamcrest.Matchers.containsString;
 import static org.hamcrest.Matchers.equalTo;
 
 import io.quarkus.test.junit.QuarkusTest;
+import io.quarkus.test.junit.QuarkusTestProfile;
+import io.quarkus.test.junit.TestProfile;
 import io.restassured.http.ContentType;
 import jakarta.inject.Inject;
 import java.nio.file.Files;
@@ -13,6 +15,9 @@ import java.nio.file.Path;
 import java.security.MessageDigest;
 import java.util.HexFormat;
 import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.apache.commons.math3.distribution.NormalDistribution;
 import org.jsoup.Jsoup;
 import org.jsoup.nodes.Document;
 import org.jsoup.nodes.Element;
@@ -22,7 +27,21 @@ import org.slopewatch.alerting.PolicyHolder;
 
 /** {@code GET /api/report}: the journal's story of a spread as one HTML page, read back with jsoup. */
 @QuarkusTest
+@TestProfile(ReportResourceTest.OwnJournal.class)
 class ReportResourceTest {
+
+    /**
+     * A journal of its own: the report states where GOVT-B stands at the end of its journal, so no
+     * other test's GOVT-B quotes may come after the days posted here.
+     */
+    public static final class OwnJournal implements QuarkusTestProfile {
+
+        @Override
+        public Map<String, String> getConfigOverrides() {
+            return Map.of("slopewatch.data-dir", java.nio.file.Path.of("target", "test-data", "report-" + java.util.UUID.randomUUID())
+                    .toAbsolutePath().toString());
+        }
+    }
 
     private static final String SPREAD = "GOVT-B:10Y-3M";
 
@@ -54,7 +73,14 @@ class ReportResourceTest {
         assertThat(section).as("a section for %s", SPREAD).isNotNull();
         Element svg = section.selectFirst("svg.chart");
         assertThat(svg).as("a chart").isNotNull();
-        assertThat(svg.selectFirst("> title").text()).contains(SPREAD).contains("2026-07-13");
+        // the chart spans the journalled range of the spread, which other tests of this shared daemon may widen:
+        // it must cover the days posted here (2026-07-01 to 2026-07-13)
+        String title = svg.selectFirst("> title").text();
+        java.util.regex.Matcher range = java.util.regex.Pattern.compile("(\\d{4}-\\d{2}-\\d{2}) to (\\d{4}-\\d{2}-\\d{2})").matcher(title);
+        assertThat(title).contains(SPREAD);
+        assertThat(range.find()).as(title).isTrue();
+        assertThat(java.time.LocalDate.parse(range.group(1))).as(title).isBeforeOrEqualTo(java.time.LocalDate.parse("2026-07-01"));
+        assertThat(java.time.LocalDate.parse(range.group(2))).as(title).isAfterOrEqualTo(java.time.LocalDate.parse("2026-07-13"));
         assertThat(svg.select("g.spread-line path")).isNotEmpty();
         assertThat(svg.select("g.zero-line")).hasSize(1);
 
@@ -81,6 +107,20 @@ class ReportResourceTest {
         assertThat(page.select(".caution").text()).contains("not investment advice");
         assertThat(html).doesNotContain("src=\"http").doesNotContain("<link").doesNotContain("<script");
         assertThat(page.select("table.leads")).as("the daemon has no recession dates").isEmpty();
+
+        // The page opens with its findings: where the spread stands now and, under the default policy's
+        // probit for 10Y-3M (Estrella and Trubin (2006), alpha -0.5333, beta -0.6330, twelve months ahead,
+        // from memory), the probability from July 2026 so far: the nine posted days average
+        // (6 x 20 - 20 - 25 - 30) / 9 = 5 bp = 0.05 pp, P = Phi(-0.5333 - 0.6330 x 0.05), Phi from Commons Math.
+        assertThat(page.selectFirst("main > *").is("section.findings")).as("the findings come first").isTrue();
+        Element findings = page.selectFirst("section.findings div.spread-findings[data-spread=" + SPREAD + "]");
+        assertThat(findings.selectFirst("dd.state-now").text())
+                .isEqualTo("INVERTED since 2026-07-09; -30.0 bp on 2026-07-13; inverted spell open since 2026-07-09, not confirmed");
+        double p = new NormalDistribution().cumulativeProbability(-0.5333 - 0.6330 * 0.05);
+        assertThat(findings.selectFirst("dd.probability.provisional").text())
+                .startsWith(String.format(Locale.ROOT, "12-month-ahead recession probability %.0f %% (no band", 100 * p))
+                .contains("P(recession in 2027-07), from the 10Y-3M average of 2026-07 so far (provisional: month to date, 9 observations)")
+                .contains("; model: Estrella and Trubin (2006)");
     }
 
     @Test

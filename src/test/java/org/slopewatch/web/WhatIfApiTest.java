@@ -81,11 +81,14 @@ class WhatIfApiTest {
                 .contains("first-inversion~GOVT-A:10Y-3M~" + SPELL + "~1", "inversion-confirmed~GOVT-A:10Y-3M~" + LIVE_CONFIRMED + "~1");
 
         byte[] policy = Files.readAllBytes(Path.of("src/test/resources/policies/whatif-30-days.yaml"));
-        String id = given().contentType("application/json")
+        var started = given().contentType("application/json")
                 .body(JSON.writeValueAsString(Map.of("policy", new String(policy, java.nio.charset.StandardCharsets.UTF_8),
                         "spreads", List.of("GOVT-A:10Y-3M"))))
                 .post("/api/what-if").then().statusCode(202).body("state", equalTo("running"))
-                .header("Location", matchesPattern(".*/api/what-if/[0-9a-f-]+$")).extract().path("id");
+                .header("Location", matchesPattern(".*/api/what-if/[0-9a-f-]+$")).extract();
+        String id = started.path("id");
+        // RFC 9110, 15.3.3: a 202 ought to point to a monitor of the request's status; the API points with Location, to the job
+        given().get(started.header("Location")).then().statusCode(200).body("id", equalTo(id));
         JsonNode job = awaitDone(id);
 
         assertThat(job.get("state").asText()).as(job.toString()).isEqualTo("done");

@@ -22,8 +22,13 @@ public interface DemoConfig {
     @WithDefault("520")
     int fastDays();
 
-    /** Pace of the scripted cycle: about two years of business days in under a minute. */
-    @WithDefault("12")
+    /**
+     * Pace of the scripted cycle: four business days a second, a quarter of a second each, so that
+     * a confirmed inversion stays on screen for over a minute before it re-steepens (about two
+     * years of business days in a little over two minutes). {@code slopewatch demo --pace} sets it
+     * in seconds per market day.
+     */
+    @WithDefault("4")
     double fastDaysPerSecond();
 
     /** Pace once the cycle is over: the feed keeps going, slower. */

@@ -35,20 +35,20 @@ public class DemoFeedService {
             return;
         }
         DemoScenario scenario = DemoScenario.standard(config.seed(), config.start());
+        DemoPace pace = DemoPace.of(config);   // a pace that cannot be kept stops start-up, not the feed later
         LocalDate resumeAfter = pipeline.latestCurves().stream().map(s -> s.date()).max(LocalDate::compareTo).orElse(null);
-        LOG.infof("demo feed: GOVT-A (a tightening cycle) and GOVT-B from %s, seed %d, %s", scenario.start(), config.seed(),
-                resumeAfter == null ? "from the start" : "resuming after " + resumeAfter);
-        thread = new Thread(() -> run(scenario, resumeAfter), "slopewatch-demo-feed");
+        LOG.infof("demo feed: GOVT-A (a tightening cycle) and GOVT-B from %s, seed %d, %s, one market day every %s s", scenario.start(),
+                config.seed(), resumeAfter == null ? "from the start" : "resuming after " + resumeAfter, pace.before(0).toMillis() / 1000.0);
+        thread = new Thread(() -> run(scenario, pace, resumeAfter), "slopewatch-demo-feed");
         thread.setDaemon(true);
         thread.start();
     }
 
-    private void run(DemoScenario scenario, LocalDate resumeAfter) {
+    private void run(DemoScenario scenario, DemoPace pace, LocalDate resumeAfter) {
         long[] nextAt = {System.nanoTime()};
         try {
             new DemoFeed(scenario).play(resumeAfter, Long.MAX_VALUE, index -> {
-                double perSecond = index < config.fastDays() ? config.fastDaysPerSecond() : config.laterDaysPerSecond();
-                nextAt[0] += (long) (TimeUnit.SECONDS.toNanos(1) / perSecond);
+                nextAt[0] += pace.before(index).toNanos();
                 long wait = nextAt[0] - System.nanoTime();
                 if (wait > 0) {
                     try {
