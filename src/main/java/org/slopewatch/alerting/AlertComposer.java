@@ -9,6 +9,7 @@ import java.util.Locale;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.probability.LiveProbability;
+import org.slopewatch.probability.ProbabilityText;
 import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertDecision;
 import org.slopewatch.rules.AlertTrigger;
@@ -70,8 +71,7 @@ final class AlertComposer {
                         SpreadText.bp(status.quarterToDateAverageBp()), status.quarterToDateObservations())));
             }
             if (probability != null) {
-                facts.add(new Alert.Fact("recession probability", String.format(Locale.ROOT, "%.0f%% for %s (model: %s)",
-                        100 * probability.probability(), probability.targetMonth(), probability.source())));
+                facts.add(new Alert.Fact("recession probability", ProbabilityText.sentence(status.spread(), probability)));
             }
         }
         facts.add(new Alert.Fact("rule", d.rule().name() + " (" + trigger(d.rule().when()) + ")"));

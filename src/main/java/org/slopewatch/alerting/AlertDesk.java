@@ -163,7 +163,7 @@ public class AlertDesk implements AlertStage {
         String hash = policies.current().hash();
         for (AlertDecision d : decisions) {
             SpreadStatus status = byId.get(d.subject());
-            Alert alert = composer.compose(d, status, status == null ? null : policy.probability().current(status).orElse(null), now);
+            Alert alert = composer.compose(d, status, status == null ? null : policy.probability().stated(status).orElse(null), now);
             String quietedBy = quietedBy(d, now);
             List<JournalEntries.Outbox> outbox = new ArrayList<>();
             for (String channel : d.rule().channels()) {

@@ -7,6 +7,7 @@ import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadState;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.probability.LiveProbability;
+import org.slopewatch.probability.ProbabilityText;
 import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertDecision;
 import org.slopewatch.rules.AlertTrigger;
@@ -178,14 +179,8 @@ final class NoticeText {
     }
 
     private String probabilityText() {
-        return String.format(Locale.ROOT, "The policy's model puts the probability of a recession in %s at %.0f%%%s, from the %s average "
-                        + "of the spread (%s%s, %d observations); model: %s. A model probability is an estimate from past recessions, "
-                        + "not a forecast of this one.",
-                probability.targetMonth(), 100 * probability.probability(), probability.band() == null ? ""
-                        : String.format(Locale.ROOT, " (90%% band %.0f%% to %.0f%%)", 100 * probability.band().lower(),
-                        100 * probability.band().upper()),
-                probability.month(), SpreadText.bp(probability.averageBp()), probability.provisional() ? ", month so far" : "",
-                probability.observations(), probability.source());
+        return ProbabilityText.sentence(s.spread(), probability) + ". A model probability is an estimate from past recessions, not a "
+                + "forecast of this one.";
     }
 
     private String interval() {

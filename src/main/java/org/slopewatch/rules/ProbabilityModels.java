@@ -61,6 +61,14 @@ public record ProbabilityModels(Map<String, SpreadProbabilityModel> bySpread) {
                 m.previousAverageBp(), m.previousObservations(), false));
     }
 
+    /**
+     * The probability a notice states: the last complete month's (final), or the month so far
+     * (provisional, and said to be) while no month is complete yet.
+     */
+    public Optional<LiveProbability> stated(SpreadStatus status) {
+        return lastMonth(status).or(() -> current(status));
+    }
+
     /** Spread id → the current probability, for the alert rules; spreads without a model are absent. */
     public Map<String, Double> currentBySpreadId(Collection<SpreadStatus> statuses) {
         Map<String, Double> out = new HashMap<>();

@@ -120,6 +120,36 @@ class DemoNoticesTest {
         assertThat(disagreements).as("notices whose figures differ from the journal's (%d notices read)", notices.size()).isEmpty();
     }
 
+    /**
+     * The probability a notice states is one figure: where its body states one, its fact says the
+     * same sentence, and it is the final value of the last complete month (the sentence itself is
+     * checked against Commons Math in ProbabilityTextTest and against posted quotes in
+     * DashboardBrowserTest).
+     */
+    @Test
+    void aNoticeStatesTheProbabilityOnceAndAsTheModelGivesIt() {
+        List<String> disagreements = new ArrayList<>();
+        int checked = 0;
+        for (AlertHistory.StoredAlert n : notices) {
+            for (Alert.Fact f : n.alert().facts()) {
+                if (!f.label().equals("recession probability")) {
+                    continue;
+                }
+                if (!f.value().contains("(complete month, ")) {
+                    disagreements.add(n.alert().id() + ": not the last complete month's: " + f.value());
+                }
+                if (n.alert().text().contains("recession probability")) {
+                    checked++;
+                    if (!n.alert().text().contains(f.value())) {
+                        disagreements.add(n.alert().id() + ": the body does not say the fact's '" + f.value() + "'");
+                    }
+                }
+            }
+        }
+        assertThat(checked).as("notices that state a probability in their body (confirmations of 10Y-3M, which the shipped policy models)").isPositive();
+        assertThat(disagreements).isEmpty();
+    }
+
     /** Every way a notice differs from the journal, each as a line naming the notice. */
     private static List<String> check(AlertHistory.StoredAlert n) {
         Alert a = n.alert();
@@ -303,7 +333,7 @@ class DemoNoticesTest {
             for (AlertDecision d : engine.decide(AlertConditions.of(policy.alerts(), statuses, Map.of(),
                     policy.probability().currentBySpreadId(statuses)), now)) {
                 SpreadStatus status = byId.get(d.subject());
-                Alert alert = composer.compose(d, status, policy.probability().current(status).orElse(null), now);
+                Alert alert = composer.compose(d, status, policy.probability().stated(status).orElse(null), now);
                 journal.alert(new JournalEntries.AlertEntry(alert, d.subject(), d.since(), d.number(), null, "test", sequence, List.of()));
             }
         }
