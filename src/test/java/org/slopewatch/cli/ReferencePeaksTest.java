@@ -95,8 +95,8 @@ class ReferencePeaksTest {
     }
 
     /*
-     * The review's finding: 10Y-1Y confirmed twice before the 1969-12 peak and the text counted "hits 7" over 6 peaks;
-     * 10Y-3Y counted "hits 11" over 7 peaks. Computed here: the confirmations before a peak and the distinct peaks they lead.
+     * Counting confirmations made 10Y-1Y, confirmed twice before the 1969-12 peak, read "hits 7" over 6 peaks, and 10Y-3Y
+     * "hits 11" over 7. Computed here: the confirmations before a peak and the distinct peaks they lead.
      */
     @Test
     void aSecondConfirmationBeforeTheSamePeakIsNotASecondHit() throws IOException {
