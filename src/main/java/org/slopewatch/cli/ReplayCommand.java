@@ -79,7 +79,8 @@ final class ReplayCommand implements Callable<Integer> {
     @Option(names = "--hold-days", paramLabel = "DAYS", defaultValue = "365", description = "Days a re-steepened spread stays RESTEEPENING (default: ${DEFAULT-VALUE}).")
     int holdDays;
 
-    @Option(names = "--recessions", paramLabel = "FILE", description = "Business-cycle dates, CSV 'peak,trough' (YYYY-MM): adds lead times, false alarms, late signals, missed recessions.")
+    @Option(names = "--recessions", paramLabel = "FILE", description = "Business-cycle dates, CSV 'peak,trough' (YYYY-MM), optionally ',peak_announced' (YYYY-MM-DD): adds lead times, "
+            + "false alarms, and each peak signalled ahead, late or missed, against its announcement when given.")
     Path recessions;
 
     @Option(names = "--false-alarm-months", paramLabel = "N", defaultValue = "24", description = "A confirmation with no peak within N months is a false alarm (default: ${DEFAULT-VALUE}).")

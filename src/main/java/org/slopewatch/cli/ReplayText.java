@@ -8,15 +8,17 @@ import java.util.Locale;
 import java.util.stream.Collectors;
 import org.slopewatch.monitor.Quarter;
 import org.slopewatch.probability.LeadTime;
+import org.slopewatch.probability.PeakLead;
 import org.slopewatch.replay.ReplayReport;
 import org.slopewatch.replay.SpreadReport;
 
-/** The replay report as text for people: a summary per spread, confirmed spells, lead times. */
+/** The replay report as text for people: a summary per spread, confirmed spells, lead times, each peak. */
 final class ReplayText {
 
     private static final String LATE = "late: recession already under way";
     /** The outcome column is padded so that the re-steepening columns line up after the longest outcome. */
     private static final int OUTCOME_WIDTH = LATE.length();
+    private static final int TIMING_WIDTH = timing(PeakLead.Timing.AFTER_PEAK).length();
 
     private final PrintWriter out;
     private final boolean listTransitions;
@@ -87,13 +89,65 @@ final class ReplayText {
                     l.peak() == null ? "-" : l.peak().toString(), orDash(l.months()), outcome,
                     l.resteepened() == null ? "not yet" : l.resteepened().toString(), orDash(l.monthsFromResteepening()));
         }
-        long hits = s.leads().stream().filter(l -> l.outcome().equals("hit")).count();
+        // a confirmation before a peak is not a hit of its own: peaks are counted once, below
+        long before = s.leads().stream().filter(l -> l.peak() != null && !l.late()).count();
         long late = s.leads().stream().filter(LeadTime::late).count();
         long falseAlarms = s.leads().stream().filter(LeadTime::falseAlarm).count();
-        out.printf(Locale.ROOT, "    hits %d, late %d, false alarms %d; missed peaks: %s%n", hits, late, falseAlarms, months(s.missedPeaks()));
+        long pending = s.leads().stream().filter(LeadTime::pending).count();
+        out.printf(Locale.ROOT, "    confirmations %d: %d before a peak, %d late, %d false %s%s%n", s.leads().size(), before, late, falseAlarms,
+                falseAlarms == 1 ? "alarm" : "alarms", pending == 0 ? "" : ", " + pending + " pending");
+        peaks(s, window);
+    }
+
+    /** One row per peak, from the report's per-peak outcomes: nothing is counted here. */
+    private void peaks(SpreadReport s, Integer window) {
+        out.println();
+        out.println("  each business-cycle peak, signalled by its first confirmation (later ones are named, not counted)");
+        out.println("  signal came: before the peak, after it but before the peak was announced, or after both");
+        out.printf(Locale.ROOT, "    %-7s  %-7s  %-10s  %6s  %-10s  %-" + TIMING_WIDTH + "s  %s%n", "peak", "outcome", "first", "months", "announced",
+                "signal came", "later confirmations");
+        for (PeakLead p : s.peaks()) {
+            out.printf(Locale.ROOT, "    %-7s  %-7s  %-10s  %6s  %-10s  %-" + TIMING_WIDTH + "s  %s%n", p.peak(), outcome(p.outcome()),
+                    p.firstConfirmed() == null ? "-" : p.firstConfirmed().toString(), orDash(p.months()),
+                    p.announced() == null ? "-" : p.announced().toString(), timing(p.timing()), later(p.laterConfirmations()));
+        }
+        long ahead = s.peaks().stream().filter(p -> p.outcome() == PeakLead.Outcome.AHEAD).count();
+        long late = s.peaks().stream().filter(p -> p.outcome() == PeakLead.Outcome.LATE).count();
+        long missed = s.peaks().stream().filter(p -> p.outcome() == PeakLead.Outcome.MISSED).count();
+        out.printf(Locale.ROOT, "    peaks %d assessed: %d signalled ahead, %d late, %d missed%n", s.peaks().size(), ahead, late, missed);
         if (!s.unassessedPeaks().isEmpty()) {
             out.printf(Locale.ROOT, "    not assessed (data starts less than %d months before): %s%n", window, months(s.unassessedPeaks()));
         }
+    }
+
+    private static String outcome(PeakLead.Outcome o) {
+        return switch (o) {
+            case AHEAD -> "ahead";
+            case LATE -> "late";
+            case MISSED -> "missed";
+        };
+    }
+
+    static String timing(PeakLead.Timing t) {
+        if (t == null) {
+            return "-";
+        }
+        return switch (t) {
+            case BEFORE_PEAK -> "before the peak";
+            case BEFORE_ANNOUNCEMENT -> "before the announcement";
+            case AFTER_BOTH -> "after both";
+            case AFTER_PEAK -> "after the peak (no announcement date)";
+        };
+    }
+
+    private static String later(List<PeakLead.LaterConfirmation> later) {
+        return later.isEmpty() ? "none" : later.stream()
+                .map(l -> l.confirmed() + " (" + months(Math.abs(l.months())) + (l.months() >= 0 ? " before)" : " after)"))
+                .collect(Collectors.joining(", "));
+    }
+
+    private static String months(int n) {
+        return n + (n == 1 ? " month" : " months");
     }
 
     private static String orDash(Integer months) {

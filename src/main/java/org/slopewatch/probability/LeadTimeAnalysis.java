@@ -12,7 +12,8 @@ import java.util.Set;
 /**
  * Measures confirmations against recession dates: the lead from each confirmation to the next
  * peak, false alarms (no peak within the window), late signals (confirmed after a peak, by its
- * trough) and missed recessions (a peak with no confirmation in the window before it).
+ * trough) and missed recessions (a peak with no confirmation in the window before it); then, per
+ * peak, the outcome its first confirmation gives ({@link PeakLead}).
  *
  * <p>For each confirmed spell that has re-steepened it also gives the months from the
  * re-steepening to the same peak. That peak is the one the confirmation is measured against, not
@@ -72,7 +73,7 @@ public final class LeadTimeAnalysis {
                 missed.add(peak);
             }
         }
-        return new LeadTimeReport(windowMonths, leads, missed, unassessed);
+        return new LeadTimeReport(windowMonths, leads, PeakLeads.of(leads, missed, recessions), missed, unassessed);
     }
 
     private static YearMonth max(YearMonth a, YearMonth b) {

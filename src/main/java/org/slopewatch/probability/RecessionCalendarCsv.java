@@ -7,6 +7,7 @@ import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.time.LocalDate;
 import java.time.YearMonth;
 import java.time.format.DateTimeParseException;
 import java.util.ArrayList;
@@ -17,10 +18,15 @@ import org.slopewatch.text.Excerpt;
  * Reads a recession calendar from CSV: a header line {@code peak,trough}, then one recession a
  * line with both months as {@code YYYY-MM}. Blank lines are ignored. Every error names the
  * source and the line, because these files are kept by hand.
+ *
+ * <p>A third column, {@code peak_announced} ({@code YYYY-MM-DD}, may be empty), gives the day each
+ * peak was made public. It is optional so that a plain chronology of peaks and troughs, as it is
+ * usually passed around, reads as it is; when the header names it, every row has three cells.
  */
 public final class RecessionCalendarCsv {
 
     private static final String HEADER = "peak,trough";
+    private static final String HEADER_ANNOUNCED = "peak,trough,peak_announced";
 
     private RecessionCalendarCsv() {
     }
@@ -43,6 +49,7 @@ public final class RecessionCalendarCsv {
         String line;
         int lineNo = 0;
         boolean headerSeen = false;
+        int columns = 2;
         while ((line = in.readLine()) != null) {
             lineNo++;
             String text = stripBom(line, lineNo).strip();
@@ -50,13 +57,17 @@ public final class RecessionCalendarCsv {
                 continue;
             }
             if (!headerSeen) {
-                if (!text.replace(" ", "").equalsIgnoreCase(HEADER)) {
-                    throw error(source, lineNo, "expected the header '" + HEADER + "', found " + Excerpt.quoted(text));
+                String header = text.replace(" ", "");
+                if (header.equalsIgnoreCase(HEADER_ANNOUNCED)) {
+                    columns = 3;
+                } else if (!header.equalsIgnoreCase(HEADER)) {
+                    throw error(source, lineNo, "expected the header '" + HEADER + "' or '" + HEADER_ANNOUNCED + "', found "
+                            + Excerpt.quoted(text));
                 }
                 headerSeen = true;
                 continue;
             }
-            Recession r = parseRow(text, source, lineNo);
+            Recession r = parseRow(text, columns, source, lineNo);
             if (!recessions.isEmpty() && r.peak().isBefore(recessions.get(recessions.size() - 1).trough())) {
                 throw error(source, lineNo, "peak " + r.peak() + " comes before the previous trough "
                         + recessions.get(recessions.size() - 1).trough()
@@ -70,17 +81,38 @@ public final class RecessionCalendarCsv {
         return new RecessionCalendar(recessions);
     }
 
-    private static Recession parseRow(String text, String source, int lineNo) {
+    private static Recession parseRow(String text, int columns, String source, int lineNo) {
         String[] cells = text.split(",", -1);
-        if (cells.length != 2) {
-            throw error(source, lineNo, "expected 2 columns 'peak,trough', found " + cells.length + ": " + Excerpt.quoted(text));
+        if (cells.length != columns) {
+            throw error(source, lineNo, "expected " + columns + " columns '" + (columns == 2 ? HEADER : HEADER_ANNOUNCED) + "', found "
+                    + cells.length + ": " + Excerpt.quoted(text));
         }
         YearMonth peak = parseMonth(cells[0].strip(), "peak", source, lineNo);
         YearMonth trough = parseMonth(cells[1].strip(), "trough", source, lineNo);
         if (!trough.isAfter(peak)) {
             throw error(source, lineNo, "trough " + trough + " must come after peak " + peak);
         }
-        return new Recession(peak, trough);
+        LocalDate announced = columns == 3 ? parseDay(cells[2].strip(), source, lineNo) : null;
+        if (announced != null && !YearMonth.from(announced).isAfter(peak)) {
+            throw error(source, lineNo, "peak_announced " + announced + " must come after the peak month " + peak
+                    + " (a peak is seen only after it)");
+        }
+        return new Recession(peak, trough, announced);
+    }
+
+    /** An empty cell: the announcement date is not known. */
+    private static LocalDate parseDay(String cell, String source, int lineNo) {
+        if (cell.isEmpty()) {
+            return null;
+        }
+        if (!cell.matches("\\d{4}-\\d{2}-\\d{2}")) {
+            throw error(source, lineNo, "peak_announced " + Excerpt.quoted(cell) + " is not a date in the form YYYY-MM-DD");
+        }
+        try {
+            return LocalDate.parse(cell);
+        } catch (DateTimeParseException e) {
+            throw error(source, lineNo, "peak_announced " + Excerpt.quoted(cell) + " is not a valid date");
+        }
     }
 
     private static YearMonth parseMonth(String cell, String column, String source, int lineNo) {

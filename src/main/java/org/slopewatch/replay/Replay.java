@@ -129,6 +129,7 @@ public final class Replay {
                         r.before().stream().map(Transition::toString).toList(),
                         r.after().stream().map(Transition::toString).toList())).toList(),
                 leads == null ? null : leads.leads(),
+                leads == null ? null : leads.peaks(),
                 leads == null ? null : leads.missedPeaks(),
                 leads == null ? null : leads.unassessedPeaks());
     }

@@ -4,17 +4,20 @@ import java.time.LocalDate;
 import java.time.YearMonth;
 import java.util.List;
 import org.slopewatch.probability.LeadTime;
+import org.slopewatch.probability.PeakLead;
 
 /**
  * What a replay found for one spread. Field names become the JSON report's keys (snake case).
  *
  * @param leads       one entry per confirmation, or null when no recession dates were given
+ * @param peaks       one entry per assessed peak (signalled ahead, late or missed), each counted once
+ *                    however many confirmations it had; null when no recession dates were given
  * @param missedPeaks peaks missed, or null when no recession dates were given
  */
 public record SpreadReport(String id, String curve, String spread, String rules, long observations, String finalState,
                            LocalDate lastDate, Double lastValueBp, List<QuarterRow> quarters,
                            List<TransitionRow> transitions, List<SpellRow> spells, List<RevisionRow> revisions,
-                           List<LeadTime> leads, List<YearMonth> missedPeaks, List<YearMonth> unassessedPeaks) {
+                           List<LeadTime> leads, List<PeakLead> peaks, List<YearMonth> missedPeaks, List<YearMonth> unassessedPeaks) {
 
     /** A complete calendar quarter. */
     public record QuarterRow(String quarter, double averageBp, int observations) {

@@ -1,6 +1,6 @@
 /**
  * Offline analysis of history files: the replay (history through the engine objects the daemon
- * uses, into a report of quarters, transitions, spells and lead times), the probit fit (one
+ * uses, into a report of quarters, transitions, spells, lead times and one outcome per peak), the probit fit (one
  * spread's series read the same way, into a {@link org.slopewatch.replay.FitReport}), and the
  * what-if ({@link org.slopewatch.replay.WhatIf}: another policy's alert rules on stored history,
  * with market dates as the clock, compared with what fired live). Plain Java; opens no ports and

@@ -6,12 +6,15 @@ import static org.slopewatch.report.Cells.num;
 import static org.slopewatch.report.Cells.td;
 import static org.slopewatch.report.Cells.th;
 
+import java.time.YearMonth;
 import java.util.IntSummaryStatistics;
 import java.util.List;
 import java.util.Locale;
+import java.util.TreeMap;
 import java.util.stream.Collectors;
 import org.slopewatch.probability.LeadTime;
 import org.slopewatch.probability.LiveProbability;
+import org.slopewatch.probability.PeakLead;
 import org.slopewatch.probability.ProbabilityText;
 
 /**
@@ -40,8 +43,10 @@ final class FindingsHtml {
             out.append("<p class=\"scope\">No business-cycle dates were given, so no peak is assessed.</p>\n");
         } else {
             out.append("<p class=\"scope\">Measured against the business-cycle peaks in <code>").append(esc(doc.recessions().source()))
-                    .append("</code>. A peak counts as signalled by the first confirmation before it; a confirmation with no peak within ")
-                    .append(window).append(" months is a false alarm.</p>\n");
+                    .append("</code>. A peak counts once, signalled by the first confirmation measured against it: ahead when that came by ")
+                    .append("the peak month, late when it came during the recession; a confirmation with no peak within ")
+                    .append(window).append(" months is a false alarm. Peaks are dated, and announced, months after the fact: ")
+                    .append("where the dates give the day a peak was announced, the signal is compared with it too.</p>\n");
         }
         int index = 0;
         for (SpreadSection s : doc.spreads()) {
@@ -101,10 +106,10 @@ final class FindingsHtml {
     }
 
     private static String peakSummary(SpreadFindings f) {
-        List<PeakFinding> ahead = f.peaks(PeakFinding.Outcome.AHEAD);
-        int late = f.peaks(PeakFinding.Outcome.LATE).size();
-        int missed = f.peaks(PeakFinding.Outcome.MISSED).size();
-        int assessed = ahead.size() + late + missed;
+        List<PeakLead> ahead = f.peaks(PeakLead.Outcome.AHEAD);
+        int late = f.peaks(PeakLead.Outcome.LATE).size();
+        int missed = f.peaks(PeakLead.Outcome.MISSED).size();
+        int assessed = f.peaks().size();
         StringBuilder b = new StringBuilder();
         if (assessed == 0) {
             b.append("no peak inside the data could be assessed");
@@ -112,15 +117,21 @@ final class FindingsHtml {
             b.append(ahead.size()).append(" of ").append(assessed).append(assessed == 1 ? " assessed peak" : " assessed peaks")
                     .append(" signalled ahead");
             if (!ahead.isEmpty()) {
-                IntSummaryStatistics months = ahead.stream().mapToInt(p -> p.first().months()).summaryStatistics();
+                IntSummaryStatistics months = ahead.stream().mapToInt(PeakLead::months).summaryStatistics();
                 b.append(months.getMin() == months.getMax() ? " (" + months(months.getMin()) + " before)"
                         : " (" + months.getMin() + " to " + months(months.getMax()) + " before)");
             }
             b.append("; ").append(late).append(" late; ").append(missed == 0 ? "none" : Integer.toString(missed)).append(" missed");
+            List<PeakLead> announced = f.peaks().stream().filter(p -> p.announced() != null).toList();
+            if (!announced.isEmpty()) {
+                long known = announced.stream().filter(p -> p.timing() == PeakLead.Timing.BEFORE_PEAK
+                        || p.timing() == PeakLead.Timing.BEFORE_ANNOUNCEMENT).count();
+                b.append("; signalled before the announcement for ").append(known).append(" of ").append(announced.size())
+                        .append(announced.size() == 1 ? " peak" : " peaks").append(" with an announcement date");
+            }
         }
-        List<PeakFinding> unassessed = f.peaks(PeakFinding.Outcome.NOT_ASSESSED);
-        if (!unassessed.isEmpty()) {
-            b.append(". Not assessed: ").append(unassessed.stream().map(p -> p.peak().toString()).collect(Collectors.joining(", ")));
+        if (!f.notAssessed().isEmpty()) {
+            b.append(". Not assessed: ").append(f.notAssessed().stream().map(YearMonth::toString).collect(Collectors.joining(", ")));
         }
         return b.append('.').toString();
     }
@@ -133,34 +144,67 @@ final class FindingsHtml {
     private void peaks(SpreadFindings f) {
         SpreadSection s = f.spread();
         out.append("<div class=\"table-wrap\"><table class=\"peaks\">\n<caption>Each business-cycle peak in the data of ").append(esc(s.id()))
-                .append(": the first confirmation before it, or why there is none</caption>\n<thead><tr>").append(th("Peak"))
-                .append(th("Finding")).append(th("First confirmation")).append(th("Months before the peak", true))
+                .append(": the first confirmation measured against it, or why there is none, and whether it came before the peak ")
+                .append("was known</caption>\n<thead><tr>").append(th("Peak")).append(th("Finding")).append(th("First confirmation"))
+                .append(th("Months before the peak", true)).append(th("Peak announced")).append(th("Signal came"))
                 .append(th("Other confirmations of this peak")).append("</tr></thead>\n<tbody>\n");
-        for (PeakFinding p : f.peaks()) {
-            LeadTime first = p.first();
-            out.append("<tr data-peak=\"").append(p.peak()).append("\" data-outcome=\"").append(p.outcome().name().toLowerCase(Locale.ROOT))
-                    .append("\"><th scope=\"row\" class=\"date\">").append(p.peak()).append("</th>").append(td(finding(p)))
-                    .append(first == null ? td("none") : date(first.confirmed().toString()))
-                    .append(num(first == null ? "-" : first.months().toString()))
-                    .append(td(p.later().isEmpty() ? "none" : p.later().stream().map(FindingsHtml::other).collect(Collectors.joining("; "))))
-                    .append("</tr>\n");
-        }
-        if (f.peaks().isEmpty()) {
-            out.append("<tr><td colspan=\"5\" class=\"none\">No business-cycle peak inside the data.</td></tr>\n");
+        // the assessed peaks and those not assessed, in peak order
+        TreeMap<YearMonth, PeakLead> rows = new TreeMap<>();
+        f.notAssessed().forEach(m -> rows.put(m, null));
+        f.peaks().forEach(p -> rows.put(p.peak(), p));
+        rows.forEach((peak, p) -> {
+            out.append("<tr data-peak=\"").append(peak).append("\" data-outcome=\"")
+                    .append(p == null ? "not_assessed" : p.outcome().name().toLowerCase(Locale.ROOT)).append("\"");
+            if (p != null && p.timing() != null) {
+                out.append(" data-timing=\"").append(p.timing().name().toLowerCase(Locale.ROOT)).append("\"");
+            }
+            out.append("><th scope=\"row\" class=\"date\">").append(peak).append("</th>");
+            if (p == null) {
+                out.append(td("not assessed: the data begin less than " + window + " months before it")).append(td("none")).append(num("-"))
+                        .append(td("-")).append(td("-")).append(td("none"));
+            } else {
+                out.append(td(finding(p))).append(p.firstConfirmed() == null ? td("none") : date(p.firstConfirmed().toString()))
+                        .append(num(p.months() == null ? "-" : p.months().toString()))
+                        .append(p.announced() == null ? td("not given") : date(p.announced().toString()))
+                        .append(td(timing(p)))
+                        .append(td(p.laterConfirmations().isEmpty() ? "none"
+                                : p.laterConfirmations().stream().map(FindingsHtml::other).collect(Collectors.joining("; "))));
+            }
+            out.append("</tr>\n");
+        });
+        if (rows.isEmpty()) {
+            out.append("<tr><td colspan=\"7\" class=\"none\">No business-cycle peak inside the data.</td></tr>\n");
         }
         out.append("</tbody>\n</table></div>\n");
     }
 
-    private String finding(PeakFinding p) {
+    private String finding(PeakLead p) {
         return switch (p.outcome()) {
-            case AHEAD -> p.first().months() == 0 ? "signalled in the peak month" : "signalled " + months(p.first().months()) + " ahead";
-            case LATE -> "late: first confirmed " + months(-p.first().months()) + " after the peak, with the recession under way";
+            case AHEAD -> p.months() == 0 ? "signalled in the peak month" : "signalled " + months(p.months()) + " ahead";
+            case LATE -> "late: first confirmed " + months(-p.months()) + " after the peak, with the recession under way";
             case MISSED -> "missed: no confirmation in the " + window + " months before it, nor during the recession";
-            case NOT_ASSESSED -> "not assessed: the data begin less than " + window + " months before it";
         };
     }
 
-    private static String other(LeadTime l) {
+    /** When the signal came against what was known: before the peak, before its announcement, or after both. */
+    private static String timing(PeakLead p) {
+        if (p.timing() == null) {
+            return "-";
+        }
+        return switch (p.timing()) {
+            case BEFORE_PEAK -> p.announced() == null ? "before the peak" : "before the peak, " + beforeAnnouncement(p);
+            case BEFORE_ANNOUNCEMENT -> "after the peak, " + beforeAnnouncement(p);
+            case AFTER_BOTH -> "after the peak and its announcement";
+            case AFTER_PEAK -> "after the peak; no announcement date to compare with";
+        };
+    }
+
+    private static String beforeAnnouncement(PeakLead p) {
+        int n = p.monthsBeforeAnnouncement();
+        return n == 0 ? "before its announcement, in the same month" : months(n) + " before its announcement";
+    }
+
+    private static String other(PeakLead.LaterConfirmation l) {
         int m = l.months();
         return l.confirmed() + " (" + (m >= 0 ? months(m) + " before" : months(-m) + " after, late") + ")";
     }

@@ -49,7 +49,7 @@ public final class JournalDocument {
             sections.add(new SpreadSection(in.key().id(), in.key().curve(), in.key().spread(), in.rules(), state,
                     end == null ? null : end.date(), end == null ? null : end.valueBp(), v.size(),
                     ChartPoints.thin(v.size(), i -> v.get(i).date(), i -> v.get(i).valueBp(), ChartPoints.MAX_POINTS),
-                    SpellBand.fromTransitions(in.transitions()), in.transitions(), null, null, null, in.probability()));
+                    SpellBand.fromTransitions(in.transitions()), in.transitions(), null, null, null, null, in.probability()));
             if (!v.isEmpty()) {
                 first = first == null || v.get(0).date().isBefore(first) ? v.get(0).date() : first;
                 last = last == null || end.date().isAfter(last) ? end.date() : last;

@@ -35,7 +35,7 @@ public final class ReplayDocument {
             }
             sections.add(new SpreadSection(s.id(), s.curve(), s.spread(), s.rules(), s.finalState(), s.lastDate(), s.lastValueBp(),
                     s.observations(), ChartPoints.thin(v.size(), v::date, v::valueBp, ChartPoints.MAX_POINTS),
-                    s.spells().stream().map(SpellBand::of).toList(), s.transitions(), s.leads(), s.missedPeaks(),
+                    s.spells().stream().map(SpellBand::of).toList(), s.transitions(), s.leads(), s.peaks(), s.missedPeaks(),
                     s.unassessedPeaks(), probabilities.get(s.id())));
         }
         List<ReportSource.Detail> details = new ArrayList<>();

@@ -17,6 +17,7 @@ import java.util.Locale;
 import java.util.stream.Collectors;
 import org.slopewatch.monitor.PersistenceTest;
 import org.slopewatch.probability.LeadTime;
+import org.slopewatch.probability.PeakLead;
 import org.slopewatch.probability.Recession;
 import org.slopewatch.replay.SpreadReport;
 
@@ -130,6 +131,8 @@ public final class ReportHtml {
         out.append("<section aria-labelledby=\"recessions\">\n<h2 id=\"recessions\">Recession dates</h2>\n<dl class=\"facts\">\n");
         fact("File", "<code>" + esc(r.source()) + "</code>");
         fact("Recessions in the file", Integer.toString(r.recessions().size()));
+        long announced = r.recessions().stream().filter(x -> x.peakAnnounced() != null).count();
+        fact("Peak announcement dates", announced == 0 ? "none given" : "given for " + announced + " of " + r.recessions().size() + " peaks");
         fact("False alarm", "a confirmation with no peak within " + doc.falseAlarmWindowMonths() + " months");
         out.append("</dl>\n<p>In the charts a recession is a bar along the bottom of the plot, from the month after its peak through "
                 + "its trough month, labelled with its peak month.</p>\n</section>\n");
@@ -200,8 +203,9 @@ public final class ReportHtml {
             out.append("<tr><td colspan=\"6\" class=\"none\">No confirmation.</td></tr>\n");
         }
         out.append("</tbody>\n</table></div>\n<dl class=\"facts lead-summary\">\n");
-        fact("Hits", Long.toString(s.leads().stream().filter(l -> l.outcome().equals("hit")).count()));
-        fact("Late signals", Long.toString(s.leads().stream().filter(LeadTime::late).count()));
+        // peaks are counted once each, as the findings list them; two confirmations before one peak are one peak signalled
+        fact("Peaks signalled ahead", Long.toString(s.peaks().stream().filter(p -> p.outcome() == PeakLead.Outcome.AHEAD).count()));
+        fact("Peaks signalled late", Long.toString(s.peaks().stream().filter(p -> p.outcome() == PeakLead.Outcome.LATE).count()));
         fact("False alarms", Long.toString(s.leads().stream().filter(LeadTime::falseAlarm).count())
                 + " (no peak within " + window + " months)");
         fact("Missed recessions", months(s.missedPeaks()));

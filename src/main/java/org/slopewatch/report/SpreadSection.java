@@ -4,6 +4,7 @@ import java.time.LocalDate;
 import java.time.YearMonth;
 import java.util.List;
 import org.slopewatch.probability.LeadTime;
+import org.slopewatch.probability.PeakLead;
 import org.slopewatch.replay.SpreadReport;
 
 /**
@@ -12,12 +13,13 @@ import org.slopewatch.replay.SpreadReport;
  * @param rules        the monitor's rules in one line, or a note that none are known
  * @param observations values the monitor saw; {@code points} may hold fewer (see {@link ChartPoints})
  * @param leads        one per confirmation, or null without recession dates
+ * @param peaks        one per assessed peak, as the lead-time analysis decided it, or null without recession dates
  * @param missedPeaks  null without recession dates
  * @param probability  the recession probability at the end, or null when no model covers the spread
  */
 public record SpreadSection(String id, String curve, String spread, String rules, String finalState, LocalDate lastDate,
                             Double lastValueBp, long observations, List<ChartPoint> points, List<SpellBand> spells,
-                            List<SpreadReport.TransitionRow> transitions, List<LeadTime> leads, List<YearMonth> missedPeaks,
+                            List<SpreadReport.TransitionRow> transitions, List<LeadTime> leads, List<PeakLead> peaks, List<YearMonth> missedPeaks,
                             List<YearMonth> unassessedPeaks, SpreadProbability probability) {
 
     public SpreadSection {
@@ -25,6 +27,7 @@ public record SpreadSection(String id, String curve, String spread, String rules
         spells = List.copyOf(spells);
         transitions = List.copyOf(transitions);
         leads = leads == null ? null : List.copyOf(leads);
+        peaks = peaks == null ? null : List.copyOf(peaks);
         missedPeaks = missedPeaks == null ? null : List.copyOf(missedPeaks);
         unassessedPeaks = unassessedPeaks == null ? null : List.copyOf(unassessedPeaks);
     }

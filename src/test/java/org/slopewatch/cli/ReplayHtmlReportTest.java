@@ -177,14 +177,20 @@ class ReplayHtmlReportTest {
                         l.get("confirmed").asText(), orDash(l.get("peak")), orDash(l.get("months")), outcome,
                         l.get("resteepened").isNull() ? "not yet" : l.get("resteepened").asText(), orDash(l.get("months_from_resteepening")));
             }
-            long hits = 0;
             long falseAlarms = 0;
             for (JsonNode l : leads) {
-                hits += !l.get("late").asBoolean() && !l.get("false_alarm").asBoolean() && !l.get("pending").asBoolean() ? 1 : 0;
                 falseAlarms += l.get("false_alarm").asBoolean() ? 1 : 0;
             }
+            // peaks are counted once each, as the JSON report's peaks list has them, however many confirmations led them
+            long ahead = 0;
+            long late = 0;
+            for (JsonNode p : json.get("spreads").get(i).get("peaks")) {
+                ahead += p.get("outcome").asText().equals("AHEAD") ? 1 : 0;
+                late += p.get("outcome").asText().equals("LATE") ? 1 : 0;
+            }
             Element summary = section(i).selectFirst("dl.lead-summary");
-            assertThat(fact(summary, "Hits")).isEqualTo(Long.toString(hits));
+            assertThat(fact(summary, "Peaks signalled ahead")).isEqualTo(Long.toString(ahead));
+            assertThat(fact(summary, "Peaks signalled late")).isEqualTo(Long.toString(late));
             assertThat(fact(summary, "False alarms")).startsWith(falseAlarms + " ");
             List<String> missed = new ArrayList<>();
             json.get("spreads").get(i).get("missed_peaks").forEach(m -> missed.add(m.asText()));
@@ -258,14 +264,20 @@ class ReplayHtmlReportTest {
      * twice before the 1969-12 peak (NBER dates, from memory): quarters averaging below zero in 1968Q2 and
      * 1968Q4 (confirmed 1968-07-01 and 1969-01-01, as the replay's lead table lists them). The peak was
      * signalled once, 17 months ahead (1968-07 to 1969-12); the second confirmation is mentioned, not
-     * counted again.
+     * counted again. The 1969-12 peak has no announcement date in the file (the committee announced peaks
+     * from 1980 on); the 1990-07 peak was announced on 1991-04-25 (from memory), 24 months after the
+     * 1989-04-01 confirmation.
      */
     @Test
     void eachPeakIsSignalledByItsFirstConfirmationAndLaterOnesAreMentioned() {
         Element row = findings(0).selectFirst("table.peaks tr[data-peak=1969-12]");
         assertThat(row.attr("data-outcome")).isEqualTo("ahead");
-        assertThat(row.select("td").eachText()).containsExactly("signalled 17 months ahead", "1968-07-01", "17",
-                "1969-01-01 (11 months before)");
+        assertThat(row.select("td").eachText()).containsExactly("signalled 17 months ahead", "1968-07-01", "17", "not given",
+                "before the peak", "1969-01-01 (11 months before)");
+        Element ninety = findings(0).selectFirst("table.peaks tr[data-peak=1990-07]");
+        assertThat(ninety.attr("data-timing")).isEqualTo("before_peak");
+        assertThat(ninety.select("td").eachText()).containsExactly("signalled 15 months ahead", "1989-04-01", "15", "1991-04-25",
+                "before the peak, 24 months before its announcement", "none");
         for (int i = 0; i < ids().size(); i++) {
             JsonNode spread = json.get("spreads").get(i);
             // from the replay's JSON: each peak's confirmations in date order; the first not late signals it
@@ -288,9 +300,19 @@ class ReplayHtmlReportTest {
                 List<String> cells = r.select("td").eachText();
                 assertThat(cells.get(1)).as("first confirmation of %s", r.attr("data-peak")).isEqualTo(first == null ? "none" : first.get("confirmed").asText());
                 assertThat(cells.get(2)).isEqualTo(first == null ? "-" : first.get("months").asText());
-                assertThat(cells.get(3).equals("none")).as("other confirmations of %s: %s", r.attr("data-peak"), cells.get(3))
+                assertThat(cells.get(5).equals("none")).as("other confirmations of %s: %s", r.attr("data-peak"), cells.get(5))
                         .isEqualTo(leads.size() <= 1);
             }
+            // the same peaks as the JSON report's list, which is where they are decided
+            List<String> fromJson = new ArrayList<>();
+            spread.get("peaks").forEach(p -> fromJson.add(p.get("peak").asText() + " " + p.get("outcome").asText().toLowerCase(Locale.ROOT)));
+            List<String> fromPage = new ArrayList<>();
+            rows.forEach(r -> {
+                if (!r.attr("data-outcome").equals("not_assessed")) {
+                    fromPage.add(r.attr("data-peak") + " " + r.attr("data-outcome"));
+                }
+            });
+            assertThat(fromPage).containsExactlyElementsOf(fromJson);
             long ahead = outcomes.values().stream().filter("ahead"::equals).count();
             long assessed = outcomes.values().stream().filter(o -> !o.equals("not_assessed")).count();
             assertThat(findings(i).selectFirst("dd.peak-summary").text()).startsWith(ahead + " of " + assessed + " assessed peaks signalled ahead");
