@@ -1,6 +1,8 @@
 /**
  * Curves: tenors, yield units, curve snapshots per curve and market date, bill conversions,
- * interpolation and the Nelson–Siegel–Svensson fit.
+ * interpolation and the Nelson–Siegel–Svensson fit. The rules every reader of quotes shares live
+ * here: the basis a quote declares and its conversion ({@link org.slopewatch.curve.YieldBasis}) and
+ * the weekly bills read as month points in history files ({@link org.slopewatch.curve.TenorAliases}).
  *
  * <p>Invariants: every yield inside the engine is in basis points on a bond-equivalent basis;
  * values are checked against {@link org.slopewatch.curve.YieldBounds} on the way in, never

@@ -15,7 +15,6 @@ import java.time.LocalDate;
 import java.util.Arrays;
 import java.util.HashMap;
 import java.util.Iterator;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -23,22 +22,29 @@ import java.util.Set;
 import java.util.function.Consumer;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.Tenor;
+import org.slopewatch.curve.TenorAliases;
+import org.slopewatch.curve.YieldBasis;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.text.Excerpt;
 
 /**
- * Reads yield history from CSV into curve snapshots, in date order.
+ * Reads yield history from CSV into curve snapshots, each curve's in date order.
  *
  * <p>Two layouts, told apart by the header: wide ({@code date,3M,2Y,10Y,…}, one curve, one row
- * per date) and long ({@code date,curve,tenor,yield} in any column order, rows of one date
- * together). Dates are {@code YYYY-MM-DD} or {@code YYYY-MM} (the first of the month). Empty
- * cells and {@code NA}, {@code ND}, {@code .} mark a missing value. The text is UTF-8 (or the
- * charset given), a byte-order mark allowed ({@link CsvText}), CSV as RFC 4180 writes it with any
- * of CR, LF or CR LF ending a line. Anything else that is wrong stops the read with
- * {@code file:line:column: what is wrong}: a report built on half a file would be passed off as
- * whole. Every way the CSV parser (FastCSV) can fail is turned into that here, in
- * {@link #next} and {@link #refused}, so that no caller meets the parser's own exceptions.
+ * per date, in date order; a heading {@code 13W:discount} declares its column's basis,
+ * {@link TenorHeading}) and long ({@code date,curve,tenor,yield} and optionally {@code basis}, in
+ * any column order; rows in any order that keeps each curve's dates ascending, such as by date or
+ * by curve and date, {@link OpenSnapshots}). A discount basis is converted to bond-equivalent by
+ * {@link YieldBasis}, and {@code 13W}, {@code 26W}, {@code 52W} are read as {@code 3M}, {@code 6M},
+ * {@code 1Y} ({@link TenorAliases}), as every history file is. Dates are {@code YYYY-MM-DD} or
+ * {@code YYYY-MM} (the first of the month). Empty cells and {@code NA}, {@code ND}, {@code .} mark
+ * a missing value. The text is UTF-8 (or the charset given), a byte-order mark allowed
+ * ({@link CsvText}), CSV as RFC 4180 writes it with any of CR, LF or CR LF ending a line.
+ * Anything else that is wrong stops the read with {@code file:line:column: what is wrong}: a
+ * report built on half a file would be passed off as whole. Every way the CSV parser (FastCSV)
+ * can fail is turned into that here, in {@link #next} and {@link #refused}, so that no caller
+ * meets the parser's own exceptions.
  */
 public final class HistoryCsvReader {
 
@@ -63,7 +69,7 @@ public final class HistoryCsvReader {
     /** More fields than a line of {@link CsvText#MAX_LINE} characters can hold, so that a long line meets the line limit first. */
     private static final int MAX_FIELDS = CsvText.MAX_LINE + 1;
     private static final int PROGRESS_EVERY_ROWS = 16_384;
-    private static final Set<String> LAYOUT_COLUMNS = Set.of("date", "curve", "tenor", "yield");
+    private static final Set<String> LAYOUT_COLUMNS = Set.of("date", "curve", "tenor", "yield", "basis");
 
     private final String source;
     private final CsvText text;
@@ -93,8 +99,10 @@ public final class HistoryCsvReader {
     }
 
     /**
-     * Reads a whole stream, handing each snapshot to {@code sink} as soon as its date is complete;
-     * a caller that must take all or nothing collects them until the read returns.
+     * Reads a whole stream, handing each snapshot to {@code sink} as soon as it is complete, each
+     * curve's in date order (a long file's curves interleaved as its rows allow, {@link OpenSnapshots});
+     * a caller that must take all or nothing collects them until the read returns. The summary's
+     * first and last dates are the earliest and latest of any row.
      *
      * @param source   the name used in error messages (usually the file name)
      * @param charset  the text's charset, unless it starts with a byte-order mark (UTF-8, UTF-16), which decides
@@ -198,15 +206,19 @@ public final class HistoryCsvReader {
     private void readWide(Iterator<CsvRecord> records, CsvRecord header) throws IOException, HistoryFormatException {
         int dateColumn = -1;
         int n = header.getFieldCount();
-        Tenor[] tenors = new Tenor[n];
+        TenorHeading[] headings = new TenorHeading[n];
         for (int i = 0; i < n; i++) {
             String name = header.getField(i).strip();
             if (name.equalsIgnoreCase("date")) {
                 dateColumn = i;
                 continue;
             }
+            if (name.equalsIgnoreCase("basis")) {
+                throw at(header, i, "a wide file declares the basis in a column's heading, e.g. 13W:discount;"
+                        + " a basis column belongs to the long layout date,curve,tenor,yield,basis");
+            }
             try {
-                tenors[i] = Tenor.parse(name);
+                headings[i] = TenorHeading.parse(name);
             } catch (IllegalArgumentException e) {
                 throw at(header, i, e.getMessage());
             }
@@ -221,12 +233,16 @@ public final class HistoryCsvReader {
         if (order.length == 0) {
             throw at(header, 0, "no tenor columns: expected a header such as 'date,3M,2Y,10Y'");
         }
-        Arrays.sort(order, (a, b) -> tenors[a].compareTo(tenors[b])); // stable: of two equal tenors the later column comes second
+        // stable: of two equal tenors the later column comes second
+        Arrays.sort(order, (a, b) -> headings[a].tenor().compareTo(headings[b].tenor()));
         Tenor[] sorted = new Tenor[order.length];
+        TenorHeading[] columns = new TenorHeading[order.length];
         for (int j = 0; j < order.length; j++) {
-            sorted[j] = tenors[order[j]];
+            columns[j] = headings[order[j]];
+            sorted[j] = columns[j].tenor();
             if (j > 0 && sorted[j].equals(sorted[j - 1])) {
-                throw at(header, order[j], "tenor " + sorted[j] + " appears twice in the header");
+                throw at(header, order[j], "tenor " + sorted[j] + " appears twice in the header"
+                        + TenorHeading.aliasNote(columns[j - 1].written()) + TenorHeading.aliasNote(columns[j].written()));
             }
         }
         double[] values = new double[order.length];
@@ -242,7 +258,7 @@ public final class HistoryCsvReader {
             }
             int present = 0;
             for (int j = 0; j < order.length; j++) {
-                double v = value(row, order[j], sorted[j]);
+                double v = value(row, order[j], columns[j].written(), columns[j].basis());
                 values[j] = v;
                 if (!Double.isNaN(v)) {
                     present++;
@@ -261,118 +277,106 @@ public final class HistoryCsvReader {
         int curveColumn = column(header, names, "curve");
         int tenorColumn = column(header, names, "tenor");
         int yieldColumn = column(header, names, "yield");
-        int needed = Math.max(Math.max(dateColumn, curveColumn), Math.max(tenorColumn, yieldColumn)) + 1;
+        int basisColumn = names.indexOf("basis"); // optional: bond-equivalent without it
+        int needed = Math.max(Math.max(Math.max(dateColumn, curveColumn), Math.max(tenorColumn, yieldColumn)), basisColumn) + 1;
         // A long file repeats the same few strings on every row: each tenor spelling is parsed once,
-        // and a date is parsed again only when its text changes (rows of one date come together).
-        Map<String, Tenor> tenors = new HashMap<>();
-        Map<String, CurveQuotes> pending = new LinkedHashMap<>();
-        LocalDate pendingDate = null;
-        String pendingDateText = null;
+        // and a date or basis is parsed again only when its text changes from the row before.
+        Map<String, TenorCell> tenors = new HashMap<>();
+        OpenSnapshots open = new OpenSnapshots(this::emit);
+        LocalDate rowDate = null;
+        String rowDateText = null;
+        YieldBasis basis = YieldBasis.BOND_EQUIVALENT;
+        String basisText = null;
         CsvRecord row;
         while ((row = next(records)) != null) {
             if (row.getFieldCount() < needed) {
                 throw at(row, row.getFieldCount(), "expected " + names.size() + " fields as in the header, found " + row.getFieldCount());
             }
             String dateText = row.getField(dateColumn);
-            LocalDate date = dateText.equals(pendingDateText) ? pendingDate : date(row, dateColumn);
-            if (pendingDate != null && date.isBefore(pendingDate)) {
-                throw at(row, dateColumn, "dates out of order: " + date + " after " + pendingDate);
-            }
-            if (pendingDate != null && date.isAfter(pendingDate)) {
-                flush(pending, pendingDate);
-            }
-            pendingDate = date;
-            pendingDateText = dateText;
+            LocalDate date = dateText.equals(rowDateText) ? rowDate : date(row, dateColumn);
+            rowDate = date;
+            rowDateText = dateText;
             String curve = row.getField(curveColumn).strip();
             if (curve.isEmpty()) {
                 throw at(row, curveColumn, "missing curve name");
             }
-            Tenor tenor = tenor(tenors, row, tenorColumn);
-            double v = value(row, yieldColumn, tenor);
+            OpenSnapshots.Curve quotesOf;
+            try {
+                quotesOf = open.row(curve, date);
+            } catch (OpenSnapshots.OutOfOrder e) {
+                throw at(row, dateColumn, e.getMessage());
+            }
+            TenorCell tenor = tenor(tenors, row, tenorColumn);
+            if (basisColumn >= 0) {
+                String spelt = row.getField(basisColumn);
+                if (!spelt.equals(basisText)) {
+                    basis = basis(row, basisColumn);
+                    basisText = spelt;
+                }
+                try {
+                    basis.check(tenor.written());
+                } catch (IllegalArgumentException e) {
+                    throw at(row, basisColumn, e.getMessage());
+                }
+            }
+            double v = value(row, yieldColumn, tenor.written(), basis);
             noteRow(date);
             if (Double.isNaN(v)) {
                 continue;
             }
-            if (!pending.computeIfAbsent(curve, c -> new CurveQuotes()).put(tenor, v)) {
-                throw at(row, tenorColumn, "second quote for " + Excerpt.of(curve) + " " + tenor + " on " + date);
+            if (!open.put(quotesOf, tenor.tenor(), v)) {
+                throw at(row, tenorColumn, "second quote for " + Excerpt.of(curve) + " " + tenor.tenor() + " on " + date
+                        + TenorHeading.aliasNote(tenor.written()));
             }
             quotes++;
         }
-        if (pendingDate != null) {
-            flush(pending, pendingDate);
-        }
+        open.finish();
     }
 
-    private Tenor tenor(Map<String, Tenor> parsed, CsvRecord row, int field) throws HistoryFormatException {
+    /** A tenor cell: the tenor as written, whose days a discount rate is converted over, and the point it is read as. */
+    private record TenorCell(Tenor written, Tenor tenor) {
+    }
+
+    private TenorCell tenor(Map<String, TenorCell> parsed, CsvRecord row, int field) throws HistoryFormatException {
         String spelt = row.getField(field);
-        Tenor tenor = parsed.get(spelt);
+        TenorCell tenor = parsed.get(spelt);
         if (tenor == null) {
+            Tenor written;
             try {
-                tenor = Tenor.parse(spelt);
+                written = Tenor.parse(spelt);
             } catch (IllegalArgumentException e) {
                 throw at(row, field, e.getMessage());
             }
+            tenor = new TenorCell(written, TenorAliases.canonical(written));
             parsed.put(spelt, tenor); // only valid spellings are kept, so the map stays as small as the file's tenors
         }
         return tenor;
     }
 
-    /**
-     * One curve's quotes on the pending date, kept in maturity order as they arrive: a pair of
-     * arrays rather than a map of boxed values, since a long file makes one per curve and date.
-     */
-    private static final class CurveQuotes {
-        private Tenor[] tenors = new Tenor[16];
-        private double[] yieldsBp = new double[16];
-        private int size;
-
-        /** Adds a quote in its place by maturity; false if the tenor is already quoted. */
-        boolean put(Tenor tenor, double bp) {
-            int at = size;
-            while (at > 0 && tenors[at - 1].compareTo(tenor) > 0) {
-                at--;
-            }
-            if (at > 0 && tenors[at - 1].compareTo(tenor) == 0) {
-                return false;
-            }
-            if (size == tenors.length) {
-                tenors = Arrays.copyOf(tenors, size * 2);
-                yieldsBp = Arrays.copyOf(yieldsBp, size * 2);
-            }
-            System.arraycopy(tenors, at, tenors, at + 1, size - at);
-            System.arraycopy(yieldsBp, at, yieldsBp, at + 1, size - at);
-            tenors[at] = tenor;
-            yieldsBp[at] = bp;
-            size++;
-            return true;
+    private YieldBasis basis(CsvRecord row, int field) throws HistoryFormatException {
+        try {
+            return YieldBasis.parse(row.getField(field));
+        } catch (IllegalArgumentException e) {
+            throw at(row, field, e.getMessage());
         }
-
-        CurveSnapshot snapshot(String curve, LocalDate date) {
-            return CurveSnapshot.ofSorted(curve, date, Arrays.copyOf(tenors, size), Arrays.copyOf(yieldsBp, size));
-        }
-    }
-
-    private void flush(Map<String, CurveQuotes> pending, LocalDate date) {
-        for (Map.Entry<String, CurveQuotes> e : pending.entrySet()) {
-            emit(e.getValue().snapshot(e.getKey(), date));
-        }
-        pending.clear();
     }
 
     private int column(CsvRecord header, List<String> names, String name) throws HistoryFormatException {
         int column = names.indexOf(name);
         if (column < 0) {
-            throw at(header, 0, "missing column " + Excerpt.quoted(name) + ": a long file has columns date,curve,tenor,yield");
+            throw at(header, 0, "missing column " + Excerpt.quoted(name) + ": a long file has columns date,curve,tenor,yield and optionally basis");
         }
         return column;
     }
 
-    /** Counts a row and reports progress now and then. */
+    /** Counts a row, widens the dates read to it, and reports progress now and then. */
     private void noteRow(LocalDate date) {
-        if (first == null) {
+        if (first == null || date.isBefore(first)) {
             first = date;
         }
-        last = date;
+        if (last == null || date.isAfter(last)) {
+            last = date;
+        }
         if (++rows % PROGRESS_EVERY_ROWS == 0) {
             progress.run();
         }
@@ -392,7 +396,8 @@ public final class HistoryCsvReader {
         return d;
     }
 
-    private double value(CsvRecord row, int field, Tenor tenor) throws HistoryFormatException {
+    /** A cell's yield in basis points on the bond-equivalent basis, or NaN when missing; {@code tenor} as written. */
+    private double value(CsvRecord row, int field, Tenor tenor, YieldBasis basis) throws HistoryFormatException {
         String text = row.getField(field);
         String t = text.strip();
         if (t.isEmpty() || t.equals(".") || t.equalsIgnoreCase("NA") || t.equalsIgnoreCase("ND")) {
@@ -404,10 +409,16 @@ public final class HistoryCsvReader {
         } catch (NumberFormatException e) {
             throw at(row, field, "unparsable number " + Excerpt.quoted(text) + " for " + tenor);
         }
+        double bp;
         try {
-            return options.bounds().toBasisPoints(raw, options.unit());
+            bp = options.bounds().toBasisPoints(raw, options.unit());
         } catch (IllegalArgumentException e) {
             throw at(row, field, tenor + ": " + e.getMessage());
+        }
+        try {
+            return basis.toBondEquivalentBp(bp, tenor);
+        } catch (IllegalArgumentException e) {
+            throw at(row, field, e.getMessage());
         }
     }
 

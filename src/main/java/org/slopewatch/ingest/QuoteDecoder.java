@@ -18,8 +18,8 @@ import java.util.Map;
 import java.util.Set;
 import java.util.SortedMap;
 import java.util.TreeMap;
-import org.slopewatch.curve.BillConversion;
 import org.slopewatch.curve.Tenor;
+import org.slopewatch.curve.YieldBasis;
 import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.pipeline.QuoteBatch;
 import org.slopewatch.pipeline.QuoteMessage;
@@ -155,7 +155,7 @@ public final class QuoteDecoder {
         } catch (IllegalArgumentException e) {
             throw new Rejection(RejectReason.UNKNOWN_UNIT, e.getMessage());
         }
-        boolean discount = discountBasis(text(node, "basis", false));
+        YieldBasis basis = basis(text(node, "basis", false));
         SortedMap<Tenor, Double> yields = new TreeMap<>();
         if (snapshot) {
             JsonNode ys = node.get("yields");
@@ -171,7 +171,7 @@ public final class QuoteDecoder {
                     throw new Rejection(RejectReason.MALFORMED, "tenor " + tenor + " appears twice in 'yields' (as " + Excerpt.quoted(before) + " and "
                             + Excerpt.quoted(e.getKey()) + ")");
                 }
-                yields.put(tenor, yieldBp(e.getValue(), tenor, unit, discount));
+                yields.put(tenor, yieldBp(e.getValue(), tenor, unit, basis));
             }
         } else {
             Tenor tenor = tenor(text(node, "tenor", true));
@@ -179,7 +179,7 @@ public final class QuoteDecoder {
             if (y == null || y.isNull()) {
                 throw new Rejection(RejectReason.MISSING_FIELD, "missing field 'yield'");
             }
-            yields.put(tenor, yieldBp(y, tenor, unit, discount));
+            yields.put(tenor, yieldBp(y, tenor, unit, basis));
         }
         return new QuoteMessage(keptText("id", text(node, "id", false)), keptText("source", text(node, "source", false)),
                 time(text(node, "time", false)), curve, date, yields);
@@ -249,17 +249,15 @@ public final class QuoteDecoder {
         }
     }
 
-    private static boolean discountBasis(String basis) throws Rejection {
-        if (basis == null || basis.equals("bond-equivalent")) {
-            return false;
+    private static YieldBasis basis(String basis) throws Rejection {
+        try {
+            return YieldBasis.parse(basis);
+        } catch (IllegalArgumentException e) {
+            throw new Rejection(RejectReason.BAD_BASIS, e.getMessage());
         }
-        if (basis.equals("discount")) {
-            return true;
-        }
-        throw new Rejection(RejectReason.BAD_BASIS, "unknown basis " + Excerpt.quoted(basis) + " (accepted: bond-equivalent, discount)");
     }
 
-    private double yieldBp(JsonNode value, Tenor tenor, YieldUnit unit, boolean discount) throws Rejection {
+    private double yieldBp(JsonNode value, Tenor tenor, YieldUnit unit, YieldBasis basis) throws Rejection {
         if (!value.isNumber()) {
             throw new Rejection(RejectReason.MALFORMED, "yield for " + tenor + " must be a number, got " + Excerpt.of(value.toString()));
         }
@@ -273,16 +271,10 @@ public final class QuoteDecoder {
         } catch (IllegalArgumentException e) {
             throw new Rejection(RejectReason.IMPLAUSIBLE, tenor + ": " + e.getMessage());
         }
-        if (!discount) {
-            return bp;
-        }
-        if (tenor.days() > 364) {
-            throw new Rejection(RejectReason.BAD_BASIS, "discount basis applies to bills up to 52W, not " + tenor);
-        }
         try {
-            return BillConversion.bondEquivalentBp(bp, tenor.days());
+            return basis.toBondEquivalentBp(bp, tenor);
         } catch (IllegalArgumentException e) {
-            throw new Rejection(RejectReason.BAD_BASIS, tenor + ": " + e.getMessage());
+            throw new Rejection(RejectReason.BAD_BASIS, e.getMessage());
         }
     }
 

@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.time.LocalDate;
 import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
@@ -57,7 +58,7 @@ public final class Replay {
         HistoryCsvReader.Summary read = HistoryCsvReader.read(source, in, options,
                 snapshot -> record(engine.onSnapshot(snapshot, ++sequence)), progress);
         List<SpreadReport> spreads = new ArrayList<>();
-        for (SpreadTrack track : engine.tracks()) {
+        for (SpreadTrack track : tracks()) {
             spreads.add(report(track, read, leadTimes));
         }
         return new ReplayReport(source, read.rows(), read.quotes(), read.snapshots(), read.first(), read.last(),
@@ -70,7 +71,7 @@ public final class Replay {
      */
     public List<SpreadValues> values() {
         List<SpreadValues> out = new ArrayList<>();
-        for (SpreadTrack track : engine.tracks()) {
+        for (SpreadTrack track : tracks()) {
             int[] days = new int[track.size()];
             double[] bp = new double[track.size()];
             for (int i = 0; i < days.length; i++) {
@@ -87,7 +88,18 @@ public final class Replay {
      * it would read, in the order of the report's spreads (a probability model reads its month averages).
      */
     public List<SpreadStatus> statuses() {
-        return engine.tracks().stream().map(SpreadStatus::of).toList();
+        return tracks().stream().map(SpreadStatus::of).toList();
+    }
+
+    /**
+     * The spreads in the report's order: by curve name, each curve's in the order its spreads were
+     * first computed. Unlike the order the engine met them in, it does not depend on how a file
+     * interleaves its curves, so that a file sorted by curve and one sorted by date report alike.
+     */
+    private List<SpreadTrack> tracks() {
+        List<SpreadTrack> tracks = new ArrayList<>(engine.tracks());
+        tracks.sort(Comparator.comparing(t -> t.spread().curve())); // stable: a curve's own order stays
+        return tracks;
     }
 
     private void record(List<MonitorEvent> events) {

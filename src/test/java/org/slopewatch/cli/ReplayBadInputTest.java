@@ -42,6 +42,12 @@ class ReplayBadInputTest {
             "basis points as percent  | date,2Y,10Y\\n2026-01-05,410,400\\n                      | :2:12: 2Y: implausible yield 410.0 percent",
             "long file out of order   | date,curve,tenor,yield\\n2026-01-05,GOVT-A,2Y,4.1\\n2026-01-02,GOVT-A,10Y,4.0\\n | :3:1: dates out of order",
             "second quote same day    | date,curve,tenor,yield\\n2026-01-05,GOVT-A,2Y,4.1\\n2026-01-05,GOVT-A,2Y,4.2\\n | :3:19: second quote for GOVT-A 2Y on 2026-01-05",
+            // sorted by curve and then date: GOVT-B's rows come after GOVT-A's later dates, and its own go back at line 5
+            "a curve going back       | date,curve,tenor,yield\\n2026-01-05,GOVT-A,2Y,4.1\\n2026-01-02,GOVT-B,2Y,4.0\\n2026-01-05,GOVT-B,2Y,4.1\\n2026-01-02,GOVT-B,10Y,4.0\\n | :5:1: dates out of order: 2026-01-02 after 2026-01-05",
+            "second quote rows apart  | date,curve,tenor,yield\\n2026-01-05,GOVT-A,2Y,4.1\\n2026-01-02,GOVT-B,2Y,4.0\\n2026-01-05,GOVT-A,2y,4.2\\n | :4:19: second quote for GOVT-A 2Y on 2026-01-05",
+            // "2026-01-05,GOVT-A,10Y,4.0," is 26 characters: the basis starts at 27
+            "discount basis on a note | date,curve,tenor,yield,basis\\n2026-01-05,GOVT-A,10Y,4.0,discount\\n | :2:27: discount basis applies to bills up to 52W, not 10Y",
+            "unknown basis in heading | date,2Y,10Y:bey\\n2026-01-05,4.1,4.0\\n                 | :1:9: unknown basis 'bey' (accepted: bond-equivalent, discount)",
             "empty file               | ''                                                    | :1:1: empty file",
             // RFC 4180 section 2: after a closing quote comes a comma or the end of the line ("4.0" quoted at columns 16 to 20)
             "text after closing quote | date,2Y,10Y\\n2026-01-05,4.1,\"4.0\"x\\n                   | :2:21: text after the closing quote of a field: 'x'",

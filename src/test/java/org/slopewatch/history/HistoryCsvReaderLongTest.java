@@ -26,7 +26,7 @@ class HistoryCsvReaderLongTest {
     }
 
     @Test
-    void rowsOfOneDateInAnyOrderBecomeOneSortedSnapshotPerCurveInTheOrderCurvesAppear() throws Exception {
+    void rowsOfOneDateInAnyOrderBecomeOneSortedSnapshotPerCurve() throws Exception {
         List<CurveSnapshot> snapshots = read("""
                 date,curve,tenor,yield
                 2026-01-05,GOVT-B,10Y,450
@@ -37,12 +37,13 @@ class HistoryCsvReaderLongTest {
                 2026-01-05,GOVT-A,12M,400
                 2026-01-06,GOVT-A,3M,395
                 """);
+        // GOVT-A's 2026-01-05 is complete when its next date comes; GOVT-B's and GOVT-A's last at the end, in the order their quotes came
         assertThat(snapshots).extracting(s -> s.curve() + " " + s.date() + " " + s.asMap())
                 .containsExactly(
-                        "GOVT-B 2026-01-05 {2Y=420.0, 10Y=450.0}",
                         "GOVT-A 2026-01-05 {3M=390.0, 1Y=400.0, 10Y=410.0}",
+                        "GOVT-B 2026-01-05 {2Y=420.0, 10Y=450.0}",
                         "GOVT-A 2026-01-06 {3M=395.0}");
-        assertThat(snapshots.get(1).tenor(1)).isEqualTo(Tenor.years(1));
+        assertThat(snapshots.get(0).tenor(1)).isEqualTo(Tenor.years(1));
     }
 
     @Test
