@@ -625,15 +625,18 @@
     const reason = confirmingReason(s);
     const tiles = [
       ['deepest', 'Deepest', bp(spell.deepest_bp), spell.deepest_date ? 'on ' + spell.deepest_date : null],
-      ['days', 'Days inverted', String(s.days_inverted), spell.start ? 'since ' + spell.start : null],
+      // counted from the first day of the run below zero without a break, as the API and the notices count them
+      ['days', 'Days inverted', String(s.days_inverted), s.inverted_since ? 'since ' + s.inverted_since : null],
       ['test', 'Test that held', spell.confirmed_by || 'not recorded', reason]
     ];
-    if (s.probability) {
-      const p = s.probability;
-      const band = p.band90_lower === null || p.band90_lower === undefined ? ''
-        : ', 90% band ' + Math.round(100 * p.band90_lower) + '\u2013' + Math.round(100 * p.band90_upper) + '%';
-      tiles.push(['odds', 'Recession odds', Math.round(100 * p.value) + '%', 'for ' + p.recession_month + band + ', from the '
-        + p.month + ' average so far (' + p.observations + ' days); a statistical signal only']);
+    // the last complete month's value by default, as the overview and the notices give it; the month so far beside it
+    const p = s.probability_last_month || s.probability;
+    if (p) {
+      const toDate = s.probability_last_month && s.probability ? '; month to date ' + pct(s.probability.value) + ' (provisional)' : '';
+      tiles.push(['odds', 'Recession odds', pct(p.value), 'P(recession in ' + p.recession_month + ')'
+        + (band(p) ? ', ' + band(p) : '') + ', from the ' + s.spread + ' average of ' + p.month
+        + (p.provisional ? ' so far (provisional, ' : ' (complete month, ') + observations(p.observations) + ')' + toDate
+        + '; a statistical signal only']);
     }
     headline.replaceChildren(...tiles.map(([key, label, figure, detail]) => el('div', { class: 'tile', 'data-fact': key },
       el('dt', null, label), el('dd', null, el('span', { class: 'figure' }, figure), detail ? el('span', { class: 'detail' }, detail) : null))));

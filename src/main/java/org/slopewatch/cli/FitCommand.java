@@ -52,7 +52,7 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--spread", required = true, paramLabel = "SPREAD", description = "The spread, e.g. 10Y-3M, 10Y-1Y or 10Y-3M~ (interpolated legs).")
     String spread;
 
-    @Option(names = "--recessions", required = true, paramLabel = "FILE", description = "Business-cycle dates, CSV 'peak,trough' (YYYY-MM).")
+    @Option(names = "--recessions", required = true, paramLabel = "FILE", description = "Business-cycle dates, CSV 'peak,trough' (YYYY-MM), optionally ',peak_announced' (YYYY-MM-DD, not used by the fit).")
     Path recessions;
 
     @Option(names = "--horizon-months", required = true, paramLabel = "H", description = "Target: recession in month m+H (12 is the literature's usual choice).")

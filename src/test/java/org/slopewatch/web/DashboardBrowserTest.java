@@ -278,11 +278,12 @@ class DashboardBrowserTest {
         double last = tenYearThreeMonthBp(days, SPELL_LAST);
         long daysInverted = ChronoUnit.DAYS.between(SPELL_START, SPELL_LAST);
         LocalDate confirmed = days.stream().filter(d -> ChronoUnit.DAYS.between(SPELL_START, d) >= 90).findFirst().orElseThrow();
-        double septemberAveragePercent = days.stream().filter(d -> d.getMonthValue() == 9)
+        // the last complete month is August: the card leads with its final value, as the notices do
+        double augustAveragePercent = days.stream().filter(d -> d.getMonthValue() == 8)
                 .mapToDouble(d -> tenYearThreeMonthBp(days, d) / 100).average().orElseThrow();
         // P = Phi(alpha + beta * s), the probit of alert-rules/default.yaml's 10Y-3M model (alpha -0.5333, beta -0.6330,
         // s the month's average in percentage points), with Phi from Apache Commons Math rather than from slopewatch
-        double odds = new NormalDistribution().cumulativeProbability(-0.5333 - 0.6330 * septemberAveragePercent);
+        double odds = new NormalDistribution().cumulativeProbability(-0.5333 - 0.6330 * augustAveragePercent);
         assertThat(last).isEqualTo(-18.0);
         assertThat(confirmed).isEqualTo(LocalDate.of(2026, 9, 14));
 
@@ -310,8 +311,9 @@ class DashboardBrowserTest {
                 .statusCode(200).body("to", equalTo(List.of("CONFIRMED"))).extract().path("reason[0]");
         assertThat(fact(SPREAD, "test")).as("the persistence test that held, with the monitor's reason")
                 .contains("days-inverted").contains(reason);
-        assertThat(fact(SPREAD, "odds")).as("the recession odds of the modelled spread, Phi(alpha + beta * September average)")
-                .contains(Math.round(100 * odds) + "%").contains("for 2027-09");
+        assertThat(fact(SPREAD, "odds")).as("the recession odds of the modelled spread, Phi(alpha + beta * August average)")
+                .contains(Math.round(100 * odds) + " %").contains("P(recession in 2027-08)").contains("complete month")
+                .contains("month to date").contains("(provisional)");
 
         // calm for the rest: GOVT-A 10Y-2Y stayed above zero (its 2Y is well under its 10Y) and is NORMAL
         By normalCard = By.cssSelector("article[data-spread='GOVT-A:10Y-2Y']");
