@@ -6,7 +6,10 @@ import java.util.Comparator;
 import java.util.List;
 
 /**
- * The coarse half of the fit: the profiled sum of squares on a log-spaced grid of decay
+ * Test copy of {@link DecayGrid} as it was before the decay grid was kept per set of maturities,
+ * the reference that the fit and its benchmark are compared against. Not used by the daemon.
+ *
+ * <p>The coarse half of the fit: the profiled sum of squares on a log-spaced grid of decay
  * parameters, whose best local minima become the starting points of the local search.
  *
  * <p>Why a grid rather than a few fixed starts: the sum of squares has several basins in

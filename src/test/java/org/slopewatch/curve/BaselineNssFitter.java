@@ -4,7 +4,10 @@ import java.util.List;
 import java.util.Optional;
 
 /**
- * Fits a Nelson–Siegel–Svensson curve to the quoted points of a snapshot by least squares,
+ * Test copy of {@link NssFitter} as it was before the decay grid was kept per set of maturities,
+ * the reference that the fit and its benchmark are compared against. Not used by the daemon.
+ *
+ * <p>Fits a Nelson–Siegel–Svensson curve to the quoted points of a snapshot by least squares,
  * equal weight per point, residuals in basis points.
  *
  * <p>The quoted yields are treated as continuously compounded zero rates at maturity
