@@ -75,6 +75,11 @@ public class NssFitterBench {
         }
     }
 
+    /** The seeded random curves of {@link #randomCurves}, for {@link NssFitCpuTime}. */
+    CurveSnapshot[] randomSnapshots() {
+        return random;
+    }
+
     @Benchmark
     public NssFit exactPoints() {
         return NssFitter.fitDetailed(exact).orElseThrow();
