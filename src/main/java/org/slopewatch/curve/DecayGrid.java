@@ -12,9 +12,17 @@ import java.util.List;
  * <p>Why a grid rather than a few fixed starts: the sum of squares has several basins in
  * (τ1, τ2), and which ones, and where, depends on the curve; fixed starts can all fall into the
  * wrong one, and each costs a full local search. The grid sees every basin at a fraction of one
- * search, because the loadings of each grid τ are computed once rather than once per cell, and
- * for a fixed τ1 the first three columns (level, slope, first hump) are factored once for all
- * τ2, leaving one column to orthogonalise per cell.
+ * search.
+ *
+ * <p>Everything on the grid that does not depend on the yields is worked out once per set of
+ * maturities, when the grid is built, and kept (see {@link DecayGrids}): the loadings of each grid
+ * τ, for each τ1 the first three columns (level, slope, first hump) orthonormalised, and for each
+ * cell the part of the second hump's column orthogonal to them. A snapshot then costs, per τ1,
+ * projecting its yields on three columns, and per cell one dot product. The arithmetic is the
+ * same, operation for operation, as when all of it was redone for every snapshot, so the starts,
+ * and the fit, are the same to the last bit.
+ *
+ * <p>Immutable once built, so one grid serves every thread.
  */
 final class DecayGrid {
 
@@ -26,21 +34,26 @@ final class DecayGrid {
     // |h⊥|²/|h|² below this: h is taken as dependent on the first three columns (|h⊥|/|h| < 1e-4)
     private static final double NEARLY_DEPENDENT = 1e-8;
 
-    private DecayGrid() {
-    }
+    private final int n;
+    private final boolean svensson;
+    private final double[] logTau;
+    private final double[][] hump;
+    // per τ1 (first index): the three orthonormalised columns and which of them are independent
+    private final double[][][] q;
+    private final boolean[][] active;
+    // per cell: |h⊥|² of the second hump's column, or NaN where it counts as adding nothing
+    private final double[][] rest;
 
-    /**
-     * Up to {@code maxStarts} grid points that are local minima of the sum of squares (no lower
-     * neighbour), best first, as log decay parameters.
-     */
-    static List<double[]> starts(NssProfile profile, double[] years, double[] yields, boolean svensson, int maxStarts) {
-        int n = years.length;
+    /** The grid for quoted maturities {@code years}, between the profile's bounds on ln τ. */
+    DecayGrid(double[] years, double minLogTau, double maxLogTau, boolean svensson) {
+        this.n = years.length;
+        this.svensson = svensson;
         int points = svensson ? SVENSSON_POINTS : NELSON_SIEGEL_POINTS;
-        double[] logTau = new double[points];
+        this.logTau = new double[points];
         double[][] slope = new double[points][n];
-        double[][] hump = new double[points][n];
+        this.hump = new double[points][n];
         for (int k = 0; k < points; k++) {
-            logTau[k] = profile.minLogTau() + (profile.maxLogTau() - profile.minLogTau()) * k / (points - 1);
+            logTau[k] = minLogTau + (maxLogTau - minLogTau) * k / (points - 1);
             double tau = Math.exp(logTau[k]);
             for (int i = 0; i < n; i++) {
                 double x = years[i] / tau;
@@ -49,24 +62,48 @@ final class DecayGrid {
                 hump[k][i] = slope[k][i] - e;
             }
         }
-        double[][] cost = new double[points][svensson ? points : 1];
-        double[][] q = new double[3][n];
-        boolean[] active = new boolean[3];
-        double[] residual = new double[n];
         double[] humpSquared = new double[points];
         for (int k = 0; k < points; k++) {
             humpSquared[k] = NssProfile.dot(hump[k], hump[k]);
         }
+        this.q = new double[points][3][n];
+        this.active = new boolean[points][3];
+        this.rest = new double[points][svensson ? points : 0];
         for (int a = 0; a < points; a++) {
-            Arrays.fill(q[0], 1.0);
-            System.arraycopy(slope[a], 0, q[1], 0, n);
-            System.arraycopy(hump[a], 0, q[2], 0, n);
+            double[][] qa = q[a];
+            Arrays.fill(qa[0], 1.0);
+            System.arraycopy(slope[a], 0, qa[1], 0, n);
+            System.arraycopy(hump[a], 0, qa[2], 0, n);
             for (int k = 0; k < 3; k++) {
-                active[k] = orthonormalise(q[k], q, active, k);
+                active[a][k] = orthonormalise(qa[k], qa, active[a], k);
             }
+            for (int b = 0; b < rest[a].length; b++) {
+                rest[a][b] = orthogonalSquared(hump[b], humpSquared[b], qa, active[a]);
+            }
+        }
+    }
+
+    int maturities() {
+        return n;
+    }
+
+    boolean svensson() {
+        return svensson;
+    }
+
+    /**
+     * Up to {@code maxStarts} grid points that are local minima of the sum of squares of
+     * {@code yields} (no lower neighbour), best first, as log decay parameters.
+     */
+    List<double[]> starts(double[] yields, int maxStarts) {
+        int points = logTau.length;
+        double[][] cost = new double[points][svensson ? points : 1];
+        double[] residual = new double[n];
+        for (int a = 0; a < points; a++) {
+            double[][] qa = q[a];
             System.arraycopy(yields, 0, residual, 0, n);
             for (int k = 0; k < 3; k++) {
-                NssProfile.axpy(-NssProfile.dot(q[k], yields), q[k], residual);
+                NssProfile.axpy(-NssProfile.dot(qa[k], yields), qa[k], residual);
             }
             double base = NssProfile.dot(residual, residual);
             if (!svensson) {
@@ -74,7 +111,7 @@ final class DecayGrid {
                 continue;
             }
             for (int b = 0; b < points; b++) {
-                cost[a][b] = base - reduction(hump[b], humpSquared[b], q, active, residual);
+                cost[a][b] = base - reduction(hump[b], rest[a][b], residual);
             }
         }
         return localMinima(cost, logTau, svensson, maxStarts);
@@ -103,13 +140,11 @@ final class DecayGrid {
     }
 
     /**
-     * How much adding column h to the fit of the first three (orthonormal q, residual r ⟂ q)
-     * lowers the sum of squares: (hᵀr)² / |h⊥|², with |h⊥|² = hᵀh − Σ(qⱼᵀh)². Four dot products
-     * instead of orthogonalising h; the subtraction loses precision when h is nearly in the span
-     * of q (τ2 near τ1), so such a column counts as adding nothing, which only makes the coarse
-     * grid slightly pessimistic there.
+     * |h⊥|² = hᵀh − Σ(qⱼᵀh)² for column h against the orthonormal q; NaN when h is nearly in the
+     * span of q (τ2 near τ1), where the subtraction has lost its precision: such a column counts
+     * as adding nothing, which only makes the coarse grid slightly pessimistic there.
      */
-    private static double reduction(double[] h, double hh, double[][] q, boolean[] active, double[] residual) {
+    private static double orthogonalSquared(double[] h, double hh, double[][] q, boolean[] active) {
         double rest = hh;
         for (int j = 0; j < q.length; j++) {
             if (active[j]) {
@@ -117,11 +152,19 @@ final class DecayGrid {
                 rest -= c * c;
             }
         }
-        if (!(rest > NEARLY_DEPENDENT * hh)) {
+        return rest > NEARLY_DEPENDENT * hh ? rest : Double.NaN;
+    }
+
+    /**
+     * How much adding column h to the fit of the first three (residual r ⟂ q) lowers the sum of
+     * squares: (hᵀr)² / |h⊥|², one dot product instead of orthogonalising h.
+     */
+    private static double reduction(double[] h, double orthogonalSquared, double[] residual) {
+        if (Double.isNaN(orthogonalSquared)) {
             return 0.0;
         }
         double hr = NssProfile.dot(h, residual);
-        return Math.min(hr * hr / rest, Double.MAX_VALUE);
+        return Math.min(hr * hr / orthogonalSquared, Double.MAX_VALUE);
     }
 
     private static List<double[]> localMinima(double[][] cost, double[] logTau, boolean svensson, int maxStarts) {

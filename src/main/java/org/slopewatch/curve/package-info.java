@@ -6,6 +6,8 @@
  *
  * <p>Invariants: every yield inside the engine is in basis points on a bond-equivalent basis;
  * values are checked against {@link org.slopewatch.curve.YieldBounds} on the way in, never
- * rescaled by guesswork. Plain Java and Commons Math only.
+ * rescaled by guesswork. A fit is a function of its snapshot alone (no warm start from another
+ * date); what it keeps between snapshots ({@code DecayGrids}, the decay grid
+ * per set of maturities) is immutable and changes no result. Plain Java and Commons Math only.
  */
 package org.slopewatch.curve;

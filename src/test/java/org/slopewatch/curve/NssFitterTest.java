@@ -18,6 +18,9 @@ class NssFitterTest {
 
     private static final LocalDate DATE = LocalDate.of(2024, 5, 31);
     private static final String[] ELEVEN = {"1M", "3M", "6M", "1Y", "2Y", "3Y", "5Y", "7Y", "10Y", "20Y", "30Y"};
+    // parameters from exact points: the search stops once the RMSE is below 1e-6 bp, which left
+    // the betas within 1e-6 bp and the taus within 3e-8 years of the truth on the sets below
+    private static final double PARAMETER_TOLERANCE = 1e-5;
     private static final SvenssonFormula TRUTH = new SvenssonFormula(450, -150, 200, -100, 1.5, 8);
 
     @Test
@@ -37,6 +40,36 @@ class NssFitterTest {
         }
         assertThat(fit.curve().forwardRate(1.5, 1.75)).as("3M forward 18M ahead")
                 .isCloseTo(TRUTH.forward(1.5, 1.75), within(1e-3));
+    }
+
+    /*
+     * Source: Gürkaynak, R. S., Sack, B. and Wright, J. H. (2007), "The U.S. Treasury Yield Curve:
+     * 1961 to the Present", Journal of Monetary Economics 54(8), which fits the same Svensson form
+     * to continuously compounded zero yields and publishes the six parameters daily (from memory).
+     * The sets below, in percent and years, are of the magnitudes that published series shows
+     * (β0 a few percent, β1 negative, τ1 near one to two years, τ2 near ten; from memory), not any
+     * one date's row: a steep curve, an inverted one with a hump, and one with a dip at the short end.
+     * Curves generated exactly from them are recovered: the parameters, and the forward the spread reads.
+     */
+    @Test
+    void recoversPublishedFormParametersFromExactPoints() {
+        double[][] percentAndYears = {
+            {5.0, -3.0, -2.0, 3.0, 1.5, 10.0},
+            {4.2, 1.1, -2.5, 1.5, 1.2, 8.0},
+            {6.0, -1.5, 3.0, -2.0, 2.0, 12.0},
+        };
+        for (double[] p : percentAndYears) {
+            SvenssonFormula truth = new SvenssonFormula(100 * p[0], 100 * p[1], 100 * p[2], 100 * p[3], p[4], p[5]);
+            NssFit fit = NssFitter.fitDetailed(sample(truth, ELEVEN)).orElseThrow();
+            NelsonSiegelSvensson c = fit.curve();
+            assertThat(fit.rmseBp()).as("exact points fitted exactly: %s", truth).isLessThan(1e-6);
+            assertThat(new double[] {c.beta0(), c.beta1(), c.beta2(), c.beta3(), c.tau1(), c.tau2()})
+                    .as("parameters recovered (bp, years): %s", truth)
+                    .containsExactly(new double[] {truth.b0(), truth.b1(), truth.b2(), truth.b3(), truth.tau1(), truth.tau2()},
+                            within(PARAMETER_TOLERANCE));
+            assertThat(c.forwardRate(1.5, 1.75)).as("3M forward 18M ahead: %s", truth)
+                    .isCloseTo(truth.forward(1.5, 1.75), within(1e-6));
+        }
     }
 
     @Test
