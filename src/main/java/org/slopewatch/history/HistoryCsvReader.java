@@ -12,7 +12,9 @@ import java.nio.charset.Charset;
 import java.nio.charset.StandardCharsets;
 import java.time.DateTimeException;
 import java.time.LocalDate;
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Collections;
 import java.util.HashMap;
 import java.util.Iterator;
 import java.util.List;
@@ -183,8 +185,12 @@ public final class HistoryCsvReader {
         if (header == null) {
             throw new HistoryFormatException(source, 1, 1, "empty file: expected a header 'date,3M,2Y,10Y,…' or 'date,curve,tenor,yield'");
         }
+        Layout layout = Layout.of(header.getFields());
+        if (layout == Layout.H15) {
+            header = h15Header(records, header);
+        }
         List<String> names = header.getFields().stream().map(f -> f.strip().toLowerCase(Locale.ROOT)).toList();
-        if (!names.contains("date")) {
+        if (layout != Layout.H15 && !names.contains("date")) {
             throw at(header, 0, "missing column 'date' in header " + Excerpt.quoted(String.join(",", header.getFields())) + jsonHint(true));
         }
         for (int i = 0; i < names.size(); i++) {
@@ -192,10 +198,10 @@ public final class HistoryCsvReader {
                 throw at(header, i, "column '" + names.get(i) + "' appears twice in the header");
             }
         }
-        if (names.contains("curve") || names.contains("tenor") || names.contains("yield")) {
+        if (layout == Layout.LONG) {
             readLong(records, header, names);
         } else {
-            readWide(records, header);
+            readWide(records, header, layout, layout == Layout.H15 ? 0 : names.indexOf("date"));
         }
         if (quotes == 0) {
             throw new HistoryFormatException(source, text.end(), rows == 0 ? "no quotes: nothing follows the header"
@@ -203,22 +209,68 @@ public final class HistoryCsvReader {
         }
     }
 
-    private void readWide(Iterator<CsvRecord> records, CsvRecord header) throws IOException, HistoryFormatException {
-        int dateColumn = -1;
+    /**
+     * Reads an H.15 download's description rows, from its first, checking each series' unit and
+     * multiplier; answers the {@code Time Period} row, the header of the series ({@link H15Series}).
+     */
+    private CsvRecord h15Header(Iterator<CsvRecord> records, CsvRecord first) throws IOException, HistoryFormatException {
+        int n = first.getFieldCount();
+        CsvRecord row = first;
+        for (int i = 0; ; i++) {
+            if (row.getFieldCount() != n) {
+                throw at(row, Math.min(n, row.getFieldCount()), "expected " + n + " fields as in the Series Description row, found "
+                        + row.getFieldCount());
+            }
+            String label = row.getField(0);
+            if (label.strip().equalsIgnoreCase(H15Series.HEADER_LABEL)) {
+                return row;
+            }
+            if (i >= H15Series.MAX_DESCRIPTION_ROWS) {
+                throw at(row, 0, "no 'Time Period' header after " + i + " description rows of an H.15 file");
+            }
+            for (int j = 1; j < n; j++) {
+                String problem = H15Series.checkDescription(label, row.getField(j));
+                if (problem != null) {
+                    throw at(row, j, problem);
+                }
+            }
+            row = next(records);
+            if (row == null) {
+                throw new HistoryFormatException(source, text.end(), "the H.15 file ends before its 'Time Period' header: is it cut short?");
+            }
+        }
+    }
+
+    /** A value column's heading in the words of {@code layout}. */
+    private static TenorHeading heading(Layout layout, String name) {
+        return switch (layout) {
+            case TREASURY_PAR -> TreasuryHeading.parse(name);
+            case H15 -> H15Series.parse(name);
+            default -> TenorHeading.parse(name);
+        };
+    }
+
+    /**
+     * One curve, one row per date, one column per tenor: slopewatch's wide file, and the
+     * publishers' files of the same shape. Slopewatch's own dates ascend; a publisher's run one way
+     * throughout, either, the Treasury's newest first: a file whose dates descend is held and handed
+     * on oldest first when it has been read whole.
+     */
+    private void readWide(Iterator<CsvRecord> records, CsvRecord header, Layout layout, int dateColumn)
+            throws IOException, HistoryFormatException {
         int n = header.getFieldCount();
         TenorHeading[] headings = new TenorHeading[n];
         for (int i = 0; i < n; i++) {
-            String name = header.getField(i).strip();
-            if (name.equalsIgnoreCase("date")) {
-                dateColumn = i;
+            if (i == dateColumn) {
                 continue;
             }
-            if (name.equalsIgnoreCase("basis")) {
+            String name = header.getField(i).strip();
+            if (layout == Layout.WIDE && name.equalsIgnoreCase("basis")) {
                 throw at(header, i, "a wide file declares the basis in a column's heading, e.g. 13W:discount;"
                         + " a basis column belongs to the long layout date,curve,tenor,yield,basis");
             }
             try {
-                headings[i] = TenorHeading.parse(name);
+                headings[i] = heading(layout, name);
             } catch (IllegalArgumentException e) {
                 throw at(header, i, e.getMessage());
             }
@@ -245,20 +297,34 @@ public final class HistoryCsvReader {
                         + TenorHeading.aliasNote(columns[j - 1].written()) + TenorHeading.aliasNote(columns[j].written()));
             }
         }
-        double[] values = new double[order.length];
+        YieldUnit unit = layout.percentByDefinition() ? YieldUnit.PERCENT : options.unit();
+        boolean eitherWay = layout != Layout.WIDE;
+        Boolean descending = eitherWay ? null : Boolean.FALSE; // a publisher's direction is its first two dates'
+        List<CurveSnapshot> held = new ArrayList<>();
+        double[] values = new double[order.length]; // reused: a snapshot copies what it keeps
+        LocalDate previous = null;
         CsvRecord row;
         while ((row = next(records)) != null) {
             if (row.getFieldCount() != n) {
                 throw at(row, Math.min(n, row.getFieldCount()), "expected " + n + " fields as in the header, found " + row.getFieldCount());
             }
-            LocalDate date = date(row, dateColumn);
-            if (last != null && !date.isAfter(last)) {
-                throw at(row, dateColumn, date.equals(last)
-                        ? "date " + date + " appears twice" : "dates out of order: " + date + " after " + last);
+            LocalDate date = layout == Layout.TREASURY_PAR ? usDate(row, dateColumn) : date(row, dateColumn);
+            if (previous != null) {
+                if (date.equals(previous)) {
+                    throw at(row, dateColumn, "date " + date + " appears twice");
+                }
+                if (descending == null) {
+                    descending = date.isBefore(previous);
+                }
+                if (descending != date.isBefore(previous)) {
+                    throw at(row, dateColumn, "dates out of order: " + date + " after " + previous
+                            + (eitherWay ? (descending ? " in a file whose dates descend" : " in a file whose dates ascend") : ""));
+                }
             }
+            previous = date;
             int present = 0;
             for (int j = 0; j < order.length; j++) {
-                double v = value(row, order[j], columns[j].written(), columns[j].basis());
+                double v = value(row, order[j], columns[j].written(), columns[j].basis(), unit);
                 values[j] = v;
                 if (!Double.isNaN(v)) {
                     present++;
@@ -267,9 +333,18 @@ public final class HistoryCsvReader {
             quotes += present;
             noteRow(date);
             if (present > 0) {
-                emit(CurveSnapshot.ofSorted(options.curve(), date, sorted, values));
+                CurveSnapshot snapshot = CurveSnapshot.ofSorted(options.curve(), date, sorted, values);
+                if (eitherWay) {
+                    held.add(snapshot); // handed on when the direction is known for the whole file, that is at its end
+                } else {
+                    emit(snapshot);
+                }
             }
         }
+        if (Boolean.TRUE.equals(descending)) {
+            Collections.reverse(held);
+        }
+        held.forEach(this::emit);
     }
 
     private void readLong(Iterator<CsvRecord> records, CsvRecord header, List<String> names) throws IOException, HistoryFormatException {
@@ -319,7 +394,7 @@ public final class HistoryCsvReader {
                     throw at(row, basisColumn, e.getMessage());
                 }
             }
-            double v = value(row, yieldColumn, tenor.written(), basis);
+            double v = value(row, yieldColumn, tenor.written(), basis, options.unit());
             noteRow(date);
             if (Double.isNaN(v)) {
                 continue;
@@ -396,8 +471,18 @@ public final class HistoryCsvReader {
         return d;
     }
 
+    /** A date as the Treasury writes it, {@code MM/DD/YYYY}. */
+    private LocalDate usDate(CsvRecord row, int field) throws HistoryFormatException {
+        String spelt = row.getField(field);
+        LocalDate d = Dates.parseUs(spelt);
+        if (d == null) {
+            throw at(row, field, "unparsable date " + Excerpt.quoted(spelt) + " (expected MM/DD/YYYY, as the Treasury writes it)");
+        }
+        return d;
+    }
+
     /** A cell's yield in basis points on the bond-equivalent basis, or NaN when missing; {@code tenor} as written. */
-    private double value(CsvRecord row, int field, Tenor tenor, YieldBasis basis) throws HistoryFormatException {
+    private double value(CsvRecord row, int field, Tenor tenor, YieldBasis basis, YieldUnit unit) throws HistoryFormatException {
         String text = row.getField(field);
         String t = text.strip();
         if (t.isEmpty() || t.equals(".") || t.equalsIgnoreCase("NA") || t.equalsIgnoreCase("ND")) {
@@ -411,7 +496,7 @@ public final class HistoryCsvReader {
         }
         double bp;
         try {
-            bp = options.bounds().toBasisPoints(raw, options.unit());
+            bp = options.bounds().toBasisPoints(raw, unit);
         } catch (IllegalArgumentException e) {
             throw at(row, field, tenor + ": " + e.getMessage());
         }
@@ -438,6 +523,26 @@ public final class HistoryCsvReader {
             int year = digits(t, 0, 4);
             int month = digits(t, 5, 7);
             int day = len == 10 ? digits(t, 8, 10) : 1;
+            if (year < 0 || month < 0 || day < 0) {
+                return null;
+            }
+            try {
+                return LocalDate.of(year, month, day);
+            } catch (DateTimeException e) {
+                return null;
+            }
+        }
+
+        /** {@code MM/DD/YYYY}, the month and day of one or two digits. */
+        static LocalDate parseUs(String text) {
+            String[] parts = text.strip().split("/", -1);
+            if (parts.length != 3 || parts[0].isEmpty() || parts[0].length() > 2 || parts[1].isEmpty() || parts[1].length() > 2
+                    || parts[2].length() != 4) {
+                return null;
+            }
+            int month = digits(parts[0], 0, parts[0].length());
+            int day = digits(parts[1], 0, parts[1].length());
+            int year = digits(parts[2], 0, 4);
             if (year < 0 || month < 0 || day < 0) {
                 return null;
             }
