@@ -14,6 +14,7 @@ import java.util.concurrent.Callable;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.history.HistoryCsvReader;
+import org.slopewatch.history.SeriesMap;
 import org.slopewatch.history.HistoryFormatException;
 import org.slopewatch.monitor.DaysInverted;
 import org.slopewatch.monitor.MonitorDefinition;
@@ -51,6 +52,9 @@ final class ReplayCommand implements Callable<Integer> {
 
     @Option(names = "--curve", paramLabel = "NAME", description = "Curve name for a wide file (default: the file name without extension).")
     String curve;
+
+    @Option(names = "--series-map", paramLabel = "FILE", description = "For an SDMX-CSV file: lines KEY,CURVE,TENOR placing each series (see docs/sdmx.md).")
+    Path seriesMap;
 
     @Option(names = "--unit", paramLabel = "UNIT", defaultValue = "percent", description = "Unit of the yields: percent, bp or decimal (default: ${DEFAULT-VALUE}).")
     String unit;
@@ -115,7 +119,8 @@ final class ReplayCommand implements Callable<Integer> {
                     leads = new LeadTimeAnalysis(RecessionCalendarCsv.read(r, recessions.toString()).recessions(), falseAlarmMonths);
                 }
             }
-            HistoryCsvReader.Options options = new HistoryCsvReader.Options(curveName(), YieldUnit.parse(unit), YieldBounds.DEFAULT);
+            HistoryCsvReader.Options options = new HistoryCsvReader.Options(curveName(), YieldUnit.parse(unit), YieldBounds.DEFAULT,
+                    SeriesMap.readOrNone(seriesMap));
             long size = Files.size(file);
             ReplayReport report;
             Replay replay = new Replay(watches);

@@ -21,6 +21,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
+import java.util.TreeMap;
 import java.util.function.Consumer;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.Tenor;
@@ -50,12 +51,22 @@ import org.slopewatch.text.Excerpt;
  */
 public final class HistoryCsvReader {
 
-    /** How to read the values. {@code curve} names the curve of a wide file. */
-    public record Options(String curve, YieldUnit unit, YieldBounds bounds) {
+    /**
+     * How to read the values. {@code curve} names the curve of a one-curve file (wide, the
+     * Treasury's, H.15); {@code series} places the series of an SDMX-CSV file.
+     */
+    public record Options(String curve, YieldUnit unit, YieldBounds bounds, SeriesMap series) {
         public Options {
             if (curve == null || curve.isBlank()) {
                 throw new IllegalArgumentException("a curve name is needed for a wide file");
             }
+            if (series == null) {
+                series = SeriesMap.NONE;
+            }
+        }
+
+        public Options(String curve, YieldUnit unit, YieldBounds bounds) {
+            this(curve, unit, bounds, SeriesMap.NONE);
         }
     }
 
@@ -189,6 +200,11 @@ public final class HistoryCsvReader {
         if (layout == Layout.H15) {
             header = h15Header(records, header);
         }
+        if (layout == Layout.SDMX) {
+            readSdmx(records, header);
+            noQuotes();
+            return;
+        }
         List<String> names = header.getFields().stream().map(f -> f.strip().toLowerCase(Locale.ROOT)).toList();
         if (layout != Layout.H15 && !names.contains("date")) {
             throw at(header, 0, "missing column 'date' in header " + Excerpt.quoted(String.join(",", header.getFields())) + jsonHint(true));
@@ -203,6 +219,10 @@ public final class HistoryCsvReader {
         } else {
             readWide(records, header, layout, layout == Layout.H15 ? 0 : names.indexOf("date"));
         }
+        noQuotes();
+    }
+
+    private void noQuotes() throws HistoryFormatException {
         if (quotes == 0) {
             throw new HistoryFormatException(source, text.end(), rows == 0 ? "no quotes: nothing follows the header"
                     : "no quotes: every value of the " + rows + " rows is missing");
@@ -406,6 +426,61 @@ public final class HistoryCsvReader {
             quotes++;
         }
         open.finish();
+    }
+
+    /**
+     * An SDMX-CSV file: one observation a row, its series named by its dimension cells and placed
+     * by the {@link SeriesMap}. A publisher sorts by series and then time, so a curve's dates come
+     * round again for each of its tenors: the file is gathered whole, then handed on curve by
+     * curve in date order. A second observation of one curve, tenor and date is refused wherever
+     * it comes; so is a row that deletes (ACTION {@code D}), since a deletion is no quote.
+     */
+    private void readSdmx(Iterator<CsvRecord> records, CsvRecord header) throws IOException, HistoryFormatException {
+        SdmxColumns columns;
+        try {
+            columns = SdmxColumns.of(header.getFields());
+        } catch (SdmxColumns.Missing e) {
+            throw at(header, e.column(), e.getMessage());
+        }
+        if (options.series().isEmpty()) {
+            throw at(header, 0, "an SDMX-CSV file needs a series map to place its series on curves and tenors"
+                    + " (replay --series-map FILE, slopewatch.ingest.series-map)");
+        }
+        Map<String, Map<LocalDate, Map<Tenor, Double>>> curves = new TreeMap<>();
+        CsvRecord row;
+        StringBuilder key = new StringBuilder();
+        while ((row = next(records)) != null) {
+            if (row.getFieldCount() != header.getFieldCount()) {
+                throw at(row, Math.min(header.getFieldCount(), row.getFieldCount()), "expected " + header.getFieldCount()
+                        + " fields as in the header, found " + row.getFieldCount());
+            }
+            if (columns.action() >= 0 && SdmxColumns.id(row.getField(columns.action())).equals("D")) {
+                throw at(row, columns.action(), "ACTION D deletes observations: slopewatch reads quotes, not their removal");
+            }
+            key.setLength(0);
+            for (int i = columns.firstDimension(); i < columns.time(); i++) {
+                key.append(i > columns.firstDimension() ? "." : "").append(SdmxColumns.id(row.getField(i)));
+            }
+            SeriesMap.Target target = options.series().target(key.toString());
+            if (target == null) {
+                throw at(row, columns.firstDimension(), "series " + Excerpt.quoted(key.toString()) + " is not in the series map "
+                        + options.series().source());
+            }
+            LocalDate date = date(row, columns.time());
+            double v = value(row, columns.value(), target.written(), YieldBasis.BOND_EQUIVALENT, options.unit());
+            noteRow(date);
+            if (Double.isNaN(v)) {
+                continue;
+            }
+            Map<Tenor, Double> quotesOf = curves.computeIfAbsent(target.curve(), c -> new TreeMap<>())
+                    .computeIfAbsent(date, d -> new TreeMap<>());
+            if (quotesOf.putIfAbsent(target.tenor(), v) != null) {
+                throw at(row, columns.time(), "second quote for " + Excerpt.of(target.curve()) + " " + target.tenor() + " on " + date
+                        + " (series " + key + ")");
+            }
+            quotes++;
+        }
+        curves.forEach((curve, dates) -> dates.forEach((date, yields) -> emit(CurveSnapshot.of(curve, date, yields))));
     }
 
     /** A tenor cell: the tenor as written, whose days a discount rate is converted over, and the point it is read as. */

@@ -8,6 +8,8 @@ import java.util.Locale;
  * first record, so that no option is needed to read a publisher's file as it is published.
  *
  * <ul>
+ *   <li>{@link #SDMX}: SDMX-CSV 1.0 ({@code DATAFLOW,…}) or 2.0 ({@code STRUCTURE,STRUCTURE_ID,ACTION,…}),
+ *       its series placed by a {@link SeriesMap} ({@link SdmxColumns}).</li>
  *   <li>{@link #H15}: the Federal Reserve's H.15 data download, whose first record is the
  *       {@code Series Description} row above the {@code Time Period} header ({@link H15Series}).</li>
  *   <li>{@link #LONG}: slopewatch's {@code date,curve,tenor,yield[,basis]}.</li>
@@ -19,13 +21,16 @@ import java.util.Locale;
  * </ul>
  */
 enum Layout {
-    WIDE, LONG, TREASURY_PAR, H15;
+    WIDE, LONG, TREASURY_PAR, H15, SDMX;
 
     /** The layout whose first record {@code fields} is, as written (blanks and case ignored). */
     static Layout of(List<String> fields) {
         List<String> names = fields.stream().map(f -> f.strip().toLowerCase(Locale.ROOT)).toList();
         if (!names.isEmpty() && H15Series.DESCRIPTION_LABEL.equalsIgnoreCase(names.get(0))) {
             return H15;
+        }
+        if (SdmxColumns.opens(fields)) {
+            return SDMX;
         }
         if (names.contains("curve") || names.contains("tenor") || names.contains("yield")) {
             return LONG;

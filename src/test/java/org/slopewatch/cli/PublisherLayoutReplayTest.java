@@ -23,8 +23,9 @@ import org.junit.jupiter.api.io.TempDir;
  * slopewatch's wide layout, and laid out here as each publisher lays out its CSV: the Treasury's
  * par yield curve ({@code Date,"1 Yr",…}, {@code MM/DD/YYYY}, newest first) and the Board's H.15
  * data download (description rows, {@code Time Period} and monthly series identifiers
- * {@code RIFLGFCY01_N.M}…, {@code YYYY-MM} dates); both layouts from memory, as documented in
- * {@code HistoryCsvReaderTreasuryTest} and {@code HistoryCsvReaderH15Test}.
+ * {@code RIFLGFCY01_N.M}…, {@code YYYY-MM} dates), and SDMX-CSV 2.0 sorted by series; the layouts
+ * from memory, as documented in {@code HistoryCsvReaderTreasuryTest}, {@code HistoryCsvReaderH15Test}
+ * and {@code HistoryCsvReaderSdmxTest}.
  */
 class PublisherLayoutReplayTest {
 
@@ -99,13 +100,27 @@ class PublisherLayoutReplayTest {
         return csv.toString();
     }
 
+    /** SDMX-CSV 2.0, sorted by series and then time; the flow and its dimensions invented (the layout: HistoryCsvReaderSdmxTest). */
+    private static String sdmxCsv() {
+        StringBuilder csv = new StringBuilder("STRUCTURE,STRUCTURE_ID,ACTION,FREQ,REF_AREA,MATURITY,TIME_PERIOD,OBS_VALUE,UNIT_MEASURE\n");
+        for (int t = 0; t < YEARS.length; t++) {
+            for (String[] r : rows) {
+                csv.append("dataflow,DESK:YIELDS(1.0),I,M,XA,Y").append(YEARS[t]).append(',').append(r[0], 0, 7).append(',')
+                        .append(r[t + 1]).append(",PC\n");
+            }
+        }
+        return csv.toString();
+    }
+
     /** The replay of a file's text, always from the same path, so that the report's source is the same. */
     private String replay(String csv) throws Exception {
         Path file = dir.resolve("history.csv");
         Files.writeString(file, csv);
+        Path map = dir.resolve("series-map.csv");
+        Files.writeString(map, "M.XA.Y1,GOVT-A,1Y\nM.XA.Y3,GOVT-A,3Y\nM.XA.Y5,GOVT-A,5Y\nM.XA.Y10,GOVT-A,10Y\n");
         CliRun run = CliRun.of("replay", file.toString(), "--curve", "GOVT-A", "--spread", "10Y-1Y", "--spread", "10Y-3Y",
                 "--persistence", "quarter-average", "--recessions", ReferenceReplayTest.resource("reference/us-business-cycle-dates.csv").toString(),
-                "--json");
+                "--series-map", map.toString(), "--json");
         assertThat(run.exitCode()).as(run.err()).isZero();
         return run.out();
     }
@@ -124,5 +139,26 @@ class PublisherLayoutReplayTest {
     @Test
     void theH15DownloadReplaysToTheSpreadsOfTheSameValuesInSlopewatchsCsv() throws Exception {
         assertThat(replay(h15Csv())).isEqualTo(replay(ownCsv()));
+    }
+
+    /** Slopewatch's long layout: one observation a row, as SDMX-CSV has, so that the report's row counts agree too. */
+    private static String ownLongCsv() {
+        StringBuilder csv = new StringBuilder("date,curve,tenor,yield\n");
+        for (String[] r : rows) {
+            for (int t = 0; t < YEARS.length; t++) {
+                csv.append(r[0]).append(",GOVT-A,").append(YEARS[t]).append("Y,").append(r[t + 1]).append('\n');
+            }
+        }
+        return csv.toString();
+    }
+
+    @Test
+    void anSdmxCsvFileSortedBySeriesReplaysToTheSpreadsOfTheSameValuesInSlopewatchsCsv() throws Exception {
+        String own = replay(ownLongCsv());
+        assertThat(replay(sdmxCsv())).isEqualTo(own);
+        // and the long file's spreads are the wide file's: only the count of rows tells the layouts apart
+        ObjectMapper json = new ObjectMapper();
+        assertThat(json.readTree(own).get("spreads")).isEqualTo(json.readTree(replay(ownCsv())).get("spreads"));
+        assertThat(json.readTree(own).get("rows").asInt()).isEqualTo(4 * 558);
     }
 }
