@@ -47,7 +47,7 @@ import picocli.CommandLine.Spec;
                 "2:bad input or options, or data that cannot give a fit (separation, one class, too few months)"})
 final class FitCommand implements Callable<Integer> {
 
-    @Parameters(index = "0", paramLabel = "FILE", description = "History CSV in the replay's layouts: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield'.")
+    @Parameters(index = "0", paramLabel = "FILE", description = "History CSV in the replay's layouts: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield', or as published: Treasury par yields, H.15, SDMX-CSV (docs/replay.md).")
     Path file;
 
     @Option(names = "--spread", required = true, paramLabel = "SPREAD", description = "The spread, e.g. 10Y-3M, 10Y-1Y or 10Y-3M~ (interpolated legs).")

@@ -47,7 +47,7 @@ import picocli.CommandLine.Spec;
         exitCodeList = {"0:report written", "1:could not read a file", "2:bad input or options (file:line: what is wrong)"})
 final class ReplayCommand implements Callable<Integer> {
 
-    @Parameters(index = "0", arity = "0..1", paramLabel = "FILE", description = "History CSV: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield'.")
+    @Parameters(index = "0", arity = "0..1", paramLabel = "FILE", description = "History CSV: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield', or as published: Treasury par yields, H.15, SDMX-CSV (docs/replay.md).")
     Path file;
 
     @Option(names = "--curve", paramLabel = "NAME", description = "Curve name for a wide file (default: the file name without extension).")

@@ -38,7 +38,10 @@ import org.slopewatch.text.Excerpt;
  * per date, in date order; a heading {@code 13W:discount} declares its column's basis,
  * {@link TenorHeading}) and long ({@code date,curve,tenor,yield} and optionally {@code basis}, in
  * any column order; rows in any order that keeps each curve's dates ascending, such as by date or
- * by curve and date, {@link OpenSnapshots}). A discount basis is converted to bond-equivalent by
+ * by curve and date, {@link OpenSnapshots}). Publishers' files are read as published, told apart
+ * from these by {@link Layout}: the Treasury's par yield curve ({@link TreasuryHeading}) and the
+ * H.15 download ({@link H15Series}) as wide files of their own headings and dates, either
+ * direction; SDMX-CSV ({@link SdmxColumns}) gathered whole and placed by a {@link SeriesMap}. A discount basis is converted to bond-equivalent by
  * {@link YieldBasis}, and {@code 13W}, {@code 26W}, {@code 52W} are read as {@code 3M}, {@code 6M},
  * {@code 1Y} ({@link TenorAliases}), as every history file is. Dates are {@code YYYY-MM-DD} or
  * {@code YYYY-MM} (the first of the month). Empty cells and {@code NA}, {@code ND}, {@code .} mark
