@@ -136,6 +136,24 @@ class PublisherLayoutReplayTest {
         assertThat(report.get("spreads")).extracting(s -> s.get("id").asText()).containsExactly("GOVT-A:10Y-1Y", "GOVT-A:10Y-3Y");
     }
 
+    /** The probit fit of 10Y-1Y on a file's text, from the same path each time. */
+    private String fit(String csv) throws Exception {
+        Path file = dir.resolve("history.csv");
+        Files.writeString(file, csv);
+        CliRun run = CliRun.of("fit", file.toString(), "--curve", "GOVT-A", "--spread", "10Y-1Y", "--horizon-months", "12",
+                "--recessions", ReferenceReplayTest.resource("reference/us-business-cycle-dates.csv").toString(), "--json");
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        return run.out();
+    }
+
+    @Test
+    void fitReadsThePublishersLayoutsAsItReadsSlopewatchsCsv() throws Exception {
+        String own = fit(ownCsv());
+        assertThat(new ObjectMapper().readTree(own).toString()).contains("10Y-1Y");
+        assertThat(fit(treasuryCsv())).isEqualTo(own);
+        assertThat(fit(h15Csv())).isEqualTo(own);
+    }
+
     @Test
     void theH15DownloadReplaysToTheSpreadsOfTheSameValuesInSlopewatchsCsv() throws Exception {
         assertThat(replay(h15Csv())).isEqualTo(replay(ownCsv()));
