@@ -10,7 +10,6 @@ import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.nio.charset.Charset;
 import java.nio.charset.StandardCharsets;
-import java.time.DateTimeException;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -457,7 +456,7 @@ public final class HistoryCsvReader {
                 throw at(row, Math.min(header.getFieldCount(), row.getFieldCount()), "expected " + header.getFieldCount()
                         + " fields as in the header, found " + row.getFieldCount());
             }
-            if (columns.action() >= 0 && SdmxColumns.id(row.getField(columns.action())).equals("D")) {
+            if (columns.action() >= 0 && SdmxColumns.id(row.getField(columns.action())).equalsIgnoreCase("D")) {
                 throw at(row, columns.action(), "ACTION D deletes observations: slopewatch reads quotes, not their removal");
             }
             key.setLength(0);
@@ -470,7 +469,9 @@ public final class HistoryCsvReader {
                         + options.series().source());
             }
             LocalDate date = date(row, columns.time());
-            double v = value(row, columns.value(), target.written(), YieldBasis.BOND_EQUIVALENT, options.unit());
+            // NaN is how SDMX marks an observation without a value (as well as an empty cell)
+            double v = row.getField(columns.value()).strip().equals("NaN") ? Double.NaN
+                    : value(row, columns.value(), target.written(), YieldBasis.BOND_EQUIVALENT, options.unit());
             noteRow(date);
             if (Double.isNaN(v)) {
                 continue;
@@ -582,65 +583,6 @@ public final class HistoryCsvReader {
             return basis.toBondEquivalentBp(bp, tenor);
         } catch (IllegalArgumentException e) {
             throw at(row, field, e.getMessage());
-        }
-    }
-
-    /** A text from the file as a message quotes it: in quotes, cut short when long, since the message goes back to the sender. */
-
-    /** ISO dates without the cost of the general parser, which dominates a large replay otherwise. */
-    static final class Dates {
-        private Dates() {
-        }
-
-        static LocalDate parse(String text) {
-            String t = text.strip();
-            int len = t.length();
-            if ((len != 10 && len != 7) || t.charAt(4) != '-' || (len == 10 && t.charAt(7) != '-')) {
-                return null;
-            }
-            int year = digits(t, 0, 4);
-            int month = digits(t, 5, 7);
-            int day = len == 10 ? digits(t, 8, 10) : 1;
-            if (year < 0 || month < 0 || day < 0) {
-                return null;
-            }
-            try {
-                return LocalDate.of(year, month, day);
-            } catch (DateTimeException e) {
-                return null;
-            }
-        }
-
-        /** {@code MM/DD/YYYY}, the month and day of one or two digits. */
-        static LocalDate parseUs(String text) {
-            String[] parts = text.strip().split("/", -1);
-            if (parts.length != 3 || parts[0].isEmpty() || parts[0].length() > 2 || parts[1].isEmpty() || parts[1].length() > 2
-                    || parts[2].length() != 4) {
-                return null;
-            }
-            int month = digits(parts[0], 0, parts[0].length());
-            int day = digits(parts[1], 0, parts[1].length());
-            int year = digits(parts[2], 0, 4);
-            if (year < 0 || month < 0 || day < 0) {
-                return null;
-            }
-            try {
-                return LocalDate.of(year, month, day);
-            } catch (DateTimeException e) {
-                return null;
-            }
-        }
-
-        private static int digits(String t, int from, int to) {
-            int v = 0;
-            for (int i = from; i < to; i++) {
-                char c = t.charAt(i);
-                if (c < '0' || c > '9') {
-                    return -1;
-                }
-                v = v * 10 + (c - '0');
-            }
-            return v;
         }
     }
 }

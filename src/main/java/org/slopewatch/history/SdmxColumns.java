@@ -24,14 +24,15 @@ record SdmxColumns(int firstDimension, int time, int value, int action) {
             return false;
         }
         String first = id(fields.get(0));
-        return first.equals("DATAFLOW") || (first.equals("STRUCTURE") && fields.size() > 2 && id(fields.get(1)).equals("STRUCTURE_ID"));
+        return first.equalsIgnoreCase("DATAFLOW")
+                || (first.equalsIgnoreCase("STRUCTURE") && fields.size() > 2 && id(fields.get(1)).equalsIgnoreCase("STRUCTURE_ID"));
     }
 
-    /** The identifier of a heading or a cell, without the label a download may add after a colon. */
+    /** The identifier of a heading or a cell, as written, without the label a download may add after a colon. */
     static String id(String cell) {
         String t = cell.strip();
         int colon = t.indexOf(": ");
-        return (colon < 0 ? t : t.substring(0, colon)).strip().toUpperCase(Locale.ROOT);
+        return (colon < 0 ? t : t.substring(0, colon)).strip();
     }
 
     /**
@@ -40,19 +41,19 @@ record SdmxColumns(int firstDimension, int time, int value, int action) {
      * @throws IllegalArgumentException with the column at fault in {@link Missing}
      */
     static SdmxColumns of(List<String> header) {
-        boolean v2 = id(header.get(0)).equals("STRUCTURE");
+        boolean v2 = id(header.get(0)).equalsIgnoreCase("STRUCTURE");
         int firstDimension = v2 ? 3 : 1;
         int time = -1;
         int value = -1;
         for (int i = 0; i < header.size(); i++) {
-            String id = id(header.get(i));
+            String id = id(header.get(i)).toUpperCase(Locale.ROOT);
             if (id.equals("TIME_PERIOD")) {
                 time = time < 0 ? i : throwTwice(i, id);
             } else if (id.equals("OBS_VALUE")) {
                 value = value < 0 ? i : throwTwice(i, id);
             }
         }
-        if (v2 && !id(header.get(2)).equals("ACTION")) {
+        if (v2 && !id(header.get(2)).equalsIgnoreCase("ACTION")) {
             throw new Missing(2, "an SDMX-CSV 2.0 header has ACTION as its third column, found " + header.get(2).strip());
         }
         if (time < 0 || value < 0) {

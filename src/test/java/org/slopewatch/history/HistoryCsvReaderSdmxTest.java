@@ -26,7 +26,8 @@ import org.slopewatch.curve.YieldUnit;
  * {@code dataflow}), {@code STRUCTURE_ID} and {@code ACTION} ({@code I} information, {@code A}
  * append, {@code R} replace, {@code D} delete); then one column per dimension in the structure's
  * order, {@code TIME_PERIOD}, {@code OBS_VALUE}, and attribute columns; one observation per row.
- * A download with labels writes {@code ID: Label} in headings and cells. The flow, its dimensions
+ * A download with labels writes {@code ID: Label} in headings and cells; {@code NaN} marks an
+ * observation without a value (from memory, as SDMX-ML does). The flow, its dimensions
  * and the yields below are invented; only the layout is the standard's.
  */
 class HistoryCsvReaderSdmxTest {
@@ -68,8 +69,10 @@ class HistoryCsvReaderSdmxTest {
                 DESK:YIELDS(1.0),D,XA,M3,2026-01-05,4.29,A
                 DESK:YIELDS(1.0),D,XA,Y10,2026-01-02,4.24,A
                 DESK:YIELDS(1.0),D,XA,Y10,2026-01-05,,M
+                DESK:YIELDS(1.0),D,XB,Y10,2026-01-02,NaN,M
                 DESK:YIELDS(1.0),D,XB,Y10,2026-01-05,3.10,A
                 """);
+        // an empty value and SDMX's NaN are missing: GOVT-A's 10Y of 01-05 and GOVT-B's whole 01-02
         assertThat(snapshots).extracting(s -> s.curve() + " " + s.date() + " " + s.asMap()).containsExactly(
                 "GOVT-A 2026-01-02 {3M=430.0, 10Y=424.0}",
                 "GOVT-A 2026-01-05 {3M=429.0}",
