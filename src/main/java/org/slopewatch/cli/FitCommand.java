@@ -14,6 +14,7 @@ import java.util.concurrent.Callable;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.history.HistoryCsvReader;
+import org.slopewatch.history.SeriesMap;
 import org.slopewatch.history.HistoryFormatException;
 import org.slopewatch.probability.CovarianceKind;
 import org.slopewatch.probability.FitOptions;
@@ -46,7 +47,7 @@ import picocli.CommandLine.Spec;
                 "2:bad input or options, or data that cannot give a fit (separation, one class, too few months)"})
 final class FitCommand implements Callable<Integer> {
 
-    @Parameters(index = "0", paramLabel = "FILE", description = "History CSV in the replay's layouts: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield'.")
+    @Parameters(index = "0", paramLabel = "FILE", description = "History CSV in the replay's layouts: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield', or as published: Treasury par yields, H.15, SDMX-CSV (docs/replay.md).")
     Path file;
 
     @Option(names = "--spread", required = true, paramLabel = "SPREAD", description = "The spread, e.g. 10Y-3M, 10Y-1Y or 10Y-3M~ (interpolated legs).")
@@ -69,6 +70,9 @@ final class FitCommand implements Callable<Integer> {
 
     @Option(names = "--curve", paramLabel = "NAME", description = "The curve to fit in a long file with several curves.")
     String curve;
+
+    @Option(names = "--series-map", paramLabel = "FILE", description = "For an SDMX-CSV file: lines KEY,CURVE,TENOR placing each series (see docs/sdmx.md).")
+    Path seriesMap;
 
     @Option(names = "--unit", paramLabel = "UNIT", defaultValue = "percent", description = "Unit of the yields: percent, bp or decimal (default: ${DEFAULT-VALUE}).")
     String unit;
@@ -95,7 +99,7 @@ final class FitCommand implements Callable<Integer> {
                 calendar = RecessionCalendarCsv.read(r, recessions.toString());
             }
             HistoryCsvReader.Options read = new HistoryCsvReader.Options(curve != null ? curve : fileStem(), YieldUnit.parse(unit),
-                    YieldBounds.DEFAULT);
+                    YieldBounds.DEFAULT, SeriesMap.readOrNone(seriesMap));
             SpreadSeries series;
             try (InputStream in = Files.newInputStream(file)) {
                 series = SpreadSeriesReader.read(file.toString(), in, read, definition, curve);

@@ -14,6 +14,7 @@ import java.util.concurrent.Callable;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.history.HistoryCsvReader;
+import org.slopewatch.history.SeriesMap;
 import org.slopewatch.history.HistoryFormatException;
 import org.slopewatch.monitor.DaysInverted;
 import org.slopewatch.monitor.MonitorDefinition;
@@ -47,11 +48,14 @@ import picocli.CommandLine.Spec;
         exitCodeList = {"0:report written", "1:could not read a file", "2:bad input or options (file:line: what is wrong)"})
 final class ReplayCommand implements Callable<Integer> {
 
-    @Parameters(index = "0", arity = "0..1", paramLabel = "FILE", description = "History CSV: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield'.")
+    @Parameters(index = "0", arity = "0..1", paramLabel = "FILE", description = "History CSV: wide 'date,3M,2Y,10Y,…' or long 'date,curve,tenor,yield', or as published: Treasury par yields, H.15, SDMX-CSV (docs/replay.md).")
     Path file;
 
     @Option(names = "--curve", paramLabel = "NAME", description = "Curve name for a wide file (default: the file name without extension).")
     String curve;
+
+    @Option(names = "--series-map", paramLabel = "FILE", description = "For an SDMX-CSV file: lines KEY,CURVE,TENOR placing each series (see docs/sdmx.md).")
+    Path seriesMap;
 
     @Option(names = "--unit", paramLabel = "UNIT", defaultValue = "percent", description = "Unit of the yields: percent, bp or decimal (default: ${DEFAULT-VALUE}).")
     String unit;
@@ -117,7 +121,8 @@ final class ReplayCommand implements Callable<Integer> {
                     leads = new LeadTimeAnalysis(RecessionCalendarCsv.read(r, recessions.toString()).recessions(), falseAlarmMonths);
                 }
             }
-            HistoryCsvReader.Options options = new HistoryCsvReader.Options(curveName(), YieldUnit.parse(unit), YieldBounds.DEFAULT);
+            HistoryCsvReader.Options options = new HistoryCsvReader.Options(curveName(), YieldUnit.parse(unit), YieldBounds.DEFAULT,
+                    SeriesMap.readOrNone(seriesMap));
             long size = Files.size(file);
             ReplayReport report;
             Replay replay = new Replay(watches);

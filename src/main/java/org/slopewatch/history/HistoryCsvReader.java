@@ -10,15 +10,17 @@ import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.nio.charset.Charset;
 import java.nio.charset.StandardCharsets;
-import java.time.DateTimeException;
 import java.time.LocalDate;
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Collections;
 import java.util.HashMap;
 import java.util.Iterator;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
+import java.util.TreeMap;
 import java.util.function.Consumer;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.Tenor;
@@ -35,7 +37,10 @@ import org.slopewatch.text.Excerpt;
  * per date, in date order; a heading {@code 13W:discount} declares its column's basis,
  * {@link TenorHeading}) and long ({@code date,curve,tenor,yield} and optionally {@code basis}, in
  * any column order; rows in any order that keeps each curve's dates ascending, such as by date or
- * by curve and date, {@link OpenSnapshots}). A discount basis is converted to bond-equivalent by
+ * by curve and date, {@link OpenSnapshots}). Publishers' files are read as published, told apart
+ * from these by {@link Layout}: the Treasury's par yield curve ({@link TreasuryHeading}) and the
+ * H.15 download ({@link H15Series}) as wide files of their own headings and dates, either
+ * direction; SDMX-CSV ({@link SdmxColumns}) gathered whole and placed by a {@link SeriesMap}. A discount basis is converted to bond-equivalent by
  * {@link YieldBasis}, and {@code 13W}, {@code 26W}, {@code 52W} are read as {@code 3M}, {@code 6M},
  * {@code 1Y} ({@link TenorAliases}), as every history file is. Dates are {@code YYYY-MM-DD} or
  * {@code YYYY-MM} (the first of the month). Empty cells and {@code NA}, {@code ND}, {@code .} mark
@@ -48,12 +53,22 @@ import org.slopewatch.text.Excerpt;
  */
 public final class HistoryCsvReader {
 
-    /** How to read the values. {@code curve} names the curve of a wide file. */
-    public record Options(String curve, YieldUnit unit, YieldBounds bounds) {
+    /**
+     * How to read the values. {@code curve} names the curve of a one-curve file (wide, the
+     * Treasury's, H.15); {@code series} places the series of an SDMX-CSV file.
+     */
+    public record Options(String curve, YieldUnit unit, YieldBounds bounds, SeriesMap series) {
         public Options {
             if (curve == null || curve.isBlank()) {
                 throw new IllegalArgumentException("a curve name is needed for a wide file");
             }
+            if (series == null) {
+                series = SeriesMap.NONE;
+            }
+        }
+
+        public Options(String curve, YieldUnit unit, YieldBounds bounds) {
+            this(curve, unit, bounds, SeriesMap.NONE);
         }
     }
 
@@ -183,8 +198,17 @@ public final class HistoryCsvReader {
         if (header == null) {
             throw new HistoryFormatException(source, 1, 1, "empty file: expected a header 'date,3M,2Y,10Y,…' or 'date,curve,tenor,yield'");
         }
+        Layout layout = Layout.of(header.getFields());
+        if (layout == Layout.H15) {
+            header = h15Header(records, header);
+        }
+        if (layout == Layout.SDMX) {
+            readSdmx(records, header);
+            noQuotes();
+            return;
+        }
         List<String> names = header.getFields().stream().map(f -> f.strip().toLowerCase(Locale.ROOT)).toList();
-        if (!names.contains("date")) {
+        if (layout != Layout.H15 && !names.contains("date")) {
             throw at(header, 0, "missing column 'date' in header " + Excerpt.quoted(String.join(",", header.getFields())) + jsonHint(true));
         }
         for (int i = 0; i < names.size(); i++) {
@@ -192,33 +216,83 @@ public final class HistoryCsvReader {
                 throw at(header, i, "column '" + names.get(i) + "' appears twice in the header");
             }
         }
-        if (names.contains("curve") || names.contains("tenor") || names.contains("yield")) {
+        if (layout == Layout.LONG) {
             readLong(records, header, names);
         } else {
-            readWide(records, header);
+            readWide(records, header, layout, layout == Layout.H15 ? 0 : names.indexOf("date"));
         }
+        noQuotes();
+    }
+
+    private void noQuotes() throws HistoryFormatException {
         if (quotes == 0) {
             throw new HistoryFormatException(source, text.end(), rows == 0 ? "no quotes: nothing follows the header"
                     : "no quotes: every value of the " + rows + " rows is missing");
         }
     }
 
-    private void readWide(Iterator<CsvRecord> records, CsvRecord header) throws IOException, HistoryFormatException {
-        int dateColumn = -1;
+    /**
+     * Reads an H.15 download's description rows, from its first, checking each series' unit and
+     * multiplier; answers the {@code Time Period} row, the header of the series ({@link H15Series}).
+     */
+    private CsvRecord h15Header(Iterator<CsvRecord> records, CsvRecord first) throws IOException, HistoryFormatException {
+        int n = first.getFieldCount();
+        CsvRecord row = first;
+        for (int i = 0; ; i++) {
+            if (row.getFieldCount() != n) {
+                throw at(row, Math.min(n, row.getFieldCount()), "expected " + n + " fields as in the Series Description row, found "
+                        + row.getFieldCount());
+            }
+            String label = row.getField(0);
+            if (label.strip().equalsIgnoreCase(H15Series.HEADER_LABEL)) {
+                return row;
+            }
+            if (i >= H15Series.MAX_DESCRIPTION_ROWS) {
+                throw at(row, 0, "no 'Time Period' header after " + i + " description rows of an H.15 file");
+            }
+            for (int j = 1; j < n; j++) {
+                String problem = H15Series.checkDescription(label, row.getField(j));
+                if (problem != null) {
+                    throw at(row, j, problem);
+                }
+            }
+            row = next(records);
+            if (row == null) {
+                throw new HistoryFormatException(source, text.end(), "the H.15 file ends before its 'Time Period' header: is it cut short?");
+            }
+        }
+    }
+
+    /** A value column's heading in the words of {@code layout}. */
+    private static TenorHeading heading(Layout layout, String name) {
+        return switch (layout) {
+            case TREASURY_PAR -> TreasuryHeading.parse(name);
+            case H15 -> H15Series.parse(name);
+            default -> TenorHeading.parse(name);
+        };
+    }
+
+    /**
+     * One curve, one row per date, one column per tenor: slopewatch's wide file, and the
+     * publishers' files of the same shape. Slopewatch's own dates ascend; a publisher's run one way
+     * throughout, either, the Treasury's newest first: a file whose dates descend is held and handed
+     * on oldest first when it has been read whole.
+     */
+    private void readWide(Iterator<CsvRecord> records, CsvRecord header, Layout layout, int dateColumn)
+            throws IOException, HistoryFormatException {
         int n = header.getFieldCount();
         TenorHeading[] headings = new TenorHeading[n];
         for (int i = 0; i < n; i++) {
-            String name = header.getField(i).strip();
-            if (name.equalsIgnoreCase("date")) {
-                dateColumn = i;
+            if (i == dateColumn) {
                 continue;
             }
-            if (name.equalsIgnoreCase("basis")) {
+            String name = header.getField(i).strip();
+            if (layout == Layout.WIDE && name.equalsIgnoreCase("basis")) {
                 throw at(header, i, "a wide file declares the basis in a column's heading, e.g. 13W:discount;"
                         + " a basis column belongs to the long layout date,curve,tenor,yield,basis");
             }
             try {
-                headings[i] = TenorHeading.parse(name);
+                headings[i] = heading(layout, name);
             } catch (IllegalArgumentException e) {
                 throw at(header, i, e.getMessage());
             }
@@ -245,20 +319,34 @@ public final class HistoryCsvReader {
                         + TenorHeading.aliasNote(columns[j - 1].written()) + TenorHeading.aliasNote(columns[j].written()));
             }
         }
-        double[] values = new double[order.length];
+        YieldUnit unit = layout.percentByDefinition() ? YieldUnit.PERCENT : options.unit();
+        boolean eitherWay = layout != Layout.WIDE;
+        Boolean descending = eitherWay ? null : Boolean.FALSE; // a publisher's direction is its first two dates'
+        List<CurveSnapshot> held = new ArrayList<>();
+        double[] values = new double[order.length]; // reused: a snapshot copies what it keeps
+        LocalDate previous = null;
         CsvRecord row;
         while ((row = next(records)) != null) {
             if (row.getFieldCount() != n) {
                 throw at(row, Math.min(n, row.getFieldCount()), "expected " + n + " fields as in the header, found " + row.getFieldCount());
             }
-            LocalDate date = date(row, dateColumn);
-            if (last != null && !date.isAfter(last)) {
-                throw at(row, dateColumn, date.equals(last)
-                        ? "date " + date + " appears twice" : "dates out of order: " + date + " after " + last);
+            LocalDate date = layout == Layout.TREASURY_PAR ? usDate(row, dateColumn) : date(row, dateColumn);
+            if (previous != null) {
+                if (date.equals(previous)) {
+                    throw at(row, dateColumn, "date " + date + " appears twice");
+                }
+                if (descending == null) {
+                    descending = date.isBefore(previous);
+                }
+                if (descending != date.isBefore(previous)) {
+                    throw at(row, dateColumn, "dates out of order: " + date + " after " + previous
+                            + (eitherWay ? (descending ? " in a file whose dates descend" : " in a file whose dates ascend") : ""));
+                }
             }
+            previous = date;
             int present = 0;
             for (int j = 0; j < order.length; j++) {
-                double v = value(row, order[j], columns[j].written(), columns[j].basis());
+                double v = value(row, order[j], columns[j].written(), columns[j].basis(), unit);
                 values[j] = v;
                 if (!Double.isNaN(v)) {
                     present++;
@@ -267,9 +355,18 @@ public final class HistoryCsvReader {
             quotes += present;
             noteRow(date);
             if (present > 0) {
-                emit(CurveSnapshot.ofSorted(options.curve(), date, sorted, values));
+                CurveSnapshot snapshot = CurveSnapshot.ofSorted(options.curve(), date, sorted, values);
+                if (eitherWay) {
+                    held.add(snapshot); // handed on when the direction is known for the whole file, that is at its end
+                } else {
+                    emit(snapshot);
+                }
             }
         }
+        if (Boolean.TRUE.equals(descending)) {
+            Collections.reverse(held);
+        }
+        held.forEach(this::emit);
     }
 
     private void readLong(Iterator<CsvRecord> records, CsvRecord header, List<String> names) throws IOException, HistoryFormatException {
@@ -319,7 +416,7 @@ public final class HistoryCsvReader {
                     throw at(row, basisColumn, e.getMessage());
                 }
             }
-            double v = value(row, yieldColumn, tenor.written(), basis);
+            double v = value(row, yieldColumn, tenor.written(), basis, options.unit());
             noteRow(date);
             if (Double.isNaN(v)) {
                 continue;
@@ -331,6 +428,63 @@ public final class HistoryCsvReader {
             quotes++;
         }
         open.finish();
+    }
+
+    /**
+     * An SDMX-CSV file: one observation a row, its series named by its dimension cells and placed
+     * by the {@link SeriesMap}. A publisher sorts by series and then time, so a curve's dates come
+     * round again for each of its tenors: the file is gathered whole, then handed on curve by
+     * curve in date order. A second observation of one curve, tenor and date is refused wherever
+     * it comes; so is a row that deletes (ACTION {@code D}), since a deletion is no quote.
+     */
+    private void readSdmx(Iterator<CsvRecord> records, CsvRecord header) throws IOException, HistoryFormatException {
+        SdmxColumns columns;
+        try {
+            columns = SdmxColumns.of(header.getFields());
+        } catch (SdmxColumns.Missing e) {
+            throw at(header, e.column(), e.getMessage());
+        }
+        if (options.series().isEmpty()) {
+            throw at(header, 0, "an SDMX-CSV file needs a series map to place its series on curves and tenors"
+                    + " (replay --series-map FILE, slopewatch.ingest.series-map)");
+        }
+        Map<String, Map<LocalDate, Map<Tenor, Double>>> curves = new TreeMap<>();
+        CsvRecord row;
+        StringBuilder key = new StringBuilder();
+        while ((row = next(records)) != null) {
+            if (row.getFieldCount() != header.getFieldCount()) {
+                throw at(row, Math.min(header.getFieldCount(), row.getFieldCount()), "expected " + header.getFieldCount()
+                        + " fields as in the header, found " + row.getFieldCount());
+            }
+            if (columns.action() >= 0 && SdmxColumns.id(row.getField(columns.action())).equalsIgnoreCase("D")) {
+                throw at(row, columns.action(), "ACTION D deletes observations: slopewatch reads quotes, not their removal");
+            }
+            key.setLength(0);
+            for (int i = columns.firstDimension(); i < columns.time(); i++) {
+                key.append(i > columns.firstDimension() ? "." : "").append(SdmxColumns.id(row.getField(i)));
+            }
+            SeriesMap.Target target = options.series().target(key.toString());
+            if (target == null) {
+                throw at(row, columns.firstDimension(), "series " + Excerpt.quoted(key.toString()) + " is not in the series map "
+                        + options.series().source());
+            }
+            LocalDate date = date(row, columns.time());
+            // NaN is how SDMX marks an observation without a value (as well as an empty cell)
+            double v = row.getField(columns.value()).strip().equals("NaN") ? Double.NaN
+                    : value(row, columns.value(), target.written(), YieldBasis.BOND_EQUIVALENT, options.unit());
+            noteRow(date);
+            if (Double.isNaN(v)) {
+                continue;
+            }
+            Map<Tenor, Double> quotesOf = curves.computeIfAbsent(target.curve(), c -> new TreeMap<>())
+                    .computeIfAbsent(date, d -> new TreeMap<>());
+            if (quotesOf.putIfAbsent(target.tenor(), v) != null) {
+                throw at(row, columns.time(), "second quote for " + Excerpt.of(target.curve()) + " " + target.tenor() + " on " + date
+                        + " (series " + key + ")");
+            }
+            quotes++;
+        }
+        curves.forEach((curve, dates) -> dates.forEach((date, yields) -> emit(CurveSnapshot.of(curve, date, yields))));
     }
 
     /** A tenor cell: the tenor as written, whose days a discount rate is converted over, and the point it is read as. */
@@ -396,8 +550,18 @@ public final class HistoryCsvReader {
         return d;
     }
 
+    /** A date as the Treasury writes it, {@code MM/DD/YYYY}. */
+    private LocalDate usDate(CsvRecord row, int field) throws HistoryFormatException {
+        String spelt = row.getField(field);
+        LocalDate d = Dates.parseUs(spelt);
+        if (d == null) {
+            throw at(row, field, "unparsable date " + Excerpt.quoted(spelt) + " (expected MM/DD/YYYY, as the Treasury writes it)");
+        }
+        return d;
+    }
+
     /** A cell's yield in basis points on the bond-equivalent basis, or NaN when missing; {@code tenor} as written. */
-    private double value(CsvRecord row, int field, Tenor tenor, YieldBasis basis) throws HistoryFormatException {
+    private double value(CsvRecord row, int field, Tenor tenor, YieldBasis basis, YieldUnit unit) throws HistoryFormatException {
         String text = row.getField(field);
         String t = text.strip();
         if (t.isEmpty() || t.equals(".") || t.equalsIgnoreCase("NA") || t.equalsIgnoreCase("ND")) {
@@ -411,7 +575,7 @@ public final class HistoryCsvReader {
         }
         double bp;
         try {
-            bp = options.bounds().toBasisPoints(raw, options.unit());
+            bp = options.bounds().toBasisPoints(raw, unit);
         } catch (IllegalArgumentException e) {
             throw at(row, field, tenor + ": " + e.getMessage());
         }
@@ -419,45 +583,6 @@ public final class HistoryCsvReader {
             return basis.toBondEquivalentBp(bp, tenor);
         } catch (IllegalArgumentException e) {
             throw at(row, field, e.getMessage());
-        }
-    }
-
-    /** A text from the file as a message quotes it: in quotes, cut short when long, since the message goes back to the sender. */
-
-    /** ISO dates without the cost of the general parser, which dominates a large replay otherwise. */
-    static final class Dates {
-        private Dates() {
-        }
-
-        static LocalDate parse(String text) {
-            String t = text.strip();
-            int len = t.length();
-            if ((len != 10 && len != 7) || t.charAt(4) != '-' || (len == 10 && t.charAt(7) != '-')) {
-                return null;
-            }
-            int year = digits(t, 0, 4);
-            int month = digits(t, 5, 7);
-            int day = len == 10 ? digits(t, 8, 10) : 1;
-            if (year < 0 || month < 0 || day < 0) {
-                return null;
-            }
-            try {
-                return LocalDate.of(year, month, day);
-            } catch (DateTimeException e) {
-                return null;
-            }
-        }
-
-        private static int digits(String t, int from, int to) {
-            int v = 0;
-            for (int i = from; i < to; i++) {
-                char c = t.charAt(i);
-                if (c < '0' || c > '9') {
-                    return -1;
-                }
-                v = v * 10 + (c - '0');
-            }
-            return v;
         }
     }
 }

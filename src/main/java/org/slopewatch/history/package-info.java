@@ -1,7 +1,9 @@
 /**
  * History files: the reader of slopewatch's CSV of past quotes
- * ({@link org.slopewatch.history.HistoryCsvReader}) and its format errors, placed at
- * {@code line:column}. Plain Java, no framework and no clock: used alike by the offline
+ * ({@link org.slopewatch.history.HistoryCsvReader}), and of the layouts in which statisticians
+ * publish yields (the Treasury's par yield curve, the H.15 download, SDMX-CSV placed by a
+ * {@link org.slopewatch.history.SeriesMap}), each recognised from its header in one place
+ * ({@link org.slopewatch.history.Layout}), and its format errors, placed at {@code line:column}. Plain Java, no framework and no clock: used alike by the offline
  * commands ({@code replay}, {@code fit}), the reports, the what-if runs and CSV ingest.
  *
  * <p>Invariants: every snapshot handed on is bond-equivalent, in basis points, its bills spelt in

@@ -13,6 +13,7 @@ import java.util.List;
 import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.history.HistoryCsvReader;
 import org.slopewatch.history.HistoryFormatException;
+import org.slopewatch.history.SeriesMap;
 import org.slopewatch.pipeline.QuoteBatch;
 import org.slopewatch.pipeline.QuoteMessage;
 import org.slopewatch.pipeline.Reject;
@@ -38,10 +39,18 @@ public final class CsvQuoteDecoder {
 
     private final QuoteDecoder decoder;
     private final IngestRules rules;
+    private final SeriesMap series;
 
+    /** A decoder that refuses SDMX-CSV bodies, having no series map. */
     public CsvQuoteDecoder(QuoteDecoder decoder, IngestRules rules) {
+        this(decoder, rules, SeriesMap.NONE);
+    }
+
+    /** @param series places the series of an SDMX-CSV body on curves and tenors */
+    public CsvQuoteDecoder(QuoteDecoder decoder, IngestRules rules, SeriesMap series) {
         this.decoder = decoder;
         this.rules = rules;
+        this.series = series;
     }
 
     /**
@@ -69,7 +78,7 @@ public final class CsvQuoteDecoder {
         List<Reject> rejects = new ArrayList<>();
         try {
             HistoryCsvReader.read(SOURCE, new ByteArrayInputStream(body), encoding,
-                    new HistoryCsvReader.Options(curve == null ? UNNAMED_CURVE : curve, yieldUnit, rules.bounds()), snapshot -> {
+                    new HistoryCsvReader.Options(curve == null ? UNNAMED_CURVE : curve, yieldUnit, rules.bounds(), series), snapshot -> {
                         QuoteMessage m = QuoteMessage.of(snapshot.curve(), snapshot.date(), snapshot.asMap());
                         Reject problem = decoder.check(m, messages.size() + rejects.size());
                         if (problem == null) {

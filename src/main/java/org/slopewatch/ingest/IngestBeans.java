@@ -3,9 +3,12 @@ package org.slopewatch.ingest;
 import jakarta.enterprise.context.ApplicationScoped;
 import jakarta.enterprise.inject.Produces;
 import jakarta.inject.Singleton;
+import java.io.IOException;
+import java.nio.file.Path;
 import java.time.Clock;
 import java.util.Set;
 import org.slopewatch.curve.YieldBounds;
+import org.slopewatch.history.SeriesMap;
 import org.slopewatch.pipeline.IngestConfig;
 
 /** Builds the decoding side from configuration: the rules a quote must satisfy and the decoders that apply them. */
@@ -27,7 +30,7 @@ public class IngestBeans {
 
     @Produces
     @Singleton
-    CsvQuoteDecoder csvQuoteDecoder(QuoteDecoder decoder, IngestRules rules) {
-        return new CsvQuoteDecoder(decoder, rules);
+    CsvQuoteDecoder csvQuoteDecoder(QuoteDecoder decoder, IngestRules rules, IngestConfig config) throws IOException {
+        return new CsvQuoteDecoder(decoder, rules, SeriesMap.readOrNone(config.seriesMap().map(Path::of).orElse(null)));
     }
 }

@@ -3,6 +3,7 @@ package org.slopewatch.pipeline;
 import io.smallrye.config.ConfigMapping;
 import io.smallrye.config.WithDefault;
 import java.util.List;
+import java.util.Optional;
 
 /** How quotes come in and what they must satisfy. */
 @ConfigMapping(prefix = "slopewatch.ingest")
@@ -32,6 +33,12 @@ public interface IngestConfig {
     /** The most quote messages one HTTP request may carry; more is answered 413 (the body size itself is quarkus.http.limits.max-body-size). */
     @WithDefault("20000")
     int maxBatch();
+
+    /**
+     * The series map of SDMX-CSV bodies ({@code KEY,CURVE,TENOR} lines); without it an SDMX-CSV body is refused.
+     * Read once at start-up: a map that cannot be read stops it.
+     */
+    Optional<String> seriesMap();
 
     enum Transport { EMBEDDED, KAFKA }
 }

@@ -175,6 +175,23 @@ class QuoteIngestTest {
         refusedCsv("text/csv", new byte[0], "request:1:1: empty file");
     }
 
+    @Test
+    void aPublishersFileThatCannotBeReadIsRefusedWholeAtItsLineAndColumn() {
+        // Layouts as HistoryCsvReaderTreasuryTest, HistoryCsvReaderH15Test and HistoryCsvReaderSdmxTest document them (from memory).
+        // Treasury par yields, newest first, the second row's date twice: nothing of the first row is taken either
+        unlabelled().contentType("text/csv").queryParam("curve", "GOVT-A")
+                .body("Date,\"3 Mo\",\"10 Yr\"\n11/03/2026,4.2,4.1\n11/03/2026,4.2,4.1\n").post("/api/quotes").then().statusCode(400)
+                .body("accepted", equalTo(0)).body("errors[0].reason", equalTo("malformed"))
+                .body("errors[0].detail", equalTo("request:3:1: date 2026-11-03 appears twice"));
+        given().get("/api/curves/GOVT-A/2026-11-03").then().statusCode(404);
+        // H.15 cut short before its Time Period header
+        refusedCsv("text/csv", "\"Series Description\",\"10-year\"\n\"Unit:\",\"Percent:_Per_Year\"\n".getBytes(StandardCharsets.UTF_8),
+                "request:3:1: the H.15 file ends before its 'Time Period' header");
+        // SDMX-CSV with no series map configured
+        refusedCsv("text/csv", "DATAFLOW,FREQ,TIME_PERIOD,OBS_VALUE\nDESK:YIELDS(1.0),D,2026-11-03,4.3\n".getBytes(StandardCharsets.UTF_8),
+                "request:1:1: an SDMX-CSV file needs a series map");
+    }
+
     /**
      * A request as curl and most clients send it: REST Assured adds {@code charset=ISO-8859-1} to a text content type
      * that names none, and a named charset is how the body is read.
