@@ -6,6 +6,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import org.slopewatch.curve.Resolution;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadStatus;
 
@@ -52,9 +53,9 @@ public final class AlertConditions {
         } else if (when instanceof AlertTrigger.InvertedForDays d) {
             return spell != null && spell.durationDays() >= d.days() ? spell.start() : null;
         } else if (when instanceof AlertTrigger.SpreadBelow b) {
-            return Double.isFinite(s.valueBp()) && s.valueBp() < b.bp() ? s.date() : null;
+            return Double.isFinite(s.valueBp()) && Resolution.BASIS_POINTS.below(s.valueBp(), b.bp()) ? s.date() : null;
         } else if (when instanceof AlertTrigger.ProbabilityAbove p) {
-            return probability != null && probability > p.level() ? s.date() : null;
+            return probability != null && Resolution.PROBABILITY.above(probability, p.level()) ? s.date() : null;
         }
         return null;
     }
