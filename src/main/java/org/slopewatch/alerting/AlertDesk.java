@@ -139,14 +139,14 @@ public class AlertDesk implements AlertStage {
             return;
         }
         Policy policy = policies.policy();
-        decide(AlertConditions.of(policy.alerts(), List.copyOf(changed), Map.of(), policy.probability().currentBySpreadId(changed)), changed,
+        decide(AlertConditions.of(policy.alerts(), List.copyOf(changed), Map.of(), policy.probability()), changed,
                 sequence, journal);
     }
 
     @Override
     public synchronized void onTick(Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
         Policy policy = policies.policy();
-        decide(AlertConditions.of(policy.alerts(), List.copyOf(all), staleCurves, policy.probability().currentBySpreadId(all)), all, null,
+        decide(AlertConditions.of(policy.alerts(), List.copyOf(all), staleCurves, policy.probability()), all, null,
                 journal);
     }
 

@@ -9,11 +9,14 @@ import java.util.Map;
 import org.slopewatch.curve.Resolution;
 import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.probability.LiveProbability;
+import org.slopewatch.probability.ProbabilityText;
 
 /**
  * Reads each rule's condition off the monitor's current state: one condition per rule and
  * spread (or per rule and curve for feed rules). A probability rule holds only once a
- * probability is known for the spread.
+ * probability is known for the spread, from the month its trigger names: the last complete
+ * month unless the policy asks for the month so far ({@link ProbabilityMonth}).
  */
 public final class AlertConditions {
 
@@ -21,11 +24,11 @@ public final class AlertConditions {
     }
 
     /**
-     * @param staleCurves   curve → whether its feed is stale, and since when (market date of the last quote)
-     * @param probabilities spread id → the latest model probability (0..1); absent when not known
+     * @param staleCurves curve → whether its feed is stale, and since when (market date of the last quote)
+     * @param models      the policy's probability models, which give each spread's probability
      */
     public static List<AlertCondition> of(List<AlertRule> rules, List<SpreadStatus> spreads, Map<String, LocalDate> staleCurves,
-                                          Map<String, Double> probabilities) {
+                                          ProbabilityModels models) {
         List<AlertCondition> out = new ArrayList<>();
         for (AlertRule rule : rules) {
             if (rule.when() instanceof AlertTrigger.FeedStale) {
@@ -38,15 +41,25 @@ public final class AlertConditions {
                 if (!rule.spreads().isEmpty() && !rule.spreads().contains(s.spread())) {
                     continue;
                 }
-                LocalDate since = since(rule.when(), s, probabilities.get(s.id()));
-                out.add(new AlertCondition(rule.name(), s.id(), since != null, since, values(s, probabilities.get(s.id()))));
+                LiveProbability probability = probability(rule.when(), s, models);
+                LocalDate since = since(rule.when(), s, probability);
+                out.add(new AlertCondition(rule.name(), s.id(), since != null, since, values(s, probability)));
             }
         }
         return out;
     }
 
+    /**
+     * The probability a rule reads: a {@code probability-above} rule's month, any other rule's notice the
+     * last complete month's (the figure to quote); null without a model or a value for that month.
+     */
+    private static LiveProbability probability(AlertTrigger when, SpreadStatus s, ProbabilityModels models) {
+        boolean toDate = when instanceof AlertTrigger.ProbabilityAbove p && p.month() == ProbabilityMonth.TO_DATE;
+        return (toDate ? models.current(s) : models.lastMonth(s)).orElse(null);
+    }
+
     /** The market date the condition started to hold, or null when it does not hold. */
-    private static LocalDate since(AlertTrigger when, SpreadStatus s, Double probability) {
+    private static LocalDate since(AlertTrigger when, SpreadStatus s, LiveProbability probability) {
         Spell spell = s.openSpell();
         if (when instanceof AlertTrigger.EntersState e) {
             return s.state() == e.state() && s.stateSince() != null ? s.stateSince() : null;
@@ -55,12 +68,12 @@ public final class AlertConditions {
         } else if (when instanceof AlertTrigger.SpreadBelow b) {
             return Double.isFinite(s.valueBp()) && Resolution.BASIS_POINTS.below(s.valueBp(), b.bp()) ? s.date() : null;
         } else if (when instanceof AlertTrigger.ProbabilityAbove p) {
-            return probability != null && Resolution.PROBABILITY.above(probability, p.level()) ? s.date() : null;
+            return probability != null && Resolution.PROBABILITY.above(probability.probability(), p.level()) ? s.date() : null;
         }
         return null;
     }
 
-    private static Map<String, String> values(SpreadStatus s, Double probability) {
+    private static Map<String, String> values(SpreadStatus s, LiveProbability probability) {
         Map<String, String> v = new HashMap<>();
         v.put("curve", s.curve());
         v.put("spread", s.spread());
@@ -73,7 +86,9 @@ public final class AlertConditions {
                 : String.format(Locale.ROOT, "inverted since %s (%d days), deepest %.1f bp%s", spell.start(), spell.durationDays(),
                         spell.deepestBp(), spell.confirmed() == null ? "" : ", confirmed on " + spell.confirmed() + " by " + spell.confirmedBy()));
         if (probability != null) {
-            v.put("probability", String.format(Locale.ROOT, "%.0f%%", 100 * probability));
+            // e.g. "24 % from the 2026-02 average (complete month, 20 observations)": never without its month
+            v.put("probability", ProbabilityText.percent(probability.probability()) + " from the " + probability.month() + " average "
+                    + ProbabilityText.month(probability));
         }
         return v;
     }

@@ -1,8 +1,6 @@
 package org.slopewatch.rules;
 
-import java.util.Collection;
 import java.util.Collections;
-import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Optional;
@@ -59,14 +57,5 @@ public record ProbabilityModels(Map<String, SpreadProbabilityModel> bySpread) {
         }
         return forSpread(status.spread()).map(model -> LiveProbability.of(model.model(), model.covariance(), model.horizonMonths(), m.month().minusMonths(1),
                 m.previousAverageBp(), m.previousObservations(), false));
-    }
-
-    /** Spread id → the current probability, for the alert rules; spreads without a model are absent. */
-    public Map<String, Double> currentBySpreadId(Collection<SpreadStatus> statuses) {
-        Map<String, Double> out = new HashMap<>();
-        for (SpreadStatus s : statuses) {
-            current(s).ifPresent(p -> out.put(s.id(), p.probability()));
-        }
-        return out;
     }
 }

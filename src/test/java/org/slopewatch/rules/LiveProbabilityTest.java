@@ -64,8 +64,6 @@ class LiveProbabilityTest {
         assertThat(june2026.month()).isEqualTo(YearMonth.of(2026, 6));
         assertThat(june2026.averageBp()).isCloseTo(-20.0, within(1e-12));
         assertThat(june2026.probability()).isCloseTo(PHI.cumulativeProbability(-0.5333 - 0.6330 * -0.20), SIX_DECIMALS);
-
-        assertThat(MODELS.currentBySpreadId(List.of(status))).containsOnlyKeys("GOVT-A:10Y-3M");
     }
 
     /*
@@ -96,6 +94,6 @@ class LiveProbabilityTest {
                 new SpreadKey("GOVT-A", "10Y-2Y"));
         track.record(new Observation(LocalDate.of(2026, 7, 1), -10, 1));
         assertThat(MODELS.current(SpreadStatus.of(track))).isEmpty();
-        assertThat(MODELS.currentBySpreadId(List.of(SpreadStatus.of(track)))).isEmpty();
+        assertThat(MODELS.lastMonth(SpreadStatus.of(track))).isEmpty();
     }
 }
