@@ -14,6 +14,7 @@ import org.slopewatch.rules.Alert;
 import org.slopewatch.rules.AlertDecision;
 import org.slopewatch.rules.AlertTrigger;
 import org.slopewatch.rules.SpreadText;
+import org.slopewatch.rules.ProbabilityMonth;
 
 /**
  * Writes a notice from a rule engine decision and the spread's status: a one-line subject, a body
@@ -85,7 +86,8 @@ final class AlertComposer {
         } else if (when instanceof AlertTrigger.InvertedForDays i) {
             return "inverted for " + i.days() + " days";
         } else if (when instanceof AlertTrigger.ProbabilityAbove p) {
-            return String.format(Locale.ROOT, "probability above %.0f%%", 100 * p.level());
+            return String.format(Locale.ROOT, "probability above %.0f%% on the %s", 100 * p.level(),
+                    p.month() == ProbabilityMonth.TO_DATE ? "month so far" : "last complete month");
         } else if (when instanceof AlertTrigger.SpreadBelow s) {
             return String.format(Locale.ROOT, "spread below %.1f bp", s.bp());
         }

@@ -139,14 +139,14 @@ public class AlertDesk implements AlertStage {
             return;
         }
         Policy policy = policies.policy();
-        decide(AlertConditions.of(policy.alerts(), List.copyOf(changed), Map.of(), policy.probability().currentBySpreadId(changed)), changed,
+        decide(AlertConditions.of(policy.alerts(), List.copyOf(changed), Map.of(), policy.probability()), changed,
                 sequence, journal);
     }
 
     @Override
     public synchronized void onTick(Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
         Policy policy = policies.policy();
-        decide(AlertConditions.of(policy.alerts(), List.copyOf(all), staleCurves, policy.probability().currentBySpreadId(all)), all, null,
+        decide(AlertConditions.of(policy.alerts(), List.copyOf(all), staleCurves, policy.probability()), all, null,
                 journal);
     }
 
@@ -163,7 +163,7 @@ public class AlertDesk implements AlertStage {
         String hash = policies.current().hash();
         for (AlertDecision d : decisions) {
             SpreadStatus status = byId.get(d.subject());
-            Alert alert = composer.compose(d, status, status == null ? null : policy.probability().stated(status).orElse(null), now);
+            Alert alert = composer.compose(d, status, status == null ? null : policy.probability().quoted(d.rule().when(), status).orElse(null), now);
             String quietedBy = quietedBy(d, now);
             List<JournalEntries.Outbox> outbox = new ArrayList<>();
             for (String channel : d.rule().channels()) {

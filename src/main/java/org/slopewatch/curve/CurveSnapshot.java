@@ -9,7 +9,9 @@ import java.util.SortedMap;
 import java.util.TreeMap;
 
 /**
- * The yields of one curve on one market date, in basis points, bond-equivalent basis.
+ * The yields of one curve on one market date, in basis points, bond-equivalent basis, each taken
+ * to {@link Resolution#BASIS_POINTS} as it comes in: a quote of 8.05 % is 805 bp, not the
+ * 805.0000000000001 that 8.05 × 100 computes.
  *
  * <p>Immutable. Tenors are kept sorted by maturity in two parallel arrays because spreads are
  * computed for every snapshot on the hot path of a replay, where a map per row would dominate.
@@ -37,7 +39,7 @@ public final class CurveSnapshot {
         SortedMap<Tenor, Double> sorted = new TreeMap<>(yieldsBp);
         sorted.values().removeIf(v -> v == null || Double.isNaN(v));
         Tenor[] tenors = sorted.keySet().toArray(new Tenor[0]);
-        double[] values = sorted.values().stream().mapToDouble(Double::doubleValue).toArray();
+        double[] values = sorted.values().stream().mapToDouble(Resolution.BASIS_POINTS::round).toArray();
         return new CurveSnapshot(curve, date, tenors, values);
     }
 
@@ -60,14 +62,15 @@ public final class CurveSnapshot {
                     throw new IllegalArgumentException("tenors not in increasing maturity order: " + t[j - 1] + ", " + sortedTenors[i]);
                 }
                 t[j] = sortedTenors[i];
-                y[j++] = yieldsBp[i];
+                y[j++] = Resolution.BASIS_POINTS.round(yieldsBp[i]);
             }
         }
         return new CurveSnapshot(curve, date, t, y);
     }
 
     /** A copy with one tenor set (added or replaced). */
-    public CurveSnapshot with(Tenor tenor, double yieldBp) {
+    public CurveSnapshot with(Tenor tenor, double quotedBp) {
+        double yieldBp = Resolution.BASIS_POINTS.round(quotedBp);
         int at = indexOf(tenor);
         if (at >= 0) {
             double[] y = yieldsBp.clone();

@@ -17,14 +17,25 @@ import java.util.List;
 import java.util.Map;
 import java.util.function.Consumer;
 import javax.sql.DataSource;
+import org.slopewatch.curve.Resolution;
 
 /** Reads the journal: recovery on start, and the history the read API serves. */
 public final class JournalReader {
 
-    /** A stored transition as the API shows it. */
+    /**
+     * A stored transition as the API shows it. Its numbers are read back to the resolution values are
+     * compared and written at ({@link Resolution#BASIS_POINTS}; six decimals serve a measured share or
+     * count of days as well), since a journal written before that rule holds binary residues.
+     */
     public record StoredTransition(long id, String spreadId, LocalDate date, String from, String to, String reason, String test,
                                    String window, double measured, double limit, double valueBp, long daysInverted,
                                    long spellId, long seq, Long supersededBy, Instant recordedAt) {
+
+        public StoredTransition {
+            measured = Resolution.BASIS_POINTS.round(measured);
+            limit = Resolution.BASIS_POINTS.round(limit);
+            valueBp = Resolution.BASIS_POINTS.round(valueBp);
+        }
     }
 
     /** Where a page of transitions ended: the market date and id of its last transition (the list's order). */
@@ -35,8 +46,12 @@ public final class JournalReader {
     public record StoredReject(long id, String origin, String reason, String detail, int item, String raw, Instant recordedAt) {
     }
 
-    /** A spread's standing value on a date. */
+    /** A spread's standing value on a date, to {@link Resolution#BASIS_POINTS} (as {@link StoredTransition}). */
     public record HistoryPoint(LocalDate date, double valueBp, long seq) {
+
+        public HistoryPoint {
+            valueBp = Resolution.BASIS_POINTS.round(valueBp);
+        }
     }
 
     /**
@@ -45,6 +60,10 @@ public final class JournalReader {
      */
     public record StoredObservation(long id, String spreadId, LocalDate date, double valueBp, long seq, boolean standing,
                                     Instant recordedAt) {
+
+        public StoredObservation {
+            valueBp = Resolution.BASIS_POINTS.round(valueBp); // as StoredTransition
+        }
 
         StoredObservation replaced() {
             return new StoredObservation(id, spreadId, date, valueBp, seq, false, recordedAt);

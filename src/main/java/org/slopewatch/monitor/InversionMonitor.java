@@ -3,6 +3,7 @@ package org.slopewatch.monitor;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
+import org.slopewatch.curve.Resolution;
 import org.slopewatch.spread.SpreadKey;
 
 /**
@@ -13,13 +14,19 @@ import org.slopewatch.spread.SpreadKey;
  * <p>Immutable and shareable; the state of each spread is passed in. Observations must arrive in
  * strictly increasing date order: replacing or revising a value is {@link SpreadTrack}'s job.
  * Every step without news returns the same empty list, so the common path allocates nothing.
+ *
+ * <p>Values and thresholds are compared in whole steps of {@link Resolution#BASIS_POINTS} and sums
+ * kept in them, so a spread or an average that stands exactly on a threshold is on it, never a
+ * binary hair to one side.
  */
 public final class InversionMonitor {
 
     private final MonitorDefinition definition;
     private final PersistenceTest[] tests;
     private final double entry;
-    private final double exit;
+    /** The thresholds in steps of the resolution, which every observation is compared in. */
+    private final long entryUnits;
+    private final long exitUnits;
     /** The thresholds as reasons write them, worked out once rather than per transition. */
     private final String entryText;
     private final String exitText;
@@ -30,9 +37,10 @@ public final class InversionMonitor {
         this.definition = definition;
         this.tests = definition.tests().toArray(new PersistenceTest[0]);
         this.entry = definition.entryBelowBp();
-        this.exit = definition.exitAboveBp();
+        this.entryUnits = Resolution.BASIS_POINTS.units(entry);
+        this.exitUnits = Resolution.BASIS_POINTS.units(definition.exitAboveBp());
         this.entryText = PersistenceTest.number(entry);
-        this.exitText = PersistenceTest.number(exit);
+        this.exitText = PersistenceTest.number(definition.exitAboveBp());
         this.hasWindows = definition.tests().stream().anyMatch(t -> t.windowDays() > 0);
     }
 
@@ -68,11 +76,12 @@ public final class InversionMonitor {
             throw outOfOrder(s, date); // a date earlier in the same month (enterMonth checks the others)
         }
         double v = o.valueBp();
-        s.quarterSum += v;
+        long units = Resolution.BASIS_POINTS.units(v);
+        s.quarterUnits += units;
         s.quarterCount++;
-        boolean inverted = v < entry;
+        boolean inverted = units < entryUnits;
         if (hasWindows) {
-            addToWindows(s, day, v, inverted);
+            addToWindows(s, day, units, inverted);
         }
         if (!inverted) {
             s.invertedSinceDay = MonitorState.NONE;
@@ -84,7 +93,7 @@ public final class InversionMonitor {
         s.lastValueBp = v;
         // NORMAL and not below the entry threshold is the usual day: nothing else to look at
         if (inverted || s.state != SpreadState.NORMAL) {
-            events = advance(s, o, day, previousDay, v, inverted, events);
+            events = advance(s, o, day, previousDay, v, units, inverted, events);
         }
         return events;
     }
@@ -113,7 +122,7 @@ public final class InversionMonitor {
             // a series that starts after a quarter's first month has not seen the whole quarter
             s.quarterCounts = s.quarterIndex != MonitorState.NONE || Math.floorMod(month, 3) == 0;
             s.quarterIndex = quarter;
-            s.quarterSum = 0;
+            s.quarterUnits = 0;
             s.quarterCount = 0;
         }
         return events;
@@ -124,16 +133,16 @@ public final class InversionMonitor {
                 + LocalDate.ofEpochDay(s.lastDay) + "; observations must arrive in date order");
     }
 
-    private static void addToWindows(MonitorState s, int day, double v, boolean inverted) {
+    private static void addToWindows(MonitorState s, int day, long units, boolean inverted) {
         for (TrailingWindow w : s.windows) {
             if (w != null) {
-                w.add(day, v, inverted);
+                w.add(day, units, inverted);
             }
         }
     }
 
     /** The state machine's step, for an observation below the entry threshold or a state other than NORMAL. */
-    private List<MonitorEvent> advance(MonitorState s, Observation o, int day, int previousDay, double v, boolean inverted,
+    private List<MonitorEvent> advance(MonitorState s, Observation o, int day, int previousDay, double v, long units, boolean inverted,
                                        List<MonitorEvent> events) {
         switch (s.state) {
             case NORMAL -> {
@@ -144,8 +153,8 @@ public final class InversionMonitor {
                 }
             }
             case INVERTED, CONFIRMED -> {
-                extendSpell(s, previousDay, day, v);
-                if (v >= exit) {
+                extendSpell(s, previousDay, day, v, units);
+                if (units >= exitUnits) {
                     s.aboveExitRun++;
                     if (s.aboveExitRun >= definition.exitObservations()) {
                         events = endSpell(s, o, day, events);
@@ -184,13 +193,13 @@ public final class InversionMonitor {
 
     private List<MonitorEvent> closeQuarter(MonitorState s, Observation o, int day, List<MonitorEvent> events) {
         Quarter closed = Quarter.ofIndex(s.quarterIndex);
-        double average = s.quarterSum / s.quarterCount;
+        double average = Resolution.BASIS_POINTS.average(s.quarterUnits, s.quarterCount);
         events = add(events, new QuarterSummary(s.spread, closed, average, s.quarterCount));
         if (s.state != SpreadState.INVERTED) {
             return events;
         }
         for (PersistenceTest t : tests) {
-            if (t instanceof QuarterAverage q && average < q.belowBp()) {
+            if (t instanceof QuarterAverage q && Resolution.BASIS_POINTS.averageBelow(s.quarterUnits, s.quarterCount, q.belowBp())) {
                 Evidence e = new Evidence(q.name(), closed.toString(), average, q.belowBp(), s.lastValueBp, s.daysInverted());
                 String reason = DecimalText.append(new StringBuilder(64).append("quarter average "), average, 1)
                         .append(" bp < ").append(PersistenceTest.number(q.belowBp())).append(" bp (").append(closed).append(')').toString();
@@ -213,7 +222,7 @@ public final class InversionMonitor {
                 }
             } else if (t instanceof RollingAverage r) {
                 TrailingWindow w = s.windows[i];
-                if (hasWholeWindow(s, day, r.windowDays()) && w.average() < r.belowBp()) {
+                if (hasWholeWindow(s, day, r.windowDays()) && w.averageBelow(r.belowBp())) {
                     Evidence e = new Evidence(r.name(), r.windowDays() + "d", w.average(), r.belowBp(), v, s.daysInverted());
                     String reason = DecimalText.append(new StringBuilder(64).append(r.windowDays()).append("-day average "), w.average(), 1)
                             .append(" bp < ").append(PersistenceTest.number(r.belowBp())).append(" bp (").append(w.size()).append(" observations)")
@@ -222,7 +231,7 @@ public final class InversionMonitor {
                 }
             } else if (t instanceof ShareInverted sh) {
                 TrailingWindow w = s.windows[i];
-                if (hasWholeWindow(s, day, sh.windowDays()) && w.invertedShare() >= sh.share()) {
+                if (hasWholeWindow(s, day, sh.windowDays()) && w.invertedShareAtLeast(sh.share())) {
                     Evidence e = new Evidence(sh.name(), sh.windowDays() + "d", w.invertedShare(), sh.share(), v, s.daysInverted());
                     StringBuilder reason = DecimalText.append(new StringBuilder(64), 100 * w.invertedShare(), 0)
                             .append("% of ").append(w.size()).append(" observations inverted over ").append(sh.windowDays()).append(" days >= ");
@@ -253,17 +262,17 @@ public final class InversionMonitor {
         s.spellObservations = 1;
         s.spellDeepestBp = o.valueBp();
         s.spellDeepestDay = day;
-        s.spellAreaBpDays = 0;
-        s.spellLastDepthBp = Math.max(0, entry - o.valueBp());
+        s.spellAreaUnits = 0;
+        s.spellLastDepthUnits = Math.max(0, entryUnits - Resolution.BASIS_POINTS.units(o.valueBp()));
         s.aboveExitRun = 0;
         s.resteepenedDay = MonitorState.NONE;
         Evidence e = new Evidence("entry", "observation", o.valueBp(), entry, o.valueBp(), 0);
         return add(events, transition(s, o, SpreadState.INVERTED, reason, e, s.spellCount));
     }
 
-    private void extendSpell(MonitorState s, int previousDay, int day, double v) {
-        s.spellAreaBpDays += s.spellLastDepthBp * ((long) day - previousDay);
-        s.spellLastDepthBp = Math.max(0, entry - v);
+    private void extendSpell(MonitorState s, int previousDay, int day, double v, long units) {
+        s.spellAreaUnits += s.spellLastDepthUnits * ((long) day - previousDay);
+        s.spellLastDepthUnits = Math.max(0, entryUnits - units);
         s.spellObservations++;
         if (v < s.spellDeepestBp) {
             s.spellDeepestBp = v;
@@ -280,7 +289,7 @@ public final class InversionMonitor {
                         .append(" bp for ").append(runs).append(" ("), o.valueBp(), 1)
                 .append(" bp); ").append(confirmed ? "confirmed" : "unconfirmed").append(" spell of ").append(spell.durationDays())
                 .append(" days ended").toString();
-        Evidence e = new Evidence("exit", runs, o.valueBp(), exit, o.valueBp(), 0);
+        Evidence e = new Evidence("exit", runs, o.valueBp(), definition.exitAboveBp(), o.valueBp(), 0);
         events = add(events, transition(s, o, to, reason, e, s.spellCount));
         events = add(events, spell);
         s.endedSpell = spell;

@@ -4,7 +4,8 @@ import java.util.List;
 
 /**
  * What the monitor of one spread watches for. Immutable; the per-spread state lives in
- * {@link MonitorState}.
+ * {@link MonitorState}. Thresholds are kept to {@link org.slopewatch.curve.Resolution#BASIS_POINTS},
+ * the resolution spreads are compared at.
  *
  * @param entryBelowBp     a spell starts on an observation below this
  * @param exitAboveBp      an observation at or above this counts towards ending the spell
@@ -33,8 +34,8 @@ public record MonitorDefinition(double entryBelowBp, double exitAboveBp, int exi
     }
 
     public MonitorDefinition {
-        QuarterAverage.requireFinite(entryBelowBp, "entry threshold");
-        QuarterAverage.requireFinite(exitAboveBp, "exit threshold");
+        entryBelowBp = QuarterAverage.threshold(entryBelowBp, "entry threshold");
+        exitAboveBp = QuarterAverage.threshold(exitAboveBp, "exit threshold");
         if (exitAboveBp < entryBelowBp) {
             throw new IllegalArgumentException("exit threshold (" + exitAboveBp + " bp) must not be below the entry threshold ("
                     + entryBelowBp + " bp)");

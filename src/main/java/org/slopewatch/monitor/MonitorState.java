@@ -2,6 +2,7 @@ package org.slopewatch.monitor;
 
 import java.time.LocalDate;
 import java.util.Objects;
+import org.slopewatch.curve.Resolution;
 import org.slopewatch.spread.SpreadKey;
 
 /**
@@ -30,7 +31,8 @@ public final class MonitorState {
 
     int quarterIndex = NONE;
     boolean quarterCounts;
-    double quarterSum;
+    /** The quarter's values summed in steps of {@link Resolution#BASIS_POINTS}: exact, however many. */
+    long quarterUnits;
     int quarterCount;
 
     int invertedSinceDay = NONE;
@@ -44,8 +46,9 @@ public final class MonitorState {
     int spellObservations;
     double spellDeepestBp;
     int spellDeepestDay;
-    double spellAreaBpDays;
-    double spellLastDepthBp;
+    /** The spell's area and the last observation's depth, in steps of {@link Resolution#BASIS_POINTS} (times days). */
+    long spellAreaUnits;
+    long spellLastDepthUnits;
     /** The last spell that ended, or null: what a notice about its end reports (set once per spell, so no cost per step). */
     Spell endedSpell;
 
@@ -84,9 +87,9 @@ public final class MonitorState {
         return lastValueBp;
     }
 
-    /** Average of the current quarter so far, NaN before the first observation. */
+    /** Average of the current quarter so far, to {@link Resolution#BASIS_POINTS}; NaN before the first observation. */
     public double quarterToDateAverageBp() {
-        return quarterCount == 0 ? Double.NaN : quarterSum / quarterCount;
+        return Resolution.BASIS_POINTS.average(quarterUnits, quarterCount);
     }
 
     public int quarterToDateObservations() {
@@ -127,7 +130,7 @@ public final class MonitorState {
         return new Spell(spread, spellCount, LocalDate.ofEpochDay(spellStartDay),
                 spellConfirmedDay == NONE ? null : LocalDate.ofEpochDay(spellConfirmedDay), spellConfirmedBy,
                 ended ? LocalDate.ofEpochDay(endDay) : null, (long) endDay - spellStartDay, spellObservations,
-                spellDeepestBp, LocalDate.ofEpochDay(spellDeepestDay), spellAreaBpDays);
+                spellDeepestBp, LocalDate.ofEpochDay(spellDeepestDay), Resolution.BASIS_POINTS.value(spellAreaUnits));
     }
 
     /** An independent copy, e.g. a checkpoint to return to when a provisional value is replaced. */
@@ -161,7 +164,7 @@ public final class MonitorState {
         monthFirstDay = o.monthFirstDay;
         quarterIndex = o.quarterIndex;
         quarterCounts = o.quarterCounts;
-        quarterSum = o.quarterSum;
+        quarterUnits = o.quarterUnits;
         quarterCount = o.quarterCount;
         invertedSinceDay = o.invertedSinceDay;
         aboveExitRun = o.aboveExitRun;
@@ -173,8 +176,8 @@ public final class MonitorState {
         spellObservations = o.spellObservations;
         spellDeepestBp = o.spellDeepestBp;
         spellDeepestDay = o.spellDeepestDay;
-        spellAreaBpDays = o.spellAreaBpDays;
-        spellLastDepthBp = o.spellLastDepthBp;
+        spellAreaUnits = o.spellAreaUnits;
+        spellLastDepthUnits = o.spellLastDepthUnits;
         endedSpell = o.endedSpell;
         for (int i = 0; i < windows.length; i++) {
             if (windows[i] != null) {

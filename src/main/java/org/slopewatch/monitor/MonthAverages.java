@@ -1,6 +1,7 @@
 package org.slopewatch.monitor;
 
 import java.time.YearMonth;
+import org.slopewatch.curve.Resolution;
 
 /**
  * A spread's calendar-month averages at its latest observation: the month so far, and the month
@@ -8,7 +9,7 @@ import java.time.YearMonth;
  * fitted on monthly averages, so these are what they read.
  *
  * @param month             the month of the latest observation, or null before any
- * @param averageBp         that month's average so far (NaN without observations)
+ * @param averageBp         that month's average so far, to {@link Resolution#BASIS_POINTS} (NaN without observations)
  * @param previousAverageBp the month before's average (NaN when there are no observations of it)
  */
 public record MonthAverages(YearMonth month, double averageBp, int observations, double previousAverageBp, int previousObservations) {
@@ -23,22 +24,24 @@ public record MonthAverages(YearMonth month, double averageBp, int observations,
         }
         YearMonth month = YearMonth.from(track.date(n - 1));
         YearMonth previous = month.minusMonths(1);
-        double sum = 0.0;
+        // summed in steps of the resolution: exact, so an average on a model's bound is on it
+        long sum = 0;
         int count = 0;
-        double previousSum = 0.0;
+        long previousSum = 0;
         int previousCount = 0;
         for (int i = n - 1; i >= 0; i--) {
             YearMonth m = YearMonth.from(track.date(i));
             if (m.equals(month)) {
-                sum += track.valueBp(i);
+                sum += Resolution.BASIS_POINTS.units(track.valueBp(i));
                 count++;
             } else if (m.equals(previous)) {
-                previousSum += track.valueBp(i);
+                previousSum += Resolution.BASIS_POINTS.units(track.valueBp(i));
                 previousCount++;
             } else {
                 break;
             }
         }
-        return new MonthAverages(month, sum / count, count, previousCount == 0 ? Double.NaN : previousSum / previousCount, previousCount);
+        return new MonthAverages(month, Resolution.BASIS_POINTS.average(sum, count), count,
+                Resolution.BASIS_POINTS.average(previousSum, previousCount), previousCount);
     }
 }

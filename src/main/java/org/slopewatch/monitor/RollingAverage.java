@@ -12,7 +12,7 @@ public record RollingAverage(int windowDays, double belowBp) implements Persiste
         if (windowDays < 1) {
             throw new IllegalArgumentException("rolling-average window must be at least 1 day, got " + windowDays);
         }
-        QuarterAverage.requireFinite(belowBp, "rolling-average threshold");
+        belowBp = QuarterAverage.threshold(belowBp, "rolling-average threshold");
     }
 
     @Override

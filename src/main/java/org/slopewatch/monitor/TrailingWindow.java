@@ -1,20 +1,24 @@
 package org.slopewatch.monitor;
 
 import java.util.Arrays;
+import org.slopewatch.curve.Resolution;
 
 /**
  * The observations of a trailing window of calendar days, as a ring buffer with a running sum
  * and a running count of inverted observations, so that a step costs O(1) amortised.
+ *
+ * <p>Values are kept in steps of {@link Resolution#BASIS_POINTS}, so the running sum is exact: no
+ * rounding piles up however long the window runs, and an average on a threshold is on it.
  */
 final class TrailingWindow {
 
     private final int windowDays;
     private int[] days = new int[16];
-    private double[] values = new double[16];
+    private long[] values = new long[16];
     private boolean[] inverted = new boolean[16];
     private int head;
     private int size;
-    private double sum;
+    private long sum;
     private int invertedCount;
 
     TrailingWindow(int windowDays) {
@@ -22,7 +26,7 @@ final class TrailingWindow {
     }
 
     /** Adds an observation and drops those that fell out of the window ending on {@code day}. */
-    void add(int day, double value, boolean isInverted) {
+    void add(int day, long value, boolean isInverted) {
         int oldest = day - windowDays; // days at or before this are outside (day − windowDays, day]
         while (size > 0 && days[head] <= oldest) {
             sum -= values[head];
@@ -44,9 +48,6 @@ final class TrailingWindow {
         if (isInverted) {
             invertedCount++;
         }
-        if (size == 1) {
-            sum = value; // re-anchor the running sum whenever the window empties, so rounding never piles up
-        }
     }
 
     int windowDays() {
@@ -57,18 +58,30 @@ final class TrailingWindow {
         return size;
     }
 
+    /** The average, to the resolution. */
     double average() {
-        return sum / size;
+        return Resolution.BASIS_POINTS.average(sum, size);
     }
 
+    /** Whether the average, to the resolution, is below {@code boundBp}. */
+    boolean averageBelow(double boundBp) {
+        return Resolution.BASIS_POINTS.averageBelow(sum, size, boundBp);
+    }
+
+    /** The share of inverted observations, to {@link Resolution#PROBABILITY}, as evidence and reasons give it. */
     double invertedShare() {
-        return (double) invertedCount / size;
+        return Resolution.PROBABILITY.round((double) invertedCount / size);
+    }
+
+    /** Whether at least {@code share} of the observations are inverted, compared in whole numbers. */
+    boolean invertedShareAtLeast(double share) {
+        return Resolution.PROBABILITY.shareAtLeast(invertedCount, size, share);
     }
 
     private void grow() {
         int n = days.length * 2;
         int[] d = new int[n];
-        double[] v = new double[n];
+        long[] v = new long[n];
         boolean[] b = new boolean[n];
         for (int i = 0; i < size; i++) {
             int from = (head + i) % days.length;
@@ -85,7 +98,7 @@ final class TrailingWindow {
     void copyFrom(TrailingWindow other) {
         if (days.length != other.days.length) {
             days = new int[other.days.length];
-            values = new double[other.days.length];
+            values = new long[other.days.length];
             inverted = new boolean[other.days.length];
         }
         System.arraycopy(other.days, 0, days, 0, days.length);

@@ -6,6 +6,7 @@
  * <p>Invariants: time comes in with the observations (market dates), never from a clock; a
  * monitor sees strictly increasing dates, and replacements and revisions go through
  * {@link org.slopewatch.monitor.SpreadTrack}, which reports any changed outcome as a
- * {@link org.slopewatch.monitor.Revision}. Plain Java only.
+ * {@link org.slopewatch.monitor.Revision}; values, thresholds and averages are compared in whole
+ * steps of {@link org.slopewatch.curve.Resolution#BASIS_POINTS}, sums kept exact in them. Plain Java only.
  */
 package org.slopewatch.monitor;

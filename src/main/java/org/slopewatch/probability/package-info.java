@@ -8,7 +8,8 @@
  * so that it is never shown without its spread, horizon, month and model.
  *
  * <p>Invariants: plain Java and Commons Math only (no container, no clock); spreads here are in
- * percentage points, not basis points; a recession occupies the months after a peak through its
+ * percentage points, not basis points; a live probability is given to
+ * {@link org.slopewatch.curve.Resolution#PROBABILITY}, the resolution levels are compared at; a recession occupies the months after a peak through its
  * trough, inclusive. Failures of a fit are {@link org.slopewatch.probability.ProbitFitException}s
  * with a reason and a message a person can act on, never NaN coefficients.
  */

@@ -96,8 +96,7 @@ public final class WhatIf {
             byId.put(s.id(), s);
         }
         Policy policy = candidate.policy();
-        List<AlertDecision> decisions = alerts.decide(AlertConditions.of(rules, changed, Map.of(),
-                policy.probability().currentBySpreadId(changed)), clock(date));
+        List<AlertDecision> decisions = alerts.decide(AlertConditions.of(rules, changed, Map.of(), policy.probability()), clock(date));
         for (AlertDecision d : decisions) {
             if (d.notice() == Alert.Kind.STANDING) {
                 continue;

@@ -21,6 +21,8 @@ final class AlertSectionParser {
             "message");
     static final Set<String> TRIGGER_KEYS = ordered("enters-state", "inverted-for-days", "probability-above", "feed-stale", "spread-below-bp");
     static final Set<String> CHANNEL_KEYS = ordered("type");
+    /** The long form of {@code probability-above}: {@code { level: 0.5, month: to-date }}. */
+    static final Set<String> PROBABILITY_ABOVE_KEYS = ordered("level", "month");
     static final Set<String> PLACEHOLDERS = Set.of("curve", "spread", "state", "value", "reason", "days", "date", "rule", "severity");
 
     private static final Pattern DURATION = Pattern.compile("(\\d+)\\s*([smhd])");
@@ -189,12 +191,7 @@ final class AlertSectionParser {
                 return days == Integer.MIN_VALUE ? null : new AlertTrigger.InvertedForDays(days);
             }
             case "probability-above" -> {
-                double level = v.number("'probability-above'");
-                if (!Double.isNaN(level) && !(level > 0 && level < 1)) {
-                    v.problem("impossible threshold: 'probability-above' is a probability between 0 and 1 (exclusive), got " + level);
-                    return null;
-                }
-                return Double.isNaN(level) ? null : new AlertTrigger.ProbabilityAbove(level);
+                return probabilityAbove(v);
             }
             case "feed-stale" -> {
                 if (!bool(v, "'feed-stale'")) {
@@ -208,6 +205,37 @@ final class AlertSectionParser {
                 return Double.isNaN(bp) ? null : new AlertTrigger.SpreadBelow(bp);
             }
         }
+    }
+
+    /** {@code probability-above: 0.5}, or {@code { level: 0.5, month: complete | to-date }}; the last complete month by default. */
+    private static AlertTrigger probabilityAbove(YamlNode v) {
+        YamlNode levelNode = v;
+        ProbabilityMonth month = ProbabilityMonth.COMPLETE;
+        if (v.isMapping()) {
+            Map<String, YamlNode> keys = v.mapping("'probability-above'", PROBABILITY_ABOVE_KEYS);
+            levelNode = keys.get("level");
+            if (levelNode == null) {
+                v.problem("'probability-above' needs 'level' (a probability between 0 and 1)");
+            }
+            YamlNode monthNode = keys.get("month");
+            if (monthNode != null) {
+                String text = monthNode.string("'month'");
+                month = text == null ? null : ProbabilityMonth.of(text);
+                if (text != null && month == null) {
+                    monthNode.problem("unknown month " + Excerpt.quoted(text) + " for 'probability-above' (known: "
+                            + ProbabilityMonth.COMPLETE.key() + ", the default, and " + ProbabilityMonth.TO_DATE.key() + ")");
+                }
+            }
+            if (levelNode == null || month == null) {
+                return null;
+            }
+        }
+        double level = levelNode.number("'probability-above'");
+        if (!Double.isNaN(level) && !(level > 0 && level < 1)) {
+            levelNode.problem("impossible threshold: 'probability-above' is a probability between 0 and 1 (exclusive), got " + level);
+            return null;
+        }
+        return Double.isNaN(level) ? null : new AlertTrigger.ProbabilityAbove(level, month);
     }
 
     private static Duration duration(YamlNode node) {

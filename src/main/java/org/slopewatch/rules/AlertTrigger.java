@@ -23,8 +23,21 @@ public sealed interface AlertTrigger permits AlertTrigger.EntersState, AlertTrig
         }
     }
 
-    /** The model probability of recession above a level (0 &lt; level &lt; 1). */
-    record ProbabilityAbove(double level) implements AlertTrigger {
+    /**
+     * The model probability of recession above a level (0 &lt; level &lt; 1), read off the month
+     * {@code month} says: the last complete one unless the policy asks for the month so far.
+     */
+    record ProbabilityAbove(double level, ProbabilityMonth month) implements AlertTrigger {
+
+        public ProbabilityAbove {
+            java.util.Objects.requireNonNull(month, "month");
+        }
+
+        /** On the last complete month, the default. */
+        public ProbabilityAbove(double level) {
+            this(level, ProbabilityMonth.COMPLETE);
+        }
+
         public String key() {
             return "probability-above";
         }

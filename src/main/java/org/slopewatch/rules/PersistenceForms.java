@@ -9,7 +9,9 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 import java.util.function.Consumer;
+import org.slopewatch.curve.Resolution;
 import org.slopewatch.monitor.DaysInverted;
+import org.slopewatch.monitor.Observation;
 import org.slopewatch.monitor.PersistenceTest;
 import org.slopewatch.monitor.QuarterAverage;
 import org.slopewatch.monitor.RollingAverage;
@@ -62,6 +64,9 @@ public final class PersistenceForms {
     public static PersistenceTest parse(String text, double entryBp) {
         if (!Double.isFinite(entryBp)) {
             throw new IllegalArgumentException("entry threshold must be a finite number, got " + entryBp);
+        }
+        if (!(Math.abs(entryBp) < Observation.MAX_MAGNITUDE_BP)) {
+            throw new IllegalArgumentException("entry threshold must be at most " + (long) Observation.MAX_MAGNITUDE_BP + " bp in size, got " + entryBp);
         }
         List<String> refused = new ArrayList<>(1);
         PersistenceTest test = read(text, entryBp, refused::add);
@@ -145,10 +150,20 @@ public final class PersistenceForms {
         if (share != null && !(share.doubleValue() > 0 && share.doubleValue() <= 1)) {
             refusals.refuse(Parameter.SHARE, "impossible threshold: 'share' must be above 0 and at most 1, got " + share.doubleValue());
             ok = false;
+        } else if (share != null && Resolution.PROBABILITY.round(share.doubleValue()) == 0) {
+            // a share is compared to six decimals, where this one is 0
+            refusals.refuse(Parameter.SHARE, "impossible threshold: 'share' is compared to six decimals and must be at least 0.000001, got "
+                    + share.doubleValue());
+            ok = false;
         }
         Number below = values.get(Parameter.BELOW_BP);
+        if (below != null && !(Math.abs(below.doubleValue()) < Observation.MAX_MAGNITUDE_BP)) {
+            refusals.refuse(Parameter.BELOW_BP, "'below-bp' must be at most " + (long) Observation.MAX_MAGNITUDE_BP + " bp in size, got "
+                    + below.doubleValue());
+            ok = false;
+        }
         double belowBp = below == null ? defaultBelowBp : below.doubleValue();
-        if (!ok || !Double.isFinite(belowBp)) {
+        if (!ok || !(Math.abs(belowBp) < Observation.MAX_MAGNITUDE_BP)) {
             return null;
         }
         return switch (name) {

@@ -9,6 +9,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import org.slopewatch.monitor.MonitorDefinition;
+import org.slopewatch.monitor.Observation;
 import org.slopewatch.monitor.PersistenceTest;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.spread.SpreadDefinition;
@@ -176,8 +177,8 @@ public final class PolicyParser {
                 }
             }
         }
-        double entry = keys.containsKey("enter-below-bp") ? keys.get("enter-below-bp").number("'enter-below-bp'") : 0;
-        double exit = keys.containsKey("exit-at-or-above-bp") ? keys.get("exit-at-or-above-bp").number("'exit-at-or-above-bp'") : entry;
+        double entry = keys.containsKey("enter-below-bp") ? threshold(keys.get("enter-below-bp"), "'enter-below-bp'") : 0;
+        double exit = keys.containsKey("exit-at-or-above-bp") ? threshold(keys.get("exit-at-or-above-bp"), "'exit-at-or-above-bp'") : entry;
         int exitAfter = keys.containsKey("exit-after-observations")
                 ? keys.get("exit-after-observations").integer("'exit-after-observations'") : 1;
         int hold = keys.containsKey("hold-days") ? keys.get("hold-days").integer("'hold-days'") : DEFAULT_HOLD_DAYS;
@@ -214,6 +215,20 @@ public final class PolicyParser {
             item.problem(e.getMessage());
             return null;
         }
+    }
+
+    /**
+     * A threshold in bp as read, or NaN after a problem at its key when it is larger than the monitor
+     * compares ({@link Observation#MAX_MAGNITUDE_BP}): NaN, as for a value that is not a number, stops
+     * what rests on it without a second problem.
+     */
+    private static double threshold(YamlNode node, String what) {
+        double v = node.number(what);
+        if (!Double.isNaN(v) && !(Math.abs(v) < Observation.MAX_MAGNITUDE_BP)) {
+            node.problem(what + " must be at most " + (long) Observation.MAX_MAGNITUDE_BP + " bp in size, got " + v);
+            return Double.NaN;
+        }
+        return v;
     }
 
     /**

@@ -1,8 +1,6 @@
 package org.slopewatch.rules;
 
-import java.util.Collection;
 import java.util.Collections;
-import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Optional;
@@ -69,12 +67,18 @@ public record ProbabilityModels(Map<String, SpreadProbabilityModel> bySpread) {
         return lastMonth(status).or(() -> current(status));
     }
 
-    /** Spread id → the current probability, for the alert rules; spreads without a model are absent. */
-    public Map<String, Double> currentBySpreadId(Collection<SpreadStatus> statuses) {
-        Map<String, Double> out = new HashMap<>();
-        for (SpreadStatus s : statuses) {
-            current(s).ifPresent(p -> out.put(s.id(), p.probability()));
-        }
-        return out;
+    /**
+     * The probability a rule reads: a {@code probability-above} rule's month (the last complete
+     * one unless it asks for the month so far), with no fallback, so that it never triggers on a
+     * part of a month unasked; for any other rule, the last complete month's.
+     */
+    public Optional<LiveProbability> read(AlertTrigger when, SpreadStatus status) {
+        boolean toDate = when instanceof AlertTrigger.ProbabilityAbove p && p.month() == ProbabilityMonth.TO_DATE;
+        return toDate ? current(status) : lastMonth(status);
+    }
+
+    /** The probability a notice of a rule states: the one a probability rule read, for any other rule {@link #stated}. */
+    public Optional<LiveProbability> quoted(AlertTrigger when, SpreadStatus status) {
+        return when instanceof AlertTrigger.ProbabilityAbove ? read(when, status) : stated(status);
     }
 }

@@ -6,7 +6,8 @@
  * <p>Invariants: every problem in a file is reported with {@code file:line:column}; a policy
  * object exists only when its file had no problem; every probability model names a watched
  * spread and its source, and every {@code probability-above} rule covers only spreads with a
- * model; any text, however hostile, is answered with a policy or such problems, never another
+ * model and reads the last complete calendar month (the models are fitted on whole months) unless it
+ * asks for the month so far ({@link org.slopewatch.rules.ProbabilityMonth}); any text, however hostile, is answered with a policy or such problems, never another
  * exception, and nothing in it is evaluated; the answer stays small whatever the text (limits on
  * length, nesting and expansion through aliases, quoted values as excerpts, at most a hundred
  * problems listed); a persistence test is read by {@link org.slopewatch.rules.PersistenceForms}

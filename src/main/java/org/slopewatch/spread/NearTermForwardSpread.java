@@ -4,6 +4,7 @@ import java.util.Optional;
 import org.slopewatch.curve.CurveSnapshot;
 import org.slopewatch.curve.NelsonSiegelSvensson;
 import org.slopewatch.curve.NssFitter;
+import org.slopewatch.curve.Resolution;
 import org.slopewatch.curve.Tenor;
 
 /**
@@ -32,6 +33,6 @@ public record NearTermForwardSpread() implements SpreadDefinition {
             return Double.NaN;
         }
         Optional<NelsonSiegelSvensson> fit = NssFitter.fit(snapshot);
-        return fit.map(c -> c.forwardRate(FORWARD_START_YEARS, FORWARD_END_YEARS) - threeMonth).orElse(Double.NaN);
+        return fit.map(c -> Resolution.BASIS_POINTS.round(c.forwardRate(FORWARD_START_YEARS, FORWARD_END_YEARS) - threeMonth)).orElse(Double.NaN);
     }
 }

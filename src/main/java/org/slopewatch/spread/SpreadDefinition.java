@@ -15,7 +15,7 @@ public sealed interface SpreadDefinition permits TermSpread, NearTermForwardSpre
     /** The spread's name as written in policy files and reports, e.g. {@code 10Y-3M}. */
     String name();
 
-    /** The spread in basis points, or NaN when the snapshot lacks what it needs. */
+    /** The spread in basis points to {@link org.slopewatch.curve.Resolution#BASIS_POINTS}, or NaN when the snapshot lacks what it needs. */
     double valueBp(CurveSnapshot snapshot);
 
     /**

@@ -1,10 +1,11 @@
 package org.slopewatch.spread;
 
 import org.slopewatch.curve.CurveSnapshot;
+import org.slopewatch.curve.Resolution;
 import org.slopewatch.curve.Tenor;
 
 /**
- * Long leg minus short leg of one curve, in basis points.
+ * Long leg minus short leg of one curve, in basis points to {@link Resolution#BASIS_POINTS}.
  *
  * @param interpolate when true a missing leg is filled linearly between quoted neighbours;
  *                    when false both legs must be quoted on the date
@@ -25,9 +26,10 @@ public record TermSpread(Tenor longLeg, Tenor shortLeg, boolean interpolate) imp
 
     @Override
     public double valueBp(CurveSnapshot snapshot) {
+        // the difference of two legs on the resolution's grid is not always on it in binary (8.10 % − 8.05 %)
         if (interpolate) {
-            return snapshot.interpolatedBp(longLeg) - snapshot.interpolatedBp(shortLeg);
+            return Resolution.BASIS_POINTS.round(snapshot.interpolatedBp(longLeg) - snapshot.interpolatedBp(shortLeg));
         }
-        return snapshot.yieldBp(longLeg) - snapshot.yieldBp(shortLeg);
+        return Resolution.BASIS_POINTS.round(snapshot.yieldBp(longLeg) - snapshot.yieldBp(shortLeg));
     }
 }

@@ -331,9 +331,9 @@ class DemoNoticesTest {
             Map<String, SpreadStatus> byId = new HashMap<>();
             statuses.forEach(s -> byId.put(s.id(), s));
             for (AlertDecision d : engine.decide(AlertConditions.of(policy.alerts(), statuses, Map.of(),
-                    policy.probability().currentBySpreadId(statuses)), now)) {
+                    policy.probability()), now)) {
                 SpreadStatus status = byId.get(d.subject());
-                Alert alert = composer.compose(d, status, policy.probability().stated(status).orElse(null), now);
+                Alert alert = composer.compose(d, status, policy.probability().quoted(d.rule().when(), status).orElse(null), now);
                 journal.alert(new JournalEntries.AlertEntry(alert, d.subject(), d.since(), d.number(), null, "test", sequence, List.of()));
             }
         }

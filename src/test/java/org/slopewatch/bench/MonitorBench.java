@@ -31,6 +31,7 @@ import org.openjdk.jmh.runner.RunnerException;
 import org.openjdk.jmh.runner.options.CommandLineOptionException;
 import org.openjdk.jmh.runner.options.CommandLineOptions;
 import org.openjdk.jmh.runner.options.OptionsBuilder;
+import org.slopewatch.curve.Resolution;
 import org.slopewatch.monitor.DaysInverted;
 import org.slopewatch.monitor.InversionMonitor;
 import org.slopewatch.monitor.MonitorDefinition;
@@ -120,10 +121,13 @@ public class MonitorBench {
         return plainQuarterAverages(series, quarterAverages);
     }
 
-    /** Sum and count per calendar quarter; a quarter's average is written when the next one starts. */
+    /**
+     * Sum and count per calendar quarter; a quarter's average is written when the next one starts. Summed in
+     * steps of the resolution and divided once, as the monitor does, so that both give the same exact averages.
+     */
     static int plainQuarterAverages(Observation[] observations, double[] averages) {
         int quarter = Integer.MIN_VALUE;
-        double sum = 0;
+        long sum = 0;
         int count = 0;
         int closed = 0;
         for (Observation o : observations) {
@@ -131,13 +135,13 @@ public class MonitorBench {
             int q = d.getYear() * 4 + (d.getMonthValue() - 1) / 3;
             if (q != quarter) {
                 if (count > 0) {
-                    averages[closed++] = sum / count;
+                    averages[closed++] = Resolution.BASIS_POINTS.average(sum, count);
                 }
                 quarter = q;
                 sum = 0;
                 count = 0;
             }
-            sum += o.valueBp();
+            sum += Resolution.BASIS_POINTS.units(o.valueBp());
             count++;
         }
         return closed;

@@ -5,6 +5,8 @@ import static org.assertj.core.api.Assertions.assertThat;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
+import java.math.BigDecimal;
+import java.math.RoundingMode;
 import java.net.URISyntaxException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -42,18 +44,50 @@ class ReferenceReplayTest {
 
     @Test
     void quarterAveragesEqualADirectComputationFromTheFile() throws IOException {
-        Map<String, double[]> expected = quarterAveragesFromFile();
+        // Reference: decimal arithmetic (java.math.BigDecimal) on the file's decimal strings: the exact average of
+        // 10Y - 1Y in bp, to six decimals half to even (the resolution the engine states, docs/policy.md)
+        Map<String, BigDecimal[]> expected = quarterAveragesFromFile();
         // the last quarter (1999Q3) is never closed: no observation dated after it arrives
         expected.remove("1999Q3");
         JsonNode quarters = spread.get("quarters");
         assertThat(quarters).hasSize(expected.size());
         for (JsonNode q : quarters) {
-            double[] sumCount = expected.get(q.get("quarter").asText());
+            BigDecimal[] sumCount = expected.get(q.get("quarter").asText());
             assertThat(sumCount).as("quarter %s reported but not in the file", q.get("quarter")).isNotNull();
             assertThat(q.get("average_bp").asDouble()).as("average of %s", q.get("quarter"))
-                    .isCloseTo(100 * sumCount[0] / sumCount[1], org.assertj.core.data.Offset.offset(1e-9));
-            assertThat(q.get("observations").asInt()).isEqualTo((int) sumCount[1]);
+                    .isEqualTo(sumCount[0].divide(sumCount[1], 6, RoundingMode.HALF_EVEN).doubleValue());
+            assertThat(q.get("observations").asInt()).isEqualTo(sumCount[1].intValueExact());
         }
+    }
+
+    @Test
+    void everyMonthsValueTheReplayWritesIsTheFilesDecimalDifference() throws IOException {
+        // Reference: java.math.BigDecimal on the file's strings, (10Y - 1Y) x 100 exactly. The yields have two decimals,
+        // so every spread is a whole number of bp, which binary arithmetic misses in 93 of the 558 months
+        // (1953-06: 3.11 x 100 - 2.45 x 100 = 65.99999999999997)
+        Map<String, BigDecimal> exact = new LinkedHashMap<>();
+        List<String> lines = Files.readAllLines(history);
+        List<String> header = List.of(lines.get(0).split(","));
+        for (String line : lines.subList(1, lines.size())) {
+            String[] f = line.split(",");
+            exact.put(f[0], new BigDecimal(f[header.indexOf("10Y")]).subtract(new BigDecimal(f[header.indexOf("1Y")])).movePointRight(2));
+        }
+        int checked = 0;
+        List<String> months = new ArrayList<>(exact.keySet());
+        for (JsonNode t : spread.get("transitions")) {
+            String month = t.get("date").asText();
+            // a quarter-average confirmation, dated on the month after the quarter, carries the quarter's last value
+            String valued = t.get("test").asText().equals("quarter-average") ? months.get(months.indexOf(month) - 1) : month;
+            assertThat(t.get("value_bp").asDouble()).as("10Y-1Y on %s", valued).isEqualTo(exact.get(valued).doubleValue());
+            checked++;
+        }
+        for (JsonNode s : spread.get("spells")) {
+            assertThat(s.get("deepest_bp").asDouble()).as("deepest of spell %s", s.get("id"))
+                    .isEqualTo(exact.get(s.get("deepest_date").asText()).doubleValue());
+            checked++;
+        }
+        assertThat(spread.get("last_value_bp").asDouble()).isEqualTo(exact.get(spread.get("last_date").asText()).doubleValue());
+        assertThat(checked).as("values checked").isGreaterThan(50);
     }
 
     @Test
@@ -192,8 +226,8 @@ class ReferenceReplayTest {
     }
 
     /** Quarter → {sum of 10Y−1Y in percent, months}, computed with nothing but string splitting. */
-    private static Map<String, double[]> quarterAveragesFromFile() throws IOException {
-        Map<String, double[]> out = new LinkedHashMap<>();
+    private static Map<String, BigDecimal[]> quarterAveragesFromFile() throws IOException {
+        Map<String, BigDecimal[]> out = new LinkedHashMap<>();
         List<String> lines = Files.readAllLines(history);
         String[] header = lines.get(0).split(",");
         int oneYear = List.of(header).indexOf("1Y");
@@ -202,9 +236,9 @@ class ReferenceReplayTest {
             String[] f = line.split(",");
             int month = Integer.parseInt(f[0].substring(5, 7));
             String quarter = f[0].substring(0, 4) + "Q" + ((month - 1) / 3 + 1);
-            double[] acc = out.computeIfAbsent(quarter, k -> new double[2]);
-            acc[0] += Double.parseDouble(f[tenYear]) - Double.parseDouble(f[oneYear]);
-            acc[1]++;
+            BigDecimal[] acc = out.computeIfAbsent(quarter, k -> new BigDecimal[] {BigDecimal.ZERO, BigDecimal.ZERO});
+            acc[0] = acc[0].add(new BigDecimal(f[tenYear]).subtract(new BigDecimal(f[oneYear])).movePointRight(2));
+            acc[1] = acc[1].add(BigDecimal.ONE);
         }
         return out;
     }

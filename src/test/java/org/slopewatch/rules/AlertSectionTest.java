@@ -89,6 +89,41 @@ class AlertSectionTest {
                 .contains("p.yaml:10:5: unknown key 'escalate' in an alert rule");
     }
 
+    /* The month a probability-above rule reads, as alert-rules/README.md defines it: the last complete one unless the rule says to-date. */
+    @Test
+    void probabilityAboveReadsTheLastCompleteMonthUnlessItAsksForTheMonthSoFar() throws PolicyException {
+        Policy p = PolicyParser.parse("p.yaml", WATCH + """
+                probability:
+                  10Y-3M: { alpha: -0.5333, beta: -0.6330, horizon-months: 12, source: "Estrella and Trubin (2006) (from memory)" }
+                alerts:
+                  - { name: a, when: { probability-above: 0.5 }, severity: warning, channels: [log] }
+                  - { name: b, when: { probability-above: { level: 0.3, month: complete } }, severity: warning, channels: [log] }
+                  - { name: c, when: { probability-above: { level: 0.3, month: to-date } }, severity: warning, channels: [log] }
+                  - { name: d, when: { probability-above: { level: 0.3 } }, severity: warning, channels: [log] }
+                """);
+        assertThat(p.alerts()).extracting(AlertRule::when).containsExactly(
+                new AlertTrigger.ProbabilityAbove(0.5, ProbabilityMonth.COMPLETE),
+                new AlertTrigger.ProbabilityAbove(0.3, ProbabilityMonth.COMPLETE),
+                new AlertTrigger.ProbabilityAbove(0.3, ProbabilityMonth.TO_DATE),
+                new AlertTrigger.ProbabilityAbove(0.3, ProbabilityMonth.COMPLETE));
+        assertThat(new AlertTrigger.ProbabilityAbove(0.5)).isEqualTo(new AlertTrigger.ProbabilityAbove(0.5, ProbabilityMonth.COMPLETE));
+
+        // columns counted by hand: "  - { name: a, when: { probability-above: " is 42 characters, the value starts at 43
+        String message = problems(WATCH + """
+                probability:
+                  10Y-3M: { alpha: -0.5333, beta: -0.6330, horizon-months: 12, source: "Estrella and Trubin (2006) (from memory)" }
+                alerts:
+                  - { name: a, when: { probability-above: { month: to-date } }, severity: warning, channels: [log] }
+                  - { name: b, when: { probability-above: { level: 0.3, month: yesterday } }, severity: warning, channels: [log] }
+                  - { name: c, when: { probability-above: { level: 1.5, month: to-date } }, severity: warning, channels: [log] }
+                  - { name: d, when: { probability-above: { level: 0.3, months: 2 } }, severity: warning, channels: [log] }
+                """);
+        assertThat(message).contains("p.yaml:7:43: 'probability-above' needs 'level' (a probability between 0 and 1)")
+                .contains("p.yaml:8:64: unknown month 'yesterday' for 'probability-above' (known: complete, the default, and to-date)")
+                .contains("p.yaml:9:52: impossible threshold: 'probability-above' is a probability between 0 and 1 (exclusive), got 1.5")
+                .contains("p.yaml:10:57: unknown key 'months' in 'probability-above' (known: level, month)");
+    }
+
     @Test
     void wrongTypesAndImpossibleThresholdsAreReported() {
         String message = problems(WATCH + """

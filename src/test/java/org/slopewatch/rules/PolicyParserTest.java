@@ -108,6 +108,28 @@ class PolicyParserTest {
                 .contains("p.yaml:8:32: 'days' must be at least 1, got 0");
     }
 
+    /* Thresholds are compared to six decimals of a bp (shares to six decimals) within 10^7 bp (docs/policy.md); beyond that, a problem at the key. */
+    @Test
+    void thresholdsBeyondWhatTheMonitorComparesAreReported() {
+        String message = problems("""
+                watch:
+                  - spread: 10Y-2Y
+                    enter-below-bp: 1e300
+                    confirm:
+                      - quarter-average: { below-bp: -1e300 }
+                      - share-inverted: { days: 90, share: 0.0000001 }
+                  - spread: 10Y-3M
+                    exit-at-or-above-bp: 20000000
+                    confirm: [days-inverted:90]
+                """);
+        assertThat(message).contains("p.yaml:3:21: 'enter-below-bp' must be at most 10000000 bp in size, got 1.0E300")
+                .contains("p.yaml:5:38: 'below-bp' must be at most 10000000 bp in size, got -1.0E300")
+                .contains("p.yaml:6:44: impossible threshold: 'share' is compared to six decimals and must be at least 0.000001, got 1.0E-7")
+                .contains("p.yaml:8:26: 'exit-at-or-above-bp' must be at most 10000000 bp in size, got 2.0E7");
+        assertThatThrownBy(() -> PersistenceForms.parse("rolling-average:30", 2e7))
+                .hasMessage("entry threshold must be at most 10000000 bp in size, got 2.0E7");
+    }
+
     @Test
     void missingPartsAreReported() {
         assertThat(problems("watch:\n  - confirm: [quarter-average]\n")).isEqualTo("p.yaml:2:5: a watch entry needs 'spread' (for example 10Y-3M)");

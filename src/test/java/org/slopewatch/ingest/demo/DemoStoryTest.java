@@ -149,10 +149,12 @@ class DemoStoryTest {
         List<Watch> termSpreads = policy.watches().stream().filter(w -> w.spread() instanceof TermSpread).toList();
         assertThat(termSpreads).extracting(w -> w.spread().name()).containsExactly("10Y-3M", "10Y-2Y");
         Set<String> confirmingTests = Set.of(QuarterAverage.NAME, DaysInverted.NAME);
-        Set<Double> deepest = new HashSet<>();
+        // quotes come in tenths of a bp, so two seeds may share one spread's deepest value; a seed's pair is its own
+        Set<List<Double>> deepest = new HashSet<>();
         Set<LocalDate> inversionDates = new HashSet<>();
         for (long seed = 1; seed <= 20; seed++) {
             Story story = Story.run(seed, termSpreads, BUSINESS_DAYS);
+            List<Double> seedDeepest = new ArrayList<>();
             for (String spread : List.of("10Y-3M", "10Y-2Y")) {
                 List<Transition> ts = story.transitions("GOVT-A", spread);
                 assertThat(ts).extracting(Transition::to).as("seed %d GOVT-A %s", seed, spread).containsExactlyElementsOf(FULL_CYCLE);
@@ -162,11 +164,12 @@ class DemoStoryTest {
                 assertThat(story.quartersBelowZero("GOVT-A", spread)).as("seed %d GOVT-A %s quarters below 0 bp", seed, spread)
                         .hasSizeGreaterThanOrEqualTo(3);
                 assertThat(story.transitions("GOVT-B", spread)).as("seed %d GOVT-B %s transitions", seed, spread).isEmpty();
-                deepest.add(story.spells("GOVT-A", spread).get(0).deepestBp());
+                seedDeepest.add(story.spells("GOVT-A", spread).get(0).deepestBp());
                 inversionDates.add(ts.get(0).date());
             }
+            deepest.add(seedDeepest);
         }
-        assertThat(deepest).as("each seed and spread has its own deepest inversion").hasSize(40);
+        assertThat(deepest).as("each seed has its own deepest inversions of 10Y-3M and 10Y-2Y").hasSize(20);
         assertThat(inversionDates).as("the inversion does not fall on one fixed date").hasSizeGreaterThan(3);
     }
 
