@@ -34,7 +34,8 @@ final class SeenIds {
      */
     SeenIds(int capacity, Function<Collection<String>, Set<String>> journal) {
         if (capacity < 1) {
-            throw new IllegalArgumentException("the seen ids cache must hold at least one id, not " + capacity);
+            throw new IllegalArgumentException(
+                    "the seen ids cache (slopewatch.ingest.seen-ids-cache) must hold at least one id, not " + capacity);
         }
         this.capacity = capacity;
         this.journal = journal;
