@@ -11,10 +11,13 @@ import java.sql.Timestamp;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.util.ArrayList;
+import java.util.Collection;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.function.Consumer;
 import javax.sql.DataSource;
 import org.slopewatch.curve.Resolution;
@@ -130,6 +133,21 @@ public final class JournalReader {
         } catch (SQLException e) {
             throw new JournalException("cannot read the journal's quotes for recovery", e);
         }
+    }
+
+    /**
+     * The message ids among {@code ids} that the journal holds as seen (taken with their quote, by
+     * this instance or another sharing the journal): the pipeline's exact answer on duplicates for
+     * whatever its bounded memory of recent ids has let go. One query per few hundred ids, each an
+     * index lookup (the primary key of {@code seen_message}).
+     */
+    public Set<String> seenAmong(Collection<String> ids) {
+        Set<String> found = new HashSet<>();
+        for (List<String> chunk : JournalSql.chunks(List.copyOf(ids))) {
+            sql.query("SELECT message_id FROM seen_message WHERE message_id IN (" + JournalSql.placeholders(chunk.size()) + ")",
+                    s -> JournalSql.bind(s, chunk), rs -> found.add(rs.getString(1)), "the message ids seen");
+        }
+        return found;
     }
 
     /** When each curve's latest quote was journalled, by whichever instance: where a feed's quiet time starts. */

@@ -35,6 +35,13 @@ public interface IngestConfig {
     int maxBatch();
 
     /**
+     * The most message ids kept in memory for de-duplication, the most recently used; an id older
+     * than those is looked up in the journal, so de-duplication stays exact while memory stays bounded.
+     */
+    @WithDefault("100000")
+    int seenIdsCache();
+
+    /**
      * The series map of SDMX-CSV bodies ({@code KEY,CURVE,TENOR} lines); without it an SDMX-CSV body is refused.
      * Read once at start-up: a map that cannot be read stops it.
      */

@@ -39,7 +39,8 @@ public class PipelineBeans {
     QuotePipeline quotePipeline(IngestConfig config, PolicyHolder policies, JournalWriter writer, JournalReader reader,
                                 PipelineListener listener, AlertStage alerts, Clock clock) {
         Policy policy = policies.policy();
-        QuotePipeline pipeline = new QuotePipeline(policy.watches(), writer, reader, listener, alerts, clock);
+        QuotePipeline pipeline = new QuotePipeline(policy.watches(), writer, reader, listener, alerts, clock,
+                config.seenIdsCache());
         long started = System.nanoTime();
         long replayed = pipeline.recover();
         // the duration tells an operator what a restart costs as the journal grows

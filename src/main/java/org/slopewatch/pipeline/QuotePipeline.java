@@ -54,7 +54,7 @@ public final class QuotePipeline {
 
     private SignalEngine engine;
     private CurveBook book;
-    private Set<String> seenIds;
+    private final SeenIds seenIds;
     private long sequence;
     private boolean recovered;
     // concurrent: the metrics read one curve's entry at scrape time without waiting for a step's lock
@@ -66,6 +66,16 @@ public final class QuotePipeline {
 
     public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, AlertStage alerts,
                          Clock clock) {
+        this(watches, writer, reader, listener, alerts, clock, SeenIds.DEFAULT_CAPACITY);
+    }
+
+    /**
+     * @param seenIdsCache the most message ids kept in memory for de-duplication; older ones are
+     *                     looked up in the journal ({@code slopewatch.ingest.seen-ids-cache})
+     */
+    public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, AlertStage alerts,
+                         Clock clock, int seenIdsCache) {
+        this.seenIds = new SeenIds(seenIdsCache, reader::seenAmong);
         this.watches = List.copyOf(watches);
         this.writer = writer;
         this.reader = reader;
@@ -78,13 +88,14 @@ public final class QuotePipeline {
     private void reset() {
         engine = new SignalEngine(watches);
         book = new CurveBook();
-        seenIds = new HashSet<>();
+        seenIds.clear();
         sequence = 0;
     }
 
     /**
-     * Rebuilds curves, monitors and seen ids by replaying the journal's quotes in recorded order,
-     * so that a restart continues exactly where an uninterrupted run would be.
+     * Rebuilds curves and monitors by replaying the journal's quotes in recorded order, so that a
+     * restart continues exactly where an uninterrupted run would be. The seen message ids are not
+     * loaded: the journal answers for them when a step asks ({@link SeenIds}).
      *
      * @return the number of quote messages replayed
      */
@@ -96,9 +107,6 @@ public final class QuotePipeline {
         reader.replayQuotes(q -> {
             count[0]++;
             sequence = Math.max(sequence, q.seq());
-            if (q.messageId() != null) {
-                seenIds.add(q.messageId());
-            }
             engine.onSnapshot(book.apply(q.curve(), q.date(), q.yieldsBp()), q.seq());
         });
         listener.watching(engine.tracks().stream().map(t -> t.spread().id()).collect(java.util.stream.Collectors.toUnmodifiableSet()));
@@ -186,6 +194,8 @@ public final class QuotePipeline {
         Map<String, int[]> acceptedByOrigin = new HashMap<>();
         Map<String, int[]> duplicatesByOrigin = new HashMap<>();
         List<SpreadStatus> changed = new ArrayList<>();
+        // ids this step takes: a second copy within the step is a duplicate though the journal has not got the first yet
+        Set<String> takenNow = new HashSet<>();
         long beforeWrite;
         long written;
         // the whole step or nothing: a failure anywhere before the commit (deciding as well as
@@ -193,13 +203,15 @@ public final class QuotePipeline {
         // goes back to what the journal holds; otherwise the quotes sent again would be dropped as
         // duplicates of quotes that were never journalled
         try {
+            // one lookup for the whole step: what memory has let go of, the journal answers
+            Set<String> takenBefore = seenIds.takenBefore(messageIds(batches));
             for (QuoteBatch batch : batches) {
                 for (Reject r : batch.rejects()) {
                     journal.reject(new JournalEntries.RejectedQuote(batch.origin(), r.reason().code(), r.detail(), r.item(), r.raw()));
                     rejects.add(r);
                 }
                 for (QuoteMessage m : batch.messages()) {
-                    if (m.id() != null && !seenIds.add(m.id())) {
+                    if (m.id() != null && (takenBefore.contains(m.id()) || !takenNow.add(m.id()))) {
                         duplicates++;
                         duplicatesByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
                         continue;
@@ -242,6 +254,7 @@ public final class QuotePipeline {
             recoverAfterFailedStep(e);
             throw e;
         }
+        seenIds.remember(takenNow);
         acceptedByOrigin.forEach((origin, n) -> listener.accepted(origin, n[0]));
         duplicatesByOrigin.forEach((origin, n) -> listener.duplicates(origin, n[0]));
         for (QuoteBatch batch : batches) {
@@ -255,6 +268,23 @@ public final class QuotePipeline {
         alerts.written(journal.alerts());
         listener.processed(Duration.ofNanos(beforeWrite - started), Duration.ofNanos(written - beforeWrite));
         return new BatchOutcome(accepted, duplicates, rejects.size(), transitions.size(), rejects);
+    }
+
+    private static List<String> messageIds(Collection<QuoteBatch> batches) {
+        List<String> ids = new ArrayList<>();
+        for (QuoteBatch batch : batches) {
+            for (QuoteMessage m : batch.messages()) {
+                if (m.id() != null) {
+                    ids.add(m.id());
+                }
+            }
+        }
+        return ids;
+    }
+
+    /** Message ids held in memory for de-duplication now (never more than the configured cache). */
+    synchronized int seenIdsInMemory() {
+        return seenIds.size();
     }
 
     private void record(MonitorEvent e, JournalEntries journal, List<Transition> transitions) {

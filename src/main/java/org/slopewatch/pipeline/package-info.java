@@ -8,7 +8,8 @@
  * states, and the beans that build the pipeline from configuration.
  *
  * <p>Invariants: one step at a time, under the pipeline's lock; memory never runs ahead of the
- * journal (a failed step rebuilds from it); the same messages give the same states and notices
+ * journal (a failed step rebuilds from it); de-duplication is exact while memory stays bounded
+ * ({@link org.slopewatch.pipeline.SeenIds}: recent ids in memory, the journal for the rest); the same messages give the same states and notices
  * however they were batched or whichever edge brought them.
  *
  * <p>Depends on the engine, the journal and alerting; the edges ({@code ingest}), operations and

@@ -152,6 +152,88 @@ abstract class QuotePipelineRestartChecks {
         assertThat(afterRestart.duplicates()).isEqualTo(1);
     }
 
+    /** A pipeline that keeps at most {@code cache} message ids in memory, rebuilt from the journal. */
+    private QuotePipeline pipeline(AgroalDataSource ds, int cache) {
+        QuotePipeline p = new QuotePipeline(WATCHES, new JournalWriter(ds, clock), new JournalReader(ds), PipelineListener.NONE,
+                AlertStage.NONE, clock, cache);
+        p.recover();
+        return p;
+    }
+
+    private static QuoteBatch one(QuoteMessage m) {
+        return new QuoteBatch("test", List.of(m), List.of());
+    }
+
+    /**
+     * Memory keeps only the most recent ids; the journal answers for older ones, so a message sent
+     * again long after is still a duplicate, in the same run and after a restart (which loads no ids).
+     */
+    @Test
+    void aDuplicateOfAMessageMemoryHasLetGoIsStillRecognised() {
+        AgroalDataSource ds = database("evicted");
+        QuotePipeline p = pipeline(ds, 3);
+        List<QuoteMessage> sent = new ArrayList<>();
+        for (int i = 0; i < 20; i++) {
+            sent.add(new QuoteMessage("early-" + i, "test", null, "GOVT-A", LocalDate.of(2026, 3, 2).plusDays(i),
+                    new java.util.TreeMap<>(Map.of(Tenor.years(10), 400.0 + i, Tenor.months(3), 410.0))));
+        }
+        sent.forEach(m -> p.process(List.of(one(m))));
+        assertThat(p.seenIdsInMemory()).as("ids in memory after 20 messages with room for 3").isEqualTo(3);
+
+        BatchOutcome again = p.process(List.of(one(sent.get(0))));
+        assertThat(again.duplicates()).as("the first message, long gone from memory, sent again").isEqualTo(1);
+        assertThat(again.accepted()).isZero();
+
+        QuotePipeline restarted = pipeline(ds, 3);
+        assertThat(restarted.seenIdsInMemory()).as("ids loaded by a restart").isZero();
+        QuoteMessage fresh = new QuoteMessage("later-0", "test", null, "GOVT-A", LocalDate.of(2026, 4, 1),
+                new java.util.TreeMap<>(Map.of(Tenor.years(10), 380.0, Tenor.months(3), 410.0)));
+        BatchOutcome afterRestart = restarted.process(List.of(new QuoteBatch("test", List.of(sent.get(1), fresh, fresh), List.of())));
+        assertThat(afterRestart.duplicates()).as("an old message and a second copy of a new one in the same step").isEqualTo(2);
+        assertThat(afterRestart.accepted()).isEqualTo(1);
+        assertThat(new JournalReader(ds).quoteCount()).as("quote messages journalled").isEqualTo(21);
+    }
+
+    /**
+     * However many messages pass, memory holds at most the configured number of ids, and the
+     * duplicates found are exactly those an unbounded set of every id ever seen finds (the JDK's
+     * {@code HashSet}, the reference).
+     */
+    @Test
+    void memoryForSeenIdsStaysBoundedAndDeDuplicationExact() {
+        List<QuoteBatch> batches = scenario(7);
+        AgroalDataSource ds = database("bounded");
+        QuotePipeline p = pipeline(ds, 50);
+        Set<String> everySeen = new java.util.HashSet<>();
+        int expectedDuplicates = 0;
+        int duplicates = 0;
+        int messages = 0;
+        for (int i = 0; i < batches.size(); i++) {
+            for (QuoteMessage m : batches.get(i).messages()) {
+                messages++;
+                if (!everySeen.add(m.id())) {
+                    expectedDuplicates++;
+                }
+            }
+            duplicates += p.process(List.of(batches.get(i))).duplicates();
+            assertThat(p.seenIdsInMemory()).as("ids in memory after batch %d", i).isLessThanOrEqualTo(50);
+            if (i == 200) {
+                p = pipeline(ds, 50); // a restart half way: the journal alone answers for what came before
+            }
+        }
+        // the first hundred batches sent again: every first copy came hundreds of ids ago, long gone from memory
+        List<QuoteBatch> again = batches.subList(0, 100);
+        for (QuoteBatch b : again) {
+            expectedDuplicates += b.messages().size();
+            duplicates += p.process(List.of(b)).duplicates();
+        }
+        assertThat(messages).as("messages far beyond the bound").isGreaterThan(20 * 50);
+        assertThat(p.seenIdsInMemory()).isEqualTo(50);
+        assertThat(duplicates).as("duplicates found, against an unbounded set of every id").isEqualTo(expectedDuplicates)
+                .isGreaterThan(100);
+        assertThat(new JournalReader(ds).quoteCount()).as("every distinct message journalled once").isEqualTo(everySeen.size());
+    }
+
     /**
      * A step that fails before its transaction commits, here while deciding its alerts, took
      * nothing: the same message sent again is accepted and journalled, not dropped as a duplicate
