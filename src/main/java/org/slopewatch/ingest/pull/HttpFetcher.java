@@ -69,7 +69,7 @@ final class HttpFetcher {
             response = answer.get(timeout.toMillis(), TimeUnit.MILLISECONDS);
         } catch (TimeoutException e) {
             answer.cancel(true);
-            return new Fetched.Failed(null, true, "no whole answer within " + human(timeout));
+            return new Fetched.Failed(null, true, "no answer within " + human(timeout));
         } catch (InterruptedException e) {
             answer.cancel(true);
             Thread.currentThread().interrupt();
