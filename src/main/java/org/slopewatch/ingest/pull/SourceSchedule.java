@@ -1,6 +1,7 @@
 package org.slopewatch.ingest.pull;
 
 import io.quarkus.runtime.Startup;
+import io.smallrye.config.ConfigMapping;
 import io.quarkus.scheduler.Scheduled.ConcurrentExecution;
 import io.quarkus.scheduler.Scheduler;
 import jakarta.inject.Singleton;
@@ -40,6 +41,8 @@ public class SourceSchedule {
     SourceSchedule(SourcesConfig config, QuoteDecoder quotes, IngestRules rules, QuotePipeline pipeline, SourceFetches fetches,
                    PulledSources status, RetryPolicy retry, Clock clock, Scheduler scheduler) {
         List<String> problems = new ArrayList<>();
+        // the messages name each setting as written; the prefix is the mapping's, in one place
+        String prefix = SourcesConfig.class.getAnnotation(ConfigMapping.class).prefix();
         SourcePuller.Pause sleep = at -> {
             long millis = Duration.between(clock.instant(), at).toMillis();
             if (millis > 0) {
@@ -59,7 +62,7 @@ public class SourceSchedule {
                         status, retry, clock, sleep));
             } catch (IllegalArgumentException | IOException ex) {
                 // the message never repeats the URL: it may carry a token
-                problems.add("slopewatch.sources." + name + ": " + (ex instanceof IOException ? "series-map: " : "") + ex.getMessage());
+                problems.add(prefix + "." + name + ": " + (ex instanceof IOException ? "series-map: " : "") + ex.getMessage());
             }
         }
         if (!problems.isEmpty()) {
