@@ -11,9 +11,10 @@ import org.eclipse.microprofile.health.HealthCheckResponseBuilder;
 import org.slopewatch.pipeline.PulledSources;
 
 /**
- * DOWN while a pulled source's latest fetch failed and it has not answered within its interval
- * (never, or longer ago than {@code every}): the publication may have moved on without the daemon.
- * One failure after a recent success is left to the retries. Wellness: the other feeds go on.
+ * DOWN while a pulled source is failing ({@link PulledSources.Status#failing}): its latest fetch
+ * failed and it has not answered within its interval. Wellness: the other feeds go on. The answer
+ * is open, so it gives ages and counts only; why a fetch failed is in the journal's
+ * {@code source_fetch} rows and the log.
  */
 @Wellness
 @ApplicationScoped
@@ -33,14 +34,13 @@ public class PulledSourcesCheck implements HealthCheck {
         HealthCheckResponseBuilder b = HealthCheckResponse.named("pulled sources").up();
         for (PulledSources.Status s : sources.all().values()) {
             Duration age = s.lastSuccess() == null ? null : Duration.between(s.lastSuccess(), now);
-            boolean failing = s.failuresInARow() > 0 && (age == null || age.compareTo(s.every()) > 0);
+            boolean failing = s.failing(now);
             if (failing) {
                 b.down();
             }
             b.withData(s.source(), (failing ? "failing: " : "")
                     + (age == null ? "no answer yet" : "last answer " + s.lastSuccess() + " (" + age.toSeconds() + " s ago)")
-                    + ", failures in a row " + s.failuresInARow()
-                    + (s.lastProblem() == null ? "" : ", last problem: " + s.lastProblem()));
+                    + ", failures in a row " + s.failuresInARow());
         }
         return b.build();
     }

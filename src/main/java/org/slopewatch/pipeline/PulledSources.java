@@ -32,6 +32,15 @@ public class PulledSources {
         public Optional<Instant> lastSuccessAt() {
             return Optional.ofNullable(lastSuccess);
         }
+
+        /**
+         * Failing: the latest fetch failed and no answer came within the source's interval (never, or longer
+         * ago than {@code every}), so the publication may have moved on without the daemon. One failure after
+         * a recent answer is left to the retries and the next scheduled fetch.
+         */
+        public boolean failing(Instant now) {
+            return failuresInARow > 0 && (lastSuccess == null || Duration.between(lastSuccess, now).compareTo(every) > 0);
+        }
     }
 
     private final Map<String, Status> sources = new ConcurrentHashMap<>();

@@ -133,7 +133,8 @@ class PulledSourceTest {
             assertThat(f.detail()).isEqualTo("could not connect");
         }
         String health = given().get("/q/health/well").then().statusCode(503).extract().asString();
-        assertThat(health).contains("pulled sources").contains("\"down\": \"failing: no answer yet, failures in a row");
+        assertThat(health).contains("pulled sources").contains("\"down\": \"failing: no answer yet, failures in a row")
+                .as("the open answer gives no reason").doesNotContain("could not connect");
         String metrics = given().get("/q/metrics").then().statusCode(200).extract().asString();
         assertThat(metrics).containsPattern("slopewatch_source_fetch_failures_total\\{source=\"down\"} [1-9]");
         assertThat(metrics).contains("slopewatch_source_fetch_failures_total{source=\"govt-a\"} 0.0");
