@@ -111,7 +111,7 @@ final class SourcePuller {
             return f.reason();
         }
         Fetched.Body body = (Fetched.Body) answer;
-        QuoteBatch read = decoder.decode(ORIGIN, body.bytes(), body.charset(), curve, config.unit());
+        QuoteBatch read = decoder.decode(ORIGIN, name, body.bytes(), body.charset(), curve, config.unit());
         if (read.messages().isEmpty() && !read.rejects().isEmpty()) {
             // the publication as a whole was refused (or every row of it): nothing of it goes on, the refusal is journalled
             pipeline.process(List.of(new QuoteBatch(ORIGIN, List.of(), read.rejects())));

@@ -157,7 +157,7 @@ class PulledSourceTest {
         assertThat(f.outcome()).isEqualTo("refused");
         assertThat(f.httpStatus()).isEqualTo(200);
         assertThat(f.rejected()).isEqualTo(1);
-        assertThat(f.detail()).startsWith("refused: request:1:");
+        assertThat(f.detail()).as("the reader names the source, line and column").startsWith("refused: garbage:1:1: ");
         assertThat(f.datesNew() + f.datesRevised() + f.datesUnchanged()).isZero();
         assertThat(f.etag()).as("a refused body's validators are not kept: the next fetch asks for it whole").isNull();
         assertThat(noQuotes("GOVT-B")).isTrue();
