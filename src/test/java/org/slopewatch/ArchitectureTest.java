@@ -142,7 +142,8 @@ class ArchitectureTest {
                 .whereLayer("Pipeline").mayOnlyBeAccessedByLayers("Ingest", "Ops", "Api")
                 .whereLayer("Alerting").mayOnlyBeAccessedByLayers("Pipeline", "Ops", "Api")
                 .whereLayer("Journal").mayOnlyBeAccessedByLayers("Alerting", "Pipeline", "Ingest", "WhatIf", "Ops", "Api", "Cli")
-                .whereLayer("Delivery").mayOnlyBeAccessedByLayers("Alerting", "Ops", "Api")
+                // pulled sources retry on the delivery's retry policy: one policy for every retry of the daemon
+                .whereLayer("Delivery").mayOnlyBeAccessedByLayers("Alerting", "Ingest", "Ops", "Api")
                 .whereLayer("WhatIf").mayOnlyBeAccessedByLayers("Api", "Cli")
                 .whereLayer("Analysis").mayOnlyBeAccessedByLayers("WhatIf", "Api", "Cli")
                 .whereLayer("History").mayOnlyBeAccessedByLayers("Analysis", "Ingest", "WhatIf", "Api", "Cli")

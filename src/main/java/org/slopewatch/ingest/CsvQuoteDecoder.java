@@ -59,6 +59,14 @@ public final class CsvQuoteDecoder {
      * @param unit    the yield unit ({@code percent}, {@code bp}, {@code decimal}), or null for percent
      */
     public QuoteBatch decode(String origin, byte[] body, String charset, String curve, String unit) {
+        return decode(origin, SOURCE, body, charset, curve, unit);
+    }
+
+    /**
+     * As {@link #decode(String, byte[], String, String, String)}, with the body named {@code where} in the
+     * reader's messages ({@code where:3:7: …}): a pulled source by its name.
+     */
+    public QuoteBatch decode(String origin, String where, byte[] body, String charset, String curve, String unit) {
         YieldUnit yieldUnit;
         try {
             yieldUnit = unit == null ? YieldUnit.PERCENT : YieldUnit.parse(unit);
@@ -77,7 +85,7 @@ public final class CsvQuoteDecoder {
         List<QuoteMessage> messages = new ArrayList<>();
         List<Reject> rejects = new ArrayList<>();
         try {
-            HistoryCsvReader.read(SOURCE, new ByteArrayInputStream(body), encoding,
+            HistoryCsvReader.read(where, new ByteArrayInputStream(body), encoding,
                     new HistoryCsvReader.Options(curve == null ? UNNAMED_CURVE : curve, yieldUnit, rules.bounds(), series), snapshot -> {
                         QuoteMessage m = QuoteMessage.of(snapshot.curve(), snapshot.date(), snapshot.asMap());
                         Reject problem = decoder.check(m, messages.size() + rejects.size());

@@ -118,4 +118,10 @@ public class JournalBeans {
     TimelineRows timelineRows(AgroalDataSource ds) {
         return new TimelineRows(ds);
     }
+
+    @Produces
+    @Singleton
+    SourceFetches sourceFetches(AgroalDataSource ds, Clock clock) {
+        return new SourceFetches(ds, clock);
+    }
 }

@@ -5,7 +5,8 @@
  * with plain batched JDBC. {@link org.slopewatch.journal.JournalWriter} writes a step, its notices
  * with their outbox rows included ({@code AlertRows}); each alert table is read and written
  * through a store with one job ({@code AlertHistory}, {@code DeliveryOutbox},
- * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code QuietPeriodBook}, {@code PolicyVersions}), and
+ * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code QuietPeriodBook}, {@code PolicyVersions}),
+ * the fetches of pulled sources through {@code SourceFetches}, and
  * the API's pages of notices and of a spread's timeline are read by {@code NewestAlerts} and
  * {@code TimelineRows}; all of them go through {@code JournalSql}, the one JDBC helper.
  *

@@ -33,7 +33,7 @@ import org.slopewatch.probability.LiveProbability;
 @ApplicationScoped
 public class PipelineMetrics implements PipelineListener {
 
-    static final String[] ORIGINS = {"http", "kafka", "demo", "csv"};
+    static final String[] ORIGINS = {"http", "kafka", "demo", "csv", "pull"};
 
     private final MeterRegistry registry;
     private final Timer processing;

@@ -13,7 +13,8 @@ import org.slopewatch.delivery.Redactor;
  * file, environment, system property): passwords ({@code quarkus.mailer.password} and any other
  * {@code *.password}), tokens ({@code slopewatch.security.read-tokens}, {@code write-tokens}, any
  * {@code *.token}, {@code *.secret}, Kafka's {@code *.jaas.config}) and chat webhook URLs
- * ({@code slopewatch.channels.NAME.url}, which carry their token). Keys are compared in one
+ * ({@code slopewatch.channels.NAME.url}, which carry their token), and the URLs of pulled sources
+ * ({@code slopewatch.sources.NAME.url}, which may). Keys are compared in one
  * spelling, lowercase with {@code _} and {@code -} read as {@code .}, so that
  * {@code QUARKUS_MAILER_PASSWORD} counts as well.
  *
@@ -25,7 +26,7 @@ public final class SecretSettings {
     static final int MIN_CHARS = 6;
 
     private static final Pattern SECRET_KEY = Pattern.compile(".*\\.(password|secret|token|tokens|jaas\\.config)");
-    private static final Pattern WEBHOOK_URL = Pattern.compile("slopewatch\\.channels\\..+\\.url");
+    private static final Pattern WEBHOOK_URL = Pattern.compile("slopewatch\\.(channels|sources)\\..+\\.url");
 
     private SecretSettings() {
     }

@@ -4,7 +4,8 @@
  * side for the notices the step calls for, and journals all of it in one transaction. Around it:
  * the batch, reject and outcome types every edge speaks, the listeners (metrics), the policy's
  * hot reload ({@link org.slopewatch.pipeline.PolicyReloader}), the clock-driven tick
- * ({@link org.slopewatch.pipeline.AlertTicker}) with feed freshness, the as-of rebuild of past
+ * ({@link org.slopewatch.pipeline.AlertTicker}) with feed freshness, how each pulled source is doing
+ * ({@link org.slopewatch.pipeline.PulledSources}), the as-of rebuild of past
  * states, and the beans that build the pipeline from configuration.
  *
  * <p>Invariants: one step at a time, under the pipeline's lock; memory never runs ahead of the
