@@ -2,7 +2,6 @@ package org.slopewatch.web;
 
 import static io.restassured.RestAssured.given;
 import static org.assertj.core.api.Assertions.assertThat;
-import static org.assertj.core.api.Assertions.within;
 import static org.hamcrest.Matchers.equalTo;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -12,6 +11,8 @@ import io.quarkus.test.junit.QuarkusTest;
 import io.restassured.http.ContentType;
 import java.io.File;
 import java.io.IOException;
+import java.math.BigDecimal;
+import java.math.RoundingMode;
 import java.net.URI;
 import java.net.URL;
 import java.nio.file.Files;
@@ -142,7 +143,8 @@ class DashboardBrowserTest {
         JsonNode p = new ObjectMapper().readTree(given().get("/api/spreads/" + SPREAD).then().statusCode(200).extract().asString())
                 .get("probability");
         double value = new NormalDistribution().cumulativeProbability(-0.5333 - 0.6330 * p.get("month_average_bp").asDouble() / 100);
-        assertThat(p.get("value").asDouble()).isCloseTo(value, within(1e-12));
+        // probabilities are given to six decimals (docs/policy.md, "Thresholds and resolution")
+        assertThat(p.get("value").asDouble()).isEqualTo(new BigDecimal(value).setScale(6, RoundingMode.HALF_EVEN).doubleValue());
         String words = spread.findElement(By.cssSelector(".probability p.provisional")).getText();
         assertThat(words).as("how far ahead, which month's average, provisional, and the model")
                 .containsPattern("^(Recession probability|Month to date) \\(provisional\\): ")
