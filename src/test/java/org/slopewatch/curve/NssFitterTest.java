@@ -18,9 +18,10 @@ class NssFitterTest {
 
     private static final LocalDate DATE = LocalDate.of(2024, 5, 31);
     private static final String[] ELEVEN = {"1M", "3M", "6M", "1Y", "2Y", "3Y", "5Y", "7Y", "10Y", "20Y", "30Y"};
-    // parameters from exact points: the search stops once the RMSE is below 1e-6 bp, which left
-    // the betas within 1e-6 bp and the taus within 3e-8 years of the truth on the sets below
-    private static final double PARAMETER_TOLERANCE = 1e-5;
+    // parameters from exact points: a snapshot takes each yield to 1e-6 bp (curve.Resolution), so
+    // the points are exact only to half of that, and the search stops once the RMSE is below 1e-6 bp;
+    // on the first set below that left the betas within 1.1e-5 bp and the taus within 3e-7 years of the truth
+    private static final double PARAMETER_TOLERANCE = 1e-4;
     private static final SvenssonFormula TRUTH = new SvenssonFormula(450, -150, 200, -100, 1.5, 8);
 
     @Test
