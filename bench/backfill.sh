@@ -17,7 +17,7 @@ if [ ! -f "$file" ]; then
 fi
 work=$(mktemp -d /tmp/slopewatch-backfill-XXXXXX)
 daemon=""
-trap '[ -n "$daemon" ] && kill $daemon 2>/dev/null; [ -n "$daemon" ] && wait $daemon 2>/dev/null; rm -rf "$work"' EXIT
+trap 'if [ -n "$daemon" ]; then kill $daemon 2>/dev/null || true; wait $daemon 2>/dev/null || true; fi; rm -rf "$work"' EXIT
 
 # 1. backfill, with the launcher's options for offline commands
 start=$(date +%s.%N)
