@@ -12,7 +12,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
-import org.slopewatch.alerting.AlertStage;
 import org.slopewatch.curve.YieldBounds;
 import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.history.HistoryCsvReader;
@@ -133,7 +132,7 @@ final class BackfillCommand implements Callable<Integer> {
             Clock clock = Clock.systemUTC();
             // no alert stage: history is not news, and notices decided on it would reach the channels from the outbox
             QuotePipeline pipeline = new QuotePipeline(parsed.watches(), new JournalWriter(ds, clock), new JournalReader(ds),
-                    PipelineListener.NONE, AlertStage.NONE, clock);
+                    PipelineListener.NONE, clock);
             pipeline.recover();
             HistoryBackfill.Totals totals;
             try (ProgressBar bar = ProgressBar.forStderr("backfill: journal", messages.size(), "snapshots")) {
