@@ -32,8 +32,19 @@ record JournalLocation(String url, String label) {
         return new JournalLocation("jdbc:h2:file:" + file + ";IFEXISTS=TRUE;ACCESS_MODE_DATA=r", dir.resolve(H2_FILE).toString());
     }
 
+    /** H2 keeps its file locked while a process has it open: the daemon, most likely. */
+    static boolean inUse(Throwable e) {
+        for (Throwable t = e; t != null; t = t.getCause() == t ? null : t.getCause()) {
+            String m = String.valueOf(t.getMessage());
+            if (m.contains("already in use") || m.contains("file is locked")) {
+                return true;
+            }
+        }
+        return false;
+    }
+
     /** Drivers accept passwords after {@code ?} or {@code ;}: a report shows what comes before. */
-    private static String withoutParameters(String url) {
+    static String withoutParameters(String url) {
         int cut = url.length();
         for (char c : new char[] {'?', ';'}) {
             int at = url.indexOf(c);

@@ -9,7 +9,8 @@ import picocli.CommandLine.Command;
         versionProvider = BuildVersion.class,
         description = "Watches government yield-curve spreads for persistent inversions.%n"
                 + "A statistical signal, not investment advice.",
-        subcommands = {DemoCommand.class, ServeCommand.class, ReplayCommand.class, FitCommand.class, VetPolicyCommand.class,
+        subcommands = {DemoCommand.class, ServeCommand.class, ReplayCommand.class, FitCommand.class, BackfillCommand.class,
+                VetPolicyCommand.class,
                 CheckRulesAlias.class})
 final class SlopewatchCommand implements Callable<Integer> {
 

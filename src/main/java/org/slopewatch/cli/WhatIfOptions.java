@@ -89,22 +89,11 @@ final class WhatIfOptions {
         } catch (IOException e) {
             return ReplayFailure.unreadable(e, err);
         } catch (JournalException e) {
-            err.println("slopewatch replay: " + (inUse(e) ? "the journal " + journal + " is in use by another process: an H2 journal"
+            err.println("slopewatch replay: " + (JournalLocation.inUse(e) ? "the journal " + journal + " is in use by another process: an H2 journal"
                     + " can be read while the daemon is stopped; on a running daemon use POST /api/what-if"
                     : e.getMessage() + ": " + ServeCommand.rootMessage(e).lines().findFirst().orElse("")));
             return 1;
         }
-    }
-
-    /** H2 keeps its file locked while a process has it open: the daemon, most likely. */
-    private static boolean inUse(Throwable e) {
-        for (Throwable t = e; t != null; t = t.getCause() == t ? null : t.getCause()) {
-            String m = String.valueOf(t.getMessage());
-            if (m.contains("already in use") || m.contains("file is locked")) {
-                return true;
-            }
-        }
-        return false;
     }
 
     /** The policy tried: the file, or the one policy file in a directory (policies are tried whole, never merged). */

@@ -6,7 +6,8 @@
  * hot reload ({@link org.slopewatch.pipeline.PolicyReloader}), the clock-driven tick
  * ({@link org.slopewatch.pipeline.AlertTicker}) with feed freshness, how each pulled source is doing
  * ({@link org.slopewatch.pipeline.PulledSources}), the as-of rebuild of past
- * states, and the beans that build the pipeline from configuration.
+ * states, the bulk load of history through the same step ({@link org.slopewatch.pipeline.HistoryBackfill}),
+ * and the beans that build the pipeline from configuration.
  *
  * <p>Invariants: one step at a time, under the pipeline's lock; memory never runs ahead of the
  * journal (a failed step rebuilds from it); de-duplication is exact while memory stays bounded

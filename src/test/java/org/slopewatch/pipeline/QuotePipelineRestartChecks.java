@@ -139,6 +139,62 @@ abstract class QuotePipelineRestartChecks {
                 .anyMatch(s -> s.contains("CONFIRMED")).anyMatch(s -> s.contains("superseded"));
     }
 
+    /**
+     * A backfill feeds thousands of messages per step; the journal must end as it does when the
+     * daemon takes the same messages one request at a time: the same quotes in the same order, the
+     * same observations, transitions (revisions included) and spells, and a daemon started on it
+     * recovers the same states. The reference is the pipeline driven one batch per step, as
+     * {@code QuoteResource} drives it for each request.
+     */
+    @Test
+    void aBackfillInLargeStepsJournalsWhatOneStepPerRequestJournals() {
+        List<QuoteBatch> batches = scenario(11);
+        AgroalDataSource oneByOne = database("one-by-one");
+        QuotePipeline daemon = pipeline(oneByOne);
+        batches.forEach(b -> daemon.process(List.of(b)));
+
+        List<QuoteMessage> messages = batches.stream().flatMap(b -> b.messages().stream()).toList();
+        AgroalDataSource backfilled = database("backfilled");
+        long[] fed = {0};
+        HistoryBackfill.Totals totals = new HistoryBackfill(pipeline(backfilled), "test", 300).feed(messages, n -> fed[0] = n);
+
+        assertThat(totals.steps()).as("steps of 300 for %d messages", messages.size()).isEqualTo((messages.size() + 299) / 300);
+        assertThat(fed[0]).isEqualTo(messages.size());
+        assertThat(totals.duplicates()).as("the scenario's repeated ids").isPositive();
+        assertThat(journalRows(backfilled, "SELECT seq, message_id, origin, curve, market_date, yields FROM quote ORDER BY seq"))
+                .as("quotes").isNotEmpty().isEqualTo(journalRows(oneByOne, "SELECT seq, message_id, origin, curve, market_date, yields FROM quote ORDER BY seq"));
+        String observations = "SELECT seq, spread_id, market_date, value_bp FROM observation ORDER BY seq, spread_id, market_date, value_bp";
+        assertThat(journalRows(backfilled, observations)).as("observations").isEqualTo(journalRows(oneByOne, observations));
+        org.slopewatch.testsupport.JournalContents expected = org.slopewatch.testsupport.JournalContents.read(oneByOne);
+        org.slopewatch.testsupport.JournalContents actual = org.slopewatch.testsupport.JournalContents.read(backfilled);
+        // the last column says whether a revision superseded the row: both values, so revisions were exercised
+        assertThat(actual.transitions().stream().map(t -> t.substring(t.lastIndexOf('|'))).distinct()).as("superseded and standing")
+                .hasSize(2);
+        assertThat(actual.transitions()).as("transitions").isEqualTo(expected.transitions());
+        assertThat(actual.spells()).as("spells").isNotEmpty().isEqualTo(expected.spells());
+        assertThat(actual.quotes()).isEqualTo(expected.quotes());
+        assertThat(pipeline(backfilled).spreads()).as("states a daemon recovers from the backfilled journal")
+                .isEqualTo(daemon.spreads());
+    }
+
+    private static List<String> journalRows(AgroalDataSource ds, String query) {
+        List<String> out = new ArrayList<>();
+        try (java.sql.Connection c = ds.getConnection(); java.sql.Statement s = c.createStatement();
+             java.sql.ResultSet rs = s.executeQuery(query)) {
+            int columns = rs.getMetaData().getColumnCount();
+            while (rs.next()) {
+                StringBuilder row = new StringBuilder();
+                for (int i = 1; i <= columns; i++) {
+                    row.append(i == 1 ? "" : " | ").append(rs.getString(i));
+                }
+                out.add(row.toString());
+            }
+        } catch (java.sql.SQLException e) {
+            throw new AssertionError(e);
+        }
+        return out;
+    }
+
     @Test
     void duplicatesAreIgnoredAndCountedEvenAcrossARestart() {
         AgroalDataSource ds = database("dups");

@@ -24,7 +24,24 @@ public record JournalContents(long quotes, long distinctQuoteIds, List<String> t
                               List<String> deliveries) {
 
     public static JournalContents read(String url, String user, String password) {
-        try (Connection c = DriverManager.getConnection(url, user, password); Statement s = c.createStatement()) {
+        try (Connection c = DriverManager.getConnection(url, user, password)) {
+            return read(c);
+        } catch (SQLException e) {
+            throw new AssertionError("cannot read the journal at " + url + ": " + e.getMessage(), e);
+        }
+    }
+
+    /** The same, from a data source the test opened (a journal it drives in process). */
+    public static JournalContents read(javax.sql.DataSource ds) {
+        try (Connection c = ds.getConnection()) {
+            return read(c);
+        } catch (SQLException e) {
+            throw new AssertionError("cannot read the journal: " + e.getMessage(), e);
+        }
+    }
+
+    private static JournalContents read(Connection c) throws SQLException {
+        try (Statement s = c.createStatement()) {
             return new JournalContents(
                     single(s, "SELECT COUNT(*) FROM quote"),
                     single(s, "SELECT COUNT(DISTINCT message_id) FROM quote"),
@@ -36,8 +53,6 @@ public record JournalContents(long quotes, long distinctQuoteIds, List<String> t
                     rows(s, "SELECT id, rule, subject, episode_since, notice, kind, severity, market_date, state, title, muted_by "
                             + "FROM alert ORDER BY id"),
                     rows(s, "SELECT alert_id, channel, status FROM delivery ORDER BY alert_id, channel"));
-        } catch (SQLException e) {
-            throw new AssertionError("cannot read the journal at " + url + ": " + e.getMessage(), e);
         }
     }
 
