@@ -9,7 +9,7 @@
 #
 # Usage: deploy/kafka/create-topics.sh [options]
 #   -b, --bootstrap-server LIST   brokers                 env KAFKA_BOOTSTRAP_SERVERS       default localhost:9092
-#   -p, --partitions N            of slopewatch.quotes    env SLOPEWATCH_QUOTES_PARTITIONS  default 6
+#   -p, --partitions N            of slopewatch.quotes    env SLOPEWATCH_QUOTES_PARTITIONS  default 12
 #   -r, --replication-factor N    of all three            env SLOPEWATCH_REPLICATION_FACTOR default 3
 #       --min-insync-replicas N                           env SLOPEWATCH_MIN_INSYNC_REPLICAS default 2 if the factor is 3 or more, else 1
 #       --retention DURATION      of slopewatch.quotes    env SLOPEWATCH_QUOTES_RETENTION   default 7d
@@ -27,23 +27,26 @@
 # out of order. The script never alters an existing topic; it fails if slopewatch.quotes exists
 # with another partition count than asked for.
 #
-# The Kafka tool, first found of:
+# Optional: the daemon creates slopewatch.quotes itself at start when it is missing, with
+# slopewatch.kafka.quotes-partitions (default 12) and the broker's default replication factor
+# (slopewatch.kafka.quotes-replication-factor), and never alters an existing one. This script is for
+# what the daemon does not choose: retention, min.insync.replicas and the two other topics.
+#
+# The Kafka tool, first found of (nothing is downloaded):
 #   1. $KAFKA_HOME/bin/kafka-topics.sh        a Kafka installation
 #   2. kafka-topics.sh on PATH
-#   3. $KAFKA_LIBS, a folder of Kafka jars, e.g. the one .ci/kafka.sh fills
-#      (~/.cache/slopewatch/kafka-libs, the default when it exists). Those are the broker's jars
-#      and lack the command-line tools: the kafka-tools jar of the same version is fetched once
-#      from Maven Central with the repository's Maven wrapper into ~/.cache/slopewatch/.
+#   3. $KAFKA_LIBS, a folder of Kafka jars (~/.cache/slopewatch/kafka-libs, the default when it
+#      exists), with the kafka-tools jar of the same version there or in
+#      ~/.cache/slopewatch/kafka-tools/ (the broker's jars alone lack the command-line tools).
 set -euo pipefail
 
-ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 CACHE="${XDG_CACHE_HOME:-$HOME/.cache}/slopewatch"
 
 say() { echo "create-topics: $*" >&2; }
 die() { say "error: $*"; exit 1; }
 
 bootstrap="${KAFKA_BOOTSTRAP_SERVERS:-localhost:9092}"
-partitions="${SLOPEWATCH_QUOTES_PARTITIONS:-6}"
+partitions="${SLOPEWATCH_QUOTES_PARTITIONS:-12}"
 replication="${SLOPEWATCH_REPLICATION_FACTOR:-3}"
 min_isr="${SLOPEWATCH_MIN_INSYNC_REPLICAS:-}"
 retention="${SLOPEWATCH_QUOTES_RETENTION:-7d}"
@@ -120,13 +123,7 @@ else
     tools="$(find "$libs" -maxdepth 1 -name "kafka-tools-$version.jar" | head -n 1)"
     if [[ -z "$tools" ]]; then
         tools="$CACHE/kafka-tools/kafka-tools-$version.jar"
-        if [[ ! -f "$tools" ]]; then
-            say "fetching kafka-tools $version (the topic command) from Maven Central into $CACHE/kafka-tools"
-            mkdir -p "$CACHE/kafka-tools"
-            (cd "$ROOT" && ./mvnw -B -q org.apache.maven.plugins:maven-dependency-plugin:3.8.1:copy \
-                -Dartifact="org.apache.kafka:kafka-tools:$version" -DoutputDirectory="$CACHE/kafka-tools") >&2 \
-                || die "could not download org.apache.kafka:kafka-tools:$version"
-        fi
+        [[ -f "$tools" ]] || die "$libs has no kafka-tools-$version.jar, nor has $CACHE/kafka-tools: set KAFKA_HOME to a Kafka $version installation or put kafka-topics.sh on PATH (the daemon creates slopewatch.quotes itself without either)"
     fi
     say "using the Kafka $version jars in $libs"
     topics_cmd=(java -Xmx256m -cp "$libs/*:$tools" org.apache.kafka.tools.TopicCommand)

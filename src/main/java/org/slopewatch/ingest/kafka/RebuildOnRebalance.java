@@ -23,6 +23,9 @@ import org.slopewatch.pipeline.QuotePipeline;
  * and the records of those partitions still waiting here are dropped ({@link PartitionOwnership}),
  * so that the next owner, whose rebuild reads the journal, finds every quote this instance
  * processed already journalled and none journalled after it.
+ *
+ * <p>Each assignment, an empty one included, also has {@link QuotesTopicCheck} compare the topic's
+ * partitions with the group's members.
  */
 @ApplicationScoped
 @Identifier(RebuildOnRebalance.NAME)
@@ -33,14 +36,18 @@ public class RebuildOnRebalance implements KafkaConsumerRebalanceListener {
 
     private final QuotePipeline pipeline;
     private final PartitionOwnership ownership;
+    private final QuotesTopicCheck topicCheck;
 
-    RebuildOnRebalance(QuotePipeline pipeline, PartitionOwnership ownership) {
+    RebuildOnRebalance(QuotePipeline pipeline, PartitionOwnership ownership, QuotesTopicCheck topicCheck) {
         this.pipeline = pipeline;
         this.ownership = ownership;
+        this.topicCheck = topicCheck;
     }
 
     @Override
     public void onPartitionsAssigned(Consumer<?, ?> consumer, Collection<TopicPartition> partitions) {
+        // before the empty case: an instance handed nothing is the one a short topic leaves idle
+        topicCheck.assigned();
         if (partitions.isEmpty()) {
             return;
         }

@@ -49,6 +49,8 @@ import org.slopewatch.testsupport.KafkaBroker;
 class KafkaQuotesTest {
 
     private static final Duration PATIENCE = Duration.ofSeconds(60);
+    /** Not the default (12), so that the check sees the setting at work; the run's topic is new to the broker. */
+    static final int QUOTES_PARTITIONS = 3;
 
     /** The {@code kafka} profile on the test broker, with topics and a consumer group of this run's own. */
     public static final class KafkaProfile implements QuarkusTestProfile {
@@ -70,6 +72,7 @@ class KafkaQuotesTest {
             config.put("mp.messaging.outgoing.quotes-publish.topic", topic);
             config.put("mp.messaging.outgoing.quotes-dead-letter.topic", topic + ".dead-letter");
             config.put("slopewatch.data-dir", "./target/test-data/kafka-" + run);
+            config.put("slopewatch.kafka.quotes-partitions", String.valueOf(QUOTES_PARTITIONS));
             // these outrank the %kafka. keys of application.properties: a plain key in a source of
             // higher ordinal wins over a profile key in a lower one
             return config;
@@ -184,6 +187,34 @@ class KafkaQuotesTest {
                     .as("acks of the producer of " + channel).hasToString("all");
             assertThat(ConfigProvider.getConfig().getOptionalValue("mp.messaging.outgoing." + channel + ".waitForWriteCompletion",
                     Boolean.class)).as("waitForWriteCompletion of " + channel).isNotEqualTo(java.util.Optional.of(false));
+        }
+    }
+
+    /**
+     * The quotes consumer as the running daemon configured it (the connector's resolved map, what
+     * the Kafka client is given). A dead member's partitions move after session.timeout.ms (the
+     * Kafka client's own default is 45000 since Kafka 3.0, KIP-735 (from memory)); heartbeats at a
+     * third of it: heartbeat.interval.ms "must be set lower than session.timeout.ms, but typically
+     * should be set no higher than 1/3 of that value" (Apache Kafka documentation, consumer
+     * configuration). max.poll.interval.ms bounds the rebuild on assignment, which runs in the poll.
+     */
+    @Test
+    void theConsumerTakesOverFromADeadMemberWithinTenSeconds() {
+        Map<String, ?> consumer = kafkaClients.getConsumer("quotes").configuration();
+        assertThat(consumer.get(ConsumerConfig.SESSION_TIMEOUT_MS_CONFIG)).as("session.timeout.ms").hasToString("10000");
+        assertThat(consumer.get(ConsumerConfig.HEARTBEAT_INTERVAL_MS_CONFIG)).as("heartbeat.interval.ms").hasToString("3000");
+        assertThat(consumer.get(ConsumerConfig.MAX_POLL_INTERVAL_MS_CONFIG)).as("max.poll.interval.ms").hasToString("300000");
+    }
+
+    /** The daemon created its quotes topic, new to the broker, with the configured partitions before its consumer could. */
+    @Test
+    void theQuotesTopicIsCreatedWithTheConfiguredPartitions() throws Exception {
+        Properties p = new Properties();
+        p.put(org.apache.kafka.clients.admin.AdminClientConfig.BOOTSTRAP_SERVERS_CONFIG, bootstrap);
+        try (org.apache.kafka.clients.admin.Admin admin = org.apache.kafka.clients.admin.Admin.create(p)) {
+            int partitions = admin.describeTopics(List.of(topic)).allTopicNames().get(30, java.util.concurrent.TimeUnit.SECONDS)
+                    .get(topic).partitions().size();
+            assertThat(partitions).as("partitions of " + topic + " (a broker at its defaults would make 1)").isEqualTo(QUOTES_PARTITIONS);
         }
     }
 

@@ -46,7 +46,7 @@ final class KafkaRuns {
     /**
      * A daemon of the default policy on {@code topic} (also its consumer group) with {@code journal},
      * its chat channel posting alert JSON to {@code chatUrl}. A dead member leaves the group after 6 s
-     * (the broker's least session time-out) rather than 45 s, so that a restart after a kill resumes soon.
+     * (the broker's least session time-out) rather than the daemon's 10 s, so that a restart after a kill resumes soon.
      */
     static Map<String, String> settings(String topic, TestDatabase journal, String chatUrl) {
         Map<String, String> s = DaemonProcess.scenarioSettings(Path.of("target/it-data/" + topic).toAbsolutePath(), CURVES, chatUrl);
