@@ -12,11 +12,8 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
-import org.slopewatch.curve.YieldBounds;
-import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.history.HistoryCsvReader;
 import org.slopewatch.history.HistoryFormatException;
-import org.slopewatch.history.SeriesMap;
 import org.slopewatch.journal.JournalDatabase;
 import org.slopewatch.journal.JournalException;
 import org.slopewatch.journal.JournalReader;
@@ -29,6 +26,7 @@ import org.slopewatch.rules.Policy;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyParser;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -57,11 +55,9 @@ final class BackfillCommand implements Callable<Integer> {
     @Option(names = "--curve", paramLabel = "NAME", description = "Curve name for a one-curve file (default: each file's name without extension).")
     String curve;
 
-    @Option(names = "--series-map", paramLabel = "FILE", description = "For SDMX-CSV files: lines KEY,CURVE,TENOR placing each series (see docs/sdmx.md).")
-    Path seriesMap;
+    @Mixin
+    HistoryReading reading = new HistoryReading();
 
-    @Option(names = "--unit", paramLabel = "UNIT", defaultValue = "percent", description = "Unit of the yields: percent, bp or decimal (default: ${DEFAULT-VALUE}).")
-    String unit;
 
     @Option(names = "--policy", paramLabel = "FILE", description = "The policy whose 'watch' part the daemon runs "
             + "(default: alert-rules/default.yaml, as the daemon's slopewatch.ingest.policy).")
@@ -100,8 +96,6 @@ final class BackfillCommand implements Callable<Integer> {
             Path policyFile = policy != null ? policy : Path.of(System.getProperty("slopewatch.home", "."), "alert-rules", "default.yaml");
             parsed = PolicyParser.parse(policyFile.toString(), Files.readAllBytes(policyFile));
             parsed.warnings().forEach(err::println);
-            SeriesMap series = SeriesMap.readOrNone(seriesMap);
-            YieldUnit yieldUnit = YieldUnit.parse(unit);
             long size = 0;
             for (Path f : files) {
                 size += Files.size(f);
@@ -110,7 +104,7 @@ final class BackfillCommand implements Callable<Integer> {
             try (ProgressBar bar = ProgressBar.forStderr("backfill: reading", size)) {
                 long before = 0;
                 for (Path f : files) {
-                    HistoryCsvReader.Options options = new HistoryCsvReader.Options(curveName(f), yieldUnit, YieldBounds.DEFAULT, series);
+                    HistoryCsvReader.Options options = reading.options(curveName(f));
                     long done = before;
                     try (InputStream raw = Files.newInputStream(f); CountingInputStream in = new CountingInputStream(raw)) {
                         quotes += HistoryCsvReader.read(f.toString(), in, options,

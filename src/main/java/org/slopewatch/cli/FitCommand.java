@@ -11,10 +11,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
-import org.slopewatch.curve.YieldBounds;
-import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.history.HistoryCsvReader;
-import org.slopewatch.history.SeriesMap;
 import org.slopewatch.history.HistoryFormatException;
 import org.slopewatch.probability.CovarianceKind;
 import org.slopewatch.probability.FitOptions;
@@ -31,6 +28,7 @@ import org.slopewatch.replay.SpreadSeriesReader;
 import org.slopewatch.spread.SpreadDefinition;
 import org.slopewatch.text.Excerpt;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -71,11 +69,9 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--curve", paramLabel = "NAME", description = "The curve to fit in a long file with several curves.")
     String curve;
 
-    @Option(names = "--series-map", paramLabel = "FILE", description = "For an SDMX-CSV file: lines KEY,CURVE,TENOR placing each series (see docs/sdmx.md).")
-    Path seriesMap;
+    @Mixin
+    HistoryReading reading = new HistoryReading();
 
-    @Option(names = "--unit", paramLabel = "UNIT", defaultValue = "percent", description = "Unit of the yields: percent, bp or decimal (default: ${DEFAULT-VALUE}).")
-    String unit;
 
     @Option(names = "--json", description = "Write the report as JSON.")
     boolean json;
@@ -98,8 +94,7 @@ final class FitCommand implements Callable<Integer> {
             try (Reader r = Files.newBufferedReader(recessions, StandardCharsets.UTF_8)) {
                 calendar = RecessionCalendarCsv.read(r, recessions.toString());
             }
-            HistoryCsvReader.Options read = new HistoryCsvReader.Options(curve != null ? curve : fileStem(), YieldUnit.parse(unit),
-                    YieldBounds.DEFAULT, SeriesMap.readOrNone(seriesMap));
+            HistoryCsvReader.Options read = reading.options(curve != null ? curve : fileStem());
             SpreadSeries series;
             try (InputStream in = Files.newInputStream(file)) {
                 series = SpreadSeriesReader.read(file.toString(), in, read, definition, curve);

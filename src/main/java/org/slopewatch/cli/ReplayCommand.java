@@ -11,10 +11,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Set;
 import java.util.concurrent.Callable;
-import org.slopewatch.curve.YieldBounds;
-import org.slopewatch.curve.YieldUnit;
 import org.slopewatch.history.HistoryCsvReader;
-import org.slopewatch.history.SeriesMap;
 import org.slopewatch.history.HistoryFormatException;
 import org.slopewatch.monitor.DaysInverted;
 import org.slopewatch.monitor.MonitorDefinition;
@@ -26,8 +23,8 @@ import org.slopewatch.probability.RecessionCalendarCsv;
 import org.slopewatch.replay.Replay;
 import org.slopewatch.replay.ReplayReport;
 import org.slopewatch.rules.PersistenceForms;
-import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.Policy;
+import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyParser;
 import org.slopewatch.spread.SpreadDefinition;
 import org.slopewatch.text.Excerpt;
@@ -54,11 +51,9 @@ final class ReplayCommand implements Callable<Integer> {
     @Option(names = "--curve", paramLabel = "NAME", description = "Curve name for a wide file (default: the file name without extension).")
     String curve;
 
-    @Option(names = "--series-map", paramLabel = "FILE", description = "For an SDMX-CSV file: lines KEY,CURVE,TENOR placing each series (see docs/sdmx.md).")
-    Path seriesMap;
+    @Mixin
+    HistoryReading reading = new HistoryReading();
 
-    @Option(names = "--unit", paramLabel = "UNIT", defaultValue = "percent", description = "Unit of the yields: percent, bp or decimal (default: ${DEFAULT-VALUE}).")
-    String unit;
 
     @Option(names = "--policy", paramLabel = "FILE", description = "Policy file whose 'watch' part names the spreads and tests (see alert-rules/README.md).")
     Path policy;
@@ -109,7 +104,7 @@ final class ReplayCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        Integer whatIfExit = whatIf.runIfAsked(file, file == null ? null : curveName(), unit, spreads, json);
+        Integer whatIfExit = whatIf.runIfAsked(file, file == null ? null : curveName(), reading.unit, spreads, json);
         if (whatIfExit != null) {
             return whatIfExit;
         }
@@ -121,8 +116,7 @@ final class ReplayCommand implements Callable<Integer> {
                     leads = new LeadTimeAnalysis(RecessionCalendarCsv.read(r, recessions.toString()).recessions(), falseAlarmMonths);
                 }
             }
-            HistoryCsvReader.Options options = new HistoryCsvReader.Options(curveName(), YieldUnit.parse(unit), YieldBounds.DEFAULT,
-                    SeriesMap.readOrNone(seriesMap));
+            HistoryCsvReader.Options options = reading.options(curveName());
             long size = Files.size(file);
             ReplayReport report;
             Replay replay = new Replay(watches);
