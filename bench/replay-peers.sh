@@ -30,7 +30,7 @@ if [ ! -f "$file" ]; then
   java -cp "$cp" org.slopewatch.bench.CurvesHistoryGenerator "$file"
 fi
 # the launcher's options for an offline command (see ./slopewatch), so that both JVMs run alike
-jvm_opts="$(sed -n 's/^  replay|fit|vet-policy|check-rules) batch_opts="\(.*\)" ;;$/\1/p' slopewatch)"
+jvm_opts="$(sed -n 's/^  replay|fit|[a-z|-]*) batch_opts="\(.*\)" ;;$/\1/p' slopewatch)"
 ./slopewatch --version > /dev/null 2>&1 || ./slopewatch --help > /dev/null   # builds the application if needed, outside the timings
 
 run_one() { # name round
