@@ -21,6 +21,9 @@ import org.slopewatch.journal.JournalWriter;
 import org.slopewatch.pipeline.HistoryBackfill;
 import org.slopewatch.pipeline.PipelineListener;
 import org.slopewatch.pipeline.QuoteMessage;
+import org.slopewatch.alerting.AlertStage;
+import org.slopewatch.journal.CurveCheckpoints;
+import org.slopewatch.pipeline.CurveOwnership;
 import org.slopewatch.pipeline.QuotePipeline;
 import org.slopewatch.rules.Policy;
 import org.slopewatch.rules.PolicyException;
@@ -125,16 +128,18 @@ final class BackfillCommand implements Callable<Integer> {
                 password(), 2)) {
             Clock clock = Clock.systemUTC();
             // no alert stage: history is not news, and notices decided on it would reach the channels from the outbox
+            // as the daemon holds memory by default, with checkpoints: the daemon then starts from them, not from every quote
             QuotePipeline pipeline = new QuotePipeline(parsed.watches(), new JournalWriter(ds, clock), new JournalReader(ds),
-                    PipelineListener.NONE, clock);
+                    PipelineListener.NONE, AlertStage.NONE, clock, QuotePipeline.Memory.defaults(new CurveCheckpoints(ds, clock)));
             pipeline.recover();
             HistoryBackfill.Totals totals;
             try (ProgressBar bar = ProgressBar.forStderr("backfill: journal", messages.size(), "snapshots")) {
                 totals = new HistoryBackfill(pipeline, ORIGIN, step).feed(messages, bar::update);
             }
+            int checkpoints = pipeline.checkpoint(CurveOwnership.ALL);
             out.println(String.format(Locale.ROOT, "backfill: %,d quotes in %,d snapshots from %d file(s) into %s: %,d transitions, "
-                    + "%,d steps, %.1f s", quotes, totals.accepted(), files.size(), label, totals.transitions(), totals.steps(),
-                    (System.nanoTime() - started) / 1e9));
+                    + "%,d steps, %,d curve checkpoint(s), %.1f s", quotes, totals.accepted(), files.size(), label, totals.transitions(),
+                    totals.steps(), checkpoints, (System.nanoTime() - started) / 1e9));
             out.flush();
             return 0;
         } catch (JournalException e) {

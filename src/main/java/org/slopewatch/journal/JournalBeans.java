@@ -73,6 +73,12 @@ public class JournalBeans {
 
     @Produces
     @Singleton
+    CurveCheckpoints curveCheckpoints(AgroalDataSource ds, Clock clock) {
+        return new CurveCheckpoints(ds, clock);
+    }
+
+    @Produces
+    @Singleton
     AlertHistory alertHistory(AgroalDataSource ds) {
         return new AlertHistory(ds);
     }

@@ -136,6 +136,74 @@ public final class JournalReader {
     }
 
     /**
+     * As {@link #replayQuotes(Consumer)}, only the quotes numbered above {@code afterSeq}: the tail
+     * after the oldest checkpoint.
+     */
+    public void replayQuotesAfter(long afterSeq, Consumer<JournalEntries.AcceptedQuote> sink) {
+        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(
+                "SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote WHERE seq > ? ORDER BY seq, id")) {
+            s.setLong(1, afterSeq);
+            s.setFetchSize(5_000);
+            try (ResultSet rs = s.executeQuery()) {
+                while (rs.next()) {
+                    Timestamp sent = rs.getTimestamp(5);
+                    sink.accept(new JournalEntries.AcceptedQuote(rs.getLong(1), rs.getString(3), rs.getString(2), rs.getString(4),
+                            sent == null ? null : sent.toInstant(), rs.getString(6), rs.getDate(7).toLocalDate(),
+                            YieldsText.read(rs.getString(8))));
+                }
+            }
+        } catch (SQLException e) {
+            throw new JournalException("cannot read the journal's quotes for recovery", e);
+        }
+    }
+
+    /**
+     * A spread's standing value on each date up to and including {@code through}, oldest first, as
+     * the observations numbered below {@code beforeSeq} left it (the highest number of a date wins):
+     * what a monitor that let go of those dates re-runs a revision on.
+     */
+    public List<HistoryPoint> standingObservations(String spreadId, LocalDate through, long beforeSeq) {
+        List<HistoryPoint> out = new ArrayList<>();
+        sql.query("SELECT market_date, value_bp, seq FROM observation WHERE spread_id = ? AND market_date <= ? AND seq < ? "
+                + "ORDER BY market_date, seq, id", s -> {
+                    s.setString(1, spreadId);
+                    s.setDate(2, Date.valueOf(through));
+                    s.setLong(3, beforeSeq);
+                }, rs -> {
+                    HistoryPoint p = new HistoryPoint(rs.getDate(1).toLocalDate(), rs.getDouble(2), rs.getLong(3));
+                    if (!out.isEmpty() && out.get(out.size() - 1).date().equals(p.date())) {
+                        out.set(out.size() - 1, p);
+                    } else {
+                        out.add(p);
+                    }
+                }, "observations");
+        return out;
+    }
+
+    /**
+     * The quotes of a curve on its latest market date on or before {@code date} among those
+     * numbered below {@code beforeSeq}, in the order they were processed; empty when there are none.
+     */
+    public List<JournalEntries.AcceptedQuote> quotesOnOrBefore(String curve, LocalDate date, long beforeSeq) {
+        List<JournalEntries.AcceptedQuote> out = new ArrayList<>();
+        sql.query("SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote WHERE curve = ? AND seq < ? "
+                + "AND market_date = (SELECT MAX(market_date) FROM quote WHERE curve = ? AND market_date <= ? AND seq < ?) ORDER BY seq, id",
+                s -> {
+                    s.setString(1, curve);
+                    s.setLong(2, beforeSeq);
+                    s.setString(3, curve);
+                    s.setDate(4, Date.valueOf(date));
+                    s.setLong(5, beforeSeq);
+                }, rs -> {
+                    Timestamp sent = rs.getTimestamp(5);
+                    out.add(new JournalEntries.AcceptedQuote(rs.getLong(1), rs.getString(3), rs.getString(2), rs.getString(4),
+                            sent == null ? null : sent.toInstant(), rs.getString(6), rs.getDate(7).toLocalDate(),
+                            YieldsText.read(rs.getString(8))));
+                }, "quotes");
+        return out;
+    }
+
+    /**
      * The message ids among {@code ids} that the journal holds as seen (taken with their quote, by
      * this instance or another sharing the journal): the pipeline's exact answer on duplicates for
      * whatever its bounded memory of recent ids has let go. One query per few hundred ids, each an

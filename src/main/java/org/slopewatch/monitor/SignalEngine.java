@@ -1,8 +1,13 @@
 package org.slopewatch.monitor;
 
+import java.io.DataInput;
+import java.io.DataOutput;
+import java.io.IOException;
 import java.util.ArrayList;
 import java.util.Collections;
+import java.util.Comparator;
 import java.util.HashMap;
+import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Map;
 import org.slopewatch.curve.CurveSnapshot;
@@ -21,8 +26,20 @@ public final class SignalEngine {
     private final List<InversionMonitor> monitors;
     private final Map<String, SpreadTrack[]> tracksByCurve = new HashMap<>();
     private final List<SpreadTrack> tracks = new ArrayList<>();
+    /**
+     * When each track was first seen: the input's sequence number and the watch's place, so that the
+     * order is the journal's whether a track was rebuilt from quotes or read from a checkpoint.
+     */
+    private final Map<SpreadTrack, Long> firstSeen = new IdentityHashMap<>();
+    private final EarlierObservations earlier;
 
     public SignalEngine(List<Watch> watches) {
+        this(watches, EarlierObservations.NONE);
+    }
+
+    /** @param earlier where tracks read the observations they let go of ({@link #letGoBefore}) */
+    public SignalEngine(List<Watch> watches, EarlierObservations earlier) {
+        this.earlier = earlier;
         if (watches.isEmpty()) {
             throw new IllegalArgumentException("nothing to watch: configure at least one spread");
         }
@@ -70,9 +87,10 @@ public final class SignalEngine {
             }
             SpreadTrack track = curveTracks[i];
             if (track == null) {
-                track = new SpreadTrack(monitors.get(i), new SpreadKey(snapshot.curve(), w.spread().name()));
+                track = new SpreadTrack(monitors.get(i), new SpreadKey(snapshot.curve(), w.spread().name()), earlier);
                 curveTracks[i] = track;
                 tracks.add(track);
+                firstSeen.put(track, sequence * watches.size() + i);
             }
             Observation observation = new Observation(snapshot.date(), value, sequence);
             listener.observed(track.spread(), observation);
@@ -99,6 +117,79 @@ public final class SignalEngine {
             }
         }
         return null;
+    }
+
+    /** Lets each track of a curve go of the observations before a window of calendar days ({@link SpreadTrack#letGoBefore}). */
+    public void letGoBefore(String curve, int windowDays) {
+        SpreadTrack[] curveTracks = tracksByCurve.get(curve);
+        if (curveTracks != null) {
+            for (SpreadTrack t : curveTracks) {
+                if (t != null) {
+                    t.letGoBefore(windowDays);
+                }
+            }
+        }
+    }
+
+    /** Writes the tracks of one curve (a checkpoint); {@link #readCurve} puts them back into an engine of the same watches. */
+    public void writeCurve(String curve, DataOutput out) throws IOException {
+        SpreadTrack[] curveTracks = tracksByCurve.getOrDefault(curve, new SpreadTrack[watches.size()]);
+        out.writeInt(curveTracks.length);
+        for (SpreadTrack t : curveTracks) {
+            out.writeBoolean(t != null);
+            if (t != null) {
+                out.writeUTF(t.spread().spread());
+                out.writeLong(firstSeen.get(t));
+                t.write(out);
+            }
+        }
+    }
+
+    /**
+     * Reads one curve's tracks written by {@link #writeCurve} under the same watches, replacing any
+     * held. Nothing is changed when the bytes do not fit these watches. Call {@link #orderByFirstSeen}
+     * after the last curve.
+     *
+     * @throws IOException when they do not (damaged, or written under other watches)
+     */
+    public void readCurve(String curve, DataInput in) throws IOException {
+        int n = in.readInt();
+        if (n != watches.size()) {
+            throw new IOException("tracks of " + curve + " written for " + n + " watches, " + watches.size() + " in force");
+        }
+        SpreadTrack[] read = new SpreadTrack[n];
+        long[] order = new long[n];
+        for (int i = 0; i < n; i++) {
+            if (!in.readBoolean()) {
+                continue;
+            }
+            String name = in.readUTF();
+            if (!name.equals(watches.get(i).spread().name()) || !watches.get(i).appliesTo(curve)) {
+                throw new IOException("track " + curve + ":" + name + " does not match the watch in force");
+            }
+            order[i] = in.readLong();
+            read[i] = SpreadTrack.read(monitors.get(i), new SpreadKey(curve, name), earlier, in);
+        }
+        SpreadTrack[] held = tracksByCurve.put(curve, read);
+        if (held != null) {
+            for (SpreadTrack t : held) {
+                if (t != null) {
+                    tracks.remove(t);
+                    firstSeen.remove(t);
+                }
+            }
+        }
+        for (int i = 0; i < n; i++) {
+            if (read[i] != null) {
+                tracks.add(read[i]);
+                firstSeen.put(read[i], order[i]);
+            }
+        }
+    }
+
+    /** After {@link #readCurve} calls: puts the tracks back in the order their spreads were first seen. */
+    public void orderByFirstSeen() {
+        tracks.sort(Comparator.comparingLong(firstSeen::get));
     }
 
     /** Tracks in the order their spreads were first seen. */

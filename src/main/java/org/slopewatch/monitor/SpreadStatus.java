@@ -23,6 +23,6 @@ public record SpreadStatus(String id, String curve, String spread, LocalDate dat
         MonitorState s = track.state();
         return new SpreadStatus(track.spread().id(), track.spread().curve(), track.spread().spread(), s.lastDate(), s.lastValueBp(),
                 s.state(), s.stateSince(), s.openSpell(), s.daysInverted(), s.invertedSince(), s.endedSpell(), s.quarterToDateAverageBp(),
-                s.quarterToDateObservations(), track.size(), MonthAverages.of(track));
+                s.quarterToDateObservations(), track.observations(), MonthAverages.of(track));
     }
 }

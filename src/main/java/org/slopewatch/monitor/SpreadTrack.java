@@ -14,11 +14,21 @@ import org.slopewatch.spread.SpreadKey;
  * observed instead. A value for an earlier date is a revision: the whole history is re-run and,
  * if the transitions from that date on come out differently, a {@link Revision} says so. Nothing
  * changes silently.
+ *
+ * <p>Memory can be bounded ({@link #letGoBefore(int)}): observations older than a window of
+ * calendar days are folded into a base state (the state after all of them), so a revision inside
+ * the window re-runs from the base, and one dated before it reads the spread's earlier values from
+ * {@link EarlierObservations} and re-runs the whole history (slower, as correct). Transitions and
+ * spells are kept whole: a few per spell, not per observation.
  */
 public final class SpreadTrack {
 
     private final InversionMonitor monitor;
     private final SpreadKey spread;
+    private final EarlierObservations earlier;
+    /** The state after every observation let go of (all dated on or before its last day); fresh when none was. */
+    private MonitorState base;
+    private long baseCount;
     private MonitorState state;
     private MonitorState checkpoint;
     private int[] days = new int[64];
@@ -29,8 +39,15 @@ public final class SpreadTrack {
     private final List<Spell> spells = new ArrayList<>();
 
     public SpreadTrack(InversionMonitor monitor, SpreadKey spread) {
+        this(monitor, spread, EarlierObservations.NONE);
+    }
+
+    /** @param earlier where the observations let go of are read back from for a revision dated before the window */
+    public SpreadTrack(InversionMonitor monitor, SpreadKey spread, EarlierObservations earlier) {
         this.monitor = monitor;
         this.spread = spread;
+        this.earlier = earlier;
+        this.base = monitor.newState(spread);
         this.state = monitor.newState(spread);
         this.checkpoint = monitor.newState(spread);
     }
@@ -59,9 +76,14 @@ public final class SpreadTrack {
         return List.copyOf(spells);
     }
 
-    /** Observations held, oldest first. */
+    /** Observations held in memory, oldest first: the window (every observation when none was let go of). */
     public int size() {
         return size;
+    }
+
+    /** Dates observed in all, held or let go of. */
+    public long observations() {
+        return baseCount + size;
     }
 
     public LocalDate date(int index) {
@@ -87,6 +109,9 @@ public final class SpreadTrack {
         if (at == size - 1) {
             return replaceLatest(o);
         }
+        if (base.lastDay != MonitorState.NONE && day <= base.lastDay) {
+            return reviseFromEarlier(o);
+        }
         return revise(o, at);
     }
 
@@ -109,18 +134,127 @@ public final class SpreadTrack {
         } else {
             insert(-at - 1, day, o.valueBp(), o.sequence());
         }
+        return rerunFromBase(o);
+    }
+
+    /**
+     * A revision dated on or before the base's last day: the values let go of are read back, the
+     * revised one put among them, and everything is held again and re-run from a fresh state (the
+     * next {@link #letGoBefore(int)} bounds memory again).
+     */
+    private List<MonitorEvent> reviseFromEarlier(Observation o) {
+        List<Observation> older = earlier.through(spread, LocalDate.ofEpochDay(base.lastDay), o.sequence());
+        int day = (int) o.date().toEpochDay();
+        int n = older.size();
+        int[] d = new int[n + size + 1];
+        double[] v = new double[n + size + 1];
+        long[] q = new long[n + size + 1];
+        int k = 0;
+        boolean placed = false;
+        for (Observation e : older) {
+            int eDay = (int) e.date().toEpochDay();
+            if (!placed && eDay >= day) {
+                if (eDay == day && e.valueBp() == o.valueBp()) {
+                    return List.of(); // the same value again changes nothing
+                }
+                d[k] = day;
+                v[k] = o.valueBp();
+                q[k++] = o.sequence();
+                placed = true;
+                if (eDay == day) {
+                    continue;
+                }
+            }
+            d[k] = eDay;
+            v[k] = e.valueBp();
+            q[k++] = e.sequence();
+        }
+        if (!placed) {
+            d[k] = day;
+            v[k] = o.valueBp();
+            q[k++] = o.sequence();
+        }
+        System.arraycopy(days, 0, d, k, size);
+        System.arraycopy(values, 0, v, k, size);
+        System.arraycopy(sequences, 0, q, k, size);
+        days = d;
+        values = v;
+        sequences = q;
+        size = k + size;
+        base = monitor.newState(spread);
+        baseCount = 0;
+        return rerunFromBase(o);
+    }
+
+    /** Re-runs the held observations from the base: transitions and spells after the base's last day are worked out again. */
+    private List<MonitorEvent> rerunFromBase(Observation o) {
         List<Transition> before = transitionsFrom(o.date());
-        transitions.clear();
-        spells.clear();
-        state = monitor.newState(spread);
+        int baseDay = base.lastDay;
+        transitions.removeIf(t -> t.date().toEpochDay() > baseDay);
+        spells.removeIf(s -> s.end().toEpochDay() > baseDay);
+        state = base.copy();
         for (int i = 0; i < size; i++) {
             if (i == size - 1) {
                 checkpoint.copyFrom(state);
             }
-            Observation replayed = new Observation(LocalDate.ofEpochDay(days[i]), values[i], sequences[i]);
-            keep(monitor.observe(state, replayed));
+            keep(monitor.observe(state, observation(i)));
         }
         return withRevision(List.of(), o, before);
+    }
+
+    private Observation observation(int index) {
+        return new Observation(LocalDate.ofEpochDay(days[index]), values[index], sequences[index]);
+    }
+
+    /**
+     * Lets go of the observations dated {@code windowDays} or more calendar days before the latest
+     * (the latest is always held), folding them into the base state. Works in runs of at least
+     * {@link #LET_GO_RUN} observations, so a call per step costs nothing most of the time; memory
+     * holds at most the window and one run.
+     */
+    public void letGoBefore(int windowDays) {
+        if (size <= LET_GO_RUN) {
+            return;
+        }
+        int cutoff = days[size - 1] - windowDays; // dates at or before it are outside the window
+        if (days[LET_GO_RUN - 1] > cutoff) {
+            return;
+        }
+        int n = LET_GO_RUN;
+        while (n < size - 1 && days[n] <= cutoff) {
+            n++;
+        }
+        for (int i = 0; i < n; i++) {
+            // what these observations caused was kept when they first came: the base only needs their effect on the state
+            monitor.observe(base, observation(i));
+        }
+        baseCount += n;
+        size -= n;
+        int capacity = days.length > 4 * Math.max(size, 64) ? Math.max(64, 2 * size) : days.length;
+        days = shift(days, n, capacity);
+        values = shift(values, n, capacity);
+        sequences = shift(sequences, n, capacity);
+    }
+
+    /** Observations let go of in one run at least: small enough to keep memory near the window, large enough to amortise the shift. */
+    static final int LET_GO_RUN = 64;
+
+    private int[] shift(int[] a, int from, int capacity) {
+        int[] to = capacity == a.length ? a : new int[capacity];
+        System.arraycopy(a, from, to, 0, size);
+        return to;
+    }
+
+    private double[] shift(double[] a, int from, int capacity) {
+        double[] to = capacity == a.length ? a : new double[capacity];
+        System.arraycopy(a, from, to, 0, size);
+        return to;
+    }
+
+    private long[] shift(long[] a, int from, int capacity) {
+        long[] to = capacity == a.length ? a : new long[capacity];
+        System.arraycopy(a, from, to, 0, size);
+        return to;
     }
 
     /**
@@ -179,6 +313,52 @@ public final class SpreadTrack {
             }
         }
         return events;
+    }
+
+    /** Writes everything this track holds (checkpoints); {@link #read} gives an equal track back. */
+    public void write(java.io.DataOutput out) throws java.io.IOException {
+        TrackCodec.writeState(base, out);
+        out.writeLong(baseCount);
+        TrackCodec.writeState(state, out);
+        TrackCodec.writeState(checkpoint, out);
+        out.writeInt(size);
+        for (int i = 0; i < size; i++) {
+            out.writeInt(days[i]);
+            out.writeDouble(values[i]);
+            out.writeLong(sequences[i]);
+        }
+        TrackCodec.writeTransitions(transitions, out);
+        TrackCodec.writeSpells(spells, out);
+    }
+
+    /**
+     * A track as {@link #write} wrote it, under the given rules.
+     *
+     * @throws java.io.IOException when the bytes are not such a track for these rules (damaged, or another layout)
+     */
+    public static SpreadTrack read(InversionMonitor monitor, SpreadKey spread, EarlierObservations earlier, java.io.DataInput in)
+            throws java.io.IOException {
+        SpreadTrack t = new SpreadTrack(monitor, spread, earlier);
+        TrackCodec.readState(t.base, in);
+        t.baseCount = in.readLong();
+        TrackCodec.readState(t.state, in);
+        TrackCodec.readState(t.checkpoint, in);
+        int n = TrackCodec.count(in);
+        t.days = new int[Math.max(64, n)];
+        t.values = new double[Math.max(64, n)];
+        t.sequences = new long[Math.max(64, n)];
+        for (int i = 0; i < n; i++) {
+            t.days[i] = in.readInt();
+            t.values[i] = in.readDouble();
+            t.sequences[i] = in.readLong();
+            if (i > 0 && t.days[i] <= t.days[i - 1]) {
+                throw new java.io.IOException("observations of " + spread + " out of date order");
+            }
+        }
+        t.size = n;
+        TrackCodec.readTransitions(spread, in, t.transitions);
+        TrackCodec.readSpells(spread, in, t.spells);
+        return t;
     }
 
     private void append(int day, double value, long sequence) {

@@ -110,6 +110,44 @@ final class TrailingWindow {
         invertedCount = other.invertedCount;
     }
 
+    /** Writes the window's observations, oldest first (checkpoints). */
+    void writeTo(java.io.DataOutput out) throws java.io.IOException {
+        out.writeInt(windowDays);
+        out.writeInt(size);
+        for (int i = 0; i < size; i++) {
+            int at = (head + i) % days.length;
+            out.writeInt(days[at]);
+            out.writeLong(values[at]);
+            out.writeBoolean(inverted[at]);
+        }
+    }
+
+    /** Reads what {@link #writeTo} wrote into this (empty or not) window of the same length. */
+    void readFrom(java.io.DataInput in) throws java.io.IOException {
+        int w = in.readInt();
+        if (w != windowDays) {
+            throw new java.io.IOException("a " + w + "-day window read into a " + windowDays + "-day one");
+        }
+        int n = TrackCodec.count(in);
+        int capacity = Math.max(16, Integer.highestOneBit(Math.max(1, n)) * 2);
+        days = new int[capacity];
+        values = new long[capacity];
+        inverted = new boolean[capacity];
+        head = 0;
+        size = n;
+        sum = 0;
+        invertedCount = 0;
+        for (int i = 0; i < n; i++) {
+            days[i] = in.readInt();
+            values[i] = in.readLong();
+            inverted[i] = in.readBoolean();
+            sum += values[i];
+            if (inverted[i]) {
+                invertedCount++;
+            }
+        }
+    }
+
     @Override
     public String toString() {
         return "TrailingWindow[" + windowDays + "d, size=" + size + ", days=" + Arrays.toString(Arrays.copyOf(days, Math.min(size, 4))) + "…]";

@@ -38,8 +38,22 @@ public interface IngestConfig {
      * The most message ids kept in memory for de-duplication, the most recently used; an id older
      * than those is looked up in the journal, so de-duplication stays exact while memory stays bounded.
      */
-    @WithDefault("100000")
+    @WithDefault(QuotePipeline.Memory.DEFAULT_SEEN_IDS)
     int seenIdsCache();
+
+    /**
+     * Calendar days of each curve's snapshots and each spread's values held in memory for revisions;
+     * a revision dated before them is re-run from the journal. Bounds memory whatever the history's length.
+     */
+    @WithDefault(QuotePipeline.Memory.DEFAULT_DAYS)
+    int memoryDays();
+
+    /**
+     * How often the state of the curves that changed is checkpointed in the journal (also at shutdown),
+     * so that a start replays only the quotes after it; 0 writes none.
+     */
+    @WithDefault("5m")
+    java.time.Duration checkpointEvery();
 
     /**
      * The series map of SDMX-CSV bodies ({@code KEY,CURVE,TENOR} lines); without it an SDMX-CSV body is refused.

@@ -9,6 +9,7 @@ import java.time.Clock;
 import org.jboss.logging.Logger;
 import org.slopewatch.alerting.AlertStage;
 import org.slopewatch.alerting.PolicyHolder;
+import org.slopewatch.journal.CurveCheckpoints;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
 import org.slopewatch.rules.Policy;
@@ -37,10 +38,11 @@ public class PipelineBeans {
     @Singleton
     @Startup
     QuotePipeline quotePipeline(IngestConfig config, PolicyHolder policies, JournalWriter writer, JournalReader reader,
-                                PipelineListener listener, AlertStage alerts, Clock clock) {
+                                CurveCheckpoints checkpoints, PipelineListener listener, AlertStage alerts, Clock clock) {
         Policy policy = policies.policy();
-        QuotePipeline pipeline = new QuotePipeline(policy.watches(), writer, reader, listener, alerts, clock,
-                config.seenIdsCache());
+        QuotePipeline.Memory memory = new QuotePipeline.Memory(config.seenIdsCache(), config.memoryDays(),
+                config.checkpointEvery().isZero() ? null : checkpoints);
+        QuotePipeline pipeline = new QuotePipeline(policy.watches(), writer, reader, listener, alerts, clock, memory);
         long started = System.nanoTime();
         long replayed = pipeline.recover();
         // the duration tells an operator what a restart costs as the journal grows

@@ -18,6 +18,7 @@ import org.jboss.logging.MDC;
 import org.slopewatch.alerting.AlertStage;
 import org.slopewatch.curve.CurveBook;
 import org.slopewatch.curve.CurveSnapshot;
+import org.slopewatch.journal.CurveCheckpoints;
 import org.slopewatch.journal.JournalEntries;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
@@ -55,6 +56,10 @@ public final class QuotePipeline {
     private SignalEngine engine;
     private CurveBook book;
     private final SeenIds seenIds;
+    private final Memory memory;
+    private CurveImages images;
+    /** Curves whose state changed since their last checkpoint. */
+    private final Set<String> unsaved = new HashSet<>();
     private long sequence;
     private boolean recovered;
     // concurrent: the metrics read one curve's entry at scrape time without waiting for a step's lock
@@ -75,7 +80,46 @@ public final class QuotePipeline {
      */
     public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, AlertStage alerts,
                          Clock clock, int seenIdsCache) {
-        this.seenIds = new SeenIds(seenIdsCache, reader::seenAmong);
+        this(watches, writer, reader, listener, alerts, clock, new Memory(seenIdsCache, Memory.WHOLE_HISTORY, null));
+    }
+
+    /**
+     * How much the pipeline holds in memory, and where it keeps checkpoints.
+     *
+     * @param seenIdsCache the most message ids kept for de-duplication ({@code slopewatch.ingest.seen-ids-cache})
+     * @param days         calendar days of snapshots and spread values held for revisions, older ones read from
+     *                     the journal ({@code slopewatch.ingest.memory-days}); {@link #WHOLE_HISTORY} holds everything
+     * @param checkpoints  where curve checkpoints are written and read, or null for none
+     */
+    public record Memory(int seenIdsCache, int days, CurveCheckpoints checkpoints) {
+
+        public static final int WHOLE_HISTORY = Integer.MAX_VALUE;
+
+        /** The daemon's default of message ids held ({@code slopewatch.ingest.seen-ids-cache}). */
+        public static final String DEFAULT_SEEN_IDS = "100000";
+
+        /** The daemon's default days held: a year and a month, so that the revisions of a year-end restatement stay in memory. */
+        public static final String DEFAULT_DAYS = "400";
+
+        /** Fewest days: two calendar months, what the probability's month averages read off a track. */
+        public static final int MIN_DAYS = 62;
+
+        /** The daemon's defaults, with checkpoints kept in {@code checkpoints}. */
+        public static Memory defaults(CurveCheckpoints checkpoints) {
+            return new Memory(Integer.parseInt(DEFAULT_SEEN_IDS), Integer.parseInt(DEFAULT_DAYS), checkpoints);
+        }
+
+        public Memory {
+            if (days < MIN_DAYS) {
+                throw new IllegalArgumentException("memory days must be at least " + MIN_DAYS + " (two calendar months), got " + days);
+            }
+        }
+    }
+
+    public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, AlertStage alerts,
+                         Clock clock, Memory memory) {
+        this.memory = memory;
+        this.seenIds = new SeenIds(memory.seenIdsCache(), reader::seenAmong);
         this.watches = List.copyOf(watches);
         this.writer = writer;
         this.reader = reader;
@@ -86,16 +130,21 @@ public final class QuotePipeline {
     }
 
     private void reset() {
-        engine = new SignalEngine(watches);
-        book = new CurveBook();
+        JournalEarlier earlier = new JournalEarlier(reader, memory.days());
+        engine = new SignalEngine(watches, earlier);
+        book = new CurveBook(earlier);
+        images = new CurveImages(watches);
         seenIds.clear();
+        unsaved.clear();
         sequence = 0;
     }
 
     /**
-     * Rebuilds curves and monitors by replaying the journal's quotes in recorded order, so that a
-     * restart continues exactly where an uninterrupted run would be. The seen message ids are not
-     * loaded: the journal answers for them when a step asks ({@link SeenIds}).
+     * Rebuilds curves and monitors from the journal, so that a restart continues exactly where an
+     * uninterrupted run would be: each curve from its checkpoint, if it has one written under the
+     * watches in force, and the quotes recorded after it; a curve without one (or with one that
+     * cannot be read) from all its quotes, in recorded order. The seen message ids are not loaded:
+     * the journal answers for them when a step asks ({@link SeenIds}).
      *
      * @return the number of quote messages replayed
      */
@@ -103,21 +152,91 @@ public final class QuotePipeline {
         // until the replay has finished, memory is not what the journal says: nothing may be decided on it
         recovered = false;
         reset();
+        Map<String, Long> restored = restoreCheckpoints();
+        Map<String, Instant> recorded = reader.lastQuoteRecorded();
+        // the tail after the oldest checkpoint is enough only when every curve has one
+        long after = !restored.isEmpty() && restored.keySet().containsAll(recorded.keySet())
+                ? restored.values().stream().mapToLong(Long::longValue).min().orElseThrow() : Long.MIN_VALUE;
         long[] count = {0};
-        reader.replayQuotes(q -> {
+        reader.replayQuotesAfter(after, q -> {
+            Long included = restored.get(q.curve());
+            if (included != null && q.seq() <= included) {
+                return;
+            }
             count[0]++;
             sequence = Math.max(sequence, q.seq());
-            engine.onSnapshot(book.apply(q.curve(), q.date(), q.yieldsBp()), q.seq());
+            engine.onSnapshot(book.apply(q.curve(), q.date(), q.yieldsBp(), q.seq()), q.seq());
+            unsaved.add(q.curve());
+            letGo(q.curve());
         });
+        engine.orderByFirstSeen();
+        if (memory.checkpoints() != null) {
+            LOG.infof("rebuilt %d curve(s) from checkpoints and %d journalled quote message(s) after them or without one", restored.size(),
+                    count[0]);
+        }
         listener.watching(engine.tracks().stream().map(t -> t.spread().id()).collect(java.util.stream.Collectors.toUnmodifiableSet()));
         for (SpreadTrack t : engine.tracks()) {
             listener.spreadChanged(SpreadStatus.of(t));
         }
         lastReceived.clear();
-        lastReceived.putAll(reader.lastQuoteRecorded());
+        lastReceived.putAll(recorded);
         alerts.rebuild();
         recovered = true;
         return count[0];
+    }
+
+    /** Reads every usable checkpoint into memory; curve → the sequence number its checkpoint includes quotes up to. */
+    private Map<String, Long> restoreCheckpoints() {
+        Map<String, Long> restored = new HashMap<>();
+        if (memory.checkpoints() == null) {
+            return restored;
+        }
+        for (CurveCheckpoints.Stored stored : memory.checkpoints().all()) {
+            try {
+                images.read(stored, book, engine);
+                restored.put(stored.curve(), stored.seq());
+                sequence = Math.max(sequence, stored.seq());
+            } catch (java.io.IOException e) {
+                LOG.warnf("checkpoint of curve %s not used (%s): the curve is rebuilt from all its journalled quotes", stored.curve(),
+                        e.getMessage());
+            }
+        }
+        return restored;
+    }
+
+    /** Bounds what a curve holds in memory to the configured days (nothing when the whole history is kept). */
+    private void letGo(String curve) {
+        if (memory.days() != Memory.WHOLE_HISTORY) {
+            book.letGoBefore(curve, memory.days());
+            engine.letGoBefore(curve, memory.days());
+        }
+    }
+
+    /**
+     * Writes the checkpoints of the curves that changed since theirs, among those this instance
+     * owns (another instance's curves are checkpointed by their owner, whose numbering they follow).
+     * A failure is logged and the curves stay due: a checkpoint is a cache, never a reason to stop.
+     *
+     * @return the number of curves written
+     */
+    public synchronized int checkpoint(CurveOwnership owned) {
+        if (memory.checkpoints() == null || !recovered || unsaved.isEmpty()) {
+            return 0;
+        }
+        List<CurveCheckpoints.Stored> due = new ArrayList<>();
+        for (String curve : unsaved) {
+            if (owned.owns(curve)) {
+                due.add(images.image(curve, sequence, book, engine));
+            }
+        }
+        try {
+            memory.checkpoints().write(due);
+        } catch (RuntimeException e) {
+            LOG.warnf("checkpoint of %d curve(s) not written (%s); a start replays more quotes until one is", due.size(), e.getMessage());
+            return 0;
+        }
+        due.forEach(d -> unsaved.remove(d.curve()));
+        return due.size();
     }
 
     /**
@@ -196,6 +315,7 @@ public final class QuotePipeline {
         List<SpreadStatus> changed = new ArrayList<>();
         // ids this step takes: a second copy within the step is a duplicate though the journal has not got the first yet
         Set<String> takenNow = new HashSet<>();
+        Set<String> curvesMoved = new HashSet<>();
         long beforeWrite;
         long written;
         // the whole step or nothing: a failure anywhere before the commit (deciding as well as
@@ -218,11 +338,12 @@ public final class QuotePipeline {
                     }
                     long seq = ++sequence;
                     accepted++;
+                    curvesMoved.add(m.curve());
                     acceptedByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
                     lastReceived.put(m.curve(), Instant.now(clock));
                     journal.quote(new JournalEntries.AcceptedQuote(seq, batch.origin(), m.id(), m.source(), m.time(), m.curve(),
                             m.date(), m.yieldsBp()));
-                    CurveSnapshot snapshot = book.apply(m.curve(), m.date(), m.yieldsBp());
+                    CurveSnapshot snapshot = book.apply(m.curve(), m.date(), m.yieldsBp(), seq);
                     stepSpreads.clear();
                     List<MonitorEvent> events = engine.onSnapshot(snapshot, seq, (key, observation) -> {
                         journal.observation(key, observation);
@@ -255,6 +376,11 @@ public final class QuotePipeline {
             throw e;
         }
         seenIds.remember(takenNow);
+        // only now, with the step on disk: a date let go of is read back from the journal, which did not hold this step before
+        for (String curve : curvesMoved) {
+            unsaved.add(curve);
+            letGo(curve);
+        }
         acceptedByOrigin.forEach((origin, n) -> listener.accepted(origin, n[0]));
         duplicatesByOrigin.forEach((origin, n) -> listener.duplicates(origin, n[0]));
         for (QuoteBatch batch : batches) {
@@ -280,6 +406,15 @@ public final class QuotePipeline {
             }
         }
         return ids;
+    }
+
+    /** The most snapshots of one curve, or values of one spread, held in memory now. */
+    synchronized int mostHeld() {
+        int most = 0;
+        for (SpreadTrack t : engine.tracks()) {
+            most = Math.max(most, Math.max(t.size(), book.held(t.spread().curve())));
+        }
+        return most;
     }
 
     /** Message ids held in memory for de-duplication now (never more than the configured cache). */

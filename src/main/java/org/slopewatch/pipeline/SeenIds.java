@@ -22,7 +22,7 @@ import java.util.function.Function;
 final class SeenIds {
 
     /** Ids kept in memory unless configured otherwise (the default of {@link IngestConfig#seenIdsCache()}). */
-    static final int DEFAULT_CAPACITY = 100_000;
+    static final int DEFAULT_CAPACITY = Integer.parseInt(QuotePipeline.Memory.DEFAULT_SEEN_IDS);
 
     private final int capacity;
     private final Function<Collection<String>, Set<String>> journal;

@@ -35,6 +35,9 @@ public final class ScaleJournalBuilder {
         TRANSITIONS.setLevel(java.util.logging.Level.WARNING);
     }
 
+    /** Whether the journal gets checkpoints at the end ({@code -Dscale.checkpoints=false}: a journal as written before they existed). */
+    private static final boolean CHECKPOINTS = Boolean.parseBoolean(System.getProperty("scale.checkpoints", "true"));
+
     public static void main(String[] args) throws Exception {
         Path dir = Path.of(args[0]).toAbsolutePath();
         int curves = Integer.parseInt(args[1]);
@@ -47,8 +50,11 @@ public final class ScaleJournalBuilder {
         long messages = 0;
         List<LocalDate> days = curves == 0 ? List.of() : ScaleScenario.businessDays(years);
         try (AgroalDataSource ds = JournalDatabase.open(url, null, null, 4)) {
+            // as the daemon runs by default: 400 days held in memory, checkpoints written at the end (as at its shutdown)
             QuotePipeline pipeline = new QuotePipeline(ScaleScenario.watches(), new JournalWriter(ds, Clock.systemUTC()),
-                    new JournalReader(ds), PipelineListener.NONE, Clock.systemUTC());
+                    new JournalReader(ds), PipelineListener.NONE, org.slopewatch.alerting.AlertStage.NONE, Clock.systemUTC(),
+                    QuotePipeline.Memory.defaults(new org.slopewatch.journal.CurveCheckpoints(ds, Clock.systemUTC())));
+            pipeline.recover();
             ScaleScenario.CurveWalk[] walks = ScaleScenario.walks(curves);
             List<QuoteMessage> step = new ArrayList<>(perStep);
             for (LocalDate day : days) {
@@ -60,6 +66,9 @@ public final class ScaleJournalBuilder {
                 }
             }
             messages += process(pipeline, step);
+            if (CHECKPOINTS) {
+                pipeline.checkpoint(org.slopewatch.pipeline.CurveOwnership.ALL);
+            }
         }
         double seconds = (System.nanoTime() - t0) / 1e9;
         long bytes;

@@ -20,6 +20,7 @@ import org.slopewatch.alerting.AlertStage;
 import org.slopewatch.curve.Tenor;
 import org.slopewatch.ingest.IngestRules;
 import org.slopewatch.ingest.QuoteDecoder;
+import org.slopewatch.journal.CurveCheckpoints;
 import org.slopewatch.journal.JournalEntries;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
@@ -175,6 +176,139 @@ abstract class QuotePipelineRestartChecks {
         assertThat(actual.quotes()).isEqualTo(expected.quotes());
         assertThat(pipeline(backfilled).spreads()).as("states a daemon recovers from the backfilled journal")
                 .isEqualTo(daemon.spreads());
+    }
+
+    /** A pipeline holding {@code days} of history in memory and keeping checkpoints in the journal, rebuilt from it. */
+    private QuotePipeline checkpointed(AgroalDataSource ds, List<Watch> watches, int days) {
+        QuotePipeline p = new QuotePipeline(watches, new JournalWriter(ds, clock), new JournalReader(ds), PipelineListener.NONE,
+                AlertStage.NONE, clock, new QuotePipeline.Memory(1_000, days, new CurveCheckpoints(ds, clock)));
+        p.recover();
+        return p;
+    }
+
+    /**
+     * The scenario with revisions of dates far back (up to ten months): with two months held in
+     * memory these are re-run from the journal, the rest from what memory holds.
+     */
+    static List<QuoteBatch> scenarioWithOldRevisions(long seed) {
+        List<QuoteBatch> batches = new ArrayList<>(scenario(seed));
+        Random random = new Random(seed * 31);
+        int n = 0;
+        for (int at = 120; at < batches.size(); at += 40 + random.nextInt(60)) {
+            QuoteMessage latest = batches.get(at - 1).messages().get(0);
+            LocalDate back = latest.date().minusDays(60 + random.nextInt(240));
+            double tenYear = random.nextBoolean() ? 100.0 : 420 + random.nextGaussian() * 5;
+            batches.add(at, new QuoteBatch("test", List.of(new QuoteMessage("old-" + seed + "-" + (n++), "test", null, latest.curve(), back,
+                    new java.util.TreeMap<>(Map.of(Tenor.years(10), tenYear)))), List.of()));
+        }
+        return batches;
+    }
+
+    /**
+     * A checkpoint is a cache: states after checkpoints and the quotes after them equal the states
+     * after a full replay of the journal, and the journal a run with checkpoints, restarts and
+     * bounded memory writes equals the journal of an uninterrupted run holding every value (the
+     * reference: the pipeline as it ran before either existed). Random histories with revisions old
+     * and new, checkpoints and restarts at random points.
+     */
+    @Test
+    void checkpointsAndTheQuotesAfterThemGiveWhatAFullReplayGives() {
+        for (long seed : new long[] {3, 8, 21}) {
+            List<QuoteBatch> batches = scenarioWithOldRevisions(seed);
+            AgroalDataSource straight = database("whole-" + seed);
+            QuotePipeline uninterrupted = pipeline(straight);
+            batches.forEach(b -> uninterrupted.process(List.of(b)));
+
+            AgroalDataSource ds = database("checkpointed-" + seed);
+            Random random = new Random(seed);
+            QuotePipeline p = checkpointed(ds, WATCHES, QuotePipeline.Memory.MIN_DAYS);
+            int restarts = 0;
+            for (int i = 0; i < batches.size(); i++) {
+                p.process(List.of(batches.get(i)));
+                if (random.nextInt(25) == 0) {
+                    p.checkpoint(CurveOwnership.ALL);
+                }
+                if (random.nextInt(60) == 0) {
+                    p = checkpointed(ds, WATCHES, QuotePipeline.Memory.MIN_DAYS);
+                    restarts++;
+                    assertThat(p.spreads()).as("seed %d: states from checkpoints and tail after batch %d", seed, i)
+                            .isEqualTo(pipeline(ds).spreads());
+                }
+                assertThat(p.mostHeld()).as("seed %d: values held in memory after batch %d", seed, i)
+                        .isLessThanOrEqualTo(QuotePipeline.Memory.MIN_DAYS + 64 + 3 * 64);
+            }
+            assertThat(restarts).as("seed %d: restarts", seed).isGreaterThan(3);
+            assertThat(p.spreads()).as("seed %d: states at the end", seed).isEqualTo(uninterrupted.spreads());
+            org.slopewatch.testsupport.JournalContents expected = org.slopewatch.testsupport.JournalContents.read(straight);
+            org.slopewatch.testsupport.JournalContents actual = org.slopewatch.testsupport.JournalContents.read(ds);
+            assertThat(actual.transitions()).as("seed %d: transitions, superseded ones included", seed).isEqualTo(expected.transitions());
+            assertThat(actual.spells()).as("seed %d: spells", seed).isEqualTo(expected.spells());
+            // the last column says whether a revision superseded the row: both values, so revisions were exercised
+            assertThat(actual.transitions().stream().map(t -> t.substring(t.lastIndexOf('|'))).distinct())
+                    .as("seed %d: superseded and standing transitions", seed).hasSize(2);
+        }
+    }
+
+    @Test
+    void aStartAfterACheckpointReplaysOnlyTheQuotesAfterIt() {
+        List<QuoteBatch> batches = scenario(5);
+        AgroalDataSource ds = database("tail");
+        QuotePipeline first = checkpointed(ds, WATCHES, 120);
+        batches.subList(0, 300).forEach(b -> first.process(List.of(b)));
+        assertThat(first.checkpoint(CurveOwnership.ALL)).as("curves checkpointed").isEqualTo(2);
+        assertThat(first.checkpoint(CurveOwnership.ALL)).as("nothing changed since").isZero();
+        batches.subList(300, 310).forEach(b -> first.process(List.of(b)));
+        long after = new JournalReader(ds).quoteCount();
+
+        QuotePipeline second = new QuotePipeline(WATCHES, new JournalWriter(ds, clock), new JournalReader(ds), PipelineListener.NONE,
+                AlertStage.NONE, clock, new QuotePipeline.Memory(1_000, 120, new CurveCheckpoints(ds, clock)));
+        long replayed = second.recover();
+
+        long tail = batches.subList(300, 310).stream().mapToLong(b -> b.messages().stream().map(QuoteMessage::id).distinct().count()).sum();
+        assertThat(replayed).as("quotes replayed of %d journalled", after).isEqualTo(tail);
+        assertThat(second.spreads()).isEqualTo(pipeline(ds).spreads());
+        assertThat(first.checkpoint(c -> false)).as("curves another instance owns are not checkpointed").isZero();
+    }
+
+    @Test
+    void aDamagedCheckpointOrOneOfAnotherLayoutOrPolicyIsPassedOver() throws Exception {
+        List<QuoteBatch> batches = scenario(9);
+        AgroalDataSource ds = database("damaged");
+        QuotePipeline first = checkpointed(ds, WATCHES, 90);
+        batches.forEach(b -> first.process(List.of(b)));
+        first.checkpoint(CurveOwnership.ALL);
+        List<org.slopewatch.monitor.SpreadStatus> expected = pipeline(ds).spreads();
+
+        try (java.sql.Connection c = ds.getConnection()) {
+            byte[] image;
+            try (java.sql.PreparedStatement s = c.prepareStatement("SELECT image FROM curve_checkpoint WHERE curve = 'GOVT-A'");
+                 java.sql.ResultSet rs = s.executeQuery()) {
+                rs.next();
+                image = rs.getBytes(1);
+            }
+            image[image.length / 2] ^= 0x10; // one bit flipped in the middle
+            try (java.sql.PreparedStatement s = c.prepareStatement("UPDATE curve_checkpoint SET image = ? WHERE curve = 'GOVT-A'")) {
+                s.setBytes(1, image);
+                s.executeUpdate();
+            }
+        }
+        QuotePipeline damaged = checkpointed(ds, WATCHES, 90);
+        assertThat(damaged.spreads()).as("states with GOVT-A's checkpoint damaged").isEqualTo(expected);
+
+        damaged.checkpoint(CurveOwnership.ALL); // GOVT-A, rebuilt from its quotes, is written again
+        try (java.sql.Connection c = ds.getConnection(); java.sql.Statement s = c.createStatement()) {
+            s.executeUpdate("UPDATE curve_checkpoint SET layout = 0 WHERE curve = 'GOVT-B'");
+        }
+        assertThat(checkpointed(ds, WATCHES, 90).spreads()).as("states with GOVT-B's checkpoint in an old layout").isEqualTo(expected);
+
+        // another policy: the same spreads under other rules; its checkpoints would carry the old rules' states
+        List<Watch> other = List.of(
+                new Watch(SpreadDefinition.parse("10Y-3M"), new MonitorDefinition(-10, 0, 1, 30, List.of(new DaysInverted(10))), Set.of()),
+                WATCHES.get(1));
+        QuotePipeline reference = new QuotePipeline(other, new JournalWriter(ds, clock), new JournalReader(ds), PipelineListener.NONE, clock);
+        reference.recover();
+        assertThat(checkpointed(ds, other, 90).spreads()).as("states under another policy").isEqualTo(reference.spreads())
+                .isNotEqualTo(expected);
     }
 
     private static List<String> journalRows(AgroalDataSource ds, String query) {
