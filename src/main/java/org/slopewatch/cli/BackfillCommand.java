@@ -21,7 +21,6 @@ import org.slopewatch.journal.JournalWriter;
 import org.slopewatch.pipeline.HistoryBackfill;
 import org.slopewatch.pipeline.PipelineListener;
 import org.slopewatch.pipeline.QuoteMessage;
-import org.slopewatch.alerting.AlertStage;
 import org.slopewatch.journal.CurveCheckpoints;
 import org.slopewatch.pipeline.CurveOwnership;
 import org.slopewatch.pipeline.QuotePipeline;
@@ -130,7 +129,7 @@ final class BackfillCommand implements Callable<Integer> {
             // no alert stage: history is not news, and notices decided on it would reach the channels from the outbox
             // as the daemon holds memory by default, with checkpoints: the daemon then starts from them, not from every quote
             QuotePipeline pipeline = new QuotePipeline(parsed.watches(), new JournalWriter(ds, clock), new JournalReader(ds),
-                    PipelineListener.NONE, AlertStage.NONE, clock, QuotePipeline.Memory.defaults(new CurveCheckpoints(ds, clock)));
+                    PipelineListener.NONE, clock, QuotePipeline.Memory.defaults(new CurveCheckpoints(ds, clock)));
             pipeline.recover();
             HistoryBackfill.Totals totals;
             try (ProgressBar bar = ProgressBar.forStderr("backfill: journal", messages.size(), "snapshots")) {

@@ -140,9 +140,19 @@ public final class JournalReader {
      * after the oldest checkpoint.
      */
     public void replayQuotesAfter(long afterSeq, Consumer<JournalEntries.AcceptedQuote> sink) {
+        replayQuotesAfter(afterSeq, null, sink);
+    }
+
+    /** As {@link #replayQuotesAfter(long, Consumer)}, only the quotes of the given curves (null: of all). */
+    public void replayQuotesAfter(long afterSeq, Collection<String> curves, Consumer<JournalEntries.AcceptedQuote> sink) {
+        List<String> only = curves == null ? List.of() : List.copyOf(curves);
         try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(
-                "SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote WHERE seq > ? ORDER BY seq, id")) {
+                "SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote WHERE seq > ?"
+                        + (curves == null ? "" : " AND curve IN (" + JournalSql.placeholders(only.size()) + ")") + " ORDER BY seq, id")) {
             s.setLong(1, afterSeq);
+            for (int i = 0; i < only.size(); i++) {
+                s.setString(2 + i, only.get(i));
+            }
             s.setFetchSize(5_000);
             try (ResultSet rs = s.executeQuery()) {
                 while (rs.next()) {
@@ -155,6 +165,14 @@ public final class JournalReader {
         } catch (SQLException e) {
             throw new JournalException("cannot read the journal's quotes for recovery", e);
         }
+    }
+
+    /** The highest sequence number of each curve's quotes: what tells whether another instance moved a curve on. */
+    public Map<String, Long> lastSeqByCurve() {
+        Map<String, Long> out = new HashMap<>();
+        sql.query("SELECT curve, MAX(seq) FROM quote GROUP BY curve", JournalSql.NONE, rs -> out.put(rs.getString(1), rs.getLong(2)),
+                "quotes");
+        return out;
     }
 
     /**

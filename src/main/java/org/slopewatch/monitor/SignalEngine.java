@@ -170,19 +170,25 @@ public final class SignalEngine {
             order[i] = in.readLong();
             read[i] = SpreadTrack.read(monitors.get(i), new SpreadKey(curve, name), earlier, in);
         }
-        SpreadTrack[] held = tracksByCurve.put(curve, read);
+        forget(curve);
+        tracksByCurve.put(curve, read);
+        for (int i = 0; i < n; i++) {
+            if (read[i] != null) {
+                tracks.add(read[i]);
+                firstSeen.put(read[i], order[i]);
+            }
+        }
+    }
+
+    /** Drops every track of a curve (before it is rebuilt). */
+    public void forget(String curve) {
+        SpreadTrack[] held = tracksByCurve.remove(curve);
         if (held != null) {
             for (SpreadTrack t : held) {
                 if (t != null) {
                     tracks.remove(t);
                     firstSeen.remove(t);
                 }
-            }
-        }
-        for (int i = 0; i < n; i++) {
-            if (read[i] != null) {
-                tracks.add(read[i]);
-                firstSeen.put(read[i], order[i]);
             }
         }
     }

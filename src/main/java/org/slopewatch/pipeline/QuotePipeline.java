@@ -60,6 +60,8 @@ public final class QuotePipeline {
     private CurveImages images;
     /** Curves whose state changed since their last checkpoint. */
     private final Set<String> unsaved = new HashSet<>();
+    /** The highest sequence number of each curve's quotes memory has taken (replayed, restored or processed). */
+    private final Map<String, Long> lastSeq = new HashMap<>();
     private long sequence;
     private boolean recovered;
     // concurrent: the metrics read one curve's entry at scrape time without waiting for a step's lock
@@ -116,6 +118,12 @@ public final class QuotePipeline {
         }
     }
 
+    /** Without alerting (a backfill: history is not news), holding {@code memory}. */
+    public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, Clock clock,
+                         Memory memory) {
+        this(watches, writer, reader, listener, AlertStage.NONE, clock, memory);
+    }
+
     public QuotePipeline(List<Watch> watches, JournalWriter writer, JournalReader reader, PipelineListener listener, AlertStage alerts,
                          Clock clock, Memory memory) {
         this.memory = memory;
@@ -136,6 +144,7 @@ public final class QuotePipeline {
         images = new CurveImages(watches);
         seenIds.clear();
         unsaved.clear();
+        lastSeq.clear();
         sequence = 0;
     }
 
@@ -152,19 +161,76 @@ public final class QuotePipeline {
         // until the replay has finished, memory is not what the journal says: nothing may be decided on it
         recovered = false;
         reset();
-        Map<String, Long> restored = restoreCheckpoints();
         Map<String, Instant> recorded = reader.lastQuoteRecorded();
+        long replayed = restore(recorded.keySet(), false);
+        lastReceived.clear();
+        lastReceived.putAll(recorded);
+        alerts.rebuild();
+        recovered = true;
+        return replayed;
+    }
+
+    /**
+     * Rebuilds, from their checkpoints and the quotes after them, the curves this instance owns now
+     * whose journalled quotes moved on since memory last saw them: those another instance processed
+     * while it held them. Curves memory is current on are left as they are, so an assignment right
+     * after a start replays nothing twice, and a takeover rebuilds only the curves it moves.
+     *
+     * @return the curves rebuilt
+     */
+    public synchronized Set<String> takeOver(CurveOwnership owned) {
+        if (!recovered) {
+            recover();
+            return Set.of();
+        }
+        Set<String> moved = new java.util.TreeSet<>();
+        reader.lastSeqByCurve().forEach((curve, seq) -> {
+            if (owned.owns(curve) && !seq.equals(lastSeq.get(curve))) {
+                moved.add(curve);
+            }
+        });
+        if (moved.isEmpty()) {
+            return moved;
+        }
+        recovered = false;
+        for (String curve : moved) {
+            engine.forget(curve);
+            book.forget(curve);
+            unsaved.remove(curve);
+        }
+        long replayed = restore(moved, true);
+        Map<String, Instant> recorded = reader.lastQuoteRecorded();
+        moved.forEach(curve -> lastReceived.put(curve, recorded.get(curve)));
+        alerts.rebuild();
+        recovered = true;
+        LOG.infof("took over %d curve(s) moved on by another instance: %s; %d journalled quote message(s) replayed", moved.size(),
+                moved, replayed);
+        return moved;
+    }
+
+    /**
+     * Reads the curves' checkpoints and replays the quotes after them; the engine and book hold
+     * nothing of them yet.
+     *
+     * @param curves     the curves to restore: every curve with quotes in the journal, or some of them
+     * @param onlyThese  whether other curves are held (and left alone), or none is
+     * @return the quote messages replayed
+     */
+    private long restore(Set<String> curves, boolean onlyThese) {
+        Set<String> only = onlyThese ? curves : null;
+        Map<String, Long> restored = restoreCheckpoints(only);
         // the tail after the oldest checkpoint is enough only when every curve has one
-        long after = !restored.isEmpty() && restored.keySet().containsAll(recorded.keySet())
+        long after = !restored.isEmpty() && restored.keySet().containsAll(curves)
                 ? restored.values().stream().mapToLong(Long::longValue).min().orElseThrow() : Long.MIN_VALUE;
         long[] count = {0};
-        reader.replayQuotesAfter(after, q -> {
+        reader.replayQuotesAfter(after, only, q -> {
             Long included = restored.get(q.curve());
             if (included != null && q.seq() <= included) {
                 return;
             }
             count[0]++;
             sequence = Math.max(sequence, q.seq());
+            lastSeq.put(q.curve(), q.seq());
             engine.onSnapshot(book.apply(q.curve(), q.date(), q.yieldsBp(), q.seq()), q.seq());
             unsaved.add(q.curve());
             letGo(q.curve());
@@ -176,25 +242,27 @@ public final class QuotePipeline {
         }
         listener.watching(engine.tracks().stream().map(t -> t.spread().id()).collect(java.util.stream.Collectors.toUnmodifiableSet()));
         for (SpreadTrack t : engine.tracks()) {
-            listener.spreadChanged(SpreadStatus.of(t));
+            if (only == null || only.contains(t.spread().curve())) {
+                listener.spreadChanged(SpreadStatus.of(t));
+            }
         }
-        lastReceived.clear();
-        lastReceived.putAll(recorded);
-        alerts.rebuild();
-        recovered = true;
         return count[0];
     }
 
-    /** Reads every usable checkpoint into memory; curve → the sequence number its checkpoint includes quotes up to. */
-    private Map<String, Long> restoreCheckpoints() {
+    /** Reads the usable checkpoints (of the given curves; null: all) into memory; curve → the sequence number it includes quotes up to. */
+    private Map<String, Long> restoreCheckpoints(Set<String> only) {
         Map<String, Long> restored = new HashMap<>();
         if (memory.checkpoints() == null) {
             return restored;
         }
         for (CurveCheckpoints.Stored stored : memory.checkpoints().all()) {
+            if (only != null && !only.contains(stored.curve())) {
+                continue;
+            }
             try {
                 images.read(stored, book, engine);
                 restored.put(stored.curve(), stored.seq());
+                lastSeq.merge(stored.curve(), stored.seq(), Math::max);
                 sequence = Math.max(sequence, stored.seq());
             } catch (java.io.IOException e) {
                 LOG.warnf("checkpoint of curve %s not used (%s): the curve is rebuilt from all its journalled quotes", stored.curve(),
@@ -339,6 +407,7 @@ public final class QuotePipeline {
                     long seq = ++sequence;
                     accepted++;
                     curvesMoved.add(m.curve());
+                    lastSeq.put(m.curve(), seq);
                     acceptedByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
                     lastReceived.put(m.curve(), Instant.now(clock));
                     journal.quote(new JournalEntries.AcceptedQuote(seq, batch.origin(), m.id(), m.source(), m.time(), m.curve(),

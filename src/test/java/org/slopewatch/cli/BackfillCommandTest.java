@@ -54,7 +54,7 @@ class BackfillCommandTest {
         assertThat(run.exitCode()).as(run.err()).isZero();
         // 558 months of four tenors (the README's count of the H.15 file)
         assertThat(run.out()).matches("(?s)backfill: 2,232 quotes in 558 snapshots from 1 file\\(s\\) into jdbc:h2:file:\\S+: "
-                + "\\d+ transitions, 6 steps, \\d+\\.\\d s\\R");
+                + "\\d+ transitions, 6 steps, 1 curve checkpoint\\(s\\), \\d+\\.\\d s\\R");
 
         String oneByOne = "jdbc:h2:file:" + dir.resolve("one-by-one");
         QuotePipeline daemon;
@@ -66,6 +66,12 @@ class BackfillCommandTest {
             try (AgroalDataSource again = JournalDatabase.open(backfilled, "sa", "", 2)) {
                 assertThat(pipeline(again).spreads()).as("states a daemon recovers from the backfilled journal")
                         .isEqualTo(daemon.spreads());
+                Clock clock = Clock.systemUTC();
+                QuotePipeline fromCheckpoints = new QuotePipeline(PolicyParser.parse(POLICY.toString(), Files.readAllBytes(POLICY)).watches(),
+                        new JournalWriter(again, clock), new JournalReader(again), PipelineListener.NONE, clock,
+                        QuotePipeline.Memory.defaults(new org.slopewatch.journal.CurveCheckpoints(again, clock)));
+                assertThat(fromCheckpoints.recover()).as("quotes a daemon replays after the backfill's checkpoints").isZero();
+                assertThat(fromCheckpoints.spreads()).as("states a daemon starts with from them").isEqualTo(daemon.spreads());
             }
         }
         assertThat(rows(backfilled, QUOTES)).as("quotes").hasSize(558).isEqualTo(rows(oneByOne, QUOTES));

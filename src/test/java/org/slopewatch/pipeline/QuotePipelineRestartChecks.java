@@ -311,6 +311,50 @@ abstract class QuotePipelineRestartChecks {
                 .isNotEqualTo(expected);
     }
 
+    /**
+     * Two instances on one journal, each processing its own curve; when one stops, the other takes
+     * its curve over and rebuilds that curve alone (from its checkpoint and the quotes after it),
+     * and the end is what one instance taking every quote comes to. An assignment right after a
+     * start rebuilds nothing: memory is current.
+     */
+    @Test
+    void aTakeoverRebuildsOnlyTheCurvesAnotherInstanceMovedOn() {
+        List<QuoteBatch> batches = scenarioWithOldRevisions(4);
+        AgroalDataSource alone = database("one-instance");
+        QuotePipeline single = pipeline(alone);
+        batches.forEach(b -> single.process(List.of(b)));
+
+        AgroalDataSource shared = database("two-instances");
+        QuotePipeline a = checkpointed(shared, WATCHES, 90);
+        QuotePipeline b = checkpointed(shared, WATCHES, 90);
+        CurveOwnership aOwns = curve -> curve.equals("GOVT-A");
+        CurveOwnership bOwns = curve -> !aOwns.owns(curve);
+        assertThat(a.takeOver(aOwns)).as("first assignment after a start").isEmpty();
+        assertThat(b.takeOver(bOwns)).as("first assignment after a start").isEmpty();
+        int stopAt = batches.size() * 3 / 5;
+        for (int i = 0; i < stopAt; i++) {
+            QuoteBatch batch = batches.get(i);
+            (aOwns.owns(batch.messages().get(0).curve()) ? a : b).process(List.of(batch));
+            if (i % 50 == 0) {
+                a.checkpoint(aOwns);
+                b.checkpoint(bOwns);
+            }
+        }
+        a.checkpoint(aOwns); // as its shutdown does
+
+        assertThat(b.takeOver(CurveOwnership.ALL)).as("curves rebuilt by the survivor").containsExactly("GOVT-A");
+        assertThat(b.takeOver(CurveOwnership.ALL)).as("a second assignment with nothing moved on").isEmpty();
+        batches.subList(stopAt, batches.size()).forEach(x -> b.process(List.of(x)));
+
+        // in any order: two instances number their steps each on their own, so which curve came first is theirs to say
+        assertThat(b.spreads()).as("states after the takeover and the rest of the quotes")
+                .containsExactlyInAnyOrderElementsOf(single.spreads());
+        org.slopewatch.testsupport.JournalContents expected = org.slopewatch.testsupport.JournalContents.read(alone);
+        org.slopewatch.testsupport.JournalContents actual = org.slopewatch.testsupport.JournalContents.read(shared);
+        assertThat(actual.transitions()).as("transitions").isEqualTo(expected.transitions());
+        assertThat(actual.spells()).as("spells").isEqualTo(expected.spells());
+    }
+
     private static List<String> journalRows(AgroalDataSource ds, String query) {
         List<String> out = new ArrayList<>();
         try (java.sql.Connection c = ds.getConnection(); java.sql.Statement s = c.createStatement();

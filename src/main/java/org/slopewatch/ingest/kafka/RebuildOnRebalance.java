@@ -11,13 +11,12 @@ import org.slopewatch.pipeline.QuotePipeline;
 
 /**
  * When Kafka hands this instance partitions of the quotes topic (at start, or when another
- * instance of the same consumer group stops or joins), the monitors are rebuilt from the shared
- * journal before the first record of the new partitions is processed. The journal holds what the
- * previous owner concluded, so the new owner continues from there rather than from whatever it
- * last saw of those curves.
- *
- * <p>Rebuilding everything rather than only the curves of the new partitions is deliberate: it is
- * the same replay a restart does, so its correctness is the restart's, already tested.
+ * instance of the same consumer group stops or joins), the curves of those partitions that another
+ * instance moved on since this one last saw them are rebuilt from the shared journal (each from its
+ * checkpoint and the quotes after it) before the first record of the new partitions is processed.
+ * The journal holds what the previous owner concluded, so the new owner continues from there rather
+ * than from whatever it last saw of those curves. Curves memory is current on are not rebuilt: the
+ * first assignment after a start, which the start-up's rebuild already covers, replays nothing.
  *
  * <p>When partitions are taken away, the step in progress is finished first (the pipeline's lock)
  * and the records of those partitions still waiting here are dropped ({@link PartitionOwnership}),
@@ -53,8 +52,8 @@ public class RebuildOnRebalance implements KafkaConsumerRebalanceListener {
         }
         String topic = partitions.iterator().next().topic();
         ownership.assigned(partitions, consumer.partitionsFor(topic).size());
-        long replayed = pipeline.recover();
-        LOG.infof("quotes partitions assigned %s: monitors rebuilt from %d journalled quote message(s)", partitions, replayed);
+        int rebuilt = pipeline.takeOver(ownership::ownsCurve).size();
+        LOG.infof("quotes partitions assigned %s: %d curve(s) rebuilt from the journal", partitions, rebuilt);
     }
 
     @Override

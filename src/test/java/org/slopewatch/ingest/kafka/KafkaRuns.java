@@ -46,7 +46,8 @@ final class KafkaRuns {
     /**
      * A daemon of the default policy on {@code topic} (also its consumer group) with {@code journal},
      * its chat channel posting alert JSON to {@code chatUrl}. A dead member leaves the group after 6 s
-     * (the broker's least session time-out) rather than the daemon's 10 s, so that a restart after a kill resumes soon.
+     * (the broker's least session time-out) rather than the daemon's 10 s, so that a restart after a kill resumes soon;
+     * checkpoints are written every second.
      */
     static Map<String, String> settings(String topic, TestDatabase journal, String chatUrl) {
         Map<String, String> s = DaemonProcess.scenarioSettings(Path.of("target/it-data/" + topic).toAbsolutePath(), CURVES, chatUrl);
@@ -57,6 +58,8 @@ final class KafkaRuns {
         s.put("mp.messaging.incoming.quotes.group.id", topic);
         s.put("mp.messaging.incoming.quotes.session.timeout.ms", "6000");
         s.put("mp.messaging.incoming.quotes.heartbeat.interval.ms", "1500");
+        // checkpoints every second: restarts and takeovers start from them, and must come out as an uninterrupted run would
+        s.put("slopewatch.ingest.checkpoint-every", "1s");
         s.put("mp.messaging.outgoing.quotes-publish.topic", topic);
         s.put("mp.messaging.outgoing.quotes-dead-letter.topic", topic + ".dead-letter");
         s.put("mp.messaging.outgoing.alerts-out.topic", topic + ".alerts");

@@ -83,6 +83,14 @@ class TwoInstancesIT {
             assertThat(second.logText().split("quotes partitions assigned", -1).length - 1)
                     .as("partition assignments seen by the surviving instance").isGreaterThanOrEqualTo(2);
             assertThat(first.isAlive()).isFalse();
+            // and rebuilt only those: the curves the stopped instance had moved on, from their checkpoints and the quotes after
+            java.util.regex.Matcher tookOver = java.util.regex.Pattern.compile("took over (\\d+) curve\\(s\\)").matcher(second.logText());
+            int rebuilt = 0;
+            while (tookOver.find()) {
+                rebuilt = Integer.parseInt(tookOver.group(1));
+            }
+            assertThat(rebuilt).as("curves the surviving instance rebuilt when it took the stopped one's over")
+                    .isBetween(1, CURVES.size() - 1);
 
             pair.assertEndsAs(single, quotes.size());
 
