@@ -7,7 +7,8 @@
 # journals, as CURVES:YEARS words; e.g. "10:40 100:40" for 40 years of daily history, which the
 # shared two-core machine could not build in the time available), SCALE_MEMORY (curve counts for the in-process memory bench),
 # SCALE_MEMORY_YEARS (its checkpoints), SCALE_SKIP_BUILD=1 (reuse target/), SCALE_REBUILD=1
-# (rebuild the journals). Raw results: bench/out/scale-*.txt; docs/benchmarks.md records them.
+# (rebuild the journals), SCALE_DAEMON_JVM (the daemons' JVM options; default the Kubernetes
+# manifest's limits: 1 GiB of memory, heap at 70 % of it). Raw results: bench/out/scale-*.txt; docs/benchmarks.md records them.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 out=bench/out
@@ -61,7 +62,7 @@ done
 
 # start-up of the packaged daemon on each journal against an empty journal (ScaleStartupBench)
 say "start-up: $rounds round(s), load $(load)"
-java -cp "$cp" org.slopewatch.bench.ScaleStartupBench "$rounds" "$out/scale/base" "${args[@]}" | tee "$out/scale-startup.txt"
+java "-Dscale.daemon.jvm=${SCALE_DAEMON_JVM:--XX:MaxRAM=1g -XX:MaxRAMPercentage=70}" -cp "$cp" org.slopewatch.bench.ScaleStartupBench "$rounds" "$out/scale/base" "${args[@]}" | tee "$out/scale-startup.txt"
 # where recovery spends its time: reading the journal alone against the whole recover(), one JVM
 : > "$out/scale-recovery.txt"
 for a in "${args[@]}"; do

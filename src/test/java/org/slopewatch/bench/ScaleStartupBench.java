@@ -23,7 +23,9 @@ import org.slopewatch.testsupport.DaemonProcess;
  * the JVM to the first 200 of {@code /q/health/ready} (polled every 20 ms), its log gives the
  * messages replayed and the time {@code recover()} took, and {@code jcmd GC.class_histogram}
  * (a full collection first) gives the live heap once it is ready, and {@code /proc} the CPU time
- * the process used to get there. Then it is stopped (SIGTERM).
+ * the process used to get there. Then it is stopped (SIGTERM). Third, the same journal is started
+ * with {@code checkpoint-every=0}, which reads no checkpoint: every quote replayed, as before
+ * checkpoints existed.
  *
  * <p>Arguments: ROUNDS BASELINE_DIR JOURNAL_DIR:CURVES... Each directory holds {@code journal.mv.db}
  * and {@code scale-policy.yaml} as {@link ScaleJournalBuilder} writes them. JVM options of the
@@ -43,18 +45,23 @@ public final class ScaleStartupBench {
                 String[] item = args[i].split(":");
                 Path dir = Path.of(item[0]).toAbsolutePath();
                 int curves = Integer.parseInt(item[1]);
-                Start base = start("scale-baseline-" + curves, baseline, curves, jvm);
-                Start full = start("scale-" + dir.getFileName(), dir, curves, jvm);
+                Start base = start("scale-baseline-" + curves, baseline, curves, jvm, Map.of());
+                Start full = start("scale-" + dir.getFileName(), dir, curves, jvm, Map.of());
+                // the same journal started without reading its checkpoints: every quote replayed, as before they existed
+                Start whole = start("scale-" + dir.getFileName() + "-whole", dir, curves, jvm,
+                        Map.of("slopewatch.ingest.checkpoint-every", "0"));
                 System.out.printf(Locale.ROOT, "scale-startup round=%d journal=%s curves=%d spreads=%d messages=%d "
                                 + "ready_s=%.3f baseline_ready_s=%.3f ratio=%.2f extra_s=%.3f cpu_s=%.2f baseline_cpu_s=%.2f cpu_ratio=%.2f recover_ms=%d baseline_recover_ms=%d "
                                 + "messages_per_s_recover=%.0f messages_per_s_extra=%.0f heap_live_bytes=%d baseline_heap_live_bytes=%d "
-                                + "per_spread_bytes=%.0f load=%s%n",
+                                + "per_spread_bytes=%.0f without_checkpoints_messages=%d without_checkpoints_ready_s=%.3f "
+                                + "without_checkpoints_ratio=%.2f without_checkpoints_heap_live_bytes=%d load=%s%n",
                         round, dir.getFileName(), curves, curves * ScaleScenario.SPREADS.length, full.messages, full.readySeconds,
                         base.readySeconds, full.readySeconds / base.readySeconds, full.readySeconds - base.readySeconds, full.cpuSeconds,
                         base.cpuSeconds, full.cpuSeconds / base.cpuSeconds, full.recoverMillis,
                         base.recoverMillis, full.messages / (full.recoverMillis / 1e3),
                         full.messages / (full.readySeconds - base.readySeconds), full.liveBytes, base.liveBytes,
-                        (full.liveBytes - base.liveBytes) / (double) (curves * ScaleScenario.SPREADS.length), load());
+                        (full.liveBytes - base.liveBytes) / (double) (curves * ScaleScenario.SPREADS.length), whole.messages,
+                        whole.readySeconds, whole.readySeconds / base.readySeconds, whole.liveBytes, load());
             }
         }
     }
@@ -62,8 +69,8 @@ public final class ScaleStartupBench {
     private record Start(double readySeconds, double cpuSeconds, long messages, long recoverMillis, long liveBytes) {
     }
 
-    private static Start start(String name, Path dir, int curves, List<String> jvm) throws Exception {
-        Map<String, String> settings = new HashMap<>();
+    private static Start start(String name, Path dir, int curves, List<String> jvm, Map<String, String> extra) throws Exception {
+        Map<String, String> settings = new HashMap<>(extra);
         settings.put("slopewatch.data-dir", dir.toString());
         settings.put("slopewatch.ingest.policy", dir.resolve("scale-policy.yaml").toString());
         settings.put("slopewatch.ingest.curves", String.join(",", ScaleScenario.curves(Math.max(1, curves))));
