@@ -14,3 +14,6 @@ CREATE TABLE curve_checkpoint (
 -- a quote for a date the daemon no longer holds in memory is merged into that date's snapshot as
 -- the journal has it: found by curve and date
 CREATE INDEX quote_curve_date ON quote (curve, market_date);
+
+-- whether another instance moved a curve on: its highest sequence number, one index lookup
+CREATE INDEX quote_curve_seq ON quote (curve, seq);

@@ -56,6 +56,13 @@ public interface IngestConfig {
     java.time.Duration checkpointEvery();
 
     /**
+     * With several instances on Kafka: how often the curves other instances own are brought up to date
+     * from the journal, so that every instance answers reads of every curve; 0 turns it off.
+     */
+    @WithDefault("5s")
+    java.time.Duration followEvery();
+
+    /**
      * The series map of SDMX-CSV bodies ({@code KEY,CURVE,TENOR} lines); without it an SDMX-CSV body is refused.
      * Read once at start-up: a map that cannot be read stops it.
      */

@@ -162,7 +162,7 @@ public final class QuotePipeline {
         recovered = false;
         reset();
         Map<String, Instant> recorded = reader.lastQuoteRecorded();
-        long replayed = restore(recorded.keySet(), false);
+        long replayed = restore(recorded.keySet(), false, true);
         lastReceived.clear();
         lastReceived.putAll(recorded);
         alerts.rebuild();
@@ -183,29 +183,79 @@ public final class QuotePipeline {
             recover();
             return Set.of();
         }
+        // every curve the journal has: one the previous owner never checkpointed must not be missed
+        Set<String> moved = moved(reader.lastSeqByCurve(), owned::owns);
+        rebuild(moved, true);
+        if (moved.isEmpty()) {
+            // the curves may be current from following their owner, but the desk's memory of their notices is not
+            alerts.rebuild();
+        } else {
+            LOG.infof("took over %d curve(s) moved on by another instance: %s", moved.size(), moved);
+        }
+        return moved;
+    }
+
+    /**
+     * Brings the curves other instances own up to date from the journal (each from its checkpoint
+     * and the quotes after it), so that this instance answers reads of them as their owner would,
+     * behind it by at most the time between two calls. Looks only at curves it holds or that have
+     * a checkpoint (one lookup each on an index), not at every quote.
+     *
+     * @return the curves rebuilt
+     */
+    public synchronized Set<String> follow(CurveOwnership owned) {
+        if (!recovered) {
+            return Set.of();
+        }
+        Set<String> known = new java.util.TreeSet<>(lastSeq.keySet());
+        if (memory.checkpoints() != null) {
+            known.addAll(memory.checkpoints().curves());
+        }
+        known.removeIf(owned::owns);
+        Set<String> moved = moved(reader.lastSeqOf(known), curve -> true);
+        // the alert desk decides for owned curves only: its memory of these is not read
+        rebuild(moved, false);
+        return moved;
+    }
+
+    /** The curves among {@code journal}'s (curve → its highest sequence number) that {@code which} picks and memory is behind on. */
+    private Set<String> moved(Map<String, Long> journal, java.util.function.Predicate<String> which) {
         Set<String> moved = new java.util.TreeSet<>();
-        reader.lastSeqByCurve().forEach((curve, seq) -> {
-            if (owned.owns(curve) && !seq.equals(lastSeq.get(curve))) {
+        journal.forEach((curve, seq) -> {
+            if (which.test(curve) && !seq.equals(lastSeq.get(curve))) {
                 moved.add(curve);
             }
         });
-        if (moved.isEmpty()) {
-            return moved;
+        return moved;
+    }
+
+    /**
+     * Rebuilds these curves alone from their checkpoints and the quotes after them; the others stay
+     * as they are. With {@code owned}, the alert desk's memory is rebuilt too and the rebuild logged.
+     */
+    private void rebuild(Set<String> curves, boolean owned) {
+        if (curves.isEmpty()) {
+            return;
         }
         recovered = false;
-        for (String curve : moved) {
+        for (String curve : curves) {
             engine.forget(curve);
             book.forget(curve);
             unsaved.remove(curve);
+            lastSeq.remove(curve);
         }
-        long replayed = restore(moved, true);
+        restore(curves, true, owned);
         Map<String, Instant> recorded = reader.lastQuoteRecorded();
-        moved.forEach(curve -> lastReceived.put(curve, recorded.get(curve)));
-        alerts.rebuild();
+        curves.forEach(curve -> {
+            Instant at = recorded.get(curve);
+            if (at != null) {
+                lastReceived.put(curve, at);
+            }
+        });
+        if (owned) {
+            alerts.rebuild();
+        }
         recovered = true;
-        LOG.infof("took over %d curve(s) moved on by another instance: %s; %d journalled quote message(s) replayed", moved.size(),
-                moved, replayed);
-        return moved;
     }
 
     /**
@@ -214,9 +264,10 @@ public final class QuotePipeline {
      *
      * @param curves     the curves to restore: every curve with quotes in the journal, or some of them
      * @param onlyThese  whether other curves are held (and left alone), or none is
+     * @param logged     whether to log how each curve was rebuilt
      * @return the quote messages replayed
      */
-    private long restore(Set<String> curves, boolean onlyThese) {
+    private long restore(Set<String> curves, boolean onlyThese, boolean logged) {
         Set<String> only = onlyThese ? curves : null;
         Map<String, Long> restored = restoreCheckpoints(only);
         // the tail after the oldest checkpoint is enough only when every curve has one
@@ -236,7 +287,7 @@ public final class QuotePipeline {
             letGo(q.curve());
         });
         engine.orderByFirstSeen();
-        if (memory.checkpoints() != null) {
+        if (memory.checkpoints() != null && logged) {
             LOG.infof("rebuilt %d curve(s) from checkpoints and %d journalled quote message(s) after them or without one", restored.size(),
                     count[0]);
         }

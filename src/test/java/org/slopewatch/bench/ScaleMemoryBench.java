@@ -22,7 +22,10 @@ import org.slopewatch.monitor.SignalEngine;
  *
  * <p>Arguments: CURVES YEARS_CHECKPOINT... (ascending, e.g. {@code 1000 1 10 20 40}), then
  * optionally {@code --histogram FILE} to write the live-object histogram ({@code jcmd}) at the
- * last checkpoint. Run with a heap large enough for the state (bench/scale.sh gives -Xmx).
+ * last checkpoint, and {@code --memory-days N} to hold what the daemon holds with
+ * {@code slopewatch.ingest.memory-days=N} (each curve let go of before N days after every message,
+ * as the daemon does after each step); without it the whole history is held, as offline replay
+ * holds it. Run with a heap large enough for the state (bench/scale.sh gives -Xmx).
  */
 public final class ScaleMemoryBench {
 
@@ -30,6 +33,14 @@ public final class ScaleMemoryBench {
         int curves = Integer.parseInt(args[0]);
         List<String> rest = Arrays.asList(args).subList(1, args.length);
         Path histogram = null;
+        int memoryDays = Integer.MAX_VALUE;
+        int days = rest.indexOf("--memory-days");
+        if (days >= 0) {
+            memoryDays = Integer.parseInt(rest.get(days + 1));
+            rest = new java.util.ArrayList<>(rest);
+            rest.remove(days + 1);
+            rest.remove(days);
+        }
         int flag = rest.indexOf("--histogram");
         if (flag >= 0) {
             histogram = Path.of(rest.get(flag + 1));
@@ -37,7 +48,7 @@ public final class ScaleMemoryBench {
         }
         double[] checkpoints = rest.stream().mapToDouble(Double::parseDouble).toArray();
         double years = checkpoints[checkpoints.length - 1];
-        List<LocalDate> days = ScaleScenario.businessDays(years);
+        List<LocalDate> businessDays = ScaleScenario.businessDays(years);
         ScaleScenario.CurveWalk[] walks = ScaleScenario.walks(curves);
         CurveBook book = new CurveBook();
         SignalEngine engine = new SignalEngine(ScaleScenario.watches());
@@ -51,26 +62,31 @@ public final class ScaleMemoryBench {
         int next = 0;
         for (double checkpoint : checkpoints) {
             // the checkpoint's history is the last `checkpoint` years of the span, i.e. from this day on
-            int upTo = days.size() - ScaleScenario.businessDays(years - checkpoint).size();
+            int upTo = businessDays.size() - ScaleScenario.businessDays(years - checkpoint).size();
             if (checkpoint == years) {
-                upTo = days.size();
+                upTo = businessDays.size();
             }
             long t0 = System.nanoTime();
             for (; next < upTo; next++) {
-                LocalDate day = days.get(next);
+                LocalDate day = businessDays.get(next);
                 for (ScaleScenario.CurveWalk walk : walks) {
                     var m = walk.next(day);
                     engine.onSnapshot(book.apply(m.curve(), m.date(), m.yieldsBp()), ++sequence);
+                    if (memoryDays != Integer.MAX_VALUE) {
+                        book.letGoBefore(m.curve(), memoryDays);
+                        engine.letGoBefore(m.curve(), memoryDays);
+                    }
                 }
             }
             feedNanos += System.nanoTime() - t0;
             messages = (long) next * curves;
             long live = liveHeap();
             int held = engine.tracks().isEmpty() ? 0 : engine.tracks().get(0).size();
-            System.out.printf(Locale.ROOT, "scale-memory curves=%d spreads=%d years=%s business_days=%d observations_per_spread=%d "
+            System.out.printf(Locale.ROOT, "scale-memory curves=%d spreads=%d years=%s memory_days=%s business_days=%d observations_per_spread=%d "
                             + "heap_live_bytes=%d baseline_bytes=%d per_spread_bytes=%.0f per_spread_per_observation_bytes=%.1f "
                             + "tracks=%d feed_messages_per_s=%.0f%n",
-                    curves, spreads, checkpoint, next, held, live, baseline, (live - baseline) / (double) spreads,
+                    curves, spreads, checkpoint, memoryDays == Integer.MAX_VALUE ? "all" : memoryDays, next, held, live, baseline,
+                    (live - baseline) / (double) spreads,
                     (live - baseline) / (double) spreads / Math.max(1, held), engine.tracks().size(), messages / (feedNanos / 1e9));
         }
         if (histogram != null) {

@@ -339,6 +339,14 @@ abstract class QuotePipelineRestartChecks {
                 a.checkpoint(aOwns);
                 b.checkpoint(bOwns);
             }
+            if (i == stopAt / 2) {
+                // reads from either instance: the one not owning GOVT-A follows it from the journal
+                assertThat(b.follow(bOwns)).as("curves the other instance moved on").containsExactly("GOVT-A");
+                assertThat(b.follow(bOwns)).as("followed again with nothing moved on").isEmpty();
+                assertThat(b.spreads().stream().filter(x -> x.curve().equals("GOVT-A")))
+                        .as("GOVT-A as the instance not owning it answers").isNotEmpty()
+                        .containsExactlyElementsOf(a.spreads().stream().filter(x -> x.curve().equals("GOVT-A")).toList());
+            }
         }
         a.checkpoint(aOwns); // as its shutdown does
 
