@@ -208,12 +208,13 @@ abstract class DeskAcrossInstancesChecks {
         // a quote an hour on: the step decides the standing notice that is due (the path of a live quote)
         clock.advance(Duration.ofMinutes(61));
         b.quote(DAY.plusDays(1), 500, 481);
+        assertThat(notices()).extracting(n -> n.alert().id()).as("no standing notice from B's next quote").containsExactly(id(1));
         assertThat(b.desk.openEpisodes().get("below-zero|" + SUBJECT).lastNotice()).as("B holds the episode as acknowledged")
                 .isEqualTo(Instant.MAX);
         // and the clock alone an hour later (the path of the tick)
         clock.advance(Duration.ofMinutes(61));
         b.tick();
-        assertThat(notices()).extracting(n -> n.alert().id()).as("no standing notice after the acknowledgement").containsExactly(id(1));
+        assertThat(notices()).extracting(n -> n.alert().id()).as("no standing notice from B's tick either").containsExactly(id(1));
 
         // the spread back above zero: the closing notice still comes, numbered as if B itself had taken the acknowledgement
         b.quote(DAY.plusDays(2), 500, 510);
