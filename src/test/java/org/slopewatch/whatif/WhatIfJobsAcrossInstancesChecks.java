@@ -120,4 +120,28 @@ abstract class WhatIfJobsAcrossInstancesChecks {
         assertThat(old.done()).as("progress as last written").isEqualTo(40);
         assertThat(old.result()).isNull();
     }
+
+    @Test
+    void theNewestJobsAreKeptAndAnyStillRunning() {
+        List<AgroalDataSource> pools = oneJournalTwice();
+        Instant t0 = Instant.parse("2026-03-02T09:00:00Z");
+        MutableClock clock = new MutableClock(t0);
+        WhatIfRows rows = new WhatIfRows(pools.get(0), clock);
+        // the oldest job still runs on a live instance (its heartbeat is fresh); the 35 after it have ended
+        rows.accepted("running", "journal", t0, 10);
+        for (int i = 0; i < WhatIfJobs.KEEP + 3; i++) {
+            rows.accepted("ended-" + i, "journal", t0.plusSeconds(1 + i), 10);
+            rows.ended("ended-" + i, "done", 10, 10, t0, t0.plusSeconds(1 + i), null, null);
+        }
+        clock.advance(Duration.ofMinutes(1));
+        rows.beat("running", 5, 10, t0);
+
+        assertThat(rows.forgetBeyond(WhatIfJobs.KEEP, clock.instant().minus(WhatIfJobs.ABANDONED_AFTER)))
+                .as("ended jobs older than the newest %d", WhatIfJobs.KEEP).isEqualTo(3);
+        assertThat(rows.find("running")).as("a running job is kept however old").isPresent();
+        assertThat(rows.find("ended-0")).isEmpty();
+        assertThat(rows.find("ended-2")).isEmpty();
+        assertThat(rows.find("ended-3")).isPresent();
+        assertThat(rows.find("ended-" + (WhatIfJobs.KEEP + 2))).isPresent();
+    }
 }
