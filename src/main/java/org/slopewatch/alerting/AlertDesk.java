@@ -19,6 +19,7 @@ import org.slopewatch.delivery.StreamChannel;
 import org.slopewatch.delivery.StreamTransport;
 import org.slopewatch.journal.Acknowledgements;
 import org.slopewatch.journal.AlertHistory;
+import org.slopewatch.journal.DeskChanges;
 import org.slopewatch.journal.JournalEntries;
 import org.slopewatch.journal.QuietPeriodBook;
 import org.slopewatch.monitor.SpreadStatus;
@@ -35,6 +36,8 @@ import org.slopewatch.rules.Policy;
  * them with their outbox rows to the step's journal transaction, and keeps acknowledgements and
  * quiet periods. Its memory (open episodes, quiet periods) is rebuilt from the journal on start and
  * after a failed write, so a restart neither sends a second opening notice nor forgets a closing one.
+ * Quiet periods and acknowledgements made through another instance on the same journal are read
+ * before a notice is let out ({@link DeskState}, which states the bound).
  *
  * <p>Synchronised: the pipeline calls it under its own lock, the API for acks and quiet periods does not.
  */
@@ -47,6 +50,7 @@ public class AlertDesk implements AlertStage {
     private final AlertHistory history;
     private final Acknowledgements acks;
     private final QuietPeriodBook quietPeriodBook;
+    private final DeskState state;
     private final ChannelRegistry channels;
     private final AlertDispatcher dispatcher;
     private final AlertMetrics metrics;
@@ -54,14 +58,14 @@ public class AlertDesk implements AlertStage {
     private final Clock clock;
 
     private AlertEngine engine;
-    private List<QuietPeriodBook.QuietPeriod> quietPeriods = List.of();
 
-    AlertDesk(PolicyHolder policies, AlertHistory history, Acknowledgements acks, QuietPeriodBook quietPeriodBook, ChannelRegistry channels,
-              AlertDispatcher dispatcher, AlertMetrics metrics, AlertsConfig config, Clock clock) {
+    AlertDesk(PolicyHolder policies, AlertHistory history, Acknowledgements acks, QuietPeriodBook quietPeriodBook, DeskChanges changes,
+              ChannelRegistry channels, AlertDispatcher dispatcher, AlertMetrics metrics, AlertsConfig config, Clock clock) {
         this.policies = policies;
         this.history = history;
         this.acks = acks;
         this.quietPeriodBook = quietPeriodBook;
+        this.state = new DeskState(changes, quietPeriodBook, acks);
         this.channels = channels;
         this.dispatcher = dispatcher;
         this.metrics = metrics;
@@ -145,6 +149,7 @@ public class AlertDesk implements AlertStage {
 
     @Override
     public synchronized void onTick(Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
+        refresh();
         Policy policy = policies.policy();
         decide(AlertConditions.of(policy.alerts(), List.copyOf(all), staleCurves, policy.probability()), all, null,
                 journal);
@@ -157,11 +162,19 @@ public class AlertDesk implements AlertStage {
         if (decisions.isEmpty()) {
             return;
         }
+        // what people set through any instance holds for this notice: read the journal's now (DeskState)
+        refresh();
         Map<String, SpreadStatus> byId = new HashMap<>();
         statuses.forEach(s -> byId.put(s.id(), s));
         Policy policy = policies.policy();
         String hash = policies.current().hash();
         for (AlertDecision d : decisions) {
+            if (d.notice() == Alert.Kind.STANDING && state.acknowledged(d.rule().name(), d.subject(), d.since())) {
+                // acknowledged through another instance since this engine last looked: no notice, and the
+                // episode as it would be had the acknowledgement come before this decision
+                engine.restore(d.rule().name(), d.subject(), new AlertEngine.Episode(d.since(), Instant.MAX, d.number() - 1));
+                continue;
+            }
             SpreadStatus status = byId.get(d.subject());
             Alert alert = composer.compose(d, status, status == null ? null : policy.probability().quoted(d.rule().when(), status).orElse(null), now);
             String quietedBy = quietedBy(d, now);
@@ -180,7 +193,7 @@ public class AlertDesk implements AlertStage {
      * matches the spread id or its name.
      */
     private String quietedBy(AlertDecision d, Instant now) {
-        for (QuietPeriodBook.QuietPeriod q : quietPeriods) {
+        for (QuietPeriodBook.QuietPeriod q : state.quietPeriods()) {
             if (!q.activeAt(now)) {
                 continue;
             }
@@ -211,18 +224,32 @@ public class AlertDesk implements AlertStage {
 
     @Override
     public synchronized void rebuild() {
+        state.reload();
         AlertEngine fresh = new AlertEngine(policies.policy().alerts());
         for (AlertHistory.StoredAlert a : history.latestPerEpisode()) {
             if (a.alert().kind() == Alert.Kind.CLOSING || a.episodeSince() == null) {
                 continue;
             }
             fresh.restore(a.alert().rule(), a.subject(), new AlertEngine.Episode(a.episodeSince(), a.alert().createdAt(), a.notice()));
-            if (acks.episodeAcknowledged(a.alert().rule(), a.subject(), a.episodeSince())) {
-                fresh.silence(a.alert().rule(), a.subject());
-            }
         }
         engine = fresh;
-        quietPeriods = quietPeriodBook.all();
+        silenceAcknowledged();
+    }
+
+    /** Reads what people set again if it changed on any instance, and silences the open episodes acknowledged meanwhile. */
+    private void refresh() {
+        if (state.refresh()) {
+            silenceAcknowledged();
+        }
+    }
+
+    private void silenceAcknowledged() {
+        for (Map.Entry<String, AlertEngine.Episode> e : engine.openEpisodes().entrySet()) {
+            String[] key = e.getKey().split("\\|", 2);
+            if (state.acknowledged(key[0], key[1], e.getValue().since())) {
+                engine.silence(key[0], key[1]);
+            }
+        }
     }
 
     /**
@@ -244,7 +271,7 @@ public class AlertDesk implements AlertStage {
     /** Sets a quiet period on a rule or a spread until a time; journalled with who set it and why. */
     public synchronized QuietPeriodBook.QuietPeriod setQuietPeriod(String kind, String target, Instant until, String note, String setBy) {
         QuietPeriodBook.QuietPeriod q = quietPeriodBook.add(kind, target, until, note, setBy);
-        quietPeriods = quietPeriodBook.all();
+        refresh();
         LOG.infof("quiet period %d on %s %s set by %s until %s: %s", q.id(), kind, target, setBy, until, note);
         return q;
     }
@@ -252,19 +279,22 @@ public class AlertDesk implements AlertStage {
     /** Lifts a quiet period early; false when there is no such quiet period or it was lifted already. */
     public synchronized boolean lift(long periodId, String liftedBy) {
         boolean lifted = quietPeriodBook.lift(periodId, liftedBy);
-        quietPeriods = quietPeriodBook.all();
+        refresh();
         if (lifted) {
             LOG.infof("quiet period %d lifted by %s", periodId, liftedBy);
         }
         return lifted;
     }
 
+    /** Every quiet period, newest first, as the journal holds them now (set through any instance). */
     public synchronized List<QuietPeriodBook.QuietPeriod> quietPeriods() {
-        return quietPeriods;
+        refresh();
+        return state.quietPeriods();
     }
 
-    /** The episodes whose condition holds now, by {@code rule|subject}. */
+    /** The episodes whose condition holds now, by {@code rule|subject}, silenced if acknowledged through any instance. */
     public synchronized Map<String, AlertEngine.Episode> openEpisodes() {
+        refresh();
         return engine.openEpisodes();
     }
 }

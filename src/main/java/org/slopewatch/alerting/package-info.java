@@ -4,7 +4,9 @@
  * implemented by {@link org.slopewatch.alerting.AlertDesk}), the content of a notice
  * ({@link org.slopewatch.alerting.AlertComposer}, with a text of its own for each kind of notice in
  * {@link org.slopewatch.alerting.NoticeText}, every figure from the one status the decision was
- * made on), quiet periods, and delivery from the journal's outbox with one
+ * made on), quiet periods and acknowledgements as the journal holds them, whichever instance on it
+ * took them ({@link org.slopewatch.alerting.DeskState}, re-read when the journal's change counter
+ * moved, before a notice is let out), and delivery from the journal's outbox with one
  * retry policy ({@link org.slopewatch.alerting.AlertDispatcher}); whether each rule can reach the
  * desk with the channels configured ({@link org.slopewatch.alerting.ChannelReach}) and which
  * channels' attempts are failing ({@link org.slopewatch.alerting.ChannelFailures}). Depends on the

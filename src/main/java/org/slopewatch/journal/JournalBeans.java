@@ -109,6 +109,18 @@ public class JournalBeans {
 
     @Produces
     @Singleton
+    DeskChanges deskChanges(AgroalDataSource ds) {
+        return new DeskChanges(ds);
+    }
+
+    @Produces
+    @Singleton
+    WhatIfRows whatIfRows(AgroalDataSource ds, Clock clock) {
+        return new WhatIfRows(ds, clock);
+    }
+
+    @Produces
+    @Singleton
     PolicyVersions policyVersions(AgroalDataSource ds, Clock clock) {
         return new PolicyVersions(ds, clock);
     }

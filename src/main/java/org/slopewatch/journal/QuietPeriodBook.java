@@ -12,7 +12,8 @@ import javax.sql.DataSource;
 /**
  * Quiet periods of a rule or a spread until a time, journalled with who set them and why, and
  * lifted early with who lifted them; every quiet period stays in the book, so the desk rebuilds the
- * active ones after a restart. The journal keeps them in its {@code mute} table, whose columns
+ * active ones after a restart. Setting and lifting count as a change of the desk ({@link DeskChanges})
+ * in the same transaction, so that every instance on the journal notices. The journal keeps them in its {@code mute} table, whose columns
  * predate the name.
  */
 public final class QuietPeriodBook {
@@ -52,10 +53,13 @@ public final class QuietPeriodBook {
                 s.setString(5, JournalWriter.fit(setBy, AlertColumns.BY_CHARS));
                 s.setTimestamp(6, Timestamp.from(now));
                 s.executeUpdate();
+                long key;
                 try (ResultSet keys = s.getGeneratedKeys()) {
                     keys.next();
-                    return keys.getLong(1);
+                    key = keys.getLong(1);
                 }
+                DeskChanges.bump(c);
+                return key;
             }
         }, "alert records");
         return new QuietPeriod(id, kind, target, until, note, setBy, now, null, null);
@@ -64,11 +68,18 @@ public final class QuietPeriodBook {
     /** Ends a quiet period early; false when there is no such quiet period or it was lifted already. */
     public boolean lift(long id, String liftedBy) {
         Timestamp now = Timestamp.from(clock.instant());
-        return sql.update("UPDATE mute SET lifted_at = ?, lifted_by = ? WHERE id = ? AND lifted_at IS NULL", s -> {
-            s.setTimestamp(1, now);
-            s.setString(2, JournalWriter.fit(liftedBy, AlertColumns.BY_CHARS));
-            s.setLong(3, id);
-        }, "alert records") == 1;
+        return sql.transaction(c -> {
+            try (PreparedStatement s = c.prepareStatement("UPDATE mute SET lifted_at = ?, lifted_by = ? WHERE id = ? AND lifted_at IS NULL")) {
+                s.setTimestamp(1, now);
+                s.setString(2, JournalWriter.fit(liftedBy, AlertColumns.BY_CHARS));
+                s.setLong(3, id);
+                if (s.executeUpdate() != 1) {
+                    return false;
+                }
+            }
+            DeskChanges.bump(c);
+            return true;
+        }, "alert records");
     }
 
     /** Every quiet period, newest first. */

@@ -6,7 +6,9 @@
  * with their outbox rows included ({@code AlertRows}); each alert table is read and written
  * through a store with one job ({@code AlertHistory}, {@code DeliveryOutbox},
  * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code QuietPeriodBook}, {@code PolicyVersions}),
- * the fetches of pulled sources through {@code SourceFetches}, and
+ * the counter that every quiet period, lift and acknowledgement moves in its own transaction, so that
+ * every instance on the journal notices ({@code DeskChanges}), the API's what-if jobs, readable from
+ * any instance ({@code WhatIfRows}), the fetches of pulled sources through {@code SourceFetches}, and
  * the API's pages of notices and of a spread's timeline are read by {@code NewestAlerts} and
  * {@code TimelineRows}; all of them go through {@code JournalSql}, the one JDBC helper.
  *

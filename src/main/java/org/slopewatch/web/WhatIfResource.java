@@ -37,7 +37,8 @@ import org.slopewatch.whatif.WhatIfJobs;
 
 /**
  * {@code POST /api/what-if}: another policy's alert rules on the stored history (or on a history
- * sent along), as a background job; {@code GET /api/what-if/{id}}: its state, progress and result.
+ * sent along), as a background job on this instance; {@code GET /api/what-if/{id}}: its state,
+ * progress and result, as the journal holds them, whichever instance runs it ({@link WhatIfJobs}).
  * A what-if builds engines of its own and only reads the journal: live state is never touched.
  */
 @Path("/api/what-if")
@@ -134,7 +135,8 @@ public class WhatIfResource {
 
     @GET
     @Path("/{id}")
-    @Operation(summary = "A what-if's state (running, done or failed), progress in quote messages, and its report when done")
+    @Operation(summary = "A what-if's state (running, done, failed, or abandoned when the instance running it stopped), progress in "
+            + "quote messages, and its report when done; answered by any instance on the journal")
     @APIResponse(responseCode = "200", description = "the job")
     @APIResponse(responseCode = "404", description = "not-found: no what-if with this id (finished ones are kept for a while)")
     public JobView job(@PathParam("id") String id) {

@@ -6,14 +6,19 @@ import java.util.concurrent.atomic.AtomicLong;
 import org.slopewatch.replay.WhatIfReport;
 
 /**
- * One what-if run for the API, as it stands: waiting or running, done with its report, or failed
- * with the reason. Written by its worker, read by any request thread.
+ * One what-if run for the API, as it stands: waiting or running, done with its report, failed
+ * with the reason, or abandoned by an instance that stopped while running it. The instance running
+ * it holds one that its worker writes; every instance reads jobs back from the journal
+ * ({@link WhatIfJobs#find}).
  */
 public final class WhatIfJob {
 
-    /** What the API reports; a job waiting for the worker is already {@code running}, with no start time. */
+    /**
+     * What the API reports; a job waiting for the worker is already {@code running}, with no start
+     * time; {@code abandoned}: still running as last written, but its instance has stopped writing.
+     */
     public enum State {
-        RUNNING, DONE, FAILED;
+        RUNNING, DONE, FAILED, ABANDONED;
 
         public String label() {
             return name().toLowerCase(Locale.ROOT);
@@ -84,6 +89,19 @@ public final class WhatIfJob {
     /** Why it failed, else null. */
     public String error() {
         return error;
+    }
+
+    /** A job as the journal holds it, {@code state} as its reader judged it. */
+    static WhatIfJob stored(String id, String history, State state, long done, long total, Instant submittedAt, Instant startedAt,
+                            Instant finishedAt, WhatIfReport result, String error) {
+        WhatIfJob job = new WhatIfJob(id, history, submittedAt, total);
+        job.done.set(done);
+        job.state = state;
+        job.startedAt = startedAt;
+        job.finishedAt = finishedAt;
+        job.result = result;
+        job.error = error;
+        return job;
     }
 
     boolean finished() {

@@ -3,7 +3,15 @@ package org.slopewatch.ingest.kafka;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.slopewatch.ingest.kafka.KafkaRuns.CURVES;
 
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.net.URI;
+import java.net.http.HttpClient;
+import java.net.http.HttpRequest;
+import java.net.http.HttpResponse;
 import java.time.Duration;
+import java.time.Instant;
+import java.time.temporal.ChronoUnit;
 import java.util.List;
 import java.util.Map;
 import java.util.UUID;
@@ -26,12 +34,19 @@ import org.slopewatch.testsupport.PostgresServer.TestDatabase;
  * <p>"Exactly once" is judged against a third daemon, alone on its own topic and database, that
  * takes the same quotes without interruption: the pair's journal must equal the single
  * instance's, row for row, apart from timestamps and row ids.
+ *
+ * <p>What people set holds on both: a quiet period on the rule {@code first-inversion} is set
+ * through the first instance of the pair (and, the same, on the single instance) before the quotes
+ * come, so the notices the second decides must be held back as the single instance's are, and the
+ * second lists it at once; a what-if accepted by the first is read, done, from the second.
  */
 class TwoInstancesIT {
 
     private static final int BUSINESS_DAYS = 650;        // about 30 months: the scripted cycle inverts, confirms and re-steepens
     private static final int DAYS_PER_SECOND = 30;
     private static final Duration READY = Duration.ofSeconds(120);
+    private static final ObjectMapper JSON = new ObjectMapper();
+    private static final HttpClient HTTP = HttpClient.newHttpClient();
 
     @Test
     void twoInstancesSplitTheCurvesHandThemOverAndJournalAndSendEachNoticeOnce() throws Exception {
@@ -43,15 +58,27 @@ class TwoInstancesIT {
 
         try (TestDatabase pairJournal = PostgresServer.freshDatabase(); TestDatabase soloJournal = PostgresServer.freshDatabase();
              TestHttpReceiver chat = TestHttpReceiver.start();
-             DaemonProcess first = KafkaRuns.start(run + "-pair-1", pairTopic, pairJournal, chat.url("/pair/hook"));
-             DaemonProcess second = KafkaRuns.start(run + "-pair-2", pairTopic, pairJournal, chat.url("/pair/hook"));
-             DaemonProcess solo = KafkaRuns.start(run + "-solo", soloTopic, soloJournal, chat.url("/solo/hook"));
+             Instance first = Instance.start(run + "-pair-1", pairTopic, pairJournal, chat.url("/pair/hook"));
+             Instance second = Instance.start(run + "-pair-2", pairTopic, pairJournal, chat.url("/pair/hook"));
+             Instance solo = Instance.start(run + "-solo", soloTopic, soloJournal, chat.url("/solo/hook"));
              KafkaProducer<String, String> producer = KafkaRuns.producer()) {
-            first.awaitReady(READY);
-            second.awaitReady(READY);
-            solo.awaitReady(READY);
+            first.daemon.awaitReady(READY);
+            second.daemon.awaitReady(READY);
+            solo.daemon.awaitReady(READY);
             Awaitility.await("both instances of the pair hold partitions").atMost(Duration.ofSeconds(90)).until(
-                    () -> first.logText().contains("quotes partitions assigned") && second.logText().contains("quotes partitions assigned"));
+                    () -> first.daemon.logText().contains("quotes partitions assigned")
+                            && second.daemon.logText().contains("quotes partitions assigned"));
+
+            // a quiet period through the first instance only (and the same on the single one): the second
+            // took its partitions, and rebuilt from the journal, before it was set
+            String quiet = JSON.writeValueAsString(Map.of("rule", "first-inversion", "until",
+                    Instant.now().plus(2, ChronoUnit.HOURS).truncatedTo(ChronoUnit.SECONDS).toString(),
+                    "note", "desk offsite", "set_by", "it-desk"));
+            assertThat(first.send("POST", "/api/quiet-periods", quiet).statusCode()).isEqualTo(201);
+            assertThat(solo.send("POST", "/api/quiet-periods", quiet).statusCode()).isEqualTo(201);
+            JsonNode listed = JSON.readTree(second.send("GET", "/api/quiet-periods", null).body());
+            assertThat(listed.findValuesAsText("set_by")).as("the second instance lists the quiet period set through the first")
+                    .containsExactly("it-desk");
 
             int stopAt = quotes.size() * 2 / 5;
             int perTick = CURVES.size() * DAYS_PER_SECOND / 10;
@@ -65,8 +92,9 @@ class TwoInstancesIT {
                     producer.flush();
                     // the split is real: each instance of the pair has taken quotes of its own curves
                     Awaitility.await("each instance of the pair took quotes").atMost(Duration.ofSeconds(60))
-                            .until(() -> accepted(first) > 0 && accepted(second) > 0);
-                    first.stop();
+                            .until(() -> accepted(first.daemon) > 0 && accepted(second.daemon) > 0);
+                    whatIfAcceptedByOneIsReadFromTheOther(first, second);
+                    first.daemon.stop();
                 }
             }
             producer.flush();
@@ -80,11 +108,13 @@ class TwoInstancesIT {
             assertThat(single.transitions()).anyMatch(t -> t.contains(" | CONFIRMED | ")).anyMatch(t -> t.contains(" | RESTEEPENING | "));
             assertThat(single.alerts()).anyMatch(a -> a.startsWith("inversion-confirmed~"));
             // the stopped instance's curves went on: the survivor took them over after the stop
-            assertThat(second.logText().split("quotes partitions assigned", -1).length - 1)
+            assertThat(second.daemon.logText().split("quotes partitions assigned", -1).length - 1)
                     .as("partition assignments seen by the surviving instance").isGreaterThanOrEqualTo(2);
-            assertThat(first.isAlive()).isFalse();
-            // and rebuilt only those: the curves the stopped instance had moved on, from their checkpoints and the quotes after
-            java.util.regex.Matcher tookOver = java.util.regex.Pattern.compile("took over (\\d+) curve\\(s\\)").matcher(second.logText());
+            assertThat(first.daemon.isAlive()).isFalse();
+            // the quiet period was exercised: first-inversion notices were decided and held back
+            assertThat(single.alerts()).anyMatch(a -> a.startsWith("first-inversion~") && a.contains("quiet period 1 on rule first-inversion"));
+                        // and rebuilt only those: the curves the stopped instance had moved on, from their checkpoints and the quotes after
+            java.util.regex.Matcher tookOver = java.util.regex.Pattern.compile("took over (\\d+) curve\\(s\\)").matcher(second.daemon.logText());
             int rebuilt = 0;
             while (tookOver.find()) {
                 rebuilt = Integer.parseInt(tookOver.group(1));
@@ -104,5 +134,51 @@ class TwoInstancesIT {
 
     private static double accepted(DaemonProcess instance) {
         return instance.counter("slopewatch_quotes_accepted_total");
+    }
+
+    /** A what-if on a history sent along, accepted by {@code accepting}: {@code other} answers for it, done. */
+    private static void whatIfAcceptedByOneIsReadFromTheOther(Instance accepting, Instance other) throws Exception {
+        String policy = java.nio.file.Files.readString(java.nio.file.Path.of("src/test/resources/policies/whatif-30-days.yaml"));
+        String csv = "date,3M,10Y\n2026-01-02,5.00,4.80\n2026-01-05,5.00,4.80\n2026-02-02,5.00,4.80\n2026-02-03,5.00,4.90\n";
+        HttpResponse<String> started = accepting.send("POST", "/api/what-if",
+                JSON.writeValueAsString(Map.of("policy", policy, "history", csv, "curve", "GOVT-B")));
+        assertThat(started.statusCode()).as(started.body()).isEqualTo(202);
+        String location = started.headers().firstValue("Location").orElseThrow();
+        String path = URI.create(location).getPath();
+        JsonNode job = Awaitility.await("the other instance reads the what-if done").atMost(Duration.ofSeconds(30))
+                .pollInterval(Duration.ofMillis(200)).until(() -> {
+                    HttpResponse<String> r = other.send("GET", path, null);
+                    assertThat(r.statusCode()).as("GET %s on the instance that did not accept it: %s", path, r.body()).isEqualTo(200);
+                    return JSON.readTree(r.body());
+                }, j -> !j.get("state").asText().equals("running"));
+        assertThat(job.get("state").asText()).as(job.toString()).isEqualTo("done");
+        assertThat(job.get("progress").get("done").asLong()).isEqualTo(4);
+        // the policy tried confirms after 30 days inverted (policies/whatif-30-days.yaml): 2 February, the first date 30 days on
+        assertThat(job.get("result").get("would_fire").findValuesAsText("market_date")).containsExactly("2026-01-02", "2026-02-02");
+    }
+
+    /** A daemon of the test, with the write token its API takes. */
+    private record Instance(DaemonProcess daemon, String token) implements AutoCloseable {
+
+        static Instance start(String name, String topic, TestDatabase journal, String chatUrl) {
+            Map<String, String> settings = KafkaRuns.settings(topic, journal, chatUrl);
+            return new Instance(DaemonProcess.start(name, settings, KafkaRuns.secrets(journal)), DaemonProcess.writeToken(settings));
+        }
+
+        HttpResponse<String> send(String method, String path, String json) throws Exception {
+            HttpRequest.Builder b = HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + daemon.port() + path))
+                    .header("Authorization", "Bearer " + token).timeout(Duration.ofSeconds(30));
+            if (json == null) {
+                b.method(method, HttpRequest.BodyPublishers.noBody());
+            } else {
+                b.header("Content-Type", "application/json").method(method, HttpRequest.BodyPublishers.ofString(json));
+            }
+            return HTTP.send(b.build(), HttpResponse.BodyHandlers.ofString());
+        }
+
+        @Override
+        public void close() {
+            daemon.close();
+        }
     }
 }
