@@ -6,7 +6,8 @@
  * with their outbox rows included ({@code AlertRows}); each alert table is read and written
  * through a store with one job ({@code AlertHistory}, {@code DeliveryOutbox},
  * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code QuietPeriodBook}, {@code PolicyVersions}),
- * the fetches of pulled sources through {@code SourceFetches}, and
+ * the fetches of pulled sources through {@code SourceFetches}, the policy each instance runs and
+ * the reloads the instances accepted through {@code PolicyInForce}, and
  * the API's pages of notices and of a spread's timeline are read by {@code NewestAlerts} and
  * {@code TimelineRows}; all of them go through {@code JournalSql}, the one JDBC helper.
  *
