@@ -8,7 +8,6 @@ import jakarta.ws.rs.core.Context;
 import jakarta.ws.rs.core.MediaType;
 import jakarta.ws.rs.core.UriInfo;
 import java.time.Clock;
-import java.time.Duration;
 import java.time.Instant;
 import java.util.List;
 import org.eclipse.microprofile.openapi.annotations.Operation;
@@ -51,8 +50,8 @@ public class PolicyFleetResource {
                                String waitingFor) {
     }
 
-    /** A page of instances in the order they first appeared, with this instance's id and the heartbeat bound. */
-    public record InstancesView(String thisInstance, Duration liveWithin, List<InstanceView> items, boolean truncated, String next) {
+    /** A page of instances in the order they first appeared, with this instance's id and the heartbeat bound (ISO 8601). */
+    public record InstancesView(String thisInstance, String liveWithin, List<InstanceView> items, boolean truncated, String next) {
     }
 
     @GET
@@ -70,6 +69,6 @@ public class PolicyFleetResource {
         List<InstanceView> items = page.items().stream().map(i -> new InstanceView(i.instance(), i.hash(), i.source(), i.since(),
                 i.lastSeen(), !i.lastSeen().isBefore(bound), i.waitingFor())).toList();
         String next = Paging.next(uri, page);
-        return Paging.answer(new InstancesView(fleet.instance(), config.liveWithin(), items, page.truncated(), next), next);
+        return Paging.answer(new InstancesView(fleet.instance(), config.liveWithin().toString(), items, page.truncated(), next), next);
     }
 }
