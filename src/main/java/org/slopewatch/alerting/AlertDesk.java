@@ -88,6 +88,7 @@ public class AlertDesk implements AlertStage {
      * allowed (its deliveries are recorded as skipped), so that the shipped policy runs on a
      * machine with no chat or mail server or broker. Start-up and every reload ask this.
      */
+    @Override
     public List<String> checkChannels(Policy policy) {
         return checkChannels(policy, channels::channel, channels.streamTransport());
     }
@@ -131,6 +132,7 @@ public class AlertDesk implements AlertStage {
     }
 
     /** A new policy: rules change, open episodes of rules kept by name carry over. */
+    @Override
     public synchronized void replaceRules(Policy policy) {
         warnUnconfigured(policy);
         metrics.expect(policy, channels.names());

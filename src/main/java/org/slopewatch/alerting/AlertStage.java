@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Map;
 import org.slopewatch.journal.JournalEntries;
 import org.slopewatch.monitor.SpreadStatus;
+import org.slopewatch.rules.Policy;
 
 /**
  * What the pipeline asks of the alerting side. Called under the pipeline's lock, so that alerts
@@ -34,6 +35,15 @@ public interface AlertStage {
 
     /** Forgets what it decided in memory and reads it back from the journal (on start, and after a failed write). */
     void rebuild();
+
+    /** What stops {@code policy} from running with this configuration, one line each; a reload asks before it puts a policy in force. */
+    default List<String> checkChannels(Policy policy) {
+        return List.of();
+    }
+
+    /** A reload put {@code policy} in force with the same watch list: its alert rules replace the old ones. */
+    default void replaceRules(Policy policy) {
+    }
 
     /** No alerting: the offline tools and benchmarks of the pipeline alone. */
     AlertStage NONE = new AlertStage() {

@@ -127,6 +127,12 @@ public class JournalBeans {
 
     @Produces
     @Singleton
+    PolicyInForce policyInForce(AgroalDataSource ds, Clock clock) {
+        return new PolicyInForce(ds, clock);
+    }
+
+    @Produces
+    @Singleton
     NewestAlerts newestAlerts(AgroalDataSource ds) {
         return new NewestAlerts(ds);
     }

@@ -8,7 +8,8 @@
  * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code QuietPeriodBook}, {@code PolicyVersions}),
  * the counter that every quiet period, lift and acknowledgement moves in its own transaction, so that
  * every instance on the journal notices ({@code DeskChanges}), the API's what-if jobs, readable from
- * any instance ({@code WhatIfRows}), the fetches of pulled sources through {@code SourceFetches}, and
+ * any instance ({@code WhatIfRows}), the fetches of pulled sources through {@code SourceFetches}, the
+ * policy each instance runs and the reloads the instances accepted through {@code PolicyInForce}, and
  * the API's pages of notices and of a spread's timeline are read by {@code NewestAlerts} and
  * {@code TimelineRows}; all of them go through {@code JournalSql}, the one JDBC helper.
  *

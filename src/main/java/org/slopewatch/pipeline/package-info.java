@@ -3,7 +3,9 @@
  * {@link org.slopewatch.pipeline.QuoteBatch} from any edge, moves the monitors, asks the alerting
  * side for the notices the step calls for, and journals all of it in one transaction. Around it:
  * the batch, reject and outcome types every edge speaks, the listeners (metrics), the policy's
- * hot reload ({@link org.slopewatch.pipeline.PolicyReloader}), the clock-driven tick
+ * hot reload ({@link org.slopewatch.pipeline.PolicyReloader}) and its reach across instances on one
+ * journal ({@link org.slopewatch.pipeline.PolicyFleet}: an accepted reload is journalled and every
+ * other instance takes it from its own file, never content its file does not give), the clock-driven tick
  * ({@link org.slopewatch.pipeline.AlertTicker}) with feed freshness, how each pulled source is doing
  * ({@link org.slopewatch.pipeline.PulledSources}), the as-of rebuild of past
  * states, the bulk load of history through the same step ({@link org.slopewatch.pipeline.HistoryBackfill}),

@@ -6,7 +6,8 @@
  * ({@link org.slopewatch.web.AlertRequests}); an error answer repeats input only as an excerpt.
  * {@code /api/mutes}, the old path of {@code /api/quiet-periods}, is kept for one release with its
  * old fields and {@code Deprecation} and {@code Link} headers ({@link org.slopewatch.web.MuteAliasResource},
- * {@link org.slopewatch.web.Superseded}).
+ * {@link org.slopewatch.web.Superseded}). Which policy each instance on the journal runs is read
+ * from the journal ({@link org.slopewatch.web.PolicyFleetResource}).
  *
  * <p>Every list that grows with the journal is served a page at a time under one contract
  * ({@link org.slopewatch.web.Paging}), keeping the shape it always had; names are snake_case, old

@@ -92,6 +92,8 @@ public class AccessControlTest {
         as(WRITE).get("/api/spreads").then().statusCode(200); // a write token may read too
         as(null).get("/api/alerts").then().statusCode(401);
         as(READ).get("/api/alerts").then().statusCode(200);
+        as(null).get("/api/policy/instances").then().statusCode(401);
+        as(READ).get("/api/policy/instances").then().statusCode(200);
     }
 
     @Test

@@ -227,7 +227,7 @@ class ListPagingTest {
     @Order(6)
     void aLimitOrCursorThatCannotBeReadIsRefusedAndALargeLimitIsTheMaximum() {
         for (String list : List.of("/api/transitions", "/api/spreads/" + A + "/history", "/api/rejects", "/api/alerts", "/api/quiet-periods",
-                "/api/spreads/" + A + "/timeline")) {
+                "/api/spreads/" + A + "/timeline", "/api/policy/instances")) {
             for (String limit : List.of("0", "-3", "ten", "1.5")) {
                 given().get(list + "?limit=" + limit).then().statusCode(400);
             }
@@ -281,6 +281,28 @@ class ListPagingTest {
         String csv = given().urlEncodingEnabled(false).get("/api/export/transitions?asOf=" + middle).then().statusCode(200)
                 .extract().header("X-Slopewatch-As-Of");
         assertThat(csv).isEqualTo(middle.toString());
+    }
+
+    @Test
+    @Order(9)
+    void instancesPageByPageInTheOrderTheyFirstAppeared() throws SQLException {
+        Instant hourAgo = Instant.now().minusSeconds(3600);
+        try (Connection c = journal.getConnection(); PreparedStatement s = c.prepareStatement("INSERT INTO policy_in_force "
+                + "(instance_id, content_hash, source, since, last_seen) VALUES (?, 'h-old', 'p.yaml', ?, ?)")) {
+            for (int i = 0; i < 8; i++) {
+                s.setString(1, "gone-" + (8 - i)); // ids out of alphabetical order: the list follows the rows
+                s.setTimestamp(2, Timestamp.from(hourAgo));
+                s.setTimestamp(3, Timestamp.from(hourAgo));
+                s.executeUpdate();
+            }
+        }
+        List<JsonNode> items = items(walk("/api/policy/instances?limit=3"), "items");
+        assertThat(field(items, "instance")).isEqualTo(column("SELECT instance_id FROM policy_in_force ORDER BY id")).hasSize(9);
+        assertThat(items.get(0).get("live").asBoolean()).as("this daemon, first in, beats").isTrue();
+        assertThat(items.subList(1, 9)).allSatisfy(i -> assertThat(i.get("live").asBoolean()).as("%s", i).isFalse());
+        JsonNode byDefault = walk("/api/policy/instances").get(0);
+        assertThat(byDefault.get("items")).as("100 a page unless limit says otherwise").hasSize(9);
+        assertThat(byDefault.get("this_instance").asText()).isEqualTo(items.get(0).get("instance").asText());
     }
 
     // --- helpers ---

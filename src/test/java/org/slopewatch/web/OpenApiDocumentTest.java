@@ -165,6 +165,9 @@ class OpenApiDocumentTest {
         checkKeys(JSON.readTree(given().get("/api/spreads").asString()), "SpreadView");
         checkKeys(JSON.readTree(given().get("/api/curves").asString()), "CurveView");
         checkKeys(JSON.readTree(given().get("/api/alerts").asString()), "AlertsView");
+        JsonNode instances = JSON.readTree(given().get("/api/policy/instances").asString());
+        checkKeys(instances, "InstancesView");
+        checkKeys(instances.get("items"), "InstanceView");
         checkKeys(JSON.readTree(given().get("/api/spreads/GOVT-B:10Y-3M?asOf=2100-01-01T00:00:00Z").asString()), "SpreadAsOfView");
     }
 

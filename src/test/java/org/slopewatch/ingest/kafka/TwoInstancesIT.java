@@ -9,9 +9,13 @@ import java.net.URI;
 import java.net.http.HttpClient;
 import java.net.http.HttpRequest;
 import java.net.http.HttpResponse;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
 import java.time.Duration;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
+import java.util.HexFormat;
 import java.util.List;
 import java.util.Map;
 import java.util.UUID;
@@ -39,6 +43,9 @@ import org.slopewatch.testsupport.PostgresServer.TestDatabase;
  * through the first instance of the pair (and, the same, on the single instance) before the quotes
  * come, so the notices the second decides must be held back as the single instance's are, and the
  * second lists it at once; a what-if accepted by the first is read, done, from the second.
+ *
+ * <p>A second check: a policy reload asked of one instance of a pair reaches the other, each
+ * reading its own copy of the file as two pods read a mounted ConfigMap.
  */
 class TwoInstancesIT {
 
@@ -130,6 +137,82 @@ class TwoInstancesIT {
                     .allSatisfy((id, n) -> assertThat(n).as(id).isEqualTo(1L));
             assertThat(pairSent.keySet()).isEqualTo(soloSent.keySet());
         }
+    }
+
+    @Test
+    void aReloadAcceptedOnOneInstanceReachesTheOther() throws Exception {
+        String run = "it-" + UUID.randomUUID().toString().substring(0, 8);
+        String topic = "slopewatch.quotes." + run + ".fleet";
+        KafkaRuns.createTopics(topic);
+        Path dir = Files.createDirectories(Path.of("target/it-data/" + run).toAbsolutePath());
+        String before = Files.readString(Path.of("alert-rules/default.yaml"));
+        // a change of content, hence of hash, that every instance can take: the policy itself stays valid
+        String after = before + "\n# the desk's edit of " + run + "\n";
+
+        try (TestDatabase journal = PostgresServer.freshDatabase(); TestHttpReceiver chat = TestHttpReceiver.start()) {
+            Map<String, String> firstSettings = reloadSettings(topic, journal, chat, dir.resolve("first/default.yaml"), before);
+            Map<String, String> secondSettings = reloadSettings(topic, journal, chat, dir.resolve("second/default.yaml"), before);
+            try (DaemonProcess first = DaemonProcess.start(run + "-fleet-1", firstSettings, KafkaRuns.secrets(journal));
+                 DaemonProcess second = DaemonProcess.start(run + "-fleet-2", secondSettings, KafkaRuns.secrets(journal))) {
+                first.awaitReady(READY);
+                second.awaitReady(READY);
+                // the ConfigMap reaches both machines; only the first is asked to reload
+                Files.writeString(dir.resolve("first/default.yaml"), after);
+                Files.writeString(dir.resolve("second/default.yaml"), after);
+                HttpResponse<String> reload = HTTP.send(HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + first.port()
+                        + "/api/policy/reload")).header("Authorization", "Bearer " + DaemonProcess.writeToken(firstSettings))
+                        .POST(HttpRequest.BodyPublishers.noBody()).build(), HttpResponse.BodyHandlers.ofString());
+                assertThat(reload.statusCode()).as(reload.body()).isEqualTo(200);
+                assertThat(reload.body()).contains("\"applied\"").contains(sha256(after));
+
+                // the second checks the journal every second (slopewatch.fleet.check-every below), its own reload check is off
+                long asked = System.nanoTime();
+                Awaitility.await("the second instance runs what the first accepted").atMost(Duration.ofSeconds(10))
+                        .pollInterval(Duration.ofMillis(200)).until(() -> {
+                            String check = policyInForce(second);
+                            return check.contains("\"status\":\"UP\"") && check.contains(sha256(after)) && !check.contains(sha256(before));
+                        });
+                long tookMs = (System.nanoTime() - asked) / 1_000_000;
+                String well = policyInForce(second);
+                assertThat(well).as("both live instances named with the new hash: %s", well)
+                        .contains("\"live instances\":2").doesNotContain(sha256(before)).contains(sha256(after));
+                assertThat(second.logText()).contains("reloaded: accepted on another instance (sha256 " + sha256(after));
+                System.out.printf("the second instance took the reload %d ms after the first answered (checks every 1 s)%n", tookMs);
+            }
+        }
+    }
+
+    private static final HttpClient HTTP = HttpClient.newHttpClient();
+
+    private static Map<String, String> reloadSettings(String topic, TestDatabase journal, TestHttpReceiver chat, Path policy, String text)
+            throws Exception {
+        Files.createDirectories(policy.getParent());
+        Files.writeString(policy, text);
+        // the chat URL is a secret, masked in every log line, so its path holds no word the test looks for in the log
+        Map<String, String> s = KafkaRuns.settings(topic, journal, chat.url("/fleet/hook"));
+        s.put("slopewatch.ingest.policy", policy.toString());
+        s.put("slopewatch.alerts.reload-check", "0s");
+        s.put("slopewatch.fleet.check-every", "1s");
+        s.put("slopewatch.fleet.live-within", "10s");
+        return s;
+    }
+
+    /** The {@code policy in force} check of {@code /q/health/well} as JSON text: status and data. */
+    private static String policyInForce(DaemonProcess instance) throws Exception {
+        String body = HTTP.send(HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + instance.port() + "/q/health/well")).build(),
+                HttpResponse.BodyHandlers.ofString()).body();
+        com.fasterxml.jackson.databind.JsonNode checks = new com.fasterxml.jackson.databind.ObjectMapper().readTree(body).path("checks");
+        for (com.fasterxml.jackson.databind.JsonNode check : checks) {
+            if ("policy in force".equals(check.path("name").asText())) {
+                return check.toString();
+            }
+        }
+        throw new AssertionError("no policy in force check in " + body);
+    }
+
+    /** SHA-256 (FIPS 180-4) of the text's UTF-8 bytes, by the JDK. */
+    private static String sha256(String text) throws Exception {
+        return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(text.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
     }
 
     private static double accepted(DaemonProcess instance) {
