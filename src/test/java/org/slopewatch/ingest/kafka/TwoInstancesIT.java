@@ -182,8 +182,6 @@ class TwoInstancesIT {
         }
     }
 
-    private static final HttpClient HTTP = HttpClient.newHttpClient();
-
     private static Map<String, String> reloadSettings(String topic, TestDatabase journal, TestHttpReceiver chat, Path policy, String text)
             throws Exception {
         Files.createDirectories(policy.getParent());
