@@ -158,6 +158,8 @@ public final class CurveBook {
             throw new IOException("snapshot count out of range: " + n);
         }
         NavigableMap<LocalDate, CurveSnapshot> byDate = new TreeMap<>();
+        // one Tenor per spelling, as the journal's reader shares them: a curve's snapshots repeat the same dozen
+        Map<String, Tenor> tenorsRead = new HashMap<>();
         for (int i = 0; i < n; i++) {
             LocalDate date = LocalDate.ofEpochDay(in.readLong());
             int size = in.readInt();
@@ -167,8 +169,9 @@ public final class CurveBook {
             Tenor[] tenors = new Tenor[size];
             double[] yields = new double[size];
             for (int j = 0; j < size; j++) {
+                String text = in.readUTF();
                 try {
-                    tenors[j] = Tenor.parse(in.readUTF());
+                    tenors[j] = tenorsRead.computeIfAbsent(text, Tenor::parse);
                 } catch (IllegalArgumentException e) {
                     throw new IOException("not a tenor", e);
                 }

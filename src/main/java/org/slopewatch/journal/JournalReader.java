@@ -170,8 +170,7 @@ public final class JournalReader {
     /** The highest sequence number of each curve's quotes: what tells whether another instance moved a curve on. */
     public Map<String, Long> lastSeqByCurve() {
         Map<String, Long> out = new HashMap<>();
-        sql.query("SELECT curve, MAX(seq) FROM quote GROUP BY curve", JournalSql.NONE, rs -> out.put(rs.getString(1), rs.getLong(2)),
-                "quotes");
+        lastQuotes((curve, seq, recorded) -> out.put(curve, seq), "each curve's latest quote");
         return out;
     }
 
@@ -184,15 +183,13 @@ public final class JournalReader {
         if (curves.isEmpty()) {
             return out;
         }
-        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement("SELECT MAX(seq) FROM quote WHERE curve = ?")) {
+        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(
+                "SELECT seq FROM quote WHERE curve = ? ORDER BY curve DESC, seq DESC FETCH FIRST 1 ROWS ONLY")) {
             for (String curve : curves) {
                 s.setString(1, curve);
                 try (ResultSet rs = s.executeQuery()) {
                     if (rs.next()) {
-                        long seq = rs.getLong(1);
-                        if (!rs.wasNull()) {
-                            out.put(curve, seq);
-                        }
+                        out.put(curve, rs.getLong(1));
                     }
                 }
             }
@@ -266,15 +263,46 @@ public final class JournalReader {
     /** When each curve's latest quote was journalled, by whichever instance: where a feed's quiet time starts. */
     public Map<String, Instant> lastQuoteRecorded() {
         Map<String, Instant> out = new HashMap<>();
+        lastQuotes((curve, seq, recorded) -> out.put(curve, recorded), "when each curve's latest quote was journalled");
+        return out;
+    }
+
+    @FunctionalInterface
+    private interface LastQuote {
+        void of(String curve, long seq, Instant recorded);
+    }
+
+    /**
+     * Each curve's latest quote (highest sequence number; a curve's quotes are numbered in the order
+     * they were processed, by whichever instance held it), found by walking the {@code (curve, seq)}
+     * index from one curve to the next and reading each curve's last entry: a few index seeks per
+     * curve, where a grouping would read every quote of a long journal at each start.
+     */
+    private void lastQuotes(LastQuote sink, String what) {
         try (Connection c = dataSource.getConnection();
-             PreparedStatement s = c.prepareStatement("SELECT curve, MAX(recorded_at) FROM quote GROUP BY curve");
-             ResultSet rs = s.executeQuery()) {
-            while (rs.next()) {
-                out.put(rs.getString(1), rs.getTimestamp(2).toInstant());
+             PreparedStatement first = c.prepareStatement("SELECT curve FROM quote ORDER BY curve FETCH FIRST 1 ROWS ONLY");
+             PreparedStatement next = c.prepareStatement("SELECT curve FROM quote WHERE curve > ? ORDER BY curve FETCH FIRST 1 ROWS ONLY");
+             PreparedStatement last = c.prepareStatement("SELECT seq, recorded_at FROM quote WHERE curve = ? "
+                     + "ORDER BY curve DESC, seq DESC FETCH FIRST 1 ROWS ONLY")) {
+            String curve = firstString(first);
+            while (curve != null) {
+                last.setString(1, curve);
+                try (ResultSet rs = last.executeQuery()) {
+                    if (rs.next()) {
+                        sink.of(curve, rs.getLong(1), rs.getTimestamp(2).toInstant());
+                    }
+                }
+                next.setString(1, curve);
+                curve = firstString(next);
             }
-            return out;
         } catch (SQLException e) {
-            throw new JournalException("cannot read when each curve's latest quote was journalled", e);
+            throw new JournalException("cannot read " + what, e);
+        }
+    }
+
+    private static String firstString(PreparedStatement s) throws SQLException {
+        try (ResultSet rs = s.executeQuery()) {
+            return rs.next() ? rs.getString(1) : null;
         }
     }
 
