@@ -37,6 +37,8 @@ final class NssProfile {
     // A column whose part orthogonal to the others is this small against its length adds nothing
     // they cannot express (as when τ2 = τ1); its beta is held at zero instead of blowing up.
     static final double DEPENDENT = 1e-10;
+    // below this x the loading's quotient loses precision and its series takes over
+    private static final double SERIES_BELOW = 1e-3;
 
     private final double[] years;
     private final double[] yields;
@@ -55,8 +57,13 @@ final class NssProfile {
     private final double[] dHump1;   // ∂(g1 − e1)/∂ln τ1
     private final double[] dHump2;   // ∂(g2 − e2)/∂ln τ2
     private final double[] w;
-    private final double[] z;
-    private final double[] v;
+    // per profile: 1/t, √n, 1/√n, 1/n, the yields less their mean and Σy/√n (Qᵀy's constant entry)
+    private final double[] inverseYears;
+    private final double rootN;
+    private final double inverseRootN;
+    private final double inverseN;
+    private final double[] centredYields;
+    private final double yieldSumScaled;
 
     NssProfile(double[] years, double[] yields, boolean svensson) {
         this.years = years;
@@ -72,14 +79,36 @@ final class NssProfile {
         this.q = new double[p][n];
         this.r = new double[p][p];
         this.active = new boolean[p];
+        active[0] = true; // the constant column, never dependent on nothing
         this.beta = new double[p];
         this.residual = new double[n];
         this.dSlope = new double[n];
         this.dHump1 = new double[n];
         this.dHump2 = new double[n];
         this.w = new double[p];
-        this.z = new double[p];
-        this.v = new double[n];
+        this.inverseYears = new double[n];
+        for (int i = 0; i < n; i++) {
+            inverseYears[i] = 1.0 / years[i];
+        }
+        this.rootN = Math.sqrt(n);
+        this.inverseRootN = 1.0 / rootN;
+        this.inverseN = 1.0 / n;
+        double sum = 0.0;
+        for (double y : yields) {
+            sum += y;
+        }
+        this.yieldSumScaled = sum * inverseRootN;
+        this.centredYields = yields.clone();
+        for (int pass = 0; pass < 2; pass++) {
+            double rest = 0.0;
+            for (double y : centredYields) {
+                rest += y;
+            }
+            double mean = rest * inverseN;
+            for (int i = 0; i < n; i++) {
+                centredYields[i] -= mean;
+            }
+        }
     }
 
     /** Number of nonlinear parameters: the log decay parameters. */
@@ -108,10 +137,7 @@ final class NssProfile {
      * the last {@link #cost} call, into {@code out} (n rows, {@link #parameterCount()} columns).
      */
     void jacobian(double[][] out) {
-        jacobianColumn(out, 0, beta[1], dSlope, beta[2], dHump1, 1, 2);
-        if (svensson) {
-            jacobianColumn(out, 1, 0.0, null, beta[3], dHump2, -1, 3);
-        }
+        fillJacobian(out);
     }
 
     /** The residuals y − ŷ at the point of the last {@link #cost} call (shared scratch: do not keep). */
@@ -152,32 +178,50 @@ final class NssProfile {
      * Fills the design, its QR factors, the betas, the residuals and the column derivatives.
      * Column k of A goes into q[k] and is orthogonalised in place (Gram–Schmidt, two passes,
      * since the NSS columns can be close to collinear and one pass loses orthogonality).
+     *
+     * <p>Written for the number of operations, since it runs at every step of every search: the
+     * first column is the constant, so its unit vector is 1/√n everywhere and projecting on it is
+     * taking the mean (q[0] is never read); divisions by τ, t and a column's length are
+     * multiplications by reciprocals; the yields' own mean is taken out once per profile.
      */
     private void solve(double tau1, double tau2) {
+        double inverse1 = 1.0 / tau1;
+        double inverse2 = 1.0 / tau2;
         for (int i = 0; i < n; i++) {
-            double x1 = years[i] / tau1;
+            double x1 = years[i] * inverse1;
             double e1 = Math.exp(-x1);
-            double g1 = loading(x1, e1);
-            q[0][i] = 1.0;
+            double g1 = x1 < SERIES_BELOW ? series(x1) : (1.0 - e1) * tau1 * inverseYears[i];
+            double h1 = g1 - e1;
             q[1][i] = g1;
-            q[2][i] = g1 - e1;
-            dSlope[i] = g1 - e1;
-            dHump1[i] = g1 - e1 - x1 * e1;
+            q[2][i] = h1;
+            dSlope[i] = h1;
+            dHump1[i] = h1 - x1 * e1;
             if (svensson) {
-                double x2 = years[i] / tau2;
+                double x2 = years[i] * inverse2;
                 double e2 = Math.exp(-x2);
-                q[3][i] = loading(x2, e2) - e2;
-                dHump2[i] = q[3][i] - x2 * e2;
+                double h2 = (x2 < SERIES_BELOW ? series(x2) : (1.0 - e2) * tau2 * inverseYears[i]) - e2;
+                q[3][i] = h2;
+                dHump2[i] = h2 - x2 * e2;
             }
         }
-        for (int k = 0; k < p; k++) {
+        r[0][0] = rootN;
+        for (int k = 1; k < p; k++) {
             double[] col = q[k];
             double length = norm(col);
             for (int j = 0; j < k; j++) {
                 r[j][k] = 0.0;
             }
             for (int pass = 0; pass < 2; pass++) {
-                for (int j = 0; j < k; j++) {
+                double sum = 0.0;
+                for (int i = 0; i < n; i++) {
+                    sum += col[i];
+                }
+                r[0][k] += sum * inverseRootN;
+                double mean = sum * inverseN;
+                for (int i = 0; i < n; i++) {
+                    col[i] -= mean;
+                }
+                for (int j = 1; j < k; j++) {
                     if (active[j]) {
                         double c = dot(q[j], col);
                         r[j][k] += c;
@@ -188,14 +232,16 @@ final class NssProfile {
             double rest = norm(col);
             active[k] = rest > DEPENDENT * length;
             r[k][k] = active[k] ? rest : 0.0;
+            double scale = active[k] ? 1.0 / rest : 0.0;
             for (int i = 0; i < n; i++) {
-                col[i] = active[k] ? col[i] / rest : 0.0;
+                col[i] *= scale;
             }
         }
-        // betas from R·β = Qᵀy; residual = y − QQᵀy
-        System.arraycopy(yields, 0, residual, 0, n);
-        for (int k = 0; k < p; k++) {
-            w[k] = dot(q[k], yields);
+        // betas from R·β = Qᵀy; residual = y − QQᵀy, from the centred yields (Qᵀy's first entry is kept)
+        w[0] = yieldSumScaled;
+        System.arraycopy(centredYields, 0, residual, 0, n);
+        for (int k = 1; k < p; k++) {
+            w[k] = dot(q[k], centredYields);
             axpy(-w[k], q[k], residual);
         }
         for (int k = p - 1; k >= 0; k--) {
@@ -212,43 +258,71 @@ final class NssProfile {
     }
 
     /**
-     * One column of the Jacobian: v = (∂A/∂u)·β is c1·d1 + c2·d2; the columns of A it touches are
-     * k1 and k2 (k1 = −1 when only one is touched).
+     * Both columns of the Jacobian in two sweeps over the points. For ln τ1, v = β1·∂g1 + β2·∂h1
+     * touches columns 1 and 2 of A; for ln τ2, v = β3·∂h2 touches column 3. P⊥·v is v less its
+     * mean less its projections on q1..q3, all gathered in the first sweep; z = R⁻ᵀ·(∂A/∂u)ᵀ·r
+     * has no entry on the constant column (r sums to zero), so Q·z needs only q1..q3.
      */
-    private void jacobianColumn(double[][] jacobian, int col, double c1, double[] d1, double c2, double[] d2, int k1, int k2) {
+    private void fillJacobian(double[][] jacobian) {
+        double b1 = beta[1];
+        double b2 = beta[2];
+        double b3 = svensson ? beta[3] : 0.0;
+        double sum1 = 0.0;
+        double sum2 = 0.0;
+        double q1v1 = 0.0;
+        double q2v1 = 0.0;
+        double q3v1 = 0.0;
+        double q3v2 = 0.0;
+        double q1v2 = 0.0;
+        double q2v2 = 0.0;
+        double w1 = 0.0;
+        double w2 = 0.0;
+        double w3 = 0.0;
+        double[] q1 = q[1];
+        double[] q2 = q[2];
+        double[] q3 = svensson ? q[3] : q[2];
         for (int i = 0; i < n; i++) {
-            v[i] = c2 * d2[i] + (d1 == null ? 0.0 : c1 * d1[i]);
+            double v1 = b1 * dSlope[i] + b2 * dHump1[i];
+            double v2 = b3 * dHump2[i];
+            sum1 += v1;
+            sum2 += v2;
+            q1v1 += q1[i] * v1;
+            q2v1 += q2[i] * v1;
+            q3v1 += q3[i] * v1;
+            q1v2 += q1[i] * v2;
+            q2v2 += q2[i] * v2;
+            q3v2 += q3[i] * v2;
+            w1 += dSlope[i] * residual[i];
+            w2 += dHump1[i] * residual[i];
+            w3 += dHump2[i] * residual[i];
         }
-        // P⊥·v
-        for (int k = 0; k < p; k++) {
-            axpy(-dot(q[k], v), q[k], v);
+        // z = R⁻ᵀ·w, forward substitution over the active columns; w has no entry on column 0
+        double z1 = active[1] ? w1 / r[1][1] : 0.0;
+        double z2 = active[2] ? (w2 - r[1][2] * z1) / r[2][2] : 0.0;
+        double z3 = 0.0;
+        double u3 = 0.0;
+        if (svensson) {
+            z3 = active[3] ? (-r[1][3] * z1 - r[2][3] * z2) / r[3][3] : 0.0;
+            u3 = active[3] ? w3 / r[3][3] : 0.0;
+        } else {
+            q3v1 = 0.0;
         }
-        // z = R⁻ᵀ·w with w = (∂A/∂u)ᵀ·r, non-zero only in the touched columns
-        for (int k = 0; k < p; k++) {
-            w[k] = 0.0;
-        }
-        if (k1 >= 0) {
-            w[k1] = dot(d1, residual);
-        }
-        w[k2] = dot(d2, residual);
-        for (int k = 0; k < p; k++) {
-            if (!active[k]) {
-                z[k] = 0.0;
-                continue;
-            }
-            double s = w[k];
-            for (int j = 0; j < k; j++) {
-                s -= r[j][k] * z[j];
-            }
-            z[k] = s / r[k][k];
-        }
+        double mean1 = sum1 * inverseN;
+        double mean2 = sum2 * inverseN;
         for (int i = 0; i < n; i++) {
-            double qz = 0.0;
-            for (int k = 0; k < p; k++) {
-                qz += q[k][i] * z[k];
+            double q3i = svensson ? q3[i] : 0.0;
+            double v1 = b1 * dSlope[i] + b2 * dHump1[i];
+            jacobian[i][0] = v1 - mean1 - q1v1 * q1[i] - q2v1 * q2[i] - q3v1 * q3i
+                    + z1 * q1[i] + z2 * q2[i] + z3 * q3i;
+            if (svensson) {
+                double v2 = b3 * dHump2[i];
+                jacobian[i][1] = v2 - mean2 - q1v2 * q1[i] - q2v2 * q2[i] - q3v2 * q3i + u3 * q3i;
             }
-            jacobian[i][col] = v[i] + qz;
         }
+    }
+
+    private static double series(double x) {
+        return 1 - x / 2 + x * x / 6 - x * x * x / 24; // error below x⁴/120
     }
 
     /**
@@ -258,10 +332,7 @@ final class NssProfile {
      * 1e-16/x relative, under 1e-13 above the series' range, far below anything a fit can show.
      */
     static double loading(double x, double exp) {
-        if (x < 1e-3) {
-            return 1 - x / 2 + x * x / 6 - x * x * x / 24; // error below x⁴/120
-        }
-        return (1.0 - exp) / x;
+        return x < SERIES_BELOW ? series(x) : (1.0 - exp) / x;
     }
 
     static double dot(double[] a, double[] b) {

@@ -6,6 +6,7 @@ import java.util.Arrays;
 import java.util.Locale;
 import org.slopewatch.curve.BaselineNssFitter;
 import org.slopewatch.curve.CurveSnapshot;
+import org.slopewatch.curve.NssFit;
 import org.slopewatch.curve.NssFitter;
 
 /**
@@ -13,7 +14,9 @@ import org.slopewatch.curve.NssFitter;
  * instead of wall time: microseconds of CPU per fit, for the fit and for the baseline fit, in
  * alternating passes over the same 1,000 curves, so that a busy neighbour slows both. On a shared
  * machine a thread waiting for a core loses wall time but not CPU time, so the ratio moves less
- * with the load than JMH's. Also checks, before timing, that both fits agree on every curve.
+ * with the load than JMH's. Also checks, before timing, that the fit is no worse than the baseline on
+ * any curve (sum of squares within 1e-5 relative, the slack NssFitterAgainstBaselineTest allows its
+ * flattest fits), and counts the curves where it is lower.
  *
  * <p>Usage: {@code NssFitCpuTime [WARMUP [PASSES]]}; prints one line per measured pass and the medians.
  */
@@ -29,11 +32,16 @@ public final class NssFitCpuTime {
         NssFitterBench bench = new NssFitterBench();
         bench.setUp();
         CurveSnapshot[] curves = bench.randomSnapshots();
+        int lower = 0;
         for (CurveSnapshot curve : curves) {
-            if (!NssFitter.fitDetailed(curve).equals(BaselineNssFitter.fitDetailed(curve))) {
-                throw new IllegalStateException("the fits differ on " + curve);
+            NssFit now = NssFitter.fitDetailed(curve).orElseThrow();
+            NssFit before = BaselineNssFitter.fitDetailed(curve).orElseThrow();
+            if (now.rmseBp() > before.rmseBp() * (1 + 5e-6) + 1e-6) { // RMSE: half the sum of squares' slack
+                throw new IllegalStateException("the fit is worse than the baseline on " + curve);
             }
+            lower += now.rmseBp() < before.rmseBp() * (1 - 5e-7) ? 1 : 0;
         }
+        System.out.printf(Locale.ROOT, "%d curves: the fit no worse than the baseline on any, lower on %d%n", curves.length, lower);
         double[] fit = new double[passes];
         double[] baseline = new double[passes];
         double sink = 0;
