@@ -36,6 +36,7 @@ final class DecayGrid {
 
     private final int n;
     private final boolean svensson;
+    private final Exponentials exponentials;
     private final double[] logTau;
     private final double[][] hump;
     // per τ1 (first index): the three orthonormalised columns and which of them are independent
@@ -48,6 +49,7 @@ final class DecayGrid {
     DecayGrid(double[] years, double minLogTau, double maxLogTau, boolean svensson) {
         this.n = years.length;
         this.svensson = svensson;
+        this.exponentials = Exponentials.of(years);
         int points = svensson ? SVENSSON_POINTS : NELSON_SIEGEL_POINTS;
         this.logTau = new double[points];
         double[][] slope = new double[points][n];
@@ -89,6 +91,11 @@ final class DecayGrid {
 
     boolean svensson() {
         return svensson;
+    }
+
+    /** How the fit gets the exponentials of these maturities, kept here with the rest of the tenor set's work. */
+    Exponentials exponentials() {
+        return exponentials;
     }
 
     /**

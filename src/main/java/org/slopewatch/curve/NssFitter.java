@@ -71,9 +71,9 @@ public final class NssFitter {
             }
         }
         boolean svensson = n >= SVENSSON_MIN_POINTS;
-        NssProfile profile = new NssProfile(years, yields, svensson);
+        DecayGrid grid = DecayGrids.of(years, svensson);
+        NssProfile profile = new NssProfile(years, yields, svensson, grid.exponentials());
         DecaySearch.Minimum best = null;
-        DecayGrid grid = DecayGrids.of(profile, years, svensson);
         for (double[] start : grid.starts(yields, MAX_STARTS)) {
             DecaySearch.Minimum minimum = DecaySearch.minimise(profile, start, maxEvaluations);
             if (minimum != null && (best == null || minimum.cost() < best.cost())) {

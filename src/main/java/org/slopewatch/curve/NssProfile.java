@@ -46,7 +46,7 @@ final class NssProfile {
     private final int n;
     private final int p;
     private final double minLogTau;
-    private final double maxLogTau = Math.log(MAX_TAU);
+    private final double maxLogTau = highestLogTau();
 
     private final double[][] q;
     private final double[][] r;
@@ -59,6 +59,9 @@ final class NssProfile {
     private final double[] w;
     // per profile: 1/t, √n, 1/√n, 1/n, the yields less their mean and Σy/√n (Qᵀy's constant entry)
     private final double[] inverseYears;
+    private final Exponentials exponentials;
+    private final double[] exp1;
+    private final double[] exp2;
     private final double rootN;
     private final double inverseRootN;
     private final double inverseN;
@@ -66,16 +69,20 @@ final class NssProfile {
     private final double yieldSumScaled;
 
     NssProfile(double[] years, double[] yields, boolean svensson) {
+        this(years, yields, svensson, Exponentials.of(years));
+    }
+
+    /** With the exponentials' plan of these maturities, as kept by their {@link DecayGrid}. */
+    NssProfile(double[] years, double[] yields, boolean svensson, Exponentials exponentials) {
         this.years = years;
+        this.exponentials = exponentials;
+        this.exp1 = new double[years.length];
+        this.exp2 = new double[years.length];
         this.yields = yields;
         this.svensson = svensson;
         this.n = years.length;
         this.p = svensson ? 4 : 3;
-        double shortest = Double.POSITIVE_INFINITY;
-        for (double t : years) {
-            shortest = Math.min(shortest, t);
-        }
-        this.minLogTau = Math.log(Math.max(MIN_TAU, shortest / HUMP_PEAK_X));
+        this.minLogTau = lowestLogTau(years);
         this.q = new double[p][n];
         this.r = new double[p][p];
         this.active = new boolean[p];
@@ -161,6 +168,20 @@ final class NssProfile {
         }
     }
 
+    /** The lower bound on ln τ for these maturities (see the class comment). */
+    static double lowestLogTau(double[] years) {
+        double shortest = Double.POSITIVE_INFINITY;
+        for (double t : years) {
+            shortest = Math.min(shortest, t);
+        }
+        return Math.log(Math.max(MIN_TAU, shortest / HUMP_PEAK_X));
+    }
+
+    /** The upper bound on ln τ. */
+    static double highestLogTau() {
+        return Math.log(MAX_TAU);
+    }
+
     double minLogTau() {
         return minLogTau;
     }
@@ -187,9 +208,13 @@ final class NssProfile {
     private void solve(double tau1, double tau2) {
         double inverse1 = 1.0 / tau1;
         double inverse2 = 1.0 / tau2;
+        exponentials.fill(inverse1, exp1);
+        if (svensson) {
+            exponentials.fill(inverse2, exp2);
+        }
         for (int i = 0; i < n; i++) {
             double x1 = years[i] * inverse1;
-            double e1 = Math.exp(-x1);
+            double e1 = exp1[i];
             double g1 = x1 < SERIES_BELOW ? series(x1) : (1.0 - e1) * tau1 * inverseYears[i];
             double h1 = g1 - e1;
             q[1][i] = g1;
@@ -198,7 +223,7 @@ final class NssProfile {
             dHump1[i] = h1 - x1 * e1;
             if (svensson) {
                 double x2 = years[i] * inverse2;
-                double e2 = Math.exp(-x2);
+                double e2 = exp2[i];
                 double h2 = (x2 < SERIES_BELOW ? series(x2) : (1.0 - e2) * tau2 * inverseYears[i]) - e2;
                 q[3][i] = h2;
                 dHump2[i] = h2 - x2 * e2;
@@ -206,43 +231,31 @@ final class NssProfile {
         }
         r[0][0] = rootN;
         for (int k = 1; k < p; k++) {
-            double[] col = q[k];
-            double length = norm(col);
-            for (int j = 0; j < k; j++) {
-                r[j][k] = 0.0;
-            }
-            for (int pass = 0; pass < 2; pass++) {
-                double sum = 0.0;
-                for (int i = 0; i < n; i++) {
-                    sum += col[i];
-                }
-                r[0][k] += sum * inverseRootN;
-                double mean = sum * inverseN;
-                for (int i = 0; i < n; i++) {
-                    col[i] -= mean;
-                }
-                for (int j = 1; j < k; j++) {
-                    if (active[j]) {
-                        double c = dot(q[j], col);
-                        r[j][k] += c;
-                        axpy(-c, q[j], col);
-                    }
-                }
-            }
-            double rest = norm(col);
-            active[k] = rest > DEPENDENT * length;
-            r[k][k] = active[k] ? rest : 0.0;
-            double scale = active[k] ? 1.0 / rest : 0.0;
-            for (int i = 0; i < n; i++) {
-                col[i] *= scale;
-            }
+            orthonormalise(k);
         }
         // betas from R·β = Qᵀy; residual = y − QQᵀy, from the centred yields (Qᵀy's first entry is kept)
         w[0] = yieldSumScaled;
-        System.arraycopy(centredYields, 0, residual, 0, n);
-        for (int k = 1; k < p; k++) {
-            w[k] = dot(q[k], centredYields);
-            axpy(-w[k], q[k], residual);
+        double w1 = 0.0;
+        double w2 = 0.0;
+        double w3 = 0.0;
+        double[] q1 = q[1];
+        double[] q2 = q[2];
+        double[] q3 = q[p - 1];
+        for (int i = 0; i < n; i++) {
+            double y = centredYields[i];
+            w1 += q1[i] * y;
+            w2 += q2[i] * y;
+            w3 += q3[i] * y;
+        }
+        w[1] = w1;
+        w[2] = w2;
+        if (!svensson) {
+            w3 = 0.0;
+        } else {
+            w[3] = w3;
+        }
+        for (int i = 0; i < n; i++) {
+            residual[i] = centredYields[i] - w1 * q1[i] - w2 * q2[i] - (svensson ? w3 * q3[i] : 0.0);
         }
         for (int k = p - 1; k >= 0; k--) {
             if (!active[k]) {
@@ -254,6 +267,62 @@ final class NssProfile {
                 s -= r[k][j] * beta[j];
             }
             beta[k] = s / r[k][k];
+        }
+    }
+
+    /**
+     * Column k of the design, in q[k], made orthogonal to the constant and to q[1..k−1] and of
+     * unit length, its coefficients into R. Classical Gram–Schmidt applied twice ("twice is
+     * enough": as stable as the modified form applied twice), which gathers every projection of a
+     * pass in one sweep over the points and subtracts them in a second.
+     */
+    private void orthonormalise(int k) {
+        double[] col = q[k];
+        double[] q1 = q[1];
+        double[] q2 = q[2];
+        double squared = 0.0;
+        for (int i = 0; i < n; i++) {
+            squared += col[i] * col[i];
+        }
+        double length = Math.sqrt(squared);
+        for (int j = 0; j < k; j++) {
+            r[j][k] = 0.0;
+        }
+        for (int pass = 0; pass < 2; pass++) {
+            double sum = 0.0;
+            double c1 = 0.0;
+            double c2 = 0.0;
+            for (int i = 0; i < n; i++) {
+                double v = col[i];
+                sum += v;
+                c1 += q1[i] * v;
+                c2 += q2[i] * v;
+            }
+            // only the earlier, independent columns count; q1 and q2 are zero where inactive
+            c1 = k > 1 && active[1] ? c1 : 0.0;
+            c2 = k > 2 && active[2] ? c2 : 0.0;
+            r[0][k] += sum * inverseRootN;
+            if (k > 1) {
+                r[1][k] += c1;
+            }
+            if (k > 2) {
+                r[2][k] += c2;
+            }
+            double mean = sum * inverseN;
+            for (int i = 0; i < n; i++) {
+                col[i] -= mean + c1 * q1[i] + c2 * q2[i];
+            }
+        }
+        double restSquared = 0.0;
+        for (int i = 0; i < n; i++) {
+            restSquared += col[i] * col[i];
+        }
+        double rest = Math.sqrt(restSquared);
+        active[k] = rest > DEPENDENT * length;
+        r[k][k] = active[k] ? rest : 0.0;
+        double scale = active[k] ? 1.0 / rest : 0.0;
+        for (int i = 0; i < n; i++) {
+            col[i] *= scale;
         }
     }
 

@@ -57,8 +57,22 @@ public final class BaselineNssFitter {
         return fitDetailed(snapshot, MAX_EVALUATIONS);
     }
 
+    /**
+     * The fit as it was before its descent changed: this baseline's descent from the starts of the
+     * decay grid kept per set of maturities ({@link DecayGrids}), which are this baseline's starts
+     * to the last bit (NssFitterAgainstBaselineTest checked that while the two were one). For the
+     * benchmark of the descent alone.
+     */
+    public static Optional<NssFit> fitDetailedWithKeptGrid(CurveSnapshot snapshot) {
+        return fitDetailed(snapshot, MAX_EVALUATIONS, true);
+    }
+
     /** With the evaluation cap as a parameter, so that a test can make every start fail. */
     static Optional<NssFit> fitDetailed(CurveSnapshot snapshot, int maxEvaluations) {
+        return fitDetailed(snapshot, maxEvaluations, false);
+    }
+
+    private static Optional<NssFit> fitDetailed(CurveSnapshot snapshot, int maxEvaluations, boolean keptGrid) {
         int n = snapshot.size();
         if (n < MIN_POINTS) {
             return Optional.empty();
@@ -75,7 +89,9 @@ public final class BaselineNssFitter {
         boolean svensson = n >= SVENSSON_MIN_POINTS;
         BaselineNssProfile profile = new BaselineNssProfile(years, yields, svensson);
         BaselineDecaySearch.Minimum best = null;
-        for (double[] start : BaselineDecayGrid.starts(profile, years, yields, svensson, MAX_STARTS)) {
+        List<double[]> starts = keptGrid ? DecayGrids.of(years, svensson).starts(yields, MAX_STARTS)
+                : BaselineDecayGrid.starts(profile, years, yields, svensson, MAX_STARTS);
+        for (double[] start : starts) {
             BaselineDecaySearch.Minimum minimum = BaselineDecaySearch.minimise(profile, start, maxEvaluations);
             if (minimum != null && (best == null || minimum.cost() < best.cost())) {
                 best = minimum;
