@@ -198,12 +198,14 @@ final class DecayGrid {
         if (!Double.isFinite(here)) {
             return false;
         }
-        for (int da = -1; da <= 1; da++) {
-            for (int db = -1; db <= 1; db++) {
-                int na = a + da;
-                int nb = b + db;
-                if ((da != 0 || db != 0) && na >= 0 && na < cost.length && nb >= 0 && nb < cost[0].length
-                        && cost[na][nb] < here) {
+        // the cell itself is among those compared: it is never lower than itself
+        int lastRow = Math.min(a + 1, cost.length - 1);
+        int firstColumn = Math.max(b - 1, 0);
+        int lastColumn = Math.min(b + 1, cost[0].length - 1);
+        for (int na = Math.max(a - 1, 0); na <= lastRow; na++) {
+            double[] row = cost[na];
+            for (int nb = firstColumn; nb <= lastColumn; nb++) {
+                if (row[nb] < here) {
                     return false;
                 }
             }

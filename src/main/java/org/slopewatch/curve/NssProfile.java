@@ -144,7 +144,15 @@ final class NssProfile {
      * the last {@link #cost} call, into {@code out} (n rows, {@link #parameterCount()} columns).
      */
     void jacobian(double[][] out) {
-        fillJacobian(out);
+        fillJacobian(out, null, null);
+    }
+
+    /**
+     * JᵀJ and Jᵀr at the point of the last {@link #cost} call, J as in {@link #jacobian}: what a
+     * Gauss–Newton step needs, without the Jacobian stored in between.
+     */
+    void normalEquations(double[][] normal, double[] gradient) {
+        fillJacobian(null, normal, gradient);
     }
 
     /** The residuals y − ŷ at the point of the last {@link #cost} call (shared scratch: do not keep). */
@@ -332,7 +340,7 @@ final class NssProfile {
      * mean less its projections on q1..q3, all gathered in the first sweep; z = R⁻ᵀ·(∂A/∂u)ᵀ·r
      * has no entry on the constant column (r sums to zero), so Q·z needs only q1..q3.
      */
-    private void fillJacobian(double[][] jacobian) {
+    private void fillJacobian(double[][] jacobian, double[][] normal, double[] gradient) {
         double b1 = beta[1];
         double b2 = beta[2];
         double b3 = svensson ? beta[3] : 0.0;
@@ -378,14 +386,41 @@ final class NssProfile {
         }
         double mean1 = sum1 * inverseN;
         double mean2 = sum2 * inverseN;
+        double j11 = 0.0;
+        double j12 = 0.0;
+        double j22 = 0.0;
+        double g1 = 0.0;
+        double g2 = 0.0;
         for (int i = 0; i < n; i++) {
             double q3i = svensson ? q3[i] : 0.0;
             double v1 = b1 * dSlope[i] + b2 * dHump1[i];
-            jacobian[i][0] = v1 - mean1 - q1v1 * q1[i] - q2v1 * q2[i] - q3v1 * q3i
-                    + z1 * q1[i] + z2 * q2[i] + z3 * q3i;
+            double a1 = v1 - mean1 - q1v1 * q1[i] - q2v1 * q2[i] - q3v1 * q3i + z1 * q1[i] + z2 * q2[i] + z3 * q3i;
+            double a2 = 0.0;
             if (svensson) {
                 double v2 = b3 * dHump2[i];
-                jacobian[i][1] = v2 - mean2 - q1v2 * q1[i] - q2v2 * q2[i] - q3v2 * q3i + u3 * q3i;
+                a2 = v2 - mean2 - q1v2 * q1[i] - q2v2 * q2[i] - q3v2 * q3i + u3 * q3i;
+            }
+            if (jacobian != null) {
+                jacobian[i][0] = a1;
+                if (svensson) {
+                    jacobian[i][1] = a2;
+                }
+            } else {
+                j11 += a1 * a1;
+                j12 += a1 * a2;
+                j22 += a2 * a2;
+                g1 += a1 * residual[i];
+                g2 += a2 * residual[i];
+            }
+        }
+        if (normal != null) {
+            normal[0][0] = j11;
+            gradient[0] = g1;
+            if (svensson) {
+                normal[0][1] = j12;
+                normal[1][0] = j12;
+                normal[1][1] = j22;
+                gradient[1] = g2;
             }
         }
     }
