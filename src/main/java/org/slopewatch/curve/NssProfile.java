@@ -26,6 +26,11 @@ package org.slopewatch.curve;
  * Columns of A: 1, g1, g1 − e1 and (Svensson) g2 − e2, with x = t/τ, e = e^(−x), g = (1 − e)/x;
  * ∂g/∂ln τ = g − e and ∂(g − e)/∂ln τ = g − e − x·e.
  *
+ * <p>Every search step evaluates it, so it is written for the count of operations: the constant
+ * column is handled as a mean, the exponentials come from {@link Exponentials}, Gram–Schmidt and
+ * the Jacobian gather their sums in a few sweeps over the points, and a Gauss–Newton step gets JᵀJ
+ * and Jᵀr ({@link #normalEquations}) without the Jacobian stored.
+ *
  * <p>Not thread-safe: scratch arrays are reused across the evaluations of one fit.
  */
 final class NssProfile {
