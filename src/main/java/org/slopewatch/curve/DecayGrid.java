@@ -36,6 +36,7 @@ final class DecayGrid {
 
     private final int n;
     private final boolean svensson;
+    private final Exponentials exponentials;
     private final double[] logTau;
     private final double[][] hump;
     // per τ1 (first index): the three orthonormalised columns and which of them are independent
@@ -48,6 +49,7 @@ final class DecayGrid {
     DecayGrid(double[] years, double minLogTau, double maxLogTau, boolean svensson) {
         this.n = years.length;
         this.svensson = svensson;
+        this.exponentials = Exponentials.of(years);
         int points = svensson ? SVENSSON_POINTS : NELSON_SIEGEL_POINTS;
         this.logTau = new double[points];
         double[][] slope = new double[points][n];
@@ -89,6 +91,11 @@ final class DecayGrid {
 
     boolean svensson() {
         return svensson;
+    }
+
+    /** How the fit gets the exponentials of these maturities, kept here with the rest of the tenor set's work. */
+    Exponentials exponentials() {
+        return exponentials;
     }
 
     /**
@@ -191,12 +198,14 @@ final class DecayGrid {
         if (!Double.isFinite(here)) {
             return false;
         }
-        for (int da = -1; da <= 1; da++) {
-            for (int db = -1; db <= 1; db++) {
-                int na = a + da;
-                int nb = b + db;
-                if ((da != 0 || db != 0) && na >= 0 && na < cost.length && nb >= 0 && nb < cost[0].length
-                        && cost[na][nb] < here) {
+        // the cell itself is among those compared: it is never lower than itself
+        int lastRow = Math.min(a + 1, cost.length - 1);
+        int firstColumn = Math.max(b - 1, 0);
+        int lastColumn = Math.min(b + 1, cost[0].length - 1);
+        for (int na = Math.max(a - 1, 0); na <= lastRow; na++) {
+            double[] row = cost[na];
+            for (int nb = firstColumn; nb <= lastColumn; nb++) {
+                if (row[nb] < here) {
                     return false;
                 }
             }

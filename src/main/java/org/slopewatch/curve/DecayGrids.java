@@ -22,8 +22,8 @@ final class DecayGrids {
     private DecayGrids() {
     }
 
-    /** The grid of {@code profile}'s maturities and bounds on ln τ. */
-    static DecayGrid of(NssProfile profile, double[] years, boolean svensson) {
+    /** The grid of maturities {@code years}, between the bounds on ln τ the fit uses for them. */
+    static DecayGrid of(double[] years, boolean svensson) {
         Maturities key = new Maturities(years.clone(), svensson);
         DecayGrid grid = GRIDS.get(key);
         if (grid != null) {
@@ -33,7 +33,8 @@ final class DecayGrids {
             GRIDS.clear();
         }
         // The bounds on ln τ are a function of the maturities (NssProfile), so the key need not hold them.
-        return GRIDS.computeIfAbsent(key, k -> new DecayGrid(k.years, profile.minLogTau(), profile.maxLogTau(), svensson));
+        return GRIDS.computeIfAbsent(key,
+                k -> new DecayGrid(k.years, NssProfile.lowestLogTau(k.years), NssProfile.highestLogTau(), svensson));
     }
 
     /** How many grids are kept now; for tests of the bound. */

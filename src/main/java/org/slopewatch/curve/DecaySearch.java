@@ -44,7 +44,6 @@ final class DecaySearch {
         if (!Double.isFinite(cost)) {
             return null;
         }
-        double[][] jacobian = new double[profile.points()][d];
         double[] gradient = new double[d];
         double[][] normal = new double[d][d];
         double[] trial = new double[d];
@@ -53,8 +52,7 @@ final class DecaySearch {
         double growth = 2.0;
         for (int iteration = 0; iteration < MAX_ITERATIONS; iteration++) {
             // the profile's scratch state is at `point`: it was the last accepted evaluation
-            profile.jacobian(jacobian);
-            normalEquations(jacobian, profile.residuals(), normal, gradient);
+            profile.normalEquations(normal, gradient);
             if (Double.isNaN(damping)) {
                 damping = INITIAL_DAMPING * maxDiagonal(normal);
                 if (damping == 0.0) {
@@ -129,26 +127,6 @@ final class DecaySearch {
         }
         double predicted = 2.0 * linear - quadratic;
         return predicted > 0 ? predicted : Double.MIN_NORMAL;
-    }
-
-    /** JᵀJ and Jᵀr, where r = y − ŷ, so that the Gauss–Newton step solves JᵀJ·δ = Jᵀr. */
-    private static void normalEquations(double[][] jacobian, double[] residual, double[][] normal, double[] gradient) {
-        int d = gradient.length;
-        for (int a = 0; a < d; a++) {
-            gradient[a] = 0.0;
-            for (int b = 0; b < d; b++) {
-                normal[a][b] = 0.0;
-            }
-        }
-        for (int i = 0; i < residual.length; i++) {
-            double[] row = jacobian[i];
-            for (int a = 0; a < d; a++) {
-                gradient[a] += row[a] * residual[i];
-                for (int b = 0; b < d; b++) {
-                    normal[a][b] += row[a] * row[b];
-                }
-            }
-        }
     }
 
     /**

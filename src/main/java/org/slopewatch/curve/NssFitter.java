@@ -17,8 +17,8 @@ import java.util.Optional;
  * ({@code beta3 = 0}, {@code tau2 = tau1}), since a second hump cannot be identified from so few;
  * fewer than {@link #MIN_POINTS} get no fit. The betas are solved exactly for any decay parameters
  * ({@link NssProfile}); the decay parameters are found in two steps: a coarse grid over them
- * ({@link DecayGrid}, whose yield-free part is worked out once per set of maturities and kept)
- * finds the basins of the sum of squares, which has several, and
+ * ({@link DecayGrid}, whose yield-free part is worked out once per set of maturities and kept, with
+ * the plan of the maturities' exponentials, {@link Exponentials}) finds the basins of the sum of squares, which has several, and
  * Levenberg–Marquardt ({@link DecaySearch}) descends from the best few grid minima; the best end
  * point wins. A search that does not converge within its caps is dropped; when none converges the
  * result is empty, never an exception.
@@ -71,9 +71,9 @@ public final class NssFitter {
             }
         }
         boolean svensson = n >= SVENSSON_MIN_POINTS;
-        NssProfile profile = new NssProfile(years, yields, svensson);
+        DecayGrid grid = DecayGrids.of(years, svensson);
+        NssProfile profile = new NssProfile(years, yields, svensson, grid.exponentials());
         DecaySearch.Minimum best = null;
-        DecayGrid grid = DecayGrids.of(profile, years, svensson);
         for (double[] start : grid.starts(yields, MAX_STARTS)) {
             DecaySearch.Minimum minimum = DecaySearch.minimise(profile, start, maxEvaluations);
             if (minimum != null && (best == null || minimum.cost() < best.cost())) {

@@ -10,7 +10,7 @@
  * to {@link org.slopewatch.curve.Resolution#BASIS_POINTS} in its snapshot; values are checked
  * against {@link org.slopewatch.curve.YieldBounds} on the way in, never rescaled by guesswork. A
  * fit is a function of its snapshot alone (no warm start from another date); what it keeps between
- * snapshots ({@code DecayGrids}, the decay grid per set of maturities) is immutable and changes no
- * result. Plain Java and Commons Math only.
+ * snapshots ({@code DecayGrids}, the decay grid per set of maturities, with the plan of its
+ * exponentials, {@code Exponentials}) is immutable and a function of the maturities alone. Plain Java and Commons Math only.
  */
 package org.slopewatch.curve;

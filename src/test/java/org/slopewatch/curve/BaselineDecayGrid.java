@@ -36,7 +36,7 @@ final class BaselineDecayGrid {
      * Up to {@code maxStarts} grid points that are local minima of the sum of squares (no lower
      * neighbour), best first, as log decay parameters.
      */
-    static List<double[]> starts(NssProfile profile, double[] years, double[] yields, boolean svensson, int maxStarts) {
+    static List<double[]> starts(BaselineNssProfile profile, double[] years, double[] yields, boolean svensson, int maxStarts) {
         int n = years.length;
         int points = svensson ? SVENSSON_POINTS : NELSON_SIEGEL_POINTS;
         double[] logTau = new double[points];
@@ -48,7 +48,7 @@ final class BaselineDecayGrid {
             for (int i = 0; i < n; i++) {
                 double x = years[i] / tau;
                 double e = Math.exp(-x);
-                slope[k][i] = NssProfile.loading(x, e);
+                slope[k][i] = BaselineNssProfile.loading(x, e);
                 hump[k][i] = slope[k][i] - e;
             }
         }
@@ -58,7 +58,7 @@ final class BaselineDecayGrid {
         double[] residual = new double[n];
         double[] humpSquared = new double[points];
         for (int k = 0; k < points; k++) {
-            humpSquared[k] = NssProfile.dot(hump[k], hump[k]);
+            humpSquared[k] = BaselineNssProfile.dot(hump[k], hump[k]);
         }
         for (int a = 0; a < points; a++) {
             Arrays.fill(q[0], 1.0);
@@ -69,9 +69,9 @@ final class BaselineDecayGrid {
             }
             System.arraycopy(yields, 0, residual, 0, n);
             for (int k = 0; k < 3; k++) {
-                NssProfile.axpy(-NssProfile.dot(q[k], yields), q[k], residual);
+                BaselineNssProfile.axpy(-BaselineNssProfile.dot(q[k], yields), q[k], residual);
             }
-            double base = NssProfile.dot(residual, residual);
+            double base = BaselineNssProfile.dot(residual, residual);
             if (!svensson) {
                 cost[a][0] = base;
                 continue;
@@ -85,20 +85,20 @@ final class BaselineDecayGrid {
 
     /**
      * Orthogonalises {@code column} against the first {@code count} active columns of {@code q}
-     * (two Gram–Schmidt passes, as in {@link NssProfile}) and normalises it; false when nothing
+     * (two Gram–Schmidt passes, as in {@link BaselineNssProfile}) and normalises it; false when nothing
      * independent of them is left, in which case the column is zeroed.
      */
     private static boolean orthonormalise(double[] column, double[][] q, boolean[] active, int count) {
-        double length = NssProfile.norm(column);
+        double length = BaselineNssProfile.norm(column);
         for (int pass = 0; pass < 2; pass++) {
             for (int j = 0; j < count; j++) {
                 if (active[j]) {
-                    NssProfile.axpy(-NssProfile.dot(q[j], column), q[j], column);
+                    BaselineNssProfile.axpy(-BaselineNssProfile.dot(q[j], column), q[j], column);
                 }
             }
         }
-        double rest = NssProfile.norm(column);
-        boolean independent = rest > NssProfile.DEPENDENT * length;
+        double rest = BaselineNssProfile.norm(column);
+        boolean independent = rest > BaselineNssProfile.DEPENDENT * length;
         for (int i = 0; i < column.length; i++) {
             column[i] = independent ? column[i] / rest : 0.0;
         }
@@ -116,14 +116,14 @@ final class BaselineDecayGrid {
         double rest = hh;
         for (int j = 0; j < q.length; j++) {
             if (active[j]) {
-                double c = NssProfile.dot(q[j], h);
+                double c = BaselineNssProfile.dot(q[j], h);
                 rest -= c * c;
             }
         }
         if (!(rest > NEARLY_DEPENDENT * hh)) {
             return 0.0;
         }
-        double hr = NssProfile.dot(h, residual);
+        double hr = BaselineNssProfile.dot(h, residual);
         return Math.min(hr * hr / rest, Double.MAX_VALUE);
     }
 

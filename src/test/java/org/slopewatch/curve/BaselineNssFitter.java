@@ -19,9 +19,9 @@ import java.util.Optional;
  * <p>Six or more points get the six-parameter Svensson form; four or five get plain Nelson–Siegel
  * ({@code beta3 = 0}, {@code tau2 = tau1}), since a second hump cannot be identified from so few;
  * fewer than {@link #MIN_POINTS} get no fit. The betas are solved exactly for any decay parameters
- * ({@link NssProfile}); the decay parameters are found in two steps: a coarse grid over them
+ * ({@link BaselineNssProfile}); the decay parameters are found in two steps: a coarse grid over them
  * ({@link DecayGrid}) finds the basins of the sum of squares, which has several, and
- * Levenberg–Marquardt ({@link DecaySearch}) descends from the best few grid minima; the best end
+ * Levenberg–Marquardt ({@link BaselineDecaySearch}) descends from the best few grid minima; the best end
  * point wins. A search that does not converge within its caps is dropped; when none converges the
  * result is empty, never an exception.
  *
@@ -57,8 +57,22 @@ public final class BaselineNssFitter {
         return fitDetailed(snapshot, MAX_EVALUATIONS);
     }
 
+    /**
+     * The fit as it was before its descent changed: this baseline's descent from the starts of the
+     * decay grid kept per set of maturities ({@link DecayGrids}), which are this baseline's starts
+     * to the last bit (NssFitterAgainstBaselineTest checked that while the two were one). For the
+     * benchmark of the descent alone.
+     */
+    public static Optional<NssFit> fitDetailedWithKeptGrid(CurveSnapshot snapshot) {
+        return fitDetailed(snapshot, MAX_EVALUATIONS, true);
+    }
+
     /** With the evaluation cap as a parameter, so that a test can make every start fail. */
     static Optional<NssFit> fitDetailed(CurveSnapshot snapshot, int maxEvaluations) {
+        return fitDetailed(snapshot, maxEvaluations, false);
+    }
+
+    private static Optional<NssFit> fitDetailed(CurveSnapshot snapshot, int maxEvaluations, boolean keptGrid) {
         int n = snapshot.size();
         if (n < MIN_POINTS) {
             return Optional.empty();
@@ -73,10 +87,12 @@ public final class BaselineNssFitter {
             }
         }
         boolean svensson = n >= SVENSSON_MIN_POINTS;
-        NssProfile profile = new NssProfile(years, yields, svensson);
-        DecaySearch.Minimum best = null;
-        for (double[] start : BaselineDecayGrid.starts(profile, years, yields, svensson, MAX_STARTS)) {
-            DecaySearch.Minimum minimum = DecaySearch.minimise(profile, start, maxEvaluations);
+        BaselineNssProfile profile = new BaselineNssProfile(years, yields, svensson);
+        BaselineDecaySearch.Minimum best = null;
+        List<double[]> starts = keptGrid ? DecayGrids.of(years, svensson).starts(yields, MAX_STARTS)
+                : BaselineDecayGrid.starts(profile, years, yields, svensson, MAX_STARTS);
+        for (double[] start : starts) {
+            BaselineDecaySearch.Minimum minimum = BaselineDecaySearch.minimise(profile, start, maxEvaluations);
             if (minimum != null && (best == null || minimum.cost() < best.cost())) {
                 best = minimum;
                 if (rmse(best.cost(), n) < GOOD_ENOUGH_RMSE_BP) {
