@@ -111,7 +111,7 @@ public final class JournalReader {
      * quotes alone). Null bounds nothing.
      */
     public void replayQuotes(Instant until, String curve, Consumer<JournalEntries.AcceptedQuote> sink) {
-        String sql = "SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote WHERE 1 = 1"
+        String sql = "SELECT " + QUOTE_COLUMNS + " FROM quote WHERE 1 = 1"
                 + (until == null ? "" : " AND recorded_at <= ?") + (curve == null ? "" : " AND curve = ?") + " ORDER BY seq, id";
         try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
             int i = 1;
@@ -124,15 +124,22 @@ public final class JournalReader {
             s.setFetchSize(5_000);
             try (ResultSet rs = s.executeQuery()) {
                 while (rs.next()) {
-                    Timestamp sent = rs.getTimestamp(5);
-                    sink.accept(new JournalEntries.AcceptedQuote(rs.getLong(1), rs.getString(3), rs.getString(2), rs.getString(4),
-                            sent == null ? null : sent.toInstant(), rs.getString(6), rs.getDate(7).toLocalDate(),
-                            YieldsText.read(rs.getString(8))));
+                    sink.accept(acceptedQuote(rs));
                 }
             }
         } catch (SQLException e) {
             throw new JournalException("cannot read the journal's quotes for recovery", e);
         }
+    }
+
+    /** The columns {@link #acceptedQuote} reads, in its order. */
+    private static final String QUOTE_COLUMNS = "seq, message_id, origin, source, sent_at, curve, market_date, yields";
+
+    /** A quote row read back as the pipeline took it. */
+    private static JournalEntries.AcceptedQuote acceptedQuote(ResultSet rs) throws SQLException {
+        Timestamp sent = rs.getTimestamp(5);
+        return new JournalEntries.AcceptedQuote(rs.getLong(1), rs.getString(3), rs.getString(2), rs.getString(4),
+                sent == null ? null : sent.toInstant(), rs.getString(6), rs.getDate(7).toLocalDate(), YieldsText.read(rs.getString(8)));
     }
 
     /**
@@ -147,7 +154,7 @@ public final class JournalReader {
     public void replayQuotesAfter(long afterSeq, Collection<String> curves, Consumer<JournalEntries.AcceptedQuote> sink) {
         List<String> only = curves == null ? List.of() : List.copyOf(curves);
         try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(
-                "SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote WHERE seq > ?"
+                "SELECT " + QUOTE_COLUMNS + " FROM quote WHERE seq > ?"
                         + (curves == null ? "" : " AND curve IN (" + JournalSql.placeholders(only.size()) + ")") + " ORDER BY seq, id")) {
             s.setLong(1, afterSeq);
             for (int i = 0; i < only.size(); i++) {
@@ -156,10 +163,7 @@ public final class JournalReader {
             s.setFetchSize(5_000);
             try (ResultSet rs = s.executeQuery()) {
                 while (rs.next()) {
-                    Timestamp sent = rs.getTimestamp(5);
-                    sink.accept(new JournalEntries.AcceptedQuote(rs.getLong(1), rs.getString(3), rs.getString(2), rs.getString(4),
-                            sent == null ? null : sent.toInstant(), rs.getString(6), rs.getDate(7).toLocalDate(),
-                            YieldsText.read(rs.getString(8))));
+                    sink.accept(acceptedQuote(rs));
                 }
             }
         } catch (SQLException e) {
@@ -228,7 +232,7 @@ public final class JournalReader {
      */
     public List<JournalEntries.AcceptedQuote> quotesOnOrBefore(String curve, LocalDate date, long beforeSeq) {
         List<JournalEntries.AcceptedQuote> out = new ArrayList<>();
-        sql.query("SELECT seq, message_id, origin, source, sent_at, curve, market_date, yields FROM quote WHERE curve = ? AND seq < ? "
+        sql.query("SELECT " + QUOTE_COLUMNS + " FROM quote WHERE curve = ? AND seq < ? "
                 + "AND market_date = (SELECT MAX(market_date) FROM quote WHERE curve = ? AND market_date <= ? AND seq < ?) ORDER BY seq, id",
                 s -> {
                     s.setString(1, curve);
@@ -236,12 +240,7 @@ public final class JournalReader {
                     s.setString(3, curve);
                     s.setDate(4, Date.valueOf(date));
                     s.setLong(5, beforeSeq);
-                }, rs -> {
-                    Timestamp sent = rs.getTimestamp(5);
-                    out.add(new JournalEntries.AcceptedQuote(rs.getLong(1), rs.getString(3), rs.getString(2), rs.getString(4),
-                            sent == null ? null : sent.toInstant(), rs.getString(6), rs.getDate(7).toLocalDate(),
-                            YieldsText.read(rs.getString(8))));
-                }, "quotes");
+                }, rs -> out.add(acceptedQuote(rs)), "quotes");
         return out;
     }
 
