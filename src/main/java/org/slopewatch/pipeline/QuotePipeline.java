@@ -345,7 +345,9 @@ public final class QuotePipeline {
         List<CurveCheckpoints.Stored> due = new ArrayList<>();
         for (String curve : unsaved) {
             if (owned.owns(curve)) {
-                due.add(images.image(curve, sequence, book, engine));
+                // the curve's own last number: what the journal's latest quote of it says, so a start from
+                // the checkpoint knows memory is current on the curve and a takeover rebuilds only what moved
+                due.add(images.image(curve, lastSeq.getOrDefault(curve, sequence), book, engine));
             }
         }
         try {

@@ -361,6 +361,10 @@ abstract class QuotePipelineRestartChecks {
         org.slopewatch.testsupport.JournalContents actual = org.slopewatch.testsupport.JournalContents.read(shared);
         assertThat(actual.transitions()).as("transitions").isEqualTo(expected.transitions());
         assertThat(actual.spells()).as("spells").isEqualTo(expected.spells());
+
+        b.checkpoint(CurveOwnership.ALL); // the survivor holds both curves now
+        assertThat(checkpointed(shared, WATCHES, 90).takeOver(CurveOwnership.ALL))
+                .as("an instance started from the checkpoints, then assigned every curve: memory is current").isEmpty();
     }
 
     private static List<String> journalRows(AgroalDataSource ds, String query) {
