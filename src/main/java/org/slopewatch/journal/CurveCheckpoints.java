@@ -65,9 +65,23 @@ public final class CurveCheckpoints {
     public List<Stored> all() {
         List<Stored> out = new ArrayList<>();
         sql.query("SELECT curve, seq, watches, layout, image FROM curve_checkpoint ORDER BY curve", JournalSql.NONE,
-                rs -> out.add(new Stored(rs.getString(1), rs.getLong(2), rs.getString(3), rs.getInt(4), rs.getBytes(5))),
+                rs -> out.add(stored(rs)),
                 "curve checkpoints");
         return out;
+    }
+
+    /** The checkpoints of the given curves (those that have one), whatever they were written under. */
+    public List<Stored> of(java.util.Collection<String> curves) {
+        List<Stored> out = new ArrayList<>();
+        for (List<String> chunk : JournalSql.chunks(List.copyOf(curves))) {
+            sql.query("SELECT curve, seq, watches, layout, image FROM curve_checkpoint WHERE curve IN (" + JournalSql.placeholders(chunk.size())
+                    + ") ORDER BY curve", s -> JournalSql.bind(s, chunk), rs -> out.add(stored(rs)), "curve checkpoints");
+        }
+        return out;
+    }
+
+    private static Stored stored(java.sql.ResultSet rs) throws java.sql.SQLException {
+        return new Stored(rs.getString(1), rs.getLong(2), rs.getString(3), rs.getInt(4), rs.getBytes(5));
     }
 
     /** The curves that have a checkpoint. */

@@ -306,10 +306,7 @@ public final class QuotePipeline {
         if (memory.checkpoints() == null) {
             return restored;
         }
-        for (CurveCheckpoints.Stored stored : memory.checkpoints().all()) {
-            if (only != null && !only.contains(stored.curve())) {
-                continue;
-            }
+        for (CurveCheckpoints.Stored stored : only == null ? memory.checkpoints().all() : memory.checkpoints().of(only)) {
             try {
                 images.read(stored, book, engine);
                 restored.put(stored.curve(), stored.seq());
