@@ -22,15 +22,18 @@ import org.slopewatch.pipeline.QuoteBatch;
  * <p>Two uses. Records of a partition taken away are not processed even if they were fetched
  * before the rebalance: the new owner reads them again from the last committed offset, and
  * processing them here too would journal them twice. And a curve belongs to the instance holding
- * the partition its key maps to, which decides who raises its clock-driven notices; the mapping is
- * the Kafka producer's default for a keyed record (murmur2 of the key, modulo the partition
- * count), which is how the daemon's own publishers and {@code deploy/kafka/create-topics.sh}
- * expect the topic to be written.
+ * the partition its quotes arrive on, which decides who raises its clock-driven notices: the
+ * partition its latest record came on, as this instance saw it, whatever partitioner the producer
+ * used; for a curve whose records this instance has not seen, the Kafka producer's default for a
+ * keyed record (murmur2 of the key, modulo the partition count), which is how the daemon's own
+ * publishers and {@code deploy/kafka/create-topics.sh} write the topic.
  */
 @ApplicationScoped
 public class PartitionOwnership {
 
     private final Set<TopicPartition> held = ConcurrentHashMap.newKeySet();
+    /** The partition each curve's latest record arrived on, as seen here. */
+    private final java.util.Map<String, Integer> arrivedOn = new ConcurrentHashMap<>();
     private volatile int partitionCount;
 
     void assigned(Collection<TopicPartition> partitions, int partitionsOfTopic) {
@@ -52,13 +55,14 @@ public class PartitionOwnership {
         if (count == 0) {
             return false;
         }
-        int partition = Utils.toPositive(Utils.murmur2(curve.getBytes(StandardCharsets.UTF_8))) % count;
+        Integer seen = arrivedOn.get(curve);
+        int partition = seen != null ? seen : Utils.toPositive(Utils.murmur2(curve.getBytes(StandardCharsets.UTF_8))) % count;
         return held.stream().anyMatch(p -> p.partition() == partition);
     }
 
     /**
      * The message's batches without those read from partitions no longer held; all of them when
-     * the message did not come from Kafka.
+     * the message did not come from Kafka. Notes which partition each curve's records arrive on.
      */
     public List<QuoteBatch> stillHeld(Message<List<QuoteBatch>> message) {
         @SuppressWarnings("unchecked")
@@ -68,6 +72,9 @@ public class PartitionOwnership {
         }
         Set<QuoteBatch> dropped = Collections.newSetFromMap(new IdentityHashMap<>());
         for (ConsumerRecord<?, QuoteBatch> record : kafka.getRecords()) {
+            if (record.value() != null) {
+                record.value().messages().forEach(m -> arrivedOn.put(m.curve(), record.partition()));
+            }
             if (!holds(new TopicPartition(record.topic(), record.partition()))) {
                 dropped.add(record.value());
             }

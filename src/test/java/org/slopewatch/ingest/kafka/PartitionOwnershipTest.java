@@ -67,4 +67,29 @@ class PartitionOwnershipTest {
         assertThat(ownership.stillHeld(Message.of(List.of(fromKept, fromLost))))
                 .as("not from Kafka: everything").containsExactly(fromKept, fromLost);
     }
+
+    @Test
+    void aCurveWhoseRecordsArriveOnAnotherPartitionBelongsToThatPartitionsHolder() {
+        int partitions = 6;
+        String curve = "GOVT-A";
+        // reference: where the Kafka producer's default partitioner puts the key (kafka-clients 4.1.2)
+        int byDefault = BuiltInPartitioner.partitionForKey(curve.getBytes(StandardCharsets.UTF_8), partitions);
+        int arrived = (byDefault + 1) % partitions; // a producer with a partitioner of its own
+        PartitionOwnership holder = new PartitionOwnership();
+        holder.assigned(List.of(new TopicPartition(TOPIC, arrived)), partitions);
+        PartitionOwnership other = new PartitionOwnership();
+        other.assigned(List.of(new TopicPartition(TOPIC, byDefault)), partitions);
+        QuoteBatch batch = new QuoteBatch("kafka", List.of(new org.slopewatch.pipeline.QuoteMessage("m1", "test", null, curve,
+                java.time.LocalDate.of(2026, 3, 2), new java.util.TreeMap<>(Map.of(org.slopewatch.curve.Tenor.years(10), 400.0)))), List.of());
+        Message<List<QuoteBatch>> message = Message.of(List.of(batch)).addMetadata(new IncomingKafkaRecordBatchMetadata<>(
+                new ConsumerRecords<>(Map.of(new TopicPartition(TOPIC, arrived),
+                        List.of(new ConsumerRecord<>(TOPIC, arrived, 7, curve, batch)))), TOPIC, Map.of()));
+
+        assertThat(other.ownsCurve(curve)).as("before any record: the default partitioner's answer").isTrue();
+        holder.stillHeld(message);
+        other.stillHeld(message);
+
+        assertThat(holder.ownsCurve(curve)).as("the holder of the partition the records arrive on").isTrue();
+        assertThat(other.ownsCurve(curve)).as("the holder of the partition a recomputation names").isFalse();
+    }
 }
