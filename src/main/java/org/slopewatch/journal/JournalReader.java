@@ -111,9 +111,7 @@ public final class JournalReader {
      * quotes alone). Null bounds nothing.
      */
     public void replayQuotes(Instant until, String curve, Consumer<JournalEntries.AcceptedQuote> sink) {
-        String sql = "SELECT " + QUOTE_COLUMNS + " FROM quote WHERE 1 = 1"
-                + (until == null ? "" : " AND recorded_at <= ?") + (curve == null ? "" : " AND curve = ?") + " ORDER BY seq, id";
-        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(sql)) {
+        eachQuote("1 = 1" + (until == null ? "" : " AND recorded_at <= ?") + (curve == null ? "" : " AND curve = ?"), s -> {
             int i = 1;
             if (until != null) {
                 s.setTimestamp(i++, Timestamp.from(until));
@@ -121,14 +119,22 @@ public final class JournalReader {
             if (curve != null) {
                 s.setString(i, curve);
             }
-            s.setFetchSize(5_000);
-            try (ResultSet rs = s.executeQuery()) {
+        }, sink);
+    }
+
+    /**
+     * The quotes a condition picks, in processing order, through a cursor: memory stays flat however
+     * long the journal (PostgreSQL keeps a cursor only with auto-commit off, which {@link JournalSql#stream} sees to).
+     */
+    private void eachQuote(String where, JournalSql.Binder binder, Consumer<JournalEntries.AcceptedQuote> sink) {
+        try {
+            sql.stream("SELECT " + QUOTE_COLUMNS + " FROM quote WHERE " + where + " ORDER BY seq, id", binder, rs -> {
                 while (rs.next()) {
                     sink.accept(acceptedQuote(rs));
                 }
-            }
-        } catch (SQLException e) {
-            throw new JournalException("cannot read the journal's quotes for recovery", e);
+            }, "the quotes to rebuild from");
+        } catch (IOException e) {
+            throw new UncheckedIOException(e); // the sink writes nowhere: no I/O of its own to fail
         }
     }
 
@@ -153,22 +159,12 @@ public final class JournalReader {
     /** As {@link #replayQuotesAfter(long, Consumer)}, only the quotes of the given curves (null: of all). */
     public void replayQuotesAfter(long afterSeq, Collection<String> curves, Consumer<JournalEntries.AcceptedQuote> sink) {
         List<String> only = curves == null ? List.of() : List.copyOf(curves);
-        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(
-                "SELECT " + QUOTE_COLUMNS + " FROM quote WHERE seq > ?"
-                        + (curves == null ? "" : " AND curve IN (" + JournalSql.placeholders(only.size()) + ")") + " ORDER BY seq, id")) {
+        eachQuote("seq > ?" + (curves == null ? "" : " AND curve IN (" + JournalSql.placeholders(only.size()) + ")"), s -> {
             s.setLong(1, afterSeq);
             for (int i = 0; i < only.size(); i++) {
                 s.setString(2 + i, only.get(i));
             }
-            s.setFetchSize(5_000);
-            try (ResultSet rs = s.executeQuery()) {
-                while (rs.next()) {
-                    sink.accept(acceptedQuote(rs));
-                }
-            }
-        } catch (SQLException e) {
-            throw new JournalException("cannot read the journal's quotes for recovery", e);
-        }
+        }, sink);
     }
 
     /** The highest sequence number of each curve's quotes: what tells whether another instance moved a curve on. */
