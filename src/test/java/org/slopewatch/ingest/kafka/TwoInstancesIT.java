@@ -178,6 +178,28 @@ class TwoInstancesIT {
                         .contains("\"live instances\":2").doesNotContain(sha256(before)).contains(sha256(after));
                 assertThat(second.logText()).contains("reloaded: accepted on another instance (sha256 " + sha256(after));
                 System.out.printf("the second instance took the reload %d ms after the first answered (checks every 1 s)%n", tookMs);
+
+                // any instance answers every read: each decides its own curves and follows the other's from the journal
+                List<QuoteMessage> quotes = KafkaRuns.scenarioQuotes(3, 30);
+                try (KafkaProducer<String, String> producer = KafkaRuns.producer()) {
+                    for (QuoteMessage q : quotes) {
+                        KafkaRuns.send(producer, q, topic);
+                    }
+                    producer.flush();
+                }
+                String lastDate = quotes.get(quotes.size() - 1).date().toString();
+                Awaitility.await("each instance took quotes of its own curves").atMost(Duration.ofSeconds(60))
+                        .until(() -> accepted(first) > 0 && accepted(second) > 0 && accepted(first) + accepted(second) >= quotes.size());
+                String[] answers = new String[2];
+                Awaitility.await("both instances answer /api/spreads alike, every curve at its last date")
+                        .atMost(Duration.ofSeconds(60)).pollInterval(Duration.ofMillis(500)).until(() -> {
+                            answers[0] = read(first, firstSettings, "/api/spreads");
+                            answers[1] = read(second, secondSettings, "/api/spreads");
+                            // the same spreads with the same figures; each lists them in the order it first saw them
+                            return sortedItems(answers[0]).equals(sortedItems(answers[1]))
+                                    && CURVES.stream().allMatch(c -> answers[0].contains("\"curve\":\"" + c + "\""))
+                                    && answers[0].split(lastDate, -1).length - 1 >= CURVES.size();
+                        });
             }
         }
     }
@@ -211,6 +233,19 @@ class TwoInstancesIT {
     /** SHA-256 (FIPS 180-4) of the text's UTF-8 bytes, by the JDK. */
     private static String sha256(String text) throws Exception {
         return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(text.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+    }
+
+    private static List<String> sortedItems(String jsonArray) throws Exception {
+        List<String> items = new java.util.ArrayList<>();
+        JSON.readTree(jsonArray).forEach(n -> items.add(n.toString()));
+        java.util.Collections.sort(items);
+        return items;
+    }
+
+    private static String read(DaemonProcess instance, Map<String, String> settings, String path) throws Exception {
+        return HTTP.send(HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + instance.port() + path))
+                .header("Authorization", "Bearer " + DaemonProcess.writeToken(settings)).timeout(Duration.ofSeconds(30)).build(),
+                HttpResponse.BodyHandlers.ofString()).body();
     }
 
     private static double accepted(DaemonProcess instance) {
