@@ -57,11 +57,7 @@ public final class QuotePipeline {
     private CurveBook book;
     private final SeenIds seenIds;
     private final Memory memory;
-    private CurveImages images;
-    /** Curves whose state changed since their last checkpoint. */
-    private final Set<String> unsaved = new HashSet<>();
-    /** The highest sequence number of each curve's quotes memory has taken (replayed, restored or processed). */
-    private final Map<String, Long> lastSeq = new HashMap<>();
+    private HeldCurves held;
     private long sequence;
     private boolean recovered;
     // concurrent: the metrics read one curve's entry at scrape time without waiting for a step's lock
@@ -138,13 +134,10 @@ public final class QuotePipeline {
     }
 
     private void reset() {
-        JournalEarlier earlier = new JournalEarlier(reader, memory.days());
-        engine = new SignalEngine(watches, earlier);
-        book = new CurveBook(earlier);
-        images = new CurveImages(watches);
+        held = new HeldCurves(watches, reader, memory);
+        engine = held.engine();
+        book = held.book();
         seenIds.clear();
-        unsaved.clear();
-        lastSeq.clear();
         sequence = 0;
     }
 
@@ -184,7 +177,7 @@ public final class QuotePipeline {
             return Set.of();
         }
         // every curve the journal has: one the previous owner never checkpointed must not be missed
-        Set<String> moved = moved(reader.lastSeqByCurve(), owned::owns);
+        Set<String> moved = held.behind(reader.lastSeqByCurve(), owned::owns);
         rebuild(moved, true);
         if (moved.isEmpty()) {
             // the curves may be current from following their owner, but the desk's memory of their notices is not
@@ -207,25 +200,14 @@ public final class QuotePipeline {
         if (!recovered) {
             return Set.of();
         }
-        Set<String> known = new java.util.TreeSet<>(lastSeq.keySet());
+        Set<String> known = new java.util.TreeSet<>(held.curves());
         if (memory.checkpoints() != null) {
             known.addAll(memory.checkpoints().curves());
         }
         known.removeIf(owned::owns);
-        Set<String> moved = moved(reader.lastSeqOf(known), curve -> true);
+        Set<String> moved = held.behind(reader.lastSeqOf(known), curve -> true);
         // the alert desk decides for owned curves only: its memory of these is not read
         rebuild(moved, false);
-        return moved;
-    }
-
-    /** The curves among {@code journal}'s (curve → its highest sequence number) that {@code which} picks and memory is behind on. */
-    private Set<String> moved(Map<String, Long> journal, java.util.function.Predicate<String> which) {
-        Set<String> moved = new java.util.TreeSet<>();
-        journal.forEach((curve, seq) -> {
-            if (which.test(curve) && !seq.equals(lastSeq.get(curve))) {
-                moved.add(curve);
-            }
-        });
         return moved;
     }
 
@@ -238,12 +220,7 @@ public final class QuotePipeline {
             return;
         }
         recovered = false;
-        for (String curve : curves) {
-            engine.forget(curve);
-            book.forget(curve);
-            unsaved.remove(curve);
-            lastSeq.remove(curve);
-        }
+        held.forget(curves);
         restore(curves, true, owned);
         Map<String, Instant> recorded = reader.lastQuoteRecorded();
         curves.forEach(curve -> {
@@ -258,74 +235,17 @@ public final class QuotePipeline {
         recovered = true;
     }
 
-    /**
-     * Reads the curves' checkpoints and replays the quotes after them; the engine and book hold
-     * nothing of them yet.
-     *
-     * @param curves     the curves to restore: every curve with quotes in the journal, or some of them
-     * @param onlyThese  whether other curves are held (and left alone), or none is
-     * @param logged     whether to log how each curve was rebuilt
-     * @return the quote messages replayed
-     */
+    /** Restores the curves ({@link HeldCurves#restore}) and tells the listener where they stand. */
     private long restore(Set<String> curves, boolean onlyThese, boolean logged) {
-        Set<String> only = onlyThese ? curves : null;
-        Map<String, Long> restored = restoreCheckpoints(only);
-        // the tail after the oldest checkpoint is enough only when every curve has one
-        long after = !restored.isEmpty() && restored.keySet().containsAll(curves)
-                ? restored.values().stream().mapToLong(Long::longValue).min().orElseThrow() : Long.MIN_VALUE;
-        long[] count = {0};
-        reader.replayQuotesAfter(after, only, q -> {
-            Long included = restored.get(q.curve());
-            if (included != null && q.seq() <= included) {
-                return;
-            }
-            count[0]++;
-            sequence = Math.max(sequence, q.seq());
-            lastSeq.put(q.curve(), q.seq());
-            engine.onSnapshot(book.apply(q.curve(), q.date(), q.yieldsBp(), q.seq()), q.seq());
-            unsaved.add(q.curve());
-            letGo(q.curve());
-        });
-        engine.orderByFirstSeen();
-        if (memory.checkpoints() != null && logged) {
-            LOG.infof("rebuilt %d curve(s) from checkpoints and %d journalled quote message(s) after them or without one", restored.size(),
-                    count[0]);
-        }
+        long replayed = held.restore(curves, onlyThese, logged);
+        sequence = Math.max(sequence, held.highestSeq());
         listener.watching(engine.tracks().stream().map(t -> t.spread().id()).collect(java.util.stream.Collectors.toUnmodifiableSet()));
         for (SpreadTrack t : engine.tracks()) {
-            if (only == null || only.contains(t.spread().curve())) {
+            if (!onlyThese || curves.contains(t.spread().curve())) {
                 listener.spreadChanged(SpreadStatus.of(t));
             }
         }
-        return count[0];
-    }
-
-    /** Reads the usable checkpoints (of the given curves; null: all) into memory; curve → the sequence number it includes quotes up to. */
-    private Map<String, Long> restoreCheckpoints(Set<String> only) {
-        Map<String, Long> restored = new HashMap<>();
-        if (memory.checkpoints() == null) {
-            return restored;
-        }
-        for (CurveCheckpoints.Stored stored : only == null ? memory.checkpoints().all() : memory.checkpoints().of(only)) {
-            try {
-                images.read(stored, book, engine);
-                restored.put(stored.curve(), stored.seq());
-                lastSeq.merge(stored.curve(), stored.seq(), Math::max);
-                sequence = Math.max(sequence, stored.seq());
-            } catch (java.io.IOException e) {
-                LOG.warnf("checkpoint of curve %s not used (%s): the curve is rebuilt from all its journalled quotes", stored.curve(),
-                        e.getMessage());
-            }
-        }
-        return restored;
-    }
-
-    /** Bounds what a curve holds in memory to the configured days (nothing when the whole history is kept). */
-    private void letGo(String curve) {
-        if (memory.days() != Memory.WHOLE_HISTORY) {
-            book.letGoBefore(curve, memory.days());
-            engine.letGoBefore(curve, memory.days());
-        }
+        return replayed;
     }
 
     /**
@@ -336,25 +256,7 @@ public final class QuotePipeline {
      * @return the number of curves written
      */
     public synchronized int checkpoint(CurveOwnership owned) {
-        if (memory.checkpoints() == null || !recovered || unsaved.isEmpty()) {
-            return 0;
-        }
-        List<CurveCheckpoints.Stored> due = new ArrayList<>();
-        for (String curve : unsaved) {
-            if (owned.owns(curve)) {
-                // the curve's own last number: what the journal's latest quote of it says, so a start from
-                // the checkpoint knows memory is current on the curve and a takeover rebuilds only what moved
-                due.add(images.image(curve, lastSeq.getOrDefault(curve, sequence), book, engine));
-            }
-        }
-        try {
-            memory.checkpoints().write(due);
-        } catch (RuntimeException e) {
-            LOG.warnf("checkpoint of %d curve(s) not written (%s); a start replays more quotes until one is", due.size(), e.getMessage());
-            return 0;
-        }
-        due.forEach(d -> unsaved.remove(d.curve()));
-        return due.size();
+        return recovered ? held.checkpoint(owned::owns) : 0;
     }
 
     /**
@@ -457,7 +359,7 @@ public final class QuotePipeline {
                     long seq = ++sequence;
                     accepted++;
                     curvesMoved.add(m.curve());
-                    lastSeq.put(m.curve(), seq);
+                    held.took(m.curve(), seq);
                     acceptedByOrigin.computeIfAbsent(batch.origin(), o -> new int[1])[0]++;
                     lastReceived.put(m.curve(), Instant.now(clock));
                     journal.quote(new JournalEntries.AcceptedQuote(seq, batch.origin(), m.id(), m.source(), m.time(), m.curve(),
@@ -496,10 +398,7 @@ public final class QuotePipeline {
         }
         seenIds.remember(takenNow);
         // only now, with the step on disk: a date let go of is read back from the journal, which did not hold this step before
-        for (String curve : curvesMoved) {
-            unsaved.add(curve);
-            letGo(curve);
-        }
+        curvesMoved.forEach(held::committed);
         acceptedByOrigin.forEach((origin, n) -> listener.accepted(origin, n[0]));
         duplicatesByOrigin.forEach((origin, n) -> listener.duplicates(origin, n[0]));
         for (QuoteBatch batch : batches) {
@@ -529,11 +428,7 @@ public final class QuotePipeline {
 
     /** The most snapshots of one curve, or values of one spread, held in memory now. */
     synchronized int mostHeld() {
-        int most = 0;
-        for (SpreadTrack t : engine.tracks()) {
-            most = Math.max(most, Math.max(t.size(), book.held(t.spread().curve())));
-        }
-        return most;
+        return held.mostHeld();
     }
 
     /** Message ids held in memory for de-duplication now (never more than the configured cache). */
