@@ -84,13 +84,6 @@ public final class CurveCheckpoints {
         return new Stored(rs.getString(1), rs.getLong(2), rs.getString(3), rs.getInt(4), rs.getBytes(5));
     }
 
-    /** The curves that have a checkpoint. */
-    public List<String> curves() {
-        List<String> out = new ArrayList<>();
-        sql.query("SELECT curve FROM curve_checkpoint ORDER BY curve", JournalSql.NONE, rs -> out.add(rs.getString(1)), "curve checkpoints");
-        return out;
-    }
-
     /** Drops every checkpoint (they are a cache: the quotes are the record). */
     public int clear() {
         return sql.update("DELETE FROM curve_checkpoint", JournalSql.NONE, "curve checkpoints");

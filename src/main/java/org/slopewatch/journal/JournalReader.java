@@ -175,31 +175,6 @@ public final class JournalReader {
     }
 
     /**
-     * As {@link #lastSeqByCurve()} for the given curves only, one index lookup each rather than a
-     * pass over every quote; a curve without quotes is left out.
-     */
-    public Map<String, Long> lastSeqOf(Collection<String> curves) {
-        Map<String, Long> out = new HashMap<>();
-        if (curves.isEmpty()) {
-            return out;
-        }
-        try (Connection c = dataSource.getConnection(); PreparedStatement s = c.prepareStatement(
-                "SELECT seq FROM quote WHERE curve = ? ORDER BY curve DESC, seq DESC FETCH FIRST 1 ROWS ONLY")) {
-            for (String curve : curves) {
-                s.setString(1, curve);
-                try (ResultSet rs = s.executeQuery()) {
-                    if (rs.next()) {
-                        out.put(curve, rs.getLong(1));
-                    }
-                }
-            }
-        } catch (SQLException e) {
-            throw new JournalException("cannot read the journal's quotes", e);
-        }
-        return out;
-    }
-
-    /**
      * A spread's standing value on each date up to and including {@code through}, oldest first, as
      * the observations numbered below {@code beforeSeq} left it (the highest number of a date wins):
      * what a monitor that let go of those dates re-runs a revision on.

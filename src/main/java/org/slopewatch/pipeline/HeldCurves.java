@@ -70,11 +70,6 @@ final class HeldCurves {
         letGo(curve);
     }
 
-    /** The curves memory holds quotes of. */
-    Set<String> curves() {
-        return lastSeq.keySet();
-    }
-
     /** The curves among {@code journal}'s (curve → its highest sequence number) that {@code which} picks and memory is behind on. */
     Set<String> behind(Map<String, Long> journal, Predicate<String> which) {
         Set<String> moved = new TreeSet<>();

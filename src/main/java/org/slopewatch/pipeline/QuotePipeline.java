@@ -191,8 +191,8 @@ public final class QuotePipeline {
     /**
      * Brings the curves other instances own up to date from the journal (each from its checkpoint
      * and the quotes after it), so that this instance answers reads of them as their owner would,
-     * behind it by at most the time between two calls. Looks only at curves it holds or that have
-     * a checkpoint (one lookup each on an index), not at every quote.
+     * behind it by at most the time between two calls. Finds them with a few index seeks per curve,
+     * not by reading every quote.
      *
      * @return the curves rebuilt
      */
@@ -200,14 +200,15 @@ public final class QuotePipeline {
         if (!recovered) {
             return Set.of();
         }
-        Set<String> known = new java.util.TreeSet<>(held.curves());
-        if (memory.checkpoints() != null) {
-            known.addAll(memory.checkpoints().curves());
-        }
-        known.removeIf(owned::owns);
-        Set<String> moved = held.behind(reader.lastSeqOf(known), curve -> true);
-        // the alert desk decides for owned curves only: its memory of these is not read
+        // every curve the journal has (a walk of the (curve, seq) index, two seeks a curve): one the owner has
+        // not checkpointed yet is followed too
+        Set<String> moved = held.behind(reader.lastSeqByCurve(), curve -> !owned.owns(curve));
         rebuild(moved, false);
+        if (!moved.isEmpty()) {
+            // the desk decides only for owned curves, but it answers reads of every open episode: those of
+            // the followed curves as their owner journalled them (the same rebuild a start does)
+            alerts.rebuild();
+        }
         return moved;
     }
 

@@ -221,4 +221,17 @@ abstract class DeskAcrossInstancesChecks {
         assertThat(notices()).extracting(n -> n.alert().id() + " " + n.alert().kind())
                 .containsExactlyInAnyOrder(id(1) + " OPENING", id(2) + " CLOSING");
     }
+
+    @Test
+    void anInstanceFollowingTheOthersCurvesAnswersTheirOpenEpisodes() {
+        Instance a = instanceA();
+        Instance b = instanceB();
+        b.quote(DAY, 500, 480); // B opens the episode of its curve
+
+        assertThat(a.desk.openEpisodes()).as("A before following").doesNotContainKey("below-zero|" + SUBJECT);
+        assertThat(a.pipeline.follow(c -> c.equals("GOVT-A"))).as("curves A follows that B moved on").containsExactly("GOVT-B");
+        assertThat(a.desk.openEpisodes()).as("A's answer for B's curve, after following it")
+                .containsKey("below-zero|" + SUBJECT);
+        assertThat(a.desk.openEpisodes().get("below-zero|" + SUBJECT).since()).isEqualTo(b.desk.openEpisodes().get("below-zero|" + SUBJECT).since());
+    }
 }
