@@ -167,13 +167,6 @@ public final class JournalReader {
         }, sink);
     }
 
-    /** The highest sequence number of each curve's quotes: what tells whether another instance moved a curve on. */
-    public Map<String, Long> lastSeqByCurve() {
-        Map<String, Long> out = new HashMap<>();
-        lastQuotes((curve, seq, recorded) -> out.put(curve, seq), "each curve's latest quote");
-        return out;
-    }
-
     /**
      * A spread's standing value on each date up to and including {@code through}, oldest first, as
      * the observations numbered below {@code beforeSeq} left it (the highest number of a date wins):
@@ -230,16 +223,11 @@ public final class JournalReader {
         return found;
     }
 
-    /** When each curve's latest quote was journalled, by whichever instance: where a feed's quiet time starts. */
-    public Map<String, Instant> lastQuoteRecorded() {
-        Map<String, Instant> out = new HashMap<>();
-        lastQuotes((curve, seq, recorded) -> out.put(curve, recorded), "when each curve's latest quote was journalled");
-        return out;
-    }
-
-    @FunctionalInterface
-    private interface LastQuote {
-        void of(String curve, long seq, Instant recorded);
+    /**
+     * A curve's latest quote: its sequence number (what tells whether another instance moved the curve
+     * on) and when it was journalled, by whichever instance (where a feed's quiet time starts).
+     */
+    public record LastQuote(long seq, Instant recorded) {
     }
 
     /**
@@ -248,7 +236,8 @@ public final class JournalReader {
      * index from one curve to the next and reading each curve's last entry: a few index seeks per
      * curve, where a grouping would read every quote of a long journal at each start.
      */
-    private void lastQuotes(LastQuote sink, String what) {
+    public Map<String, LastQuote> lastQuotes() {
+        Map<String, LastQuote> out = new HashMap<>();
         try (Connection c = dataSource.getConnection();
              PreparedStatement first = c.prepareStatement("SELECT curve FROM quote ORDER BY curve FETCH FIRST 1 ROWS ONLY");
              PreparedStatement next = c.prepareStatement("SELECT curve FROM quote WHERE curve > ? ORDER BY curve FETCH FIRST 1 ROWS ONLY");
@@ -259,15 +248,16 @@ public final class JournalReader {
                 last.setString(1, curve);
                 try (ResultSet rs = last.executeQuery()) {
                     if (rs.next()) {
-                        sink.of(curve, rs.getLong(1), rs.getTimestamp(2).toInstant());
+                        out.put(curve, new LastQuote(rs.getLong(1), rs.getTimestamp(2).toInstant()));
                     }
                 }
                 next.setString(1, curve);
                 curve = firstString(next);
             }
         } catch (SQLException e) {
-            throw new JournalException("cannot read " + what, e);
+            throw new JournalException("cannot read each curve's latest quote", e);
         }
+        return out;
     }
 
     private static String firstString(PreparedStatement s) throws SQLException {

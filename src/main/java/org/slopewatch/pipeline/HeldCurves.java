@@ -70,11 +70,11 @@ final class HeldCurves {
         letGo(curve);
     }
 
-    /** The curves among {@code journal}'s (curve → its highest sequence number) that {@code which} picks and memory is behind on. */
-    Set<String> behind(Map<String, Long> journal, Predicate<String> which) {
+    /** The curves among the journal's (curve → its latest quote) that {@code which} picks and memory is behind on. */
+    Set<String> behind(Map<String, JournalReader.LastQuote> journal, Predicate<String> which) {
         Set<String> moved = new TreeSet<>();
-        journal.forEach((curve, seq) -> {
-            if (which.test(curve) && !seq.equals(lastSeq.get(curve))) {
+        journal.forEach((curve, last) -> {
+            if (which.test(curve) && !Long.valueOf(last.seq()).equals(lastSeq.get(curve))) {
                 moved.add(curve);
             }
         });

@@ -109,7 +109,8 @@ public final class QuotePipeline {
 
         public Memory {
             if (days < MIN_DAYS) {
-                throw new IllegalArgumentException("memory days must be at least " + MIN_DAYS + " (two calendar months), got " + days);
+                throw new IllegalArgumentException("slopewatch.ingest.memory-days must be at least " + MIN_DAYS
+                        + " (two calendar months, what the probability's month averages read), got " + days);
             }
         }
     }
@@ -154,10 +155,10 @@ public final class QuotePipeline {
         // until the replay has finished, memory is not what the journal says: nothing may be decided on it
         recovered = false;
         reset();
-        Map<String, Instant> recorded = reader.lastQuoteRecorded();
-        long replayed = restore(recorded.keySet(), false, true);
+        Map<String, JournalReader.LastQuote> last = reader.lastQuotes();
+        long replayed = restore(last.keySet(), false, true);
         lastReceived.clear();
-        lastReceived.putAll(recorded);
+        last.forEach((curve, q) -> lastReceived.put(curve, q.recorded()));
         alerts.rebuild();
         recovered = true;
         return replayed;
@@ -177,12 +178,13 @@ public final class QuotePipeline {
             return Set.of();
         }
         // every curve the journal has: one the previous owner never checkpointed must not be missed
-        Set<String> moved = held.behind(reader.lastSeqByCurve(), owned::owns);
-        rebuild(moved, true);
+        Map<String, JournalReader.LastQuote> last = reader.lastQuotes();
+        Set<String> moved = held.behind(last, owned::owns);
         if (moved.isEmpty()) {
             // the curves may be current from following their owner, but the desk's memory of their notices is not
             alerts.rebuild();
         } else {
+            rebuild(moved, last, true);
             LOG.infof("took over %d curve(s) moved on by another instance: %s", moved.size(), moved);
         }
         return moved;
@@ -202,37 +204,28 @@ public final class QuotePipeline {
         }
         // every curve the journal has (a walk of the (curve, seq) index, two seeks a curve): one the owner has
         // not checkpointed yet is followed too
-        Set<String> moved = held.behind(reader.lastSeqByCurve(), curve -> !owned.owns(curve));
-        rebuild(moved, false);
+        Map<String, JournalReader.LastQuote> last = reader.lastQuotes();
+        Set<String> moved = held.behind(last, curve -> !owned.owns(curve));
         if (!moved.isEmpty()) {
-            // the desk decides only for owned curves, but it answers reads of every open episode: those of
-            // the followed curves as their owner journalled them (the same rebuild a start does)
-            alerts.rebuild();
+            rebuild(moved, last, false);
         }
         return moved;
     }
 
     /**
      * Rebuilds these curves alone from their checkpoints and the quotes after them; the others stay
-     * as they are. With {@code owned}, the alert desk's memory is rebuilt too and the rebuild logged.
+     * as they are. The alert desk is rebuilt too: it decides only for owned curves, but answers reads
+     * of every open episode, those of followed curves as their owner journalled them.
+     *
+     * @param last   each curve's latest quote in the journal, as read just before
+     * @param logged whether to log how the curves were rebuilt
      */
-    private void rebuild(Set<String> curves, boolean owned) {
-        if (curves.isEmpty()) {
-            return;
-        }
+    private void rebuild(Set<String> curves, Map<String, JournalReader.LastQuote> last, boolean logged) {
         recovered = false;
         held.forget(curves);
-        restore(curves, true, owned);
-        Map<String, Instant> recorded = reader.lastQuoteRecorded();
-        curves.forEach(curve -> {
-            Instant at = recorded.get(curve);
-            if (at != null) {
-                lastReceived.put(curve, at);
-            }
-        });
-        if (owned) {
-            alerts.rebuild();
-        }
+        restore(curves, true, logged);
+        curves.forEach(curve -> lastReceived.put(curve, last.get(curve).recorded()));
+        alerts.rebuild();
         recovered = true;
     }
 
