@@ -7,8 +7,11 @@ import java.util.Collection;
 import java.util.Collections;
 import java.util.IdentityHashMap;
 import java.util.List;
+import java.util.Map;
+import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.atomic.AtomicLong;
 import org.apache.kafka.clients.consumer.ConsumerRecord;
 import org.apache.kafka.common.TopicPartition;
 import org.apache.kafka.common.utils.Utils;
@@ -27,37 +30,68 @@ import org.slopewatch.pipeline.QuoteBatch;
  * used; for a curve whose records this instance has not seen, the Kafka producer's default for a
  * keyed record (murmur2 of the key, modulo the partition count), which is how the daemon's own
  * publishers and {@code deploy/kafka/create-topics.sh} write the topic.
+ *
+ * <p>A partition just assigned is held (its records are taken, and wait for the rebuild) but its
+ * curves are not owned until {@link TakeoverQueue} has rebuilt them from the journal: until then
+ * this instance neither decides their clock-driven notices nor checkpoints them, since what it
+ * holds of them may be behind what their previous owner journalled.
  */
 @ApplicationScoped
 public class PartitionOwnership {
 
     private final Set<TopicPartition> held = ConcurrentHashMap.newKeySet();
+    /** Held partitions whose curves are not rebuilt yet, each with the assignment that handed it over. */
+    private final Map<TopicPartition, Long> rebuilding = new ConcurrentHashMap<>();
+    private final AtomicLong assignments = new AtomicLong();
     /** The partition each curve's latest record arrived on, as seen here. */
-    private final java.util.Map<String, Integer> arrivedOn = new ConcurrentHashMap<>();
+    private final Map<String, Integer> arrivedOn = new ConcurrentHashMap<>();
     private volatile int partitionCount;
 
-    void assigned(Collection<TopicPartition> partitions, int partitionsOfTopic) {
+    /**
+     * Partitions handed to this instance, held from now on, their curves owned once {@link #rebuilt}.
+     *
+     * @return the assignment's number, which {@link #rebuilt} takes back
+     */
+    long assigned(Collection<TopicPartition> partitions, int partitionsOfTopic) {
+        long assignment = assignments.incrementAndGet();
         partitionCount = partitionsOfTopic;
+        partitions.forEach(p -> rebuilding.put(p, assignment));
         held.addAll(partitions);
+        return assignment;
+    }
+
+    /** The curves of these partitions are rebuilt: owned from now on, unless a later assignment handed a partition over again. */
+    void rebuilt(Collection<TopicPartition> partitions, long assignment) {
+        partitions.forEach(p -> rebuilding.remove(p, assignment));
     }
 
     void revoked(Collection<TopicPartition> partitions) {
         held.removeAll(partitions);
+        partitions.forEach(rebuilding::remove);
     }
 
     public boolean holds(TopicPartition partition) {
         return held.contains(partition);
     }
 
-    /** Whether the curve's partition is held here; false before the first assignment. */
+    /** Whether the curve's partition is held here and its curves rebuilt; false before the first assignment. */
     public boolean ownsCurve(String curve) {
+        return heldFor(curve).filter(p -> !rebuilding.containsKey(p)).isPresent();
+    }
+
+    /** Whether the curve's partition is held here, rebuilt or not: the curves a takeover rebuilds. */
+    boolean holdsCurve(String curve) {
+        return heldFor(curve).isPresent();
+    }
+
+    private Optional<TopicPartition> heldFor(String curve) {
         int count = partitionCount;
         if (count == 0) {
-            return false;
+            return Optional.empty();
         }
         Integer seen = arrivedOn.get(curve);
         int partition = seen != null ? seen : Utils.toPositive(Utils.murmur2(curve.getBytes(StandardCharsets.UTF_8))) % count;
-        return held.stream().anyMatch(p -> p.partition() == partition);
+        return held.stream().filter(p -> p.partition() == partition).findAny();
     }
 
     /**

@@ -13,7 +13,8 @@ import org.slopewatch.pipeline.QuotePipeline;
  * When Kafka hands this instance partitions of the quotes topic (at start, or when another
  * instance of the same consumer group stops or joins), the curves of those partitions that another
  * instance moved on since this one last saw them are rebuilt from the shared journal (each from its
- * checkpoint and the quotes after it) before the first record of the new partitions is processed.
+ * checkpoint and the quotes after it) before the first record of the new partitions is processed:
+ * by {@link TakeoverQueue}, off the poll thread, the records waiting for it.
  * The journal holds what the previous owner concluded, so the new owner continues from there rather
  * than from whatever it last saw of those curves. Curves memory is current on are not rebuilt: the
  * first assignment after a start, which the start-up's rebuild already covers, replays nothing.
@@ -35,11 +36,13 @@ public class RebuildOnRebalance implements KafkaConsumerRebalanceListener {
 
     private final QuotePipeline pipeline;
     private final PartitionOwnership ownership;
+    private final TakeoverQueue takeovers;
     private final QuotesTopicCheck topicCheck;
 
-    RebuildOnRebalance(QuotePipeline pipeline, PartitionOwnership ownership, QuotesTopicCheck topicCheck) {
+    RebuildOnRebalance(QuotePipeline pipeline, PartitionOwnership ownership, TakeoverQueue takeovers, QuotesTopicCheck topicCheck) {
         this.pipeline = pipeline;
         this.ownership = ownership;
+        this.takeovers = takeovers;
         this.topicCheck = topicCheck;
     }
 
@@ -51,9 +54,7 @@ public class RebuildOnRebalance implements KafkaConsumerRebalanceListener {
             return;
         }
         String topic = partitions.iterator().next().topic();
-        ownership.assigned(partitions, consumer.partitionsFor(topic).size());
-        int rebuilt = pipeline.takeOver(ownership::ownsCurve).size();
-        LOG.infof("quotes partitions assigned %s: %d curve(s) rebuilt from the journal", partitions, rebuilt);
+        takeovers.rebuild(partitions, ownership.assigned(partitions, consumer.partitionsFor(topic).size()));
     }
 
     @Override

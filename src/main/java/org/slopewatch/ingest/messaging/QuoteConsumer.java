@@ -15,6 +15,7 @@ import org.eclipse.microprofile.reactive.messaging.Message;
 import org.eclipse.microprofile.reactive.messaging.OnOverflow;
 import org.jboss.logging.Logger;
 import org.slopewatch.ingest.kafka.PartitionOwnership;
+import org.slopewatch.ingest.kafka.TakeoverQueue;
 import org.slopewatch.journal.JournalException;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.pipeline.BatchOutcome;
@@ -37,7 +38,8 @@ import org.slopewatch.pipeline.Reject;
  * and sends again.
  *
  * <p>Records of partitions this instance no longer holds (a rebalance came between fetch and
- * processing) are left out: their new owner reads them again.
+ * processing) are left out: their new owner reads them again. Records of partitions just assigned
+ * wait until their curves are rebuilt from the journal ({@code TakeoverQueue}).
  */
 @ApplicationScoped
 public class QuoteConsumer {
@@ -49,14 +51,16 @@ public class QuoteConsumer {
 
     private final QuotePipeline pipeline;
     private final PartitionOwnership ownership;
+    private final TakeoverQueue takeovers;
     private final JournalReader journal;
     private final Emitter<String> deadLetters;
 
-    QuoteConsumer(QuotePipeline pipeline, PartitionOwnership ownership, JournalReader journal,
+    QuoteConsumer(QuotePipeline pipeline, PartitionOwnership ownership, TakeoverQueue takeovers, JournalReader journal,
                   @Channel("quotes-dead-letter") @OnOverflow(value = OnOverflow.Strategy.BUFFER, bufferSize = 10_000)
                   Emitter<String> deadLetters) {
         this.pipeline = pipeline;
         this.ownership = ownership;
+        this.takeovers = takeovers;
         this.journal = journal;
         this.deadLetters = deadLetters;
     }
@@ -67,6 +71,8 @@ public class QuoteConsumer {
         List<QuoteBatch> batches;
         BatchOutcome outcome;
         for (long pause = FIRST_PAUSE_MS; ; pause = Math.min(pause * 2, MAX_PAUSE_MS)) {
+            // records of partitions just assigned wait until their curves are rebuilt from the journal
+            takeovers.awaitRebuilt();
             batches = ownership.stillHeld(message); // again on each try: a rebalance may have come meanwhile
             try {
                 outcome = pipeline.process(batches);

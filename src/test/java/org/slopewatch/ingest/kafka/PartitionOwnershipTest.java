@@ -26,9 +26,9 @@ class PartitionOwnershipTest {
         for (String curve : List.of("GOVT-A", "GOVT-B", "GOVT-C", "GOVT-D", "GOVT-E", "GOVT-F", "UST", "Bund 10y")) {
             int producerChoice = BuiltInPartitioner.partitionForKey(curve.getBytes(StandardCharsets.UTF_8), partitions);
             PartitionOwnership holder = new PartitionOwnership();
-            holder.assigned(List.of(new TopicPartition(TOPIC, producerChoice)), partitions);
+            handOver(holder, List.of(new TopicPartition(TOPIC, producerChoice)), partitions);
             PartitionOwnership other = new PartitionOwnership();
-            other.assigned(List.of(new TopicPartition(TOPIC, (producerChoice + 1) % partitions)), partitions);
+            handOver(other, List.of(new TopicPartition(TOPIC, (producerChoice + 1) % partitions)), partitions);
 
             assertThat(holder.ownsCurve(curve)).as(curve).isTrue();
             assertThat(other.ownsCurve(curve)).as(curve).isFalse();
@@ -41,7 +41,7 @@ class PartitionOwnershipTest {
         assertThat(ownership.ownsCurve("GOVT-A")).isFalse();
 
         List<TopicPartition> all = List.of(new TopicPartition(TOPIC, 0), new TopicPartition(TOPIC, 1));
-        ownership.assigned(all, 2);
+        handOver(ownership, all, 2);
         assertThat(ownership.ownsCurve("GOVT-A")).isTrue();
 
         ownership.revoked(all);
@@ -53,7 +53,7 @@ class PartitionOwnershipTest {
         PartitionOwnership ownership = new PartitionOwnership();
         TopicPartition kept = new TopicPartition(TOPIC, 0);
         TopicPartition lost = new TopicPartition(TOPIC, 1);
-        ownership.assigned(List.of(kept, lost), 2);
+        handOver(ownership, List.of(kept, lost), 2);
         ownership.revoked(List.of(lost));
         QuoteBatch fromKept = new QuoteBatch("kafka", List.of(), List.of());
         QuoteBatch fromLost = new QuoteBatch("kafka", List.of(), List.of());
@@ -76,9 +76,9 @@ class PartitionOwnershipTest {
         int byDefault = BuiltInPartitioner.partitionForKey(curve.getBytes(StandardCharsets.UTF_8), partitions);
         int arrived = (byDefault + 1) % partitions; // a producer with a partitioner of its own
         PartitionOwnership holder = new PartitionOwnership();
-        holder.assigned(List.of(new TopicPartition(TOPIC, arrived)), partitions);
+        handOver(holder, List.of(new TopicPartition(TOPIC, arrived)), partitions);
         PartitionOwnership other = new PartitionOwnership();
-        other.assigned(List.of(new TopicPartition(TOPIC, byDefault)), partitions);
+        handOver(other, List.of(new TopicPartition(TOPIC, byDefault)), partitions);
         QuoteBatch batch = new QuoteBatch("kafka", List.of(new org.slopewatch.pipeline.QuoteMessage("m1", "test", null, curve,
                 java.time.LocalDate.of(2026, 3, 2), new java.util.TreeMap<>(Map.of(org.slopewatch.curve.Tenor.years(10), 400.0)))), List.of());
         Message<List<QuoteBatch>> message = Message.of(List.of(batch)).addMetadata(new IncomingKafkaRecordBatchMetadata<>(
@@ -91,5 +91,28 @@ class PartitionOwnershipTest {
 
         assertThat(holder.ownsCurve(curve)).as("the holder of the partition the records arrive on").isTrue();
         assertThat(other.ownsCurve(curve)).as("the holder of the partition a recomputation names").isFalse();
+    }
+
+    @Test
+    void aPartitionJustAssignedIsHeldButItsCurvesAreOwnedOnlyOnceTheirRebuildIsDone() {
+        PartitionOwnership ownership = new PartitionOwnership();
+        List<TopicPartition> all = List.of(new TopicPartition(TOPIC, 0));
+        long first = ownership.assigned(all, 1);
+        assertThat(ownership.holds(all.get(0))).as("its records are taken, to wait for the rebuild").isTrue();
+        assertThat(ownership.holdsCurve("GOVT-A")).isTrue();
+        assertThat(ownership.ownsCurve("GOVT-A")).as("no clock-driven notice nor checkpoint before the rebuild").isFalse();
+
+        // handed over again before the first rebuild ended: the first rebuild's end does not make it owned
+        ownership.revoked(all);
+        long second = ownership.assigned(all, 1);
+        ownership.rebuilt(all, first);
+        assertThat(ownership.ownsCurve("GOVT-A")).isFalse();
+        ownership.rebuilt(all, second);
+        assertThat(ownership.ownsCurve("GOVT-A")).isTrue();
+    }
+
+    /** An assignment whose rebuild is done: the curves of the partitions are owned. */
+    private static void handOver(PartitionOwnership ownership, List<TopicPartition> partitions, int partitionsOfTopic) {
+        ownership.rebuilt(partitions, ownership.assigned(partitions, partitionsOfTopic));
     }
 }
