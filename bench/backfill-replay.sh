@@ -7,6 +7,8 @@
 # Usage: bench/backfill-replay.sh [FILE [ROUNDS [POLICY]]]
 #   FILE defaults to bench/out/curves-10x40y.csv (generate it with CurvesHistoryGenerator FILE 10),
 #   ROUNDS to 3, POLICY to alert-rules/default.yaml. Needs target/quarkus-app (./mvnw -DskipTests package).
+#   BACKFILL_JOURNAL=postgres backfills into a fresh database of the PostgreSQL server that
+#   .ci/postgres.sh runs on SLOPEWATCH_POSTGRES_PORT (default 55432) instead of a fresh H2 file.
 set -euo pipefail
 root="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$root"
@@ -16,20 +18,36 @@ policy="${3:-alert-rules/default.yaml}"
 jar=target/quarkus-app/quarkus-run.jar
 out=bench/out/backfill-replay
 mkdir -p "$out"
+rm -f "$out"/*.time
 [ -f "$file" ] || { echo "no $file" >&2; exit 1; }
 jvm_opts="$(sed -n 's/^  replay|fit|[a-z|-]*) batch_opts="\(.*\)" ;;$/\1/p' slopewatch)"
-echo "load before: $(cut -d' ' -f1-3 /proc/loadavg)"
+echo "load before: $(cut -d' ' -f1-3 /proc/loadavg); journal: ${BACKFILL_JOURNAL:-h2}"
 work=$(mktemp -d /tmp/slopewatch-backfill-replay-XXXXXX)
 trap 'rm -rf "$work"' EXIT
+journal="${BACKFILL_JOURNAL:-h2}"
+pg_port="${SLOPEWATCH_POSTGRES_PORT:-55432}"
+psql_bin="$(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -1)/psql"
+echo sw > "$work/password"
+fresh_journal() { # prints the URL of an empty journal
+  if [ "$journal" = postgres ]; then
+    "$psql_bin" -q -h 127.0.0.1 -p "$pg_port" -U postgres -d postgres -c "DROP DATABASE IF EXISTS backfill_bench" \
+      -c "CREATE DATABASE backfill_bench OWNER sw" >&2
+    echo "jdbc:postgresql://127.0.0.1:$pg_port/backfill_bench"
+  else
+    rm -rf "$work/j"
+    echo "jdbc:h2:file:$work/j/journal"
+  fi
+}
 run_one() { # kind round
   local t="$out/$1-$2.time"
   if [ "$1" = replay ]; then
     /usr/bin/time -f '%e %U %S' -o "$t" java $jvm_opts -Dslopewatch.progress=false -jar "$jar" replay "$file" \
       --policy "$policy" --json > "$out/replay-$2.json"
   else
-    rm -rf "$work/j"
+    local url
+    url="$(fresh_journal)"
     /usr/bin/time -f '%e %U %S' -o "$t" java $jvm_opts -Dslopewatch.progress=false -jar "$jar" backfill "$file" \
-      --policy "$policy" --journal-url "jdbc:h2:file:$work/j/journal" > "$out/backfill-$2.txt"
+      --policy "$policy" --journal-url "$url" --journal-user sw --journal-password-file "$work/password" > "$out/backfill-$2.txt"
   fi
   echo "round $2 $1: $(awk '{ printf "%s s wall, %s s user, %s s system", $1, $2, $3 }' "$t")"
 }

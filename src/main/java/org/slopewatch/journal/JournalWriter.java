@@ -17,7 +17,8 @@ import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.Transition;
 
 /**
- * Writes {@link JournalEntries} in one transaction with batched statements, and returns once the
+ * Writes {@link JournalEntries} in one transaction (quote and spread-value rows in bulk,
+ * {@link BulkRows}; the rest in batched statements), and returns once the
  * transaction is on disk ({@link JournalDurability#commit}). Every row carries the time it was
  * recorded, read from the injected clock.
  */
@@ -61,33 +62,18 @@ public final class JournalWriter {
         if (e.quotes.isEmpty()) {
             return;
         }
-        try (PreparedStatement q = c.prepareStatement("INSERT INTO quote (seq, message_id, origin, source, sent_at, curve, "
-                + "market_date, yields, recorded_at) VALUES (?,?,?,?,?,?,?,?,?)");
-             PreparedStatement seen = c.prepareStatement("INSERT INTO seen_message (message_id, seq, recorded_at) VALUES (?,?,?)")) {
-            boolean anySeen = false;
+        try (BulkRows q = BulkRows.into(c, "quote", "seq", "message_id", "origin", "source", "sent_at", "curve", "market_date", "yields",
+                "recorded_at");
+             BulkRows seen = BulkRows.into(c, "seen_message", "message_id", "seq", "recorded_at")) {
             for (JournalEntries.AcceptedQuote a : e.quotes) {
-                q.setLong(1, a.seq());
-                q.setString(2, a.messageId());
-                q.setString(3, a.origin());
-                q.setString(4, a.source());
-                q.setTimestamp(5, a.sentAt() == null ? null : Timestamp.from(a.sentAt()));
-                q.setString(6, a.curve());
-                q.setDate(7, Date.valueOf(a.date()));
-                q.setString(8, YieldsText.write(a.yieldsBp()));
-                q.setTimestamp(9, now);
-                q.addBatch();
+                q.row(a.seq(), a.messageId(), a.origin(), a.source(), a.sentAt() == null ? null : Timestamp.from(a.sentAt()), a.curve(),
+                        a.date(), YieldsText.write(a.yieldsBp()), now);
                 if (a.messageId() != null) {
-                    seen.setString(1, a.messageId());
-                    seen.setLong(2, a.seq());
-                    seen.setTimestamp(3, now);
-                    seen.addBatch();
-                    anySeen = true;
+                    seen.row(a.messageId(), a.seq(), now);
                 }
             }
-            q.executeBatch();
-            if (anySeen) {
-                seen.executeBatch();
-            }
+            q.write();
+            seen.write();
         }
     }
 
@@ -113,16 +99,11 @@ public final class JournalWriter {
         if (e.observations.isEmpty()) {
             return;
         }
-        try (PreparedStatement s = c.prepareStatement("INSERT INTO observation (spread_id, market_date, value_bp, seq, recorded_at) VALUES (?,?,?,?,?)")) {
+        try (BulkRows rows = BulkRows.into(c, "observation", "spread_id", "market_date", "value_bp", "seq", "recorded_at")) {
             for (JournalEntries.SpreadValue v : e.observations) {
-                s.setString(1, v.spread().id());
-                s.setDate(2, Date.valueOf(v.observation().date()));
-                s.setDouble(3, v.observation().valueBp());
-                s.setLong(4, v.observation().sequence());
-                s.setTimestamp(5, now);
-                s.addBatch();
+                rows.row(v.spread().id(), v.observation().date(), v.observation().valueBp(), v.observation().sequence(), now);
             }
-            s.executeBatch();
+            rows.write();
         }
     }
 
