@@ -20,8 +20,11 @@ out=bench/out/backfill-replay
 mkdir -p "$out"
 rm -f "$out"/*.time
 [ -f "$file" ] || { echo "no $file" >&2; exit 1; }
-jvm_opts="$(sed -n 's/^  replay|fit|[a-z|-]*) batch_opts="\(.*\)" ;;$/\1/p' slopewatch)"
-echo "load before: $(cut -d' ' -f1-3 /proc/loadavg); journal: ${BACKFILL_JOURNAL:-h2}"
+# each command under the launcher's own options for it
+replay_opts="$(sed -n 's/^  replay|fit|[a-z|-]*) batch_opts="\(.*\)" ;;$/\1/p' slopewatch)"
+backfill_opts="$(sed -n 's/^  backfill) batch_opts="\(.*\)" ;;$/\1/p' slopewatch)"
+[ -n "$replay_opts" ] && [ -n "$backfill_opts" ] || { echo "cannot read the launcher's options" >&2; exit 1; }
+echo "load before: $(cut -d' ' -f1-3 /proc/loadavg); journal: ${BACKFILL_JOURNAL:-h2}; replay: $replay_opts; backfill: $backfill_opts"
 work=$(mktemp -d /tmp/slopewatch-backfill-replay-XXXXXX)
 trap 'rm -rf "$work"' EXIT
 journal="${BACKFILL_JOURNAL:-h2}"
@@ -41,12 +44,12 @@ fresh_journal() { # prints the URL of an empty journal
 run_one() { # kind round
   local t="$out/$1-$2.time"
   if [ "$1" = replay ]; then
-    /usr/bin/time -f '%e %U %S' -o "$t" java $jvm_opts -Dslopewatch.progress=false -jar "$jar" replay "$file" \
+    /usr/bin/time -f '%e %U %S' -o "$t" java $replay_opts -Dslopewatch.progress=false -jar "$jar" replay "$file" \
       --policy "$policy" --json > "$out/replay-$2.json"
   else
     local url
     url="$(fresh_journal)"
-    /usr/bin/time -f '%e %U %S' -o "$t" java $jvm_opts -Dslopewatch.progress=false -jar "$jar" backfill "$file" \
+    /usr/bin/time -f '%e %U %S' -o "$t" java $backfill_opts -Dslopewatch.progress=false -jar "$jar" backfill "$file" \
       --policy "$policy" --journal-url "$url" --journal-user sw --journal-password-file "$work/password" > "$out/backfill-$2.txt"
   fi
   echo "round $2 $1: $(awk '{ printf "%s s wall, %s s user, %s s system", $1, $2, $3 }' "$t")"
