@@ -34,6 +34,12 @@ final class KafkaRuns {
     /** Six curves over six partitions: with the range assignor one of two instances gets GOVT-C and GOVT-D, the other the rest. */
     static final List<String> CURVES = List.of("GOVT-A", "GOVT-B", "GOVT-C", "GOVT-D", "GOVT-E", "GOVT-F");
     static final int PARTITIONS = 6;
+    /**
+     * The consumer group's session time-out of every daemon here: the broker's least
+     * ({@code group.min.session.timeout.ms}, 6 s by default (from memory)), so that a killed member
+     * leaves the group, and the others take its partitions, as soon as the broker allows.
+     */
+    static final String SESSION_TIMEOUT_MS = "6000";
 
     private KafkaRuns() {
     }
@@ -46,7 +52,8 @@ final class KafkaRuns {
     /**
      * A daemon of the default policy on {@code topic} (also its consumer group) with {@code journal},
      * its chat channel posting alert JSON to {@code chatUrl}. A dead member leaves the group after 6 s
-     * (the broker's least session time-out) rather than the daemon's 10 s, so that a restart after a kill resumes soon;
+     * (the broker's least session time-out) rather than the daemon's 10 s, so that a restart or a takeover after a kill
+     * resumes soon;
      * checkpoints are written every second.
      */
     static Map<String, String> settings(String topic, TestDatabase journal, String chatUrl) {
@@ -56,7 +63,7 @@ final class KafkaRuns {
         s.put("kafka.bootstrap.servers", KafkaBroker.bootstrapServers());
         s.put("mp.messaging.incoming.quotes.topic", topic);
         s.put("mp.messaging.incoming.quotes.group.id", topic);
-        s.put("mp.messaging.incoming.quotes.session.timeout.ms", "6000");
+        s.put("mp.messaging.incoming.quotes.session.timeout.ms", SESSION_TIMEOUT_MS);
         s.put("mp.messaging.incoming.quotes.heartbeat.interval.ms", "1500");
         // checkpoints every second: restarts and takeovers start from them, and must come out as an uninterrupted run would
         s.put("slopewatch.ingest.checkpoint-every", "1s");
