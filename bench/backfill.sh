@@ -6,6 +6,7 @@
 #   [BENCH_POLICY=FILE] bench/backfill.sh [DATES_PER_REQUEST]
 set -euo pipefail
 cd "$(dirname "$0")/.."
+. bench/lib/http-history.sh
 per_request=${1:-500}; port=${BENCH_PORT:-18081}
 policy=${BENCH_POLICY:-alert-rules/default.yaml}
 mkdir -p bench/out
@@ -26,26 +27,17 @@ java -XX:+UseSerialGC -XX:TieredStopAtLevel=1 -Dslopewatch.home="$PWD" -jar targ
 backfill_s=$(echo "$(date +%s.%N) - $start" | bc)
 
 # 2. the same file over HTTP: split at date boundaries (the rows of one date are together), header on each body
-awk -F, -v per="$per_request" -v dir="$work/bodies" 'NR==1 {h=$0; system("mkdir -p " dir); next}
-  $1 != last {dates++; last=$1; if ((dates-1) % per == 0) {n++; f=sprintf("%s/%06d.csv", dir, n); print h > f}}
-  {print >> f}' "$file"
-curves=$(awk -F, 'NR>1 {print $2}' "$file" | sort -u | paste -sd,)
+split_history "$file" "$per_request" "$work/bodies"
+curves=$(curves_of "$file")
 token="bench-$(od -An -N12 -tx1 /dev/urandom | tr -d ' \n')"
 java -Xmx2g -Dslopewatch.security.write-tokens="$token" -Dslopewatch.home="$PWD" -Dslopewatch.data-dir="$work/daemon" \
      -Dslopewatch.ingest.max-days-ahead=36500 -Dslopewatch.ingest.curves="$curves" -Dslopewatch.ingest.policy="$policy" \
      -Dquarkus.http.port="$port" -Dquarkus.log.category.\"org.slopewatch.transitions\".level=WARN \
      -jar target/quarkus-app/quarkus-run.jar serve > bench/out/backfill-daemon.log 2>&1 &
 daemon=$!
-for _ in $(seq 1 120); do
-  curl -sf "http://127.0.0.1:$port/q/health/ready" > /dev/null 2>&1 && break
-  sleep 0.5
-done
+await_ready "$port"
 start=$(date +%s.%N)
-accepted=0
-for body in "$work"/bodies/*.csv; do
-  answer=$(curl -sf -H "Authorization: Bearer $token" -H 'Content-Type: text/csv' --data-binary @"$body" "http://127.0.0.1:$port/api/quotes")
-  accepted=$((accepted + $(echo "$answer" | sed -E 's/.*"accepted":([0-9]+).*/\1/')))
-done
+accepted=$(post_bodies "$port" "$token" "$work/bodies")
 http_s=$(echo "$(date +%s.%N) - $start" | bc)
 requests=$(ls "$work"/bodies | wc -l)
 echo "backfill-vs-http policy=$policy backfill_s=$backfill_s http_s=$http_s http_requests=$requests http_accepted_snapshots=$accepted" \
