@@ -2,8 +2,9 @@
  * The journal: accepted quotes, rejects, spread observations, transitions, spells and revisions,
  * and the alert tables (notices, their outbox and attempts, acknowledgements, quiet periods, policy
  * versions) in one schema (Flyway migrations in {@code db/journal}) for H2 and PostgreSQL, written
- * with plain batched JDBC. {@link org.slopewatch.journal.JournalWriter} writes a step, its notices
- * with their outbox rows included ({@code AlertRows}); each alert table is read and written
+ * with plain JDBC. {@link org.slopewatch.journal.JournalWriter} writes a step, its quote and
+ * spread-value rows in bulk ({@code BulkRows}: {@code COPY} on PostgreSQL, a batched insert on H2)
+ * and its notices with their outbox rows ({@code AlertRows}); each alert table is read and written
  * through a store with one job ({@code AlertHistory}, {@code DeliveryOutbox},
  * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code QuietPeriodBook}, {@code PolicyVersions}),
  * the counter that every quiet period, lift and acknowledgement moves in its own transaction, so that
