@@ -25,6 +25,10 @@ import org.slopewatch.pipeline.QuotePipeline;
  * With 0 curves it only creates the empty, migrated journal that the baseline starts on.
  *
  * <p>Arguments: DIR CURVES YEARS [MESSAGES_PER_STEP]. Not a test (surefire excludes bench/).
+ * With {@code -Dscale.journal-url=jdbc:postgresql://…} (user and password {@code sw}, as
+ * {@code .ci/postgres.sh} creates them; the database must exist and be empty) the journal is built
+ * there instead, and the URL is written to {@code DIR/journal-url.txt}, where
+ * {@link ScaleStartupBench} finds it.
  */
 public final class ScaleJournalBuilder {
 
@@ -45,11 +49,16 @@ public final class ScaleJournalBuilder {
         int perStep = args.length > 3 ? Integer.parseInt(args[3]) : 2_000;
         Files.createDirectories(dir);
         Files.writeString(dir.resolve("scale-policy.yaml"), ScaleScenario.policyYaml());
-        String url = "jdbc:h2:file:" + dir.resolve("journal") + ";DB_CLOSE_ON_EXIT=FALSE";
+        String postgres = System.getProperty("scale.journal-url");
+        String url = postgres != null ? postgres : "jdbc:h2:file:" + dir.resolve("journal") + ";DB_CLOSE_ON_EXIT=FALSE";
+        if (postgres != null) {
+            Files.writeString(dir.resolve(ScaleStartupBench.JOURNAL_URL_FILE), postgres);
+        }
         long t0 = System.nanoTime();
         long messages = 0;
+        long postgresBytes;
         List<LocalDate> days = curves == 0 ? List.of() : ScaleScenario.businessDays(years);
-        try (AgroalDataSource ds = JournalDatabase.open(url, null, null, 4)) {
+        try (AgroalDataSource ds = JournalDatabase.open(url, postgres != null ? "sw" : null, postgres != null ? "sw" : null, 4)) {
             // as the daemon runs by default: 400 days held in memory, checkpoints written at the end (as at its shutdown)
             QuotePipeline pipeline = new QuotePipeline(ScaleScenario.watches(), new JournalWriter(ds, Clock.systemUTC()),
                     new JournalReader(ds), PipelineListener.NONE, org.slopewatch.alerting.AlertStage.NONE, Clock.systemUTC(),
@@ -69,12 +78,10 @@ public final class ScaleJournalBuilder {
             if (CHECKPOINTS) {
                 pipeline.checkpoint(org.slopewatch.pipeline.CurveOwnership.ALL);
             }
+            postgresBytes = postgres != null ? postgresBytes(ds) : 0;
         }
         double seconds = (System.nanoTime() - t0) / 1e9;
-        long bytes;
-        try (Stream<Path> files = Files.list(dir)) {
-            bytes = files.filter(p -> p.getFileName().toString().startsWith("journal")).mapToLong(p -> p.toFile().length()).sum();
-        }
+        long bytes = postgres != null ? postgresBytes : h2Bytes(dir);
         String line = String.format(Locale.ROOT, "scale-journal dir=%s curves=%d spreads=%d years=%s business_days=%d first=%s messages=%d "
                         + "observation_rows=%d seconds=%.1f messages_per_s=%.0f journal_bytes=%d",
                 dir.getFileName(), curves, curves * ScaleScenario.SPREADS.length, args[2], days.size(), days.isEmpty() ? "-" : days.get(0),
@@ -95,5 +102,19 @@ public final class ScaleJournalBuilder {
         int n = step.size();
         step.clear();
         return n;
+    }
+
+    private static long h2Bytes(Path dir) throws java.io.IOException {
+        try (Stream<Path> files = Files.list(dir)) {
+            return files.filter(p -> p.getFileName().toString().startsWith("journal")).mapToLong(p -> p.toFile().length()).sum();
+        }
+    }
+
+    /** The database's size on disk, as PostgreSQL counts it ({@code pg_database_size}). */
+    private static long postgresBytes(AgroalDataSource ds) throws java.sql.SQLException {
+        try (var c = ds.getConnection(); var rs = c.createStatement().executeQuery("SELECT pg_database_size(current_database())")) {
+            rs.next();
+            return rs.getLong(1);
+        }
     }
 }

@@ -29,7 +29,8 @@ import org.slopewatch.testsupport.DaemonProcess;
  *
  * <p>Arguments: ROUNDS BASELINE_DIR JOURNAL_DIR:CURVES... Each directory holds {@code journal.mv.db}
  * and {@code scale-policy.yaml} as {@link ScaleJournalBuilder} writes them. JVM options of the
- * daemons: the system property {@code scale.daemon.jvm} (default {@code -Xmx6g}). With
+ * daemons: the system property {@code scale.daemon.jvm} (default {@code -Xmx6g}). A directory with a
+ * {@code journal-url.txt} names a PostgreSQL journal instead of its H2 file. With
  * {@code -Dscale.whole-replay=false} the third start (every quote replayed) is left out, for
  * journals whose whole replay would take longer than the run can afford; its fields then read -1.
  */
@@ -37,6 +38,9 @@ public final class ScaleStartupBench {
 
     private static final Pattern REBUILT = Pattern.compile("rebuilt from (\\d+) journalled quote message\\(s\\) in (\\d+) ms");
     private static final HttpClient HTTP = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(2)).build();
+
+    /** In a journal's directory: the JDBC URL of a PostgreSQL journal built there ({@link ScaleJournalBuilder}), user and password {@code sw}. */
+    static final String JOURNAL_URL_FILE = "journal-url.txt";
 
     private static final boolean WHOLE_REPLAY = Boolean.parseBoolean(System.getProperty("scale.whole-replay", "true"));
 
@@ -76,12 +80,19 @@ public final class ScaleStartupBench {
     private static Start start(String name, Path dir, int curves, List<String> jvm, Map<String, String> extra) throws Exception {
         Map<String, String> settings = new HashMap<>(extra);
         settings.put("slopewatch.data-dir", dir.toString());
+        Path postgres = dir.resolve(JOURNAL_URL_FILE);
+        Map<String, String> environment = new HashMap<>();
+        if (Files.isRegularFile(postgres)) {
+            settings.put("slopewatch.journal.url", Files.readString(postgres).strip());
+            settings.put("slopewatch.journal.username", "sw");
+            environment.put("SLOPEWATCH_JOURNAL_PASSWORD", "sw");
+        }
         settings.put("slopewatch.ingest.policy", dir.resolve("scale-policy.yaml").toString());
         settings.put("slopewatch.ingest.curves", String.join(",", ScaleScenario.curves(Math.max(1, curves))));
         settings.put("slopewatch.security.write-tokens", "scale-bench-" + Long.toHexString(System.nanoTime()));
         settings.put("quarkus.log.category.\"org.slopewatch.transitions\".level", "WARN");
         long t0 = System.nanoTime();
-        try (DaemonProcess daemon = DaemonProcess.start(name, jvm, List.of("serve"), settings, Map.of())) {
+        try (DaemonProcess daemon = DaemonProcess.start(name, jvm, List.of("serve"), settings, environment)) {
             while (!ready(daemon)) {
                 if (!daemon.isAlive()) {
                     throw new IllegalStateException(name + " exited:\n" + daemon.logTail());
