@@ -109,6 +109,21 @@ public final class JournalEntries {
         return List.copyOf(alerts);
     }
 
+    /** The quote and spread-value rows held: what a step may write ahead of its end ({@link StepWrite}). */
+    int rowCount() {
+        return quotes.size() + observations.size();
+    }
+
+    /** The quote and spread-value rows so far, handed over and no longer held here. */
+    JournalEntries takeRows() {
+        JournalEntries part = new JournalEntries();
+        part.quotes.addAll(quotes);
+        part.observations.addAll(observations);
+        quotes.clear();
+        observations.clear();
+        return part;
+    }
+
     public boolean isEmpty() {
         return quotes.isEmpty() && rejects.isEmpty() && observations.isEmpty() && conclusions.isEmpty() && alerts.isEmpty();
     }

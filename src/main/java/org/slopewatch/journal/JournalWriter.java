@@ -11,6 +11,10 @@ import java.time.Instant;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.concurrent.BlockingQueue;
+import java.util.concurrent.LinkedBlockingQueue;
+import java.util.concurrent.ThreadPoolExecutor;
+import java.util.concurrent.TimeUnit;
 import java.util.stream.Collectors;
 import javax.sql.DataSource;
 import org.slopewatch.monitor.Spell;
@@ -26,10 +30,22 @@ public final class JournalWriter {
 
     /** Commits between two compactions of an embedded H2 journal's file ({@link JournalCompaction}). */
     public static final int COMPACT_EVERY = 50;
+    /**
+     * Quote and spread-value rows a step holds before they go to the writer thread ({@link StepWrite}):
+     * a live quote's step never reaches it; a backlog's or a backfill's does within a few hundred messages.
+     */
+    public static final int WRITE_AHEAD_ROWS = 2_000;
 
     private final JournalSql sql;
     private final Clock clock;
     private final JournalCompaction compaction;
+    private final int aheadRows;
+    /** The thread that writes a large step while it is decided; ends when idle. */
+    private final ThreadPoolExecutor writerThread = new ThreadPoolExecutor(1, 1, 30, TimeUnit.SECONDS, new LinkedBlockingQueue<>(), r -> {
+        Thread t = new Thread(r, "slopewatch-journal-writer");
+        t.setDaemon(true);
+        return t;
+    });
 
     public JournalWriter(DataSource dataSource, Clock clock) {
         this(dataSource, clock, COMPACT_EVERY);
@@ -37,9 +53,55 @@ public final class JournalWriter {
 
     /** @param compactEvery commits between two compactions of an embedded H2 journal's file; 0 never (for measurements) */
     public JournalWriter(DataSource dataSource, Clock clock, int compactEvery) {
+        this(dataSource, clock, compactEvery, WRITE_AHEAD_ROWS);
+    }
+
+    /** @param aheadRows rows a step holds before they are written ahead on the writer thread (1: every step, for tests) */
+    public JournalWriter(DataSource dataSource, Clock clock, int compactEvery, int aheadRows) {
+        if (aheadRows < 1) {
+            throw new IllegalArgumentException("rows written ahead: at least 1, not " + aheadRows);
+        }
         this.sql = new JournalSql(dataSource);
         this.clock = clock;
         this.compaction = new JournalCompaction(compactEvery);
+        this.aheadRows = aheadRows;
+        writerThread.allowCoreThreadTimeOut(true);
+    }
+
+    /** The journal's side of a step about to be decided: written ahead in parts once it is large ({@link StepWrite}). */
+    public StepWrite begin() {
+        return new StepWrite(this, writerThread, aheadRows, this::writeInParts);
+    }
+
+    /**
+     * On the writer thread: one transaction taking the step's parts as they come, the rest last,
+     * committed durably; rolled back when told to give up or when anything fails.
+     */
+    private Void writeInParts(BlockingQueue<StepWrite.Part> parts) {
+        Timestamp now = Timestamp.from(Instant.now(clock));
+        int[] quotes = new int[1];
+        return sql.transaction(c -> {
+            for (;;) {
+                StepWrite.Part part;
+                try {
+                    part = parts.take();
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                    throw new SQLException("interrupted while writing a step", e);
+                }
+                if (part instanceof StepWrite.Rows rows) {
+                    quotes[0] += rows.entries().quotes.size();
+                    quotes(c, rows.entries(), now);
+                    observations(c, rows.entries(), now);
+                } else if (part instanceof StepWrite.Rest rest) {
+                    quotes[0] += rest.entries().quotes.size();
+                    all(c, rest.entries(), now);
+                    return null;
+                } else {
+                    throw new SQLException("the step was abandoned before it was written whole");
+                }
+            }
+        }, compaction::afterCommit, () -> "a step of " + quotes[0] + " quotes written in parts");
     }
 
     public void write(JournalEntries e) {
@@ -48,14 +110,18 @@ public final class JournalWriter {
         }
         Timestamp now = Timestamp.from(Instant.now(clock));
         sql.transaction(c -> {
-            quotes(c, e, now);
-            rejects(c, e, now);
-            observations(c, e, now);
-            conclusions(c, e.conclusions, now);
-            AlertRows.insert(c, e.alerts, now);
+            all(c, e, now);
             return null;
         }, compaction::afterCommit, () -> e.quotes.size() + " quotes, " + e.transitionCount + " transitions and " + e.alerts.size()
                 + " alerts");
+    }
+
+    private static void all(Connection c, JournalEntries e, Timestamp now) throws SQLException {
+        quotes(c, e, now);
+        rejects(c, e, now);
+        observations(c, e, now);
+        conclusions(c, e.conclusions, now);
+        AlertRows.insert(c, e.alerts, now);
     }
 
     private static void quotes(Connection c, JournalEntries e, Timestamp now) throws SQLException {

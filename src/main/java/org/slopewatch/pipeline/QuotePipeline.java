@@ -22,6 +22,7 @@ import org.slopewatch.journal.CurveCheckpoints;
 import org.slopewatch.journal.JournalEntries;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
+import org.slopewatch.journal.StepWrite;
 import org.slopewatch.monitor.MonitorEvent;
 import org.slopewatch.monitor.Revision;
 import org.slopewatch.monitor.SignalEngine;
@@ -332,6 +333,8 @@ public final class QuotePipeline {
         Set<String> curvesMoved = new HashSet<>();
         long beforeWrite;
         long written;
+        // a large step's rows are written on the journal's writer thread while the rest is decided
+        StepWrite write = writer.begin();
         // the whole step or nothing: a failure anywhere before the commit (deciding as well as
         // writing) leaves memory ahead of the journal (ids taken as seen, monitors moved on), so it
         // goes back to what the journal holds; otherwise the quotes sent again would be dropped as
@@ -376,6 +379,7 @@ public final class QuotePipeline {
                     if (!stepSpreads.isEmpty()) {
                         alerts.onStep(stepSpreads.stream().map(SpreadStatus::of).toList(), seq, journal);
                     }
+                    write.progress(journal);
                 }
             }
             for (SpreadTrack t : touched.values()) {
@@ -384,9 +388,10 @@ public final class QuotePipeline {
                 }
             }
             beforeWrite = System.nanoTime();
-            writer.write(journal);
+            write.finish(journal);
             written = System.nanoTime();
         } catch (RuntimeException e) {
+            write.abandon();
             recoverAfterFailedStep(e);
             throw e;
         }

@@ -667,4 +667,129 @@ abstract class QuotePipelineRestartChecks {
             }
         };
     }
+
+    /**
+     * A step whose rows go to the journal's writer thread in parts while it is decided (every step
+     * here: one row is enough) journals exactly what the same step written whole at its end
+     * journals: the same quote and spread-value rows in the same order, transitions (superseded
+     * ones included) and spells, and leaves the same states. Steps of many batches, with revisions
+     * older than the memory, which read the journal while a step's transaction is open.
+     */
+    @Test
+    void aStepWrittenAheadInPartsJournalsWhatOneWrittenWholeDoes() {
+        for (long seed : new long[] {4, 13}) {
+            List<QuoteBatch> batches = scenarioWithOldRevisions(seed);
+            AgroalDataSource wholeDs = database("step-whole-" + seed);
+            AgroalDataSource partsDs = database("step-parts-" + seed);
+            QuotePipeline whole = stepping(wholeDs, Integer.MAX_VALUE, AlertStage.NONE);
+            QuotePipeline parts = stepping(partsDs, 1, AlertStage.NONE);
+            Random random = new Random(seed);
+            for (int from = 0; from < batches.size(); ) {
+                int to = Math.min(batches.size(), from + 1 + random.nextInt(40));
+                List<QuoteBatch> step = batches.subList(from, to);
+                whole.process(step);
+                parts.process(step);
+                from = to;
+            }
+            assertThat(parts.spreads()).as("seed %d: states", seed).isEqualTo(whole.spreads());
+            assertThat(rows(partsDs)).as("seed %d: quote and spread-value rows, in order", seed).isEqualTo(rows(wholeDs));
+            org.slopewatch.testsupport.JournalContents expected = org.slopewatch.testsupport.JournalContents.read(wholeDs);
+            org.slopewatch.testsupport.JournalContents actual = org.slopewatch.testsupport.JournalContents.read(partsDs);
+            assertThat(actual.transitions()).as("seed %d: transitions", seed).isEqualTo(expected.transitions()).isNotEmpty();
+            assertThat(actual.spells()).as("seed %d: spells", seed).isEqualTo(expected.spells());
+        }
+    }
+
+    /**
+     * A step that fails after parts of it were handed to the writer thread leaves nothing of itself
+     * in the journal, whichever side failed: the journal (a curve name longer than its column, in
+     * the step's last message) or the deciding (the alert stage throwing on the step's last
+     * message). The states go back to what the journal holds, and the quotes that follow are taken
+     * as if the step had never come.
+     */
+    @Test
+    void aStepThatFailsAfterPartsWereWrittenAheadLeavesNothingOfItself() {
+        List<QuoteBatch> batches = scenario(6);
+        AgroalDataSource referenceDs = database("failed-step-reference");
+        QuotePipeline reference = stepping(referenceDs, Integer.MAX_VALUE, AlertStage.NONE);
+        boolean[] decidingFails = new boolean[1];
+        AlertStage failing = new AlertStage() {
+            @Override
+            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
+                if (decidingFails[0]) {
+                    throw new IllegalStateException("the deciding side failed");
+                }
+            }
+
+            @Override
+            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
+            }
+
+            @Override
+            public void written(List<JournalEntries.AlertEntry> alerts) {
+            }
+
+            @Override
+            public void rebuild() {
+            }
+        };
+        AgroalDataSource ds = database("failed-step");
+        QuotePipeline p = stepping(ds, 1, failing);
+        reference.process(batches.subList(0, 100));
+        p.process(batches.subList(0, 100));
+        JournalReader journal = new JournalReader(ds);
+        long before = journal.quoteCount();
+        List<SpreadStatus> states = p.spreads();
+
+        // the journal refuses the step's last message: a curve name longer than the quote table's column (100)
+        QuoteMessage last = batches.get(150).messages().get(0);
+        QuoteBatch tooLong = new QuoteBatch("http", List.of(new QuoteMessage(null, null, null, "G".repeat(101), last.date(), last.yieldsBp())),
+                List.of());
+        List<QuoteBatch> refused = new ArrayList<>(batches.subList(100, 150));
+        refused.add(tooLong);
+        assertThatThrownBy(() -> p.process(refused)).as("a step the journal refuses");
+        assertThat(journal.quoteCount()).as("quotes after the refused step").isEqualTo(before);
+        assertThat(p.spreads()).as("states after the refused step").isEqualTo(states);
+
+        // the deciding side fails on the step's last message, after its first ones went to the writer thread
+        List<QuoteBatch> failed = new ArrayList<>(batches.subList(100, 150));
+        decidingFails[0] = true;
+        assertThatThrownBy(() -> p.process(failed)).hasMessageContaining("the deciding side failed");
+        decidingFails[0] = false;
+        assertThat(journal.quoteCount()).as("quotes after the failed step").isEqualTo(before);
+        assertThat(p.spreads()).as("states after the failed step").isEqualTo(states);
+
+        reference.process(batches.subList(100, batches.size()));
+        p.process(batches.subList(100, batches.size()));
+        assertThat(p.spreads()).isEqualTo(reference.spreads());
+        assertThat(rows(ds)).isEqualTo(rows(referenceDs));
+    }
+
+    private QuotePipeline stepping(AgroalDataSource ds, int aheadRows, AlertStage alerts) {
+        QuotePipeline p = new QuotePipeline(WATCHES, new JournalWriter(ds, clock, 0, aheadRows), new JournalReader(ds), PipelineListener.NONE,
+                alerts, clock, new QuotePipeline.Memory(1_000, QuotePipeline.Memory.MIN_DAYS, new CurveCheckpoints(ds, clock)));
+        p.recover();
+        return p;
+    }
+
+    /** The journal's quote and spread-value rows in the order of their ids, without ids and times. */
+    private static List<String> rows(AgroalDataSource ds) {
+        List<String> rows = new ArrayList<>();
+        try (java.sql.Connection c = ds.getConnection(); java.sql.Statement s = c.createStatement()) {
+            try (java.sql.ResultSet rs = s.executeQuery("SELECT seq, message_id, origin, curve, market_date, yields FROM quote ORDER BY id")) {
+                while (rs.next()) {
+                    rows.add("quote " + rs.getLong(1) + " " + rs.getString(2) + " " + rs.getString(3) + " " + rs.getString(4) + " "
+                            + rs.getObject(5, LocalDate.class) + " " + rs.getString(6));
+                }
+            }
+            try (java.sql.ResultSet rs = s.executeQuery("SELECT spread_id, market_date, value_bp, seq FROM observation ORDER BY id")) {
+                while (rs.next()) {
+                    rows.add("value " + rs.getString(1) + " " + rs.getObject(2, LocalDate.class) + " " + rs.getDouble(3) + " " + rs.getLong(4));
+                }
+            }
+        } catch (java.sql.SQLException e) {
+            throw new IllegalStateException(e);
+        }
+        return rows;
+    }
 }
