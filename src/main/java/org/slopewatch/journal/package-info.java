@@ -4,7 +4,8 @@
  * versions) in one schema (Flyway migrations in {@code db/journal}) for H2 and PostgreSQL, written
  * with plain JDBC. {@link org.slopewatch.journal.JournalWriter} writes a step, its quote and
  * spread-value rows in bulk ({@code BulkRows}: {@code COPY} on PostgreSQL, a batched insert on H2)
- * and its notices with their outbox rows ({@code AlertRows}); each alert table is read and written
+ * and its notices with their outbox rows ({@code AlertRows}); a large step's rows go to a writer
+ * thread in parts while the rest of it is decided ({@code StepWrite}), still one transaction; each alert table is read and written
  * through a store with one job ({@code AlertHistory}, {@code DeliveryOutbox},
  * {@code DeliveryAttempts}, {@code Acknowledgements}, {@code QuietPeriodBook}, {@code PolicyVersions}),
  * the counter that every quiet period, lift and acknowledgement moves in its own transaction, so that
