@@ -15,6 +15,9 @@ import javax.sql.DataSource;
  */
 public final class CurveCheckpoints {
 
+    /** Checkpoints read at a time. */
+    private static final int PAGE = 16;
+
     /**
      * One curve's checkpoint.
      *
@@ -61,23 +64,35 @@ public final class CurveCheckpoints {
         }, "curve checkpoints");
     }
 
-    /** Every curve's checkpoint, whatever it was written under. */
-    public List<Stored> all() {
-        List<Stored> out = new ArrayList<>();
-        sql.query("SELECT curve, seq, watches, layout, image FROM curve_checkpoint ORDER BY curve", JournalSql.NONE,
-                rs -> out.add(stored(rs)),
-                "curve checkpoints");
-        return out;
-    }
-
-    /** The checkpoints of the given curves (those that have one), whatever they were written under. */
-    public List<Stored> of(java.util.Collection<String> curves) {
-        List<Stored> out = new ArrayList<>();
-        for (List<String> chunk : JournalSql.chunks(List.copyOf(curves))) {
-            sql.query("SELECT curve, seq, watches, layout, image FROM curve_checkpoint WHERE curve IN (" + JournalSql.placeholders(chunk.size())
-                    + ") ORDER BY curve", s -> JournalSql.bind(s, chunk), rs -> out.add(stored(rs)), "curve checkpoints");
+    /**
+     * Hands the checkpoints of {@code curves} (those that have one; null: every curve's) to
+     * {@code sink}, whatever they were written under, a few at a time: a checkpoint holds a curve's
+     * recent history (hundreds of kilobytes with a long one), so a start on a thousand curves
+     * must not hold them all at once beside the states it builds from them.
+     */
+    public void each(java.util.Collection<String> curves, java.util.function.Consumer<Stored> sink) {
+        String columns = "SELECT curve, seq, watches, layout, image FROM curve_checkpoint ";
+        if (curves == null) {
+            for (String after = ""; ; ) {
+                List<Stored> page = new ArrayList<>();
+                String from = after;
+                sql.query(columns + "WHERE curve > ? ORDER BY curve", s -> s.setString(1, from), PAGE, rs -> page.add(stored(rs)),
+                        "curve checkpoints");
+                page.forEach(sink);
+                if (page.size() < PAGE) {
+                    return;
+                }
+                after = page.get(page.size() - 1).curve();
+            }
         }
-        return out;
+        List<String> named = List.copyOf(curves);
+        for (int i = 0; i < named.size(); i += PAGE) {
+            List<String> chunk = named.subList(i, Math.min(named.size(), i + PAGE));
+            List<Stored> page = new ArrayList<>();
+            sql.query(columns + "WHERE curve IN (" + JournalSql.placeholders(chunk.size()) + ") ORDER BY curve",
+                    s -> JournalSql.bind(s, chunk), rs -> page.add(stored(rs)), "curve checkpoints");
+            page.forEach(sink);
+        }
     }
 
     private static Stored stored(java.sql.ResultSet rs) throws java.sql.SQLException {

@@ -132,7 +132,7 @@ final class HeldCurves {
         if (memory.checkpoints() == null) {
             return restored;
         }
-        for (CurveCheckpoints.Stored stored : only == null ? memory.checkpoints().all() : memory.checkpoints().of(only)) {
+        memory.checkpoints().each(only, stored -> {
             try {
                 images.read(stored, book, engine);
                 restored.put(stored.curve(), stored.seq());
@@ -142,7 +142,7 @@ final class HeldCurves {
                 LOG.warnf("checkpoint of curve %s not used (%s): the curve is rebuilt from all its journalled quotes", stored.curve(),
                         e.getMessage());
             }
-        }
+        });
         return restored;
     }
 
