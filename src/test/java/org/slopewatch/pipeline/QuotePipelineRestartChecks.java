@@ -489,27 +489,11 @@ abstract class QuotePipelineRestartChecks {
     void aStepThatFailsBeforeItsCommitTakesNoIdAsSeen() {
         AgroalDataSource ds = database("failed-step");
         boolean[] failNext = {true};
-        AlertStage failingOnce = new AlertStage() {
-            @Override
-            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
-                if (failNext[0]) {
-                    failNext[0] = false;
-                    throw new IllegalStateException("the alert stage failed");
-                }
-            }
-
-            @Override
-            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
-            }
-
-            @Override
-            public void written(List<JournalEntries.AlertEntry> alerts) {
-            }
-
-            @Override
-            public void rebuild() {
-            }
-        };
+        AlertStage failingOnce = failingWhen(() -> {
+            boolean fail = failNext[0];
+            failNext[0] = false;
+            return fail;
+        }, "the alert stage failed");
         QuotePipeline p = new QuotePipeline(WATCHES, new JournalWriter(ds, clock), new JournalReader(ds), PipelineListener.NONE,
                 failingOnce, clock);
         p.recover();
@@ -713,26 +697,7 @@ abstract class QuotePipelineRestartChecks {
         AgroalDataSource referenceDs = database("failed-step-reference");
         QuotePipeline reference = stepping(referenceDs, Integer.MAX_VALUE, AlertStage.NONE);
         boolean[] decidingFails = new boolean[1];
-        AlertStage failing = new AlertStage() {
-            @Override
-            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
-                if (decidingFails[0]) {
-                    throw new IllegalStateException("the deciding side failed");
-                }
-            }
-
-            @Override
-            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
-            }
-
-            @Override
-            public void written(List<JournalEntries.AlertEntry> alerts) {
-            }
-
-            @Override
-            public void rebuild() {
-            }
-        };
+        AlertStage failing = failingWhen(() -> decidingFails[0], "the deciding side failed");
         AgroalDataSource ds = database("failed-step");
         QuotePipeline p = stepping(ds, 1, failing);
         reference.process(batches.subList(0, 100));
@@ -791,5 +756,29 @@ abstract class QuotePipelineRestartChecks {
             throw new IllegalStateException(e);
         }
         return rows;
+    }
+
+    /** An alert stage that decides nothing and throws {@code message} from a step whenever {@code fail} says so. */
+    private static AlertStage failingWhen(java.util.function.BooleanSupplier fail, String message) {
+        return new AlertStage() {
+            @Override
+            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
+                if (fail.getAsBoolean()) {
+                    throw new IllegalStateException(message);
+                }
+            }
+
+            @Override
+            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
+            }
+
+            @Override
+            public void written(List<JournalEntries.AlertEntry> alerts) {
+            }
+
+            @Override
+            public void rebuild() {
+            }
+        };
     }
 }
