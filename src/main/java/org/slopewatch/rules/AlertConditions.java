@@ -43,7 +43,7 @@ public final class AlertConditions {
                 }
                 LiveProbability probability = models.read(rule.when(), s).orElse(null);
                 LocalDate since = since(rule.when(), s, probability);
-                out.add(new AlertCondition(rule.name(), s.id(), since != null, since, values(s, probability)));
+                out.add(new AlertCondition(rule.name(), s.id(), since != null, since, () -> values(s, probability)));
             }
         }
         return out;
