@@ -567,24 +567,8 @@ abstract class QuotePipelineRestartChecks {
 
     /** An alert stage that writes down every status it is shown, in order. */
     private static AlertStage recording(List<String> seen) {
-        return new AlertStage() {
-            @Override
-            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
-                changed.forEach(c -> seen.add(c.id() + " " + c.date() + " " + c.state() + " " + c.valueBp()));
-            }
-
-            @Override
-            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
-            }
-
-            @Override
-            public void written(List<JournalEntries.AlertEntry> alerts) {
-            }
-
-            @Override
-            public void rebuild() {
-            }
-        };
+        return onStepOnly((changed, sequence, journal) ->
+                changed.forEach(c -> seen.add(c.id() + " " + c.date() + " " + c.state() + " " + c.valueBp())));
     }
 
     /**
@@ -760,25 +744,10 @@ abstract class QuotePipelineRestartChecks {
 
     /** An alert stage that decides nothing and throws {@code message} from a step whenever {@code fail} says so. */
     private static AlertStage failingWhen(java.util.function.BooleanSupplier fail, String message) {
-        return new AlertStage() {
-            @Override
-            public void onStep(java.util.Collection<SpreadStatus> changed, long sequence, JournalEntries journal) {
-                if (fail.getAsBoolean()) {
-                    throw new IllegalStateException(message);
-                }
+        return onStepOnly((changed, sequence, journal) -> {
+            if (fail.getAsBoolean()) {
+                throw new IllegalStateException(message);
             }
-
-            @Override
-            public void onTick(java.util.Collection<SpreadStatus> all, Map<String, LocalDate> staleCurves, JournalEntries journal) {
-            }
-
-            @Override
-            public void written(List<JournalEntries.AlertEntry> alerts) {
-            }
-
-            @Override
-            public void rebuild() {
-            }
-        };
+        });
     }
 }
