@@ -12,6 +12,7 @@
 set -euo pipefail
 root="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$root"
+. bench/lib/measure.sh
 file="${1:-bench/out/curves-10x40y.csv}"
 rounds="${2:-3}"
 policy="${3:-alert-rules/default.yaml}"
@@ -28,19 +29,7 @@ echo "load before: $(cut -d' ' -f1-3 /proc/loadavg); journal: ${BACKFILL_JOURNAL
 work=$(mktemp -d /tmp/slopewatch-backfill-replay-XXXXXX)
 trap 'rm -rf "$work"' EXIT
 journal="${BACKFILL_JOURNAL:-h2}"
-pg_port="${SLOPEWATCH_POSTGRES_PORT:-55432}"
-psql_bin="$(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -1)/psql"
 echo sw > "$work/password"
-fresh_journal() { # prints the URL of an empty journal
-  if [ "$journal" = postgres ]; then
-    "$psql_bin" -q -h 127.0.0.1 -p "$pg_port" -U postgres -d postgres -c "DROP DATABASE IF EXISTS backfill_bench" \
-      -c "CREATE DATABASE backfill_bench OWNER sw" >&2
-    echo "jdbc:postgresql://127.0.0.1:$pg_port/backfill_bench"
-  else
-    rm -rf "$work/j"
-    echo "jdbc:h2:file:$work/j/journal"
-  fi
-}
 run_one() { # kind round
   local t="$out/$1-$2.time"
   if [ "$1" = replay ]; then
@@ -48,7 +37,7 @@ run_one() { # kind round
       --policy "$policy" --json > "$out/replay-$2.json"
   else
     local url
-    url="$(fresh_journal)"
+    url="$(fresh_journal "$journal" backfill_bench "$work")"
     /usr/bin/time -f '%e %U %S' -o "$t" java $backfill_opts -Dslopewatch.progress=false -jar "$jar" backfill "$file" \
       --policy "$policy" --journal-url "$url" --journal-user sw --journal-password-file "$work/password" > "$out/backfill-$2.txt"
   fi
@@ -57,7 +46,6 @@ run_one() { # kind round
 for ((round = 1; round <= rounds; round++)); do
   if ((round % 2)); then run_one replay "$round"; run_one backfill "$round"; else run_one backfill "$round"; run_one replay "$round"; fi
 done
-median() { sort -n | awk '{ a[NR] = $1 } END { print (NR % 2) ? a[(NR + 1) / 2] : (a[NR / 2] + a[NR / 2 + 1]) / 2 }'; }
 for kind in replay backfill; do
   eval "${kind}_wall=$(cat "$out"/$kind-*.time | awk '{ print $1 }' | median)"
   eval "${kind}_cpu=$(cat "$out"/$kind-*.time | awk '{ print $2 + $3 }' | median)"

@@ -10,6 +10,7 @@
 set -euo pipefail
 root="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$root"
+. bench/lib/measure.sh
 file="${1:-bench/out/curves-10x40y.csv}"
 rounds="${2:-3}"
 jar="${3:-target/quarkus-app/quarkus-run.jar}"
@@ -32,7 +33,6 @@ for ((round = 1; round <= rounds; round++)); do
   fi
 done
 echo "load after: $(cut -d' ' -f1-3 /proc/loadavg)"
-median() { sort -g | awk '{ v[NR] = $1 } END { print (NR % 2) ? v[(NR + 1) / 2] : (v[NR / 2] + v[NR / 2 + 1]) / 2 }'; }
 col() { for ((round = 1; round <= rounds; round++)); do awk -v k="$2" '{ print $k }' "$out/$1-$round.time"; done | median; }
 du="$(col default 2)"; tu="$(col term 2)"; dw="$(col default 1)"; tw="$(col term 1)"
 echo "median user CPU: default $du s, term $tu s, ratio $(awk -v a="$du" -v b="$tu" 'BEGIN { printf "%.2f", a / b }')"

@@ -17,14 +17,13 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 . bench/lib/http-history.sh
+. bench/lib/measure.sh
 file="${1:-bench/out/curves-10x40y.csv}"
 rounds="${2:-3}"
 per_request="${3:-500}"
 policy="${BENCH_POLICY:-alert-rules/default.yaml}"
 journal="${BENCH_JOURNAL:-h2}"
 port="${BENCH_PORT:-18082}"
-pg_port="${SLOPEWATCH_POSTGRES_PORT:-55432}"
-psql_bin="$(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -1)/psql"
 out=bench/out/ingest-vs-jdbc
 mkdir -p "$out"
 rm -f "$out"/*.s
@@ -38,20 +37,9 @@ split_history "$file" "$per_request" "$work/bodies"
 curves=$(curves_of "$file")
 echo "load before: $(cut -d' ' -f1-3 /proc/loadavg); journal: $journal; policy: $policy; $(ls "$work/bodies" | wc -l) requests"
 
-fresh_journal() { # prints the URL of an empty journal
-  if [ "$journal" = postgres ]; then
-    "$psql_bin" -q -h 127.0.0.1 -p "$pg_port" -U postgres -d postgres -c "DROP DATABASE IF EXISTS ingest_bench" \
-      -c "CREATE DATABASE ingest_bench OWNER sw" >&2 2>/dev/null
-    echo "jdbc:postgresql://127.0.0.1:$pg_port/ingest_bench"
-  else
-    rm -rf "$work/j"
-    echo "jdbc:h2:file:$work/j/journal"
-  fi
-}
-
 run_bare() { # round
   local url
-  url="$(fresh_journal)"
+  url="$(fresh_journal "$journal" ingest_bench "$work")"
   java -cp "$cp" org.slopewatch.bench.BareJournalWriter "$file" "$policy" "$url" sw sw 2>/dev/null | tee "$out/bare-$1.txt" \
     | sed -E 's/.* ([0-9.]+) s, .*/\1/' > "$out/bare-$1.s"
   echo "round $1 bare JDBC: $(cat "$out/bare-$1.s") s ($(cat "$out/bare-$1.txt"))"
@@ -59,7 +47,7 @@ run_bare() { # round
 
 run_http() { # round
   local url token start accepted
-  url="$(fresh_journal)"
+  url="$(fresh_journal "$journal" ingest_bench "$work")"
   token="bench-$(od -An -N12 -tx1 /dev/urandom | tr -d ' \n')"
   SLOPEWATCH_JOURNAL_URL="$url" SLOPEWATCH_JOURNAL_USERNAME=sw SLOPEWATCH_JOURNAL_PASSWORD=sw \
   java -Xmx2g -Dslopewatch.security.write-tokens="$token" -Dslopewatch.home="$PWD" -Dslopewatch.data-dir="$work/daemon-$1" \
@@ -78,7 +66,6 @@ run_http() { # round
 for ((round = 1; round <= rounds; round++)); do
   if ((round % 2)); then run_bare "$round"; run_http "$round"; else run_http "$round"; run_bare "$round"; fi
 done
-median() { sort -n | awk '{ a[NR] = $1 } END { print (NR % 2) ? a[(NR + 1) / 2] : (a[NR / 2] + a[NR / 2 + 1]) / 2 }'; }
 bare=$(cat "$out"/bare-*.s | median)
 http=$(cat "$out"/http-*.s | median)
 echo "medians: bare JDBC $bare s, HTTP $http s; HTTP ingest rate ÷ bare writer's: $(awk -v a="$bare" -v b="$http" 'BEGIN { printf "%.2f", a / b }');" \

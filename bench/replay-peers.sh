@@ -11,6 +11,7 @@
 set -euo pipefail
 root="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$root"
+. bench/lib/measure.sh
 cp="$1"
 rounds="${2:-5}"
 out=bench/out
@@ -63,7 +64,6 @@ quotes="$(sed -n 's/.*quotes=\([0-9]*\).*/\1/p' "$out/peers-parse-1.txt")"
 replay_quotes="$(python3 -c 'import json, sys; print(json.load(open(sys.argv[1]))["quotes"])' "$out/peers-replay-1.json")"
 [ "$quotes" = "$replay_quotes" ] || { say "parse-only read $quotes quotes, the replay $replay_quotes"; exit 1; }
 
-median() { sort -g | awk '{ v[NR] = $1 } END { print (NR % 2) ? v[(NR + 1) / 2] : (v[NR / 2] + v[NR / 2 + 1]) / 2 }'; }
 column() { for ((round = 1; round <= rounds; round++)); do awk -v k="$2" '{ print $k }' "$out/peers-$1-$round.time"; done; }
 {
   echo "file=$file"
