@@ -45,8 +45,8 @@ public final class JournalEntries {
     record SpellEntry(Spell spell) implements Conclusion {
     }
 
-    /** A revision with the spells of its spread as they stand after it. */
-    public record RevisionEntry(Revision revision, List<Spell> endedSpells) implements Conclusion {
+    /** A revision with the spells it writes again, as they stand after it ({@link Revision#spells()}). */
+    public record RevisionEntry(Revision revision, List<Spell> spells) implements Conclusion {
     }
 
     /**
@@ -95,8 +95,8 @@ public final class JournalEntries {
         conclusions.add(new SpellEntry(s));
     }
 
-    public void revision(Revision r, List<Spell> endedSpellsAfter) {
-        conclusions.add(new RevisionEntry(r, List.copyOf(endedSpellsAfter)));
+    public void revision(Revision r, List<Spell> spellsAgain) {
+        conclusions.add(new RevisionEntry(r, List.copyOf(spellsAgain)));
         transitionCount += r.after().size();
     }
 

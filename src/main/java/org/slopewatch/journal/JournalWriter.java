@@ -226,11 +226,32 @@ public final class JournalWriter {
             s.executeUpdate();
         }
         transitions(c, r.after(), now);
-        try (PreparedStatement s = c.prepareStatement("DELETE FROM spell WHERE spread_id = ?")) {
+        // The spells that can have changed, and only those: a spell that ended before the revised date
+        // is made of earlier values alone, which the revision leaves as they were (so its row, its id
+        // and the ids before it stand, and the ids after it are numbered on from them as before); one
+        // ending on or after it may have changed, ended on another date, become open or gone, so those
+        // rows go and the spells ending on or after it now are written. An earlier spell whose figures
+        // an unreported re-run changed comes with the revision too, and its row goes by its id.
+        try (PreparedStatement s = c.prepareStatement("DELETE FROM spell WHERE spread_id = ? AND end_date >= ?")) {
             s.setString(1, r.spread().id());
+            s.setDate(2, Date.valueOf(r.from()));
             s.executeUpdate();
         }
-        spells(c, entry.endedSpells(), now);
+        try (PreparedStatement s = c.prepareStatement("DELETE FROM spell WHERE spread_id = ? AND spell_id = ?")) {
+            boolean any = false;
+            for (Spell sp : entry.spells()) {
+                if (sp.end().isBefore(r.from())) {
+                    s.setString(1, r.spread().id());
+                    s.setLong(2, sp.id());
+                    s.addBatch();
+                    any = true;
+                }
+            }
+            if (any) {
+                s.executeBatch();
+            }
+        }
+        spells(c, entry.spells(), now);
     }
 
     private static void transitions(Connection c, List<Transition> transitions, Timestamp now) throws SQLException {

@@ -4,6 +4,8 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Set;
+import java.util.TreeSet;
 import org.slopewatch.spread.SpreadKey;
 
 /**
@@ -19,7 +21,17 @@ import org.slopewatch.spread.SpreadKey;
  * calendar days are folded into a base state (the state after all of them), so a revision inside
  * the window re-runs from the base, and one dated before it reads the spread's earlier values from
  * {@link EarlierObservations} and re-runs the whole history (slower, as correct). Transitions and
- * spells are kept whole: a few per spell, not per observation.
+ * ended spells dated on or before the base's last day are let go of with the observations, so what
+ * a track holds does not grow with the length of its history: a revision inside the window changes
+ * only what is dated after the base, and one before it re-runs the values read back twice, without
+ * and with the revised value, which gives the transitions and spells as they stood (a track holds
+ * exactly what a re-run of its observations gives, so nothing needs reading but the values).
+ *
+ * <p>One thing outlives the window: a re-run whose transitions come out the same reports nothing,
+ * yet a revised value inside an ended spell changes that spell's figures (deepest value, area,
+ * observations). Nothing has written those figures, so the spell is held, however old, until the
+ * next {@link Revision} writes it again ({@link Revision#spells()}); what a journal holds of a
+ * spread's spells is then what a track holding everything would write.
  */
 public final class SpreadTrack {
 
@@ -37,6 +49,8 @@ public final class SpreadTrack {
     private int size;
     private final List<Transition> transitions = new ArrayList<>();
     private final List<Spell> spells = new ArrayList<>();
+    /** Ids of ended spells whose figures changed with no revision reported: held until one writes them again. */
+    private final Set<Long> unreported = new TreeSet<>();
 
     public SpreadTrack(InversionMonitor monitor, SpreadKey spread) {
         this(monitor, spread, EarlierObservations.NONE);
@@ -66,12 +80,19 @@ public final class SpreadTrack {
         return state;
     }
 
-    /** Every transition so far, as things stand after any revisions. */
+    /**
+     * The transitions held, as things stand after any revisions: every one dated after the base's
+     * last day (every one so far when nothing was let go of).
+     */
     public List<Transition> transitions() {
         return List.copyOf(transitions);
     }
 
-    /** Every ended spell so far, as things stand after any revisions. */
+    /**
+     * The ended spells held, as things stand after any revisions: every one that ended after the
+     * base's last day (every one so far when nothing was let go of), and any earlier one whose
+     * changed figures no revision has reported yet.
+     */
     public List<Spell> endedSpells() {
         return List.copyOf(spells);
     }
@@ -117,13 +138,14 @@ public final class SpreadTrack {
 
     private List<MonitorEvent> replaceLatest(Observation o) {
         List<Transition> before = transitionsFrom(o.date());
+        List<Spell> beforeSpells = spellsFrom(o.date());
         transitions.removeAll(before);
-        spells.removeIf(s -> !s.end().isBefore(o.date()));
+        spells.removeAll(beforeSpells);
         state.copyFrom(checkpoint);
         values[size - 1] = o.valueBp();
         sequences[size - 1] = o.sequence();
         List<MonitorEvent> events = keep(monitor.observe(state, o));
-        return withRevision(events, o, before);
+        return withRevision(events, o, before, beforeSpells);
     }
 
     private List<MonitorEvent> revise(Observation o, int at) {
@@ -134,13 +156,16 @@ public final class SpreadTrack {
         } else {
             insert(-at - 1, day, o.valueBp(), o.sequence());
         }
-        return rerunFromBase(o);
+        // dated after the base: what it can change is held
+        return rerunFromBase(o, transitionsFrom(o.date()), spellsFrom(o.date()));
     }
 
     /**
      * A revision dated on or before the base's last day: the values let go of are read back, the
      * revised one put among them, and everything is held again and re-run from a fresh state (the
-     * next {@link #letGoBefore(int)} bounds memory again).
+     * next {@link #letGoBefore(int)} bounds memory again). What stood from the revised date on
+     * before it, some of it let go of, is worked out by a re-run of the values as they were: a track
+     * holds what a re-run of its observations gives, so this is what one holding everything holds.
      */
     private List<MonitorEvent> reviseFromEarlier(Observation o) {
         List<Observation> older = earlier.through(spread, LocalDate.ofEpochDay(base.lastDay), o.sequence());
@@ -174,6 +199,15 @@ public final class SpreadTrack {
             v[k] = o.valueBp();
             q[k++] = o.sequence();
         }
+        List<Transition> before = new ArrayList<>();
+        List<Spell> beforeSpells = new ArrayList<>();
+        MonitorState asItWas = monitor.newState(spread);
+        for (Observation e : older) {
+            from(o.date(), monitor.observe(asItWas, e), before, beforeSpells);
+        }
+        for (int i = 0; i < size; i++) {
+            from(o.date(), monitor.observe(asItWas, observation(i)), before, beforeSpells);
+        }
         System.arraycopy(days, 0, d, k, size);
         System.arraycopy(values, 0, v, k, size);
         System.arraycopy(sequences, 0, q, k, size);
@@ -183,12 +217,26 @@ public final class SpreadTrack {
         size = k + size;
         base = monitor.newState(spread);
         baseCount = 0;
-        return rerunFromBase(o);
+        return rerunFromBase(o, before, beforeSpells);
     }
 
-    /** Re-runs the held observations from the base: transitions and spells after the base's last day are worked out again. */
-    private List<MonitorEvent> rerunFromBase(Observation o) {
-        List<Transition> before = transitionsFrom(o.date());
+    /** The transitions dated on or after {@code date} and the spells ended on or after it among {@code events}, added to the lists. */
+    private static void from(LocalDate date, List<MonitorEvent> events, List<Transition> transitions, List<Spell> spells) {
+        for (MonitorEvent e : events) {
+            if (e instanceof Transition t && !t.date().isBefore(date)) {
+                transitions.add(t);
+            } else if (e instanceof Spell s && !s.end().isBefore(date)) {
+                spells.add(s);
+            }
+        }
+    }
+
+    /**
+     * Re-runs the held observations from the base: transitions and spells after the base's last day
+     * are worked out again; {@code before} and {@code beforeSpells} are those from the revised date
+     * on as they stood.
+     */
+    private List<MonitorEvent> rerunFromBase(Observation o, List<Transition> before, List<Spell> beforeSpells) {
         int baseDay = base.lastDay;
         transitions.removeIf(t -> t.date().toEpochDay() > baseDay);
         spells.removeIf(s -> s.end().toEpochDay() > baseDay);
@@ -199,7 +247,7 @@ public final class SpreadTrack {
             }
             keep(monitor.observe(state, observation(i)));
         }
-        return withRevision(List.of(), o, before);
+        return withRevision(List.of(), o, before, beforeSpells);
     }
 
     private Observation observation(int index) {
@@ -230,6 +278,10 @@ public final class SpreadTrack {
         }
         baseCount += n;
         size -= n;
+        // what they caused was reported, and a revision dated on or before the base's last day works it out again
+        int baseDay = base.lastDay;
+        transitions.removeIf(t -> t.date().toEpochDay() <= baseDay);
+        spells.removeIf(s -> s.end().toEpochDay() <= baseDay && !unreported.contains(s.id()));
         int capacity = days.length > 4 * Math.max(size, 64) ? Math.max(64, 2 * size) : days.length;
         days = shift(days, n, capacity);
         values = shift(values, n, capacity);
@@ -264,8 +316,12 @@ public final class SpreadTrack {
      * (also when a late quote makes transitions where there were none) a revision carries the new
      * ones and the spells as they now stand. Reporting them twice journalled a transition twice
      * and clashed on a spell's key.
+     *
+     * <p>With the same transitions the same spells ended on the same dates, but a revised value
+     * inside one changes its figures: such a spell is marked unreported, to be written with the next
+     * revision (the journal writes a revision's spells again, not each step's re-runs).
      */
-    private List<MonitorEvent> withRevision(List<MonitorEvent> events, Observation o, List<Transition> before) {
+    private List<MonitorEvent> withRevision(List<MonitorEvent> events, Observation o, List<Transition> before, List<Spell> beforeSpells) {
         List<Transition> after = transitionsFrom(o.date());
         if (before.isEmpty() && events.containsAll(after)) {
             return events;
@@ -277,7 +333,20 @@ public final class SpreadTrack {
             }
         }
         if (!sameOutcomes(before, after)) {
-            out.add(new Revision(spread, o.date(), before, after, o.sequence()));
+            List<Spell> again = new ArrayList<>();
+            for (Spell s : spells) {
+                if (!s.end().isBefore(o.date()) || unreported.contains(s.id())) {
+                    again.add(s);
+                }
+            }
+            unreported.clear();
+            out.add(new Revision(spread, o.date(), before, after, again, o.sequence()));
+        } else {
+            for (Spell s : spellsFrom(o.date())) {
+                if (!beforeSpells.contains(s)) {
+                    unreported.add(s.id());
+                }
+            }
         }
         return out;
     }
@@ -299,6 +368,16 @@ public final class SpreadTrack {
         for (Transition t : transitions) {
             if (!t.date().isBefore(date)) {
                 out.add(t);
+            }
+        }
+        return out;
+    }
+
+    private List<Spell> spellsFrom(LocalDate date) {
+        List<Spell> out = new ArrayList<>();
+        for (Spell s : spells) {
+            if (!s.end().isBefore(date)) {
+                out.add(s);
             }
         }
         return out;
@@ -329,6 +408,10 @@ public final class SpreadTrack {
         }
         TrackCodec.writeTransitions(transitions, out);
         TrackCodec.writeSpells(spells, out);
+        out.writeInt(unreported.size());
+        for (long id : unreported) {
+            out.writeLong(id);
+        }
     }
 
     /**
@@ -358,6 +441,10 @@ public final class SpreadTrack {
         t.size = n;
         TrackCodec.readTransitions(spread, in, t.transitions);
         TrackCodec.readSpells(spread, in, t.spells);
+        int unreported = TrackCodec.count(in);
+        for (int i = 0; i < unreported; i++) {
+            t.unreported.add(in.readLong());
+        }
         return t;
     }
 

@@ -26,8 +26,12 @@ import org.slopewatch.monitor.Watch;
  */
 final class CurveImages {
 
-    /** The layout of the bytes; a checkpoint of another layout is passed over (its curve rebuilt from its quotes). */
-    static final int LAYOUT = 1;
+    /**
+     * The layout of the bytes; a checkpoint of another layout is passed over (its curve rebuilt from
+     * its quotes). 2: a track holds its transitions and spells after its base only, and the ids of
+     * the spells whose changed figures are unreported, which layout 1 did not keep.
+     */
+    static final int LAYOUT = 2;
 
     private final String fingerprint;
 

@@ -442,7 +442,7 @@ public final class QuotePipeline {
         } else if (e instanceof Spell s) {
             journal.spell(s);
         } else if (e instanceof Revision r) {
-            journal.revision(r, engine.track(r.spread()).endedSpells());
+            journal.revision(r, r.spells());
             transitions.addAll(r.after());
             LOG.warnf("revision spread=%s from=%s: %d transition(s) replaced by %d: %s", r.spread().id(), r.from(),
                     r.before().size(), r.after().size(), r.after());

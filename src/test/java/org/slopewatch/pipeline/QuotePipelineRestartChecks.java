@@ -17,6 +17,7 @@ import java.util.Set;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
 import org.slopewatch.alerting.AlertStage;
+import org.slopewatch.curve.CurveBook;
 import org.slopewatch.curve.Tenor;
 import org.slopewatch.ingest.IngestRules;
 import org.slopewatch.ingest.QuoteDecoder;
@@ -27,6 +28,7 @@ import org.slopewatch.journal.JournalWriter;
 import org.slopewatch.monitor.DaysInverted;
 import org.slopewatch.monitor.MonitorDefinition;
 import org.slopewatch.monitor.QuarterAverage;
+import org.slopewatch.monitor.SignalEngine;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.monitor.Watch;
 import org.slopewatch.spread.SpreadDefinition;
@@ -246,7 +248,29 @@ abstract class QuotePipelineRestartChecks {
             // the last column says whether a revision superseded the row: both values, so revisions were exercised
             assertThat(actual.transitions().stream().map(t -> t.substring(t.lastIndexOf('|'))).distinct())
                     .as("seed %d: superseded and standing transitions", seed).hasSize(2);
+            // memory let go of the older transitions and spells too: the journal answers for them
+            p.checkpoint(CurveOwnership.ALL);
+            SignalEngine held = heldInCheckpoints(ds);
+            int transitionsHeld = held.tracks().stream().mapToInt(t -> t.transitions().size()).sum();
+            int spellsHeld = held.tracks().stream().mapToInt(t -> t.endedSpells().size()).sum();
+            assertThat(transitionsHeld).as("seed %d: transitions held in memory", seed)
+                    .isLessThan(journalRows(ds, "SELECT id FROM transition WHERE superseded_by IS NULL").size());
+            assertThat(spellsHeld).as("seed %d: spells held in memory", seed).isLessThan(actual.spells().size());
         }
+    }
+
+    /** The tracks as the checkpoints hold them: what memory held when they were written. */
+    private SignalEngine heldInCheckpoints(AgroalDataSource ds) {
+        SignalEngine engine = new SignalEngine(WATCHES);
+        CurveImages images = new CurveImages(WATCHES);
+        new CurveCheckpoints(ds, clock).each(null, stored -> {
+            try {
+                images.read(stored, new CurveBook(), engine);
+            } catch (java.io.IOException e) {
+                throw new AssertionError("checkpoint of " + stored.curve() + " not read", e);
+            }
+        });
+        return engine;
     }
 
     @Test
