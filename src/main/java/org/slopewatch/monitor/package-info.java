@@ -8,7 +8,8 @@
  * {@link org.slopewatch.monitor.SpreadTrack}, which reports any changed outcome as a
  * {@link org.slopewatch.monitor.Revision}; values, thresholds and averages are compared in whole
  * steps of {@link org.slopewatch.curve.Resolution#BASIS_POINTS}, sums kept exact in them. A track may
- * hold only a window of its history over a base state; what it let go of it reads back through
+ * hold only a window of its history over a base state, with the transitions and spells after the
+ * base; what it let go of it reads back through
  * {@link org.slopewatch.monitor.EarlierObservations}, and it writes itself as bytes for checkpoints
  * ({@code TrackCodec}). Plain Java only.
  */
