@@ -203,10 +203,10 @@ public final class SpreadTrack {
         List<Spell> beforeSpells = new ArrayList<>();
         MonitorState asItWas = monitor.newState(spread);
         for (Observation e : older) {
-            from(o.date(), monitor.observe(asItWas, e), before, beforeSpells);
+            addFrom(o.date(), monitor.observe(asItWas, e), before, beforeSpells);
         }
         for (int i = 0; i < size; i++) {
-            from(o.date(), monitor.observe(asItWas, observation(i)), before, beforeSpells);
+            addFrom(o.date(), monitor.observe(asItWas, observation(i)), before, beforeSpells);
         }
         System.arraycopy(days, 0, d, k, size);
         System.arraycopy(values, 0, v, k, size);
@@ -221,7 +221,7 @@ public final class SpreadTrack {
     }
 
     /** The transitions dated on or after {@code date} and the spells ended on or after it among {@code events}, added to the lists. */
-    private static void from(LocalDate date, List<MonitorEvent> events, List<Transition> transitions, List<Spell> spells) {
+    private static void addFrom(LocalDate date, List<MonitorEvent> events, List<Transition> transitions, List<Spell> spells) {
         for (MonitorEvent e : events) {
             if (e instanceof Transition t && !t.date().isBefore(date)) {
                 transitions.add(t);
