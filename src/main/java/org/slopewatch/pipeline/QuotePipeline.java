@@ -14,7 +14,6 @@ import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.Set;
 import org.jboss.logging.Logger;
-import org.jboss.logging.MDC;
 import org.slopewatch.alerting.AlertStage;
 import org.slopewatch.curve.CurveBook;
 import org.slopewatch.curve.CurveSnapshot;
@@ -45,7 +44,7 @@ import org.slopewatch.spread.SpreadKey;
  */
 public final class QuotePipeline {
 
-    private static final Logger LOG = Logger.getLogger("org.slopewatch.transitions");
+    private static final Logger LOG = Logger.getLogger(TransitionLog.CATEGORY);
 
     private List<Watch> watches;
     private final JournalWriter writer;
@@ -404,7 +403,7 @@ public final class QuotePipeline {
             batch.rejects().forEach(r -> listener.rejected(batch.origin(), r.reason()));
         }
         for (Transition t : transitions) {
-            log(t);
+            TransitionLog.transition(t);
             listener.transition(t);
         }
         changed.forEach(listener::spreadChanged);
@@ -444,27 +443,7 @@ public final class QuotePipeline {
         } else if (e instanceof Revision r) {
             journal.revision(r, r.spells());
             transitions.addAll(r.after());
-            LOG.warnf("revision spread=%s from=%s: %d transition(s) replaced by %d: %s", r.spread().id(), r.from(),
-                    r.before().size(), r.after().size(), r.after());
-        }
-    }
-
-    /** One structured line per transition; with JSON logs the fields also travel as MDC keys. */
-    private static void log(Transition t) {
-        MDC.put("spread", t.spread().id());
-        MDC.put("market_date", t.date().toString());
-        MDC.put("from", t.from().name());
-        MDC.put("to", t.to().name());
-        MDC.put("test", t.evidence().test());
-        try {
-            LOG.infof("transition spread=%s date=%s from=%s to=%s test=%s reason=\"%s\"", t.spread().id(), t.date(), t.from(),
-                    t.to(), t.evidence().test(), t.reason());
-        } finally {
-            MDC.remove("spread");
-            MDC.remove("market_date");
-            MDC.remove("from");
-            MDC.remove("to");
-            MDC.remove("test");
+            TransitionLog.revision(r);
         }
     }
 
