@@ -6,6 +6,7 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Set;
 import java.util.TreeSet;
+import java.util.function.Function;
 import org.slopewatch.spread.SpreadKey;
 
 /**
@@ -364,20 +365,18 @@ public final class SpreadTrack {
     }
 
     private List<Transition> transitionsFrom(LocalDate date) {
-        List<Transition> out = new ArrayList<>();
-        for (Transition t : transitions) {
-            if (!t.date().isBefore(date)) {
-                out.add(t);
-            }
-        }
-        return out;
+        return onOrAfter(transitions, Transition::date, date);
     }
 
     private List<Spell> spellsFrom(LocalDate date) {
-        List<Spell> out = new ArrayList<>();
-        for (Spell s : spells) {
-            if (!s.end().isBefore(date)) {
-                out.add(s);
+        return onOrAfter(spells, Spell::end, date);
+    }
+
+    private static <T> List<T> onOrAfter(List<T> items, Function<T, LocalDate> dated, LocalDate date) {
+        List<T> out = new ArrayList<>();
+        for (T item : items) {
+            if (!dated.apply(item).isBefore(date)) {
+                out.add(item);
             }
         }
         return out;
