@@ -45,8 +45,8 @@ public final class JournalEntries {
     record SpellEntry(Spell spell) implements Conclusion {
     }
 
-    /** A revision with the spells it writes again, as they stand after it ({@link Revision#spells()}). */
-    public record RevisionEntry(Revision revision, List<Spell> spells) implements Conclusion {
+    /** A revision: the transitions it supersedes and replaces, and the spells it writes again ({@link Revision#spells()}). */
+    public record RevisionEntry(Revision revision) implements Conclusion {
     }
 
     /**
@@ -95,8 +95,8 @@ public final class JournalEntries {
         conclusions.add(new SpellEntry(s));
     }
 
-    public void revision(Revision r, List<Spell> spellsAgain) {
-        conclusions.add(new RevisionEntry(r, List.copyOf(spellsAgain)));
+    public void revision(Revision r) {
+        conclusions.add(new RevisionEntry(r));
         transitionCount += r.after().size();
     }
 

@@ -239,7 +239,7 @@ public final class JournalWriter {
         }
         try (PreparedStatement s = c.prepareStatement("DELETE FROM spell WHERE spread_id = ? AND spell_id = ?")) {
             boolean any = false;
-            for (Spell sp : entry.spells()) {
+            for (Spell sp : r.spells()) {
                 if (sp.end().isBefore(r.from())) {
                     s.setString(1, r.spread().id());
                     s.setLong(2, sp.id());
@@ -251,7 +251,7 @@ public final class JournalWriter {
                 s.executeBatch();
             }
         }
-        spells(c, entry.spells(), now);
+        spells(c, r.spells(), now);
     }
 
     private static void transitions(Connection c, List<Transition> transitions, Timestamp now) throws SQLException {

@@ -441,7 +441,7 @@ public final class QuotePipeline {
         } else if (e instanceof Spell s) {
             journal.spell(s);
         } else if (e instanceof Revision r) {
-            journal.revision(r, r.spells());
+            journal.revision(r);
             transitions.addAll(r.after());
             TransitionLog.revision(r);
         }
