@@ -200,15 +200,17 @@ public final class SpreadTrack {
             v[k] = o.valueBp();
             q[k++] = o.sequence();
         }
-        List<Transition> before = new ArrayList<>();
-        List<Spell> beforeSpells = new ArrayList<>();
+        List<Transition> stood = new ArrayList<>();
+        List<Spell> stoodSpells = new ArrayList<>();
         MonitorState asItWas = monitor.newState(spread);
         for (Observation e : older) {
-            addFrom(o.date(), monitor.observe(asItWas, e), before, beforeSpells);
+            collect(monitor.observe(asItWas, e), stood, stoodSpells);
         }
         for (int i = 0; i < size; i++) {
-            addFrom(o.date(), monitor.observe(asItWas, observation(i)), before, beforeSpells);
+            collect(monitor.observe(asItWas, observation(i)), stood, stoodSpells);
         }
+        List<Transition> before = onOrAfter(stood, Transition::date, o.date());
+        List<Spell> beforeSpells = onOrAfter(stoodSpells, Spell::end, o.date());
         System.arraycopy(days, 0, d, k, size);
         System.arraycopy(values, 0, v, k, size);
         System.arraycopy(sequences, 0, q, k, size);
@@ -221,12 +223,12 @@ public final class SpreadTrack {
         return rerunFromBase(o, before, beforeSpells);
     }
 
-    /** The transitions dated on or after {@code date} and the spells ended on or after it among {@code events}, added to the lists. */
-    private static void addFrom(LocalDate date, List<MonitorEvent> events, List<Transition> transitions, List<Spell> spells) {
+    /** The transitions and ended spells among {@code events}, added to the lists. */
+    private static void collect(List<MonitorEvent> events, List<Transition> transitions, List<Spell> spells) {
         for (MonitorEvent e : events) {
-            if (e instanceof Transition t && !t.date().isBefore(date)) {
+            if (e instanceof Transition t) {
                 transitions.add(t);
-            } else if (e instanceof Spell s && !s.end().isBefore(date)) {
+            } else if (e instanceof Spell s) {
                 spells.add(s);
             }
         }
