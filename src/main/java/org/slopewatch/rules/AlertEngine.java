@@ -110,12 +110,13 @@ public final class AlertEngine {
     static String fill(String template, AlertRule rule, AlertCondition c) {
         Matcher m = PLACEHOLDER.matcher(template);
         StringBuilder b = new StringBuilder();
+        Map<String, String> values = c.values(); // built on asking: once per message, not per placeholder
         while (m.find()) {
             String key = m.group(1);
             String value = switch (key) {
                 case "rule" -> rule.name();
                 case "severity" -> rule.severity().name();
-                default -> c.values().getOrDefault(key, "?");
+                default -> values.getOrDefault(key, "?");
             };
             m.appendReplacement(b, Matcher.quoteReplacement(value));
         }
