@@ -9,6 +9,7 @@ import org.slopewatch.curve.Tenor;
 import org.slopewatch.monitor.Observation;
 import org.slopewatch.monitor.Revision;
 import org.slopewatch.monitor.Spell;
+import org.slopewatch.monitor.SpellRestatement;
 import org.slopewatch.monitor.Transition;
 import org.slopewatch.rules.Alert;
 import org.slopewatch.spread.SpreadKey;
@@ -36,7 +37,7 @@ public final class JournalEntries {
      * What the monitors concluded, kept in the order they reported it: a revision supersedes what
      * was journalled before it, including earlier conclusions of the same step, and nothing after.
      */
-    sealed interface Conclusion permits TransitionEntry, SpellEntry, RevisionEntry {
+    sealed interface Conclusion permits TransitionEntry, SpellEntry, RevisionEntry, RestatementEntry {
     }
 
     record TransitionEntry(Transition transition) implements Conclusion {
@@ -47,6 +48,10 @@ public final class JournalEntries {
 
     /** A revision: the transitions it supersedes and replaces, and the spells it writes again ({@link Revision#spells()}). */
     public record RevisionEntry(Revision revision) implements Conclusion {
+    }
+
+    /** Spells written over under their ids, their figures restated. */
+    record RestatementEntry(SpellRestatement restatement) implements Conclusion {
     }
 
     /**
@@ -98,6 +103,10 @@ public final class JournalEntries {
     public void revision(Revision r) {
         conclusions.add(new RevisionEntry(r));
         transitionCount += r.after().size();
+    }
+
+    public void restatement(SpellRestatement r) {
+        conclusions.add(new RestatementEntry(r));
     }
 
     public void alert(AlertEntry alert) {

@@ -18,6 +18,7 @@ import java.util.concurrent.TimeUnit;
 import java.util.stream.Collectors;
 import javax.sql.DataSource;
 import org.slopewatch.monitor.Spell;
+import org.slopewatch.monitor.SpellRestatement;
 import org.slopewatch.monitor.Transition;
 
 /**
@@ -174,9 +175,10 @@ public final class JournalWriter {
     }
 
     /**
-     * Transitions and spells in batches, each revision where it came: a revision marks as
-     * superseded the transitions journalled before it (earlier in this step too) and rewrites its
-     * spread's spells, so what the monitors reported after it must be written after it.
+     * Transitions and spells in batches, each revision and restatement where it came: a revision
+     * marks as superseded the transitions journalled before it (earlier in this step too) and
+     * rewrites its spread's spells, and a restatement writes over spells perhaps reported earlier in
+     * this step, so what the monitors reported before it must be written before it.
      */
     private static void conclusions(Connection c, List<JournalEntries.Conclusion> all, Timestamp now) throws SQLException {
         List<Transition> transitions = new ArrayList<>();
@@ -189,6 +191,9 @@ public final class JournalWriter {
             } else if (x instanceof JournalEntries.RevisionEntry r) {
                 flush(c, transitions, spells, now);
                 revision(c, r, now);
+            } else if (x instanceof JournalEntries.RestatementEntry r) {
+                flush(c, transitions, spells, now);
+                restatement(c, r.restatement(), now);
             }
         }
         flush(c, transitions, spells, now);
@@ -230,26 +235,24 @@ public final class JournalWriter {
         // is made of earlier values alone, which the revision leaves as they were (so its row, its id
         // and the ids before it stand, and the ids after it are numbered on from them as before); one
         // ending on or after it may have changed, ended on another date, become open or gone, so those
-        // rows go and the spells ending on or after it now are written. An earlier spell whose figures
-        // an unreported re-run changed comes with the revision too, and its row goes by its id.
+        // rows go and the spells ending on or after it now are written.
         try (PreparedStatement s = c.prepareStatement("DELETE FROM spell WHERE spread_id = ? AND end_date >= ?")) {
             s.setString(1, r.spread().id());
             s.setDate(2, Date.valueOf(r.from()));
             s.executeUpdate();
         }
+        spells(c, r.spells(), now);
+    }
+
+    /** The restated spells' rows go by their ids and the spells as they now stand take their place. */
+    private static void restatement(Connection c, SpellRestatement r, Timestamp now) throws SQLException {
         try (PreparedStatement s = c.prepareStatement("DELETE FROM spell WHERE spread_id = ? AND spell_id = ?")) {
-            boolean any = false;
             for (Spell sp : r.spells()) {
-                if (sp.end().isBefore(r.from())) {
-                    s.setString(1, r.spread().id());
-                    s.setLong(2, sp.id());
-                    s.addBatch();
-                    any = true;
-                }
+                s.setString(1, r.spread().id());
+                s.setLong(2, sp.id());
+                s.addBatch();
             }
-            if (any) {
-                s.executeBatch();
-            }
+            s.executeBatch();
         }
         spells(c, r.spells(), now);
     }

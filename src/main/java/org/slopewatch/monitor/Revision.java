@@ -9,9 +9,7 @@ import org.slopewatch.spread.SpreadKey;
  * as first reported and as they stand after re-running the affected dates.
  *
  * @param spells the ended spells to write again, as they now stand: every one that ended on or
- *               after {@code from} (the only ones a value dated {@code from} can change), and any
- *               earlier one whose figures an earlier re-run changed without changing a transition
- *               (nothing reported those figures; see {@link SpreadTrack})
+ *               after {@code from} (the only ones a value dated {@code from} can change)
  */
 public record Revision(SpreadKey spread, LocalDate from, List<Transition> before, List<Transition> after, List<Spell> spells,
                        long sequence) implements MonitorEvent {

@@ -4,8 +4,6 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
-import java.util.Set;
-import java.util.TreeSet;
 import java.util.function.Function;
 import org.slopewatch.spread.SpreadKey;
 
@@ -28,11 +26,10 @@ import org.slopewatch.spread.SpreadKey;
  * and with the revised value, which gives the transitions and spells as they stood (a track holds
  * exactly what a re-run of its observations gives, so nothing needs reading but the values).
  *
- * <p>One thing outlives the window: a re-run whose transitions come out the same reports nothing,
- * yet a revised value inside an ended spell changes that spell's figures (deepest value, area,
- * observations). Nothing has written those figures, so the spell is held, however old, until the
- * next {@link Revision} writes it again ({@link Revision#spells()}); what a journal holds of a
- * spread's spells is then what a track holding everything would write.
+ * <p>A re-run whose transitions come out the same reports no revision, yet a revised value
+ * inside an ended spell may change that spell's figures (deepest value, area, observations): a
+ * {@link SpellRestatement} then carries the spells as they now stand, so that what was written of
+ * them is written over at once.
  */
 public final class SpreadTrack {
 
@@ -50,8 +47,6 @@ public final class SpreadTrack {
     private int size;
     private final List<Transition> transitions = new ArrayList<>();
     private final List<Spell> spells = new ArrayList<>();
-    /** Ids of ended spells whose figures changed with no revision reported: held until one writes them again. */
-    private final Set<Long> unreported = new TreeSet<>();
 
     public SpreadTrack(InversionMonitor monitor, SpreadKey spread) {
         this(monitor, spread, EarlierObservations.NONE);
@@ -91,8 +86,7 @@ public final class SpreadTrack {
 
     /**
      * The ended spells held, as things stand after any revisions: every one that ended after the
-     * base's last day (every one so far when nothing was let go of), and any earlier one whose
-     * changed figures no revision has reported yet.
+     * base's last day (every one so far when nothing was let go of).
      */
     public List<Spell> endedSpells() {
         return List.copyOf(spells);
@@ -284,7 +278,7 @@ public final class SpreadTrack {
         // what they caused was reported, and a revision dated on or before the base's last day works it out again
         int baseDay = base.lastDay;
         transitions.removeIf(t -> t.date().toEpochDay() <= baseDay);
-        spells.removeIf(s -> s.end().toEpochDay() <= baseDay && !unreported.contains(s.id()));
+        spells.removeIf(s -> s.end().toEpochDay() <= baseDay);
         int capacity = days.length > 4 * Math.max(size, 64) ? Math.max(64, 2 * size) : days.length;
         days = shift(days, n, capacity);
         values = shift(values, n, capacity);
@@ -320,9 +314,9 @@ public final class SpreadTrack {
      * ones and the spells as they now stand. Reporting them twice journalled a transition twice
      * and clashed on a spell's key.
      *
-     * <p>With the same transitions the same spells ended on the same dates, but a revised value
-     * inside one changes its figures: such a spell is marked unreported, to be written with the next
-     * revision (the journal writes a revision's spells again, not each step's re-runs).
+     * <p>With the same transitions the same spells ended on the same dates (under the same ids),
+     * but a revised value inside one changes its figures: a {@link SpellRestatement} carries those
+     * that changed.
      */
     private List<MonitorEvent> withRevision(List<MonitorEvent> events, Observation o, List<Transition> before, List<Spell> beforeSpells) {
         List<Transition> after = transitionsFrom(o.date());
@@ -335,20 +329,18 @@ public final class SpreadTrack {
                 out.add(e);
             }
         }
+        List<Spell> now = spellsFrom(o.date());
         if (!sameOutcomes(before, after)) {
-            List<Spell> again = new ArrayList<>();
-            for (Spell s : spells) {
-                if (!s.end().isBefore(o.date()) || unreported.contains(s.id())) {
-                    again.add(s);
+            out.add(new Revision(spread, o.date(), before, after, now, o.sequence()));
+        } else {
+            List<Spell> changed = new ArrayList<>();
+            for (Spell s : now) {
+                if (!beforeSpells.contains(s)) {
+                    changed.add(s);
                 }
             }
-            unreported.clear();
-            out.add(new Revision(spread, o.date(), before, after, again, o.sequence()));
-        } else {
-            for (Spell s : spellsFrom(o.date())) {
-                if (!beforeSpells.contains(s)) {
-                    unreported.add(s.id());
-                }
+            if (!changed.isEmpty()) {
+                out.add(new SpellRestatement(spread, o.date(), changed, o.sequence()));
             }
         }
         return out;
@@ -409,10 +401,6 @@ public final class SpreadTrack {
         }
         TrackCodec.writeTransitions(transitions, out);
         TrackCodec.writeSpells(spells, out);
-        out.writeInt(unreported.size());
-        for (long id : unreported) {
-            out.writeLong(id);
-        }
     }
 
     /**
@@ -442,10 +430,6 @@ public final class SpreadTrack {
         t.size = n;
         TrackCodec.readTransitions(spread, in, t.transitions);
         TrackCodec.readSpells(spread, in, t.spells);
-        int unreported = TrackCodec.count(in);
-        for (int i = 0; i < unreported; i++) {
-            t.unreported.add(in.readLong());
-        }
         return t;
     }
 

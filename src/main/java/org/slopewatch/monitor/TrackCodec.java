@@ -9,8 +9,7 @@ import org.slopewatch.spread.SpreadKey;
 
 /**
  * A spread track's whole state as bytes and back, for checkpoints: the base, current and
- * provisional states, the observations, transitions and spells held, and which spells' figures
- * are unreported. Plain {@link DataOutput};
+ * provisional states, and the observations, transitions and spells held. Plain {@link DataOutput};
  * what the bytes mean is this class's alone, and a reader of another layout refuses them (the
  * caller then rebuilds from the journal).
  */

@@ -28,10 +28,11 @@ final class CurveImages {
 
     /**
      * The layout of the bytes; a checkpoint of another layout is passed over (its curve rebuilt from
-     * its quotes). 2: a track holds its transitions and spells after its base only, and the ids of
-     * the spells whose changed figures are unreported, which layout 1 did not keep.
+     * its quotes). 2: a track holds its transitions and spells after its base only, which layout 1
+     * did not; 3: without layout 2's ids of spells whose changed figures were held back (a
+     * {@link org.slopewatch.monitor.SpellRestatement} writes them at once).
      */
-    static final int LAYOUT = 2;
+    static final int LAYOUT = 3;
 
     private final String fingerprint;
 

@@ -26,6 +26,7 @@ import org.slopewatch.monitor.MonitorEvent;
 import org.slopewatch.monitor.Revision;
 import org.slopewatch.monitor.SignalEngine;
 import org.slopewatch.monitor.Spell;
+import org.slopewatch.monitor.SpellRestatement;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.monitor.SpreadTrack;
 import org.slopewatch.monitor.Transition;
@@ -444,6 +445,9 @@ public final class QuotePipeline {
             journal.revision(r);
             transitions.addAll(r.after());
             TransitionLog.revision(r);
+        } else if (e instanceof SpellRestatement r) {
+            journal.restatement(r);
+            TransitionLog.restatement(r);
         }
     }
 

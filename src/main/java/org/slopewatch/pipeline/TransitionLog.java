@@ -3,12 +3,13 @@ package org.slopewatch.pipeline;
 import org.jboss.logging.Logger;
 import org.jboss.logging.MDC;
 import org.slopewatch.monitor.Revision;
+import org.slopewatch.monitor.SpellRestatement;
 import org.slopewatch.monitor.Transition;
 
 /**
  * The log lines of what the monitors concluded: one structured line per transition once its step
- * is journalled (with JSON logs its fields also travel as MDC keys), and a warning per revision as
- * it is decided.
+ * is journalled (with JSON logs its fields also travel as MDC keys), a warning per revision as
+ * it is decided, and a line per restatement of spells' figures.
  * Category {@value #CATEGORY}, which operators raise or lower on its own.
  */
 final class TransitionLog {
@@ -40,5 +41,10 @@ final class TransitionLog {
     static void revision(Revision r) {
         LOG.warnf("revision spread=%s from=%s: %d transition(s) replaced by %d: %s", r.spread().id(), r.from(), r.before().size(),
                 r.after().size(), r.after());
+    }
+
+    static void restatement(SpellRestatement r) {
+        LOG.infof("restatement spread=%s from=%s: spell(s) %s restated: %s", r.spread().id(), r.from(),
+                r.spells().stream().map(s -> s.id()).toList(), r.spells());
     }
 }

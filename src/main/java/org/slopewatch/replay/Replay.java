@@ -15,6 +15,7 @@ import org.slopewatch.monitor.QuarterSummary;
 import org.slopewatch.monitor.Revision;
 import org.slopewatch.monitor.SignalEngine;
 import org.slopewatch.monitor.Spell;
+import org.slopewatch.monitor.SpellRestatement;
 import org.slopewatch.monitor.SpreadState;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.monitor.SpreadTrack;
@@ -112,6 +113,10 @@ public final class Replay {
                 log(s.spread()).spells.add(s);
             } else if (e instanceof Revision r) {
                 log(r.spread()).revisions.add(r);
+            } else if (e instanceof SpellRestatement r) {
+                // a file's dates ascend, so none comes here; were one to, the spells stand as restated
+                List<Spell> spells = log(r.spread()).spells;
+                r.spells().forEach(restated -> spells.replaceAll(s -> s.id() == restated.id() ? restated : s));
             }
         }
     }

@@ -63,6 +63,36 @@ class SpreadTrackTest {
     }
 
     @Test
+    void aLateValueThatDeepensAnEndedSpellButChangesNoTransitionRestatesTheSpell() {
+        record("2026-03-02", -5);
+        record("2026-03-03", -5);
+        record("2026-03-04", -5);
+        Spell first = (Spell) record("2026-03-05", 5).stream().filter(e -> e instanceof Spell).findFirst().orElseThrow();
+        record("2026-03-06", 5);
+        List<Transition> transitions = track.transitions();
+
+        List<MonitorEvent> revised = record("2026-03-03", -20);
+
+        // the same dates cross the same thresholds: no revision, but the spell's figures are not what was reported
+        assertThat(revised).singleElement().isInstanceOfSatisfying(SpellRestatement.class, r -> {
+            assertThat(r.from()).isEqualTo("2026-03-03");
+            assertThat(r.spells()).singleElement().satisfies(sp -> {
+                assertThat(sp.id()).isEqualTo(first.id());
+                assertThat(sp.end()).isEqualTo(first.end());
+                assertThat(sp.deepestBp()).isEqualTo(-20.0);
+                assertThat(sp.deepestDate()).isEqualTo("2026-03-03");
+                // a day each below zero: 5 + 5 + 5 bp·days as first reported, 5 + 20 + 5 now
+                assertThat(first.invertedAreaBpDays()).isEqualTo(15.0);
+                assertThat(sp.invertedAreaBpDays()).isEqualTo(30.0);
+            });
+        });
+        assertThat(track.transitions()).isEqualTo(transitions);
+        assertThat(track.endedSpells()).singleElement().extracting(Spell::deepestBp).isEqualTo(-20.0);
+        // a late value outside every spell changes no figure of one: nothing to report
+        assertThat(record("2026-03-06", 7)).isEmpty();
+    }
+
+    @Test
     void theSameValueAgainOnTheDayASpellEndedReportsNeitherTheTransitionNorTheSpellAgain() {
         // found by the soak test: the ended spell was reported again and clashed on its journal key
         record("2026-03-02", -5);

@@ -238,6 +238,12 @@ abstract class QuotePipelineRestartChecks {
                 }
                 assertThat(p.mostHeld()).as("seed %d: values held in memory after batch %d", seed, i)
                         .isLessThanOrEqualTo(QuotePipeline.Memory.MIN_DAYS + 64 + 3 * 64);
+                if (i % 20 == 0) {
+                    // not only at the end, where the last revision rewrites every spell of GOVT-A: a late value that
+                    // changed a spell's figures and no transition wrote them over in its own step
+                    assertThat(spellRows(ds)).as("seed %d: spells and their figures after batch %d", seed, i)
+                            .isEqualTo(spellsOfStandingValues(ds));
+                }
             }
             assertThat(restarts).as("seed %d: restarts", seed).isGreaterThan(3);
             assertThat(p.spreads()).as("seed %d: states at the end", seed).isEqualTo(uninterrupted.spreads());
@@ -253,6 +259,11 @@ abstract class QuotePipelineRestartChecks {
                         .as("seed %d: the spells the standing transitions ended", seed).isNotEmpty()
                         .isEqualTo(journalRows(journal, "SELECT spread_id, spell_id, market_date FROM transition "
                                 + "WHERE superseded_by IS NULL AND test = 'exit' ORDER BY spread_id, spell_id"));
+            }
+            // and their figures are those of the standing values: a late value that changed a spell's figures
+            // and no transition wrote them over at once, in both runs
+            for (AgroalDataSource journal : List.of(ds, straight)) {
+                assertThat(spellRows(journal)).as("seed %d: spells and their figures", seed).isEqualTo(spellsOfStandingValues(journal));
             }
             // the last column says whether a revision superseded the row: both values, so revisions were exercised
             assertThat(actual.transitions().stream().map(t -> t.substring(t.lastIndexOf('|'))).distinct())
@@ -398,6 +409,57 @@ abstract class QuotePipelineRestartChecks {
         b.checkpoint(CurveOwnership.ALL); // the survivor holds both curves now
         assertThat(checkpointed(shared, WATCHES, 90).takeOver(CurveOwnership.ALL))
                 .as("an instance started from the checkpoints, then assigned every curve: memory is current").isEmpty();
+    }
+
+    /** The journal's spell rows, every figure, in one text per row. */
+    private static List<String> spellRows(AgroalDataSource ds) {
+        List<String> out = new ArrayList<>();
+        try (java.sql.Connection c = ds.getConnection(); java.sql.Statement s = c.createStatement();
+             java.sql.ResultSet rs = s.executeQuery("SELECT spread_id, spell_id, start_date, confirmed_date, confirmed_by, end_date, "
+                     + "duration_days, observations, deepest_bp, deepest_date, area_bp_days FROM spell ORDER BY spread_id, spell_id")) {
+            while (rs.next()) {
+                out.add(spellText(rs.getString(1), rs.getLong(2), rs.getObject(3, LocalDate.class), rs.getObject(4, LocalDate.class),
+                        rs.getString(5), rs.getObject(6, LocalDate.class), rs.getLong(7), rs.getInt(8), rs.getDouble(9),
+                        rs.getObject(10, LocalDate.class), rs.getDouble(11)));
+            }
+        } catch (java.sql.SQLException e) {
+            throw new AssertionError(e);
+        }
+        return out;
+    }
+
+    /**
+     * The reference for {@link #spellRows}: the spells a fresh monitor concludes from each spread's
+     * standing values (a date's latest row) in date order, without any revision, as texts alike.
+     */
+    private static List<String> spellsOfStandingValues(AgroalDataSource ds) {
+        Map<String, java.util.TreeMap<LocalDate, org.slopewatch.monitor.Observation>> standing = new java.util.TreeMap<>();
+        for (String row : journalRows(ds, "SELECT spread_id, market_date, value_bp, seq FROM observation ORDER BY seq")) {
+            String[] f = row.split(" \\| ");
+            LocalDate date = LocalDate.parse(f[1]);
+            standing.computeIfAbsent(f[0], k -> new java.util.TreeMap<>())
+                    .put(date, new org.slopewatch.monitor.Observation(date, Double.parseDouble(f[2]), Long.parseLong(f[3])));
+        }
+        List<String> out = new ArrayList<>();
+        standing.forEach((id, values) -> {
+            org.slopewatch.spread.SpreadKey key = org.slopewatch.spread.SpreadKey.parse(id);
+            Watch watch = WATCHES.stream().filter(w -> w.spread().name().equals(key.spread())).findFirst().orElseThrow();
+            org.slopewatch.monitor.SpreadTrack track = new org.slopewatch.monitor.SpreadTrack(
+                    new org.slopewatch.monitor.InversionMonitor(watch.rules()), key);
+            values.values().forEach(track::record);
+            for (org.slopewatch.monitor.Spell sp : track.endedSpells()) {
+                out.add(spellText(id, sp.id(), sp.start(), sp.confirmed(), sp.confirmedBy(), sp.end(), sp.durationDays(),
+                        sp.observations(), sp.deepestBp(), sp.deepestDate(), sp.invertedAreaBpDays()));
+            }
+        });
+        return out;
+    }
+
+    private static String spellText(String spread, long id, LocalDate start, LocalDate confirmed, String confirmedBy, LocalDate end,
+                                    long days, int observations, double deepest, LocalDate deepestDate, double area) {
+        return String.join(" | ", spread, Long.toString(id), String.valueOf(start), String.valueOf(confirmed), String.valueOf(confirmedBy),
+                String.valueOf(end), Long.toString(days), Integer.toString(observations), Double.toString(deepest),
+                String.valueOf(deepestDate), Double.toString(area));
     }
 
     private static List<String> journalRows(AgroalDataSource ds, String query) {
