@@ -1,8 +1,10 @@
 package org.slopewatch.pipeline;
 
+import java.util.Locale;
 import org.jboss.logging.Logger;
 import org.jboss.logging.MDC;
 import org.slopewatch.monitor.Revision;
+import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpellRestatement;
 import org.slopewatch.monitor.Transition;
 
@@ -44,7 +46,12 @@ final class TransitionLog {
     }
 
     static void restatement(SpellRestatement r) {
-        LOG.infof("restatement spread=%s from=%s: spell(s) %s restated: %s", r.spread().id(), r.from(),
-                r.spells().stream().map(s -> s.id()).toList(), r.spells());
+        StringBuilder spells = new StringBuilder();
+        for (Spell s : r.spells()) {
+            spells.append(spells.isEmpty() ? "" : "; ").append(String.format(Locale.ROOT,
+                    "spell %d %s to %s: deepest %s bp on %s, area %s bp-days, %d observations", s.id(), s.start(), s.end(),
+                    s.deepestBp(), s.deepestDate(), s.invertedAreaBpDays(), s.observations()));
+        }
+        LOG.infof("restatement spread=%s from=%s: %s", r.spread().id(), r.from(), spells);
     }
 }
