@@ -24,6 +24,7 @@ import org.slopewatch.pipeline.QuoteMessage;
 import org.slopewatch.journal.CurveCheckpoints;
 import org.slopewatch.pipeline.CurveOwnership;
 import org.slopewatch.pipeline.QuotePipeline;
+import org.slopewatch.pipeline.StandingQuotes;
 import org.slopewatch.rules.Policy;
 import org.slopewatch.rules.PolicyException;
 import org.slopewatch.rules.PolicyParser;
@@ -131,14 +132,17 @@ final class BackfillCommand implements Callable<Integer> {
             QuotePipeline pipeline = new QuotePipeline(parsed.watches(), new JournalWriter(ds, clock), new JournalReader(ds),
                     PipelineListener.NONE, clock, QuotePipeline.Memory.defaults(new CurveCheckpoints(ds, clock)));
             pipeline.recover();
+            // run again after it was stopped, or on a file overlapping one loaded before, it loads only what is new or changed
+            List<QuoteMessage> toSend = StandingQuotes.notYetJournalled(messages, new JournalReader(ds));
             HistoryBackfill.Totals totals;
-            try (ProgressBar bar = ProgressBar.forStderr("backfill: journal", messages.size(), "snapshots")) {
-                totals = new HistoryBackfill(pipeline, ORIGIN, step).feed(messages, bar::update);
+            try (ProgressBar bar = ProgressBar.forStderr("backfill: journal", toSend.size(), "snapshots")) {
+                totals = new HistoryBackfill(pipeline, ORIGIN, step).feed(toSend, bar::update);
             }
             int checkpoints = pipeline.checkpoint(CurveOwnership.ALL);
-            out.println(String.format(Locale.ROOT, "backfill: %,d quotes in %,d snapshots from %d file(s) into %s: %,d transitions, "
-                    + "%,d steps, %,d curve checkpoint(s), %.1f s", quotes, totals.accepted(), files.size(), label, totals.transitions(),
-                    totals.steps(), checkpoints, (System.nanoTime() - started) / 1e9));
+            out.println(String.format(Locale.ROOT, "backfill: %,d quotes in %,d snapshots from %d file(s) into %s: %,d journalled, "
+                    + "%,d skipped (the journal held them already with the same yields), %,d transitions, %,d steps, "
+                    + "%,d curve checkpoint(s), %.1f s", quotes, messages.size(), files.size(), label, totals.accepted(),
+                    messages.size() - toSend.size(), totals.transitions(), totals.steps(), checkpoints, (System.nanoTime() - started) / 1e9));
             out.flush();
             return 0;
         } catch (JournalException e) {

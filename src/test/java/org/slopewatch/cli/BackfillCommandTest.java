@@ -54,6 +54,7 @@ class BackfillCommandTest {
         assertThat(run.exitCode()).as(run.err()).isZero();
         // 558 months of four tenors (the README's count of the H.15 file)
         assertThat(run.out()).matches("(?s)backfill: 2,232 quotes in 558 snapshots from 1 file\\(s\\) into jdbc:h2:file:\\S+: "
+                + "558 journalled, 0 skipped \\(the journal held them already with the same yields\\), "
                 + "\\d+ transitions, 6 steps, 1 curve checkpoint\\(s\\), \\d+\\.\\d s\\R");
 
         String oneByOne = "jdbc:h2:file:" + dir.resolve("one-by-one");
@@ -112,6 +113,54 @@ class BackfillCommandTest {
         CliRun fixed = CliRun.of(concat(new String[] {"backfill", second.toString()}, common));
         assertThat(fixed.exitCode()).as(fixed.err()).isZero();
         assertThat(rows(url, QUOTES)).as("both halves, once each").hasSize(558);
+    }
+
+    /**
+     * A backfill stopped midway left its first steps committed; the same command run again loads the
+     * rest, and the journal is the one a single run writes. Run once more, it loads nothing; a file
+     * with one month's yields changed loads that month alone, as a revision.
+     */
+    @Test
+    void aBackfillRunAgainLoadsOnlyWhatTheJournalDoesNotHoldAsItStands() throws Exception {
+        List<String> lines = Files.readAllLines(H15);
+        Path firstSteps = Files.write(dir.resolve("first-steps.csv"), lines.subList(0, 300));
+        String url = "jdbc:h2:file:" + dir.resolve("journal");
+        String whole = "jdbc:h2:file:" + dir.resolve("whole");
+        String[] common = {"--curve", "US", "--policy", POLICY.toString(), "--journal-user", "sa", "--step", "50"};
+
+        assertThat(CliRun.of(concat(new String[] {"backfill", H15.toString(), "--journal-url", whole}, common)).exitCode()).isZero();
+        assertThat(CliRun.of(concat(new String[] {"backfill", firstSteps.toString(), "--journal-url", url}, common)).exitCode()).isZero();
+
+        CliRun again = CliRun.of(concat(new String[] {"backfill", H15.toString(), "--journal-url", url}, common));
+
+        assertThat(again.exitCode()).as(again.err()).isZero();
+        assertThat(again.out()).contains(": 259 journalled, 299 skipped (the journal held them already with the same yields), ");
+        assertThat(rows(url, QUOTES)).as("quotes, each once, numbered as one run numbers them").hasSize(558).isEqualTo(rows(whole, QUOTES));
+        JournalContents once = JournalContents.read(whole, "sa", "");
+        assertThat(once.transitions()).isNotEmpty();
+        assertThat(JournalContents.read(url, "sa", "")).as("the journal of one run").isEqualTo(once);
+
+        CliRun thirdTime = CliRun.of(concat(new String[] {"backfill", H15.toString(), "--journal-url", url}, common));
+
+        assertThat(thirdTime.exitCode()).as(thirdTime.err()).isZero();
+        assertThat(thirdTime.out()).contains(": 0 journalled, 558 skipped (");
+        assertThat(rows(url, QUOTES)).hasSize(558);
+        assertThat(JournalContents.read(url, "sa", "")).isEqualTo(once);
+
+        // one month's 10Y a point higher: that month goes in, as the daemon takes a revised quote
+        List<String> revised = new ArrayList<>(lines);
+        String[] month = revised.get(120).split(",");
+        month[month.length - 1] = Double.toString(Double.parseDouble(month[month.length - 1]) + 1);
+        revised.set(120, String.join(",", month));
+        Path revisedFile = Files.write(dir.resolve("revised.csv"), revised);
+
+        CliRun revision = CliRun.of(concat(new String[] {"backfill", revisedFile.toString(), "--journal-url", url}, common));
+
+        assertThat(revision.exitCode()).as(revision.err()).isZero();
+        assertThat(revision.out()).contains(": 1 journalled, 557 skipped (");
+        List<String> quotes = rows(url, QUOTES);
+        assertThat(quotes).hasSize(559);
+        assertThat(quotes.get(558)).as("the revised month, last").contains(month[0]);
     }
 
     private static QuotePipeline pipeline(AgroalDataSource ds) throws Exception {
