@@ -133,7 +133,10 @@ final class BackfillCommand implements Callable<Integer> {
                     PipelineListener.NONE, clock, QuotePipeline.Memory.defaults(new CurveCheckpoints(ds, clock)));
             pipeline.recover();
             // run again after it was stopped, or on a file overlapping one loaded before, it loads only what is new or changed
-            List<QuoteMessage> toSend = StandingQuotes.notYetJournalled(messages, new JournalReader(ds));
+            List<QuoteMessage> toSend;
+            try (ProgressBar bar = ProgressBar.forStderr("backfill: checking the journal", messages.size(), "snapshots")) {
+                toSend = StandingQuotes.notYetJournalled(messages, new JournalReader(ds), bar::update);
+            }
             HistoryBackfill.Totals totals;
             try (ProgressBar bar = ProgressBar.forStderr("backfill: journal", toSend.size(), "snapshots")) {
                 totals = new HistoryBackfill(pipeline, ORIGIN, step).feed(toSend, bar::update);

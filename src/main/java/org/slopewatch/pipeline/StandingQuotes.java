@@ -7,6 +7,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.SortedMap;
+import java.util.function.LongConsumer;
 import org.slopewatch.curve.Tenor;
 import org.slopewatch.journal.JournalReader;
 
@@ -26,6 +27,14 @@ public final class StandingQuotes {
 
     /** The messages, in their order, less those the journal holds already as they stand. */
     public static List<QuoteMessage> notYetJournalled(List<QuoteMessage> messages, JournalReader journal) {
+        return notYetJournalled(messages, journal, done -> { });
+    }
+
+    /**
+     * As {@link #notYetJournalled(List, JournalReader)}, telling {@code progress} the number of
+     * messages checked so far after each curve (a large journal takes a while to read back).
+     */
+    public static List<QuoteMessage> notYetJournalled(List<QuoteMessage> messages, JournalReader journal, LongConsumer progress) {
         if (messages.isEmpty() || journal.quoteCount() == 0) {
             return messages; // a fresh journal: nothing to read back
         }
@@ -35,6 +44,7 @@ public final class StandingQuotes {
         }
         boolean[] held = new boolean[messages.size()];
         int heldCount = 0;
+        long checked = 0;
         // a curve at a time, so that memory holds one curve's dates, not the journal's
         for (Map.Entry<String, List<Integer>> curve : byCurve.entrySet()) {
             Map<LocalDate, SortedMap<Tenor, Double>> latest = new HashMap<>();
@@ -48,6 +58,8 @@ public final class StandingQuotes {
                     latest.put(m.date(), m.yieldsBp()); // what the journal will hold once it is sent, for a later file's same date
                 }
             }
+            checked += curve.getValue().size();
+            progress.accept(checked);
         }
         if (heldCount == 0) {
             return messages;
