@@ -401,6 +401,10 @@ public final class SpreadTrack {
         }
         TrackCodec.writeTransitions(transitions, out);
         TrackCodec.writeSpells(spells, out);
+        // the ids of spells held back until a revision, which earlier versions kept: none since a
+        // restatement writes them at once, but the count stays so that their checkpoints still read
+        // (a new layout would make every curve of a journal replay all its quotes at the first start)
+        out.writeInt(0);
     }
 
     /**
@@ -430,6 +434,10 @@ public final class SpreadTrack {
         t.size = n;
         TrackCodec.readTransitions(spread, in, t.transitions);
         TrackCodec.readSpells(spread, in, t.spells);
+        int heldBack = TrackCodec.count(in);
+        for (int i = 0; i < heldBack; i++) {
+            in.readLong(); // an earlier version's spell held back: its row stays as that version wrote it
+        }
         return t;
     }
 

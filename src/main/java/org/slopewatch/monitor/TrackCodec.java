@@ -9,7 +9,8 @@ import org.slopewatch.spread.SpreadKey;
 
 /**
  * A spread track's whole state as bytes and back, for checkpoints: the base, current and
- * provisional states, and the observations, transitions and spells held. Plain {@link DataOutput};
+ * provisional states, the observations, transitions and spells held, and a count kept for
+ * earlier versions' checkpoints ({@link SpreadTrack#write}). Plain {@link DataOutput};
  * what the bytes mean is this class's alone, and a reader of another layout refuses them (the
  * caller then rebuilds from the journal).
  */

@@ -29,10 +29,9 @@ final class CurveImages {
     /**
      * The layout of the bytes; a checkpoint of another layout is passed over (its curve rebuilt from
      * its quotes). 2: a track holds its transitions and spells after its base only, which layout 1
-     * did not; 3: without layout 2's ids of spells whose changed figures were held back (a
-     * {@link org.slopewatch.monitor.SpellRestatement} writes them at once).
+     * did not.
      */
-    static final int LAYOUT = 3;
+    static final int LAYOUT = 2;
 
     private final String fingerprint;
 
