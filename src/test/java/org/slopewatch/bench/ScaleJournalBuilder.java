@@ -13,15 +13,17 @@ import org.slopewatch.journal.JournalDatabase;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.journal.JournalWriter;
 import org.slopewatch.pipeline.PipelineListener;
-import org.slopewatch.pipeline.QuoteBatch;
+import org.slopewatch.pipeline.HistoryBackfill;
 import org.slopewatch.pipeline.QuoteMessage;
 import org.slopewatch.pipeline.QuotePipeline;
 
 /**
- * Builds a journal for the scale benchmark the way the daemon writes one: the {@link QuotePipeline}
- * with the daemon's {@link JournalWriter} on an H2 file at {@code DIR/journal} (the URL the daemon
- * opens for {@code slopewatch.data-dir=DIR}), fed day by day, every curve each day, in steps of
- * many messages (as a backlog arrives). Also writes the policy to {@code DIR/scale-policy.yaml}.
+ * Builds a journal for the scale benchmark the way {@code slopewatch backfill} writes one: the
+ * {@link QuotePipeline} with the daemon's {@link JournalWriter} on an H2 file at {@code DIR/journal}
+ * (the URL the daemon opens for {@code slopewatch.data-dir=DIR}), fed by {@link HistoryBackfill} day
+ * by day, every curve each day, in steps of many messages, checkpoints at the end. The curves are
+ * generated rather than read from a file: at full scale a file would be gigabytes, which the command
+ * holds in memory whole. Also writes the policy to {@code DIR/scale-policy.yaml}.
  * With 0 curves it only creates the empty, migrated journal that the baseline starts on.
  *
  * <p>Arguments: DIR CURVES YEARS [MESSAGES_PER_STEP]. Not a test (surefire excludes bench/).
@@ -91,13 +93,14 @@ public final class ScaleJournalBuilder {
         System.out.println(line);
     }
 
+    /** One step through the backfill command's own loop ({@link HistoryBackfill}), as one transaction. */
     private static int process(QuotePipeline pipeline, List<QuoteMessage> step) {
         if (step.isEmpty()) {
             return 0;
         }
-        var outcome = pipeline.process(List.of(new QuoteBatch("http", step, List.of())));
-        if (outcome.accepted() != step.size()) {
-            throw new IllegalStateException("accepted " + outcome.accepted() + " of " + step.size());
+        HistoryBackfill.Totals totals = new HistoryBackfill(pipeline, "backfill", step.size()).feed(step, done -> { });
+        if (totals.accepted() != step.size() || totals.steps() != 1) {
+            throw new IllegalStateException("accepted " + totals.accepted() + " of " + step.size() + " in " + totals.steps() + " step(s)");
         }
         int n = step.size();
         step.clear();
