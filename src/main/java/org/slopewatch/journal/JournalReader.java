@@ -21,6 +21,8 @@ import java.util.Set;
 import java.util.function.Consumer;
 import javax.sql.DataSource;
 import org.slopewatch.curve.Resolution;
+import org.slopewatch.monitor.Spell;
+import org.slopewatch.spread.SpreadKey;
 
 /** Reads the journal: recovery on start, and the history the read API serves. */
 public final class JournalReader {
@@ -315,6 +317,28 @@ public final class JournalReader {
             throw new UncheckedIOException(e); // the rows go to a map, which never throws it
         }
         return new ArrayList<>(byDate.values());
+    }
+
+    /**
+     * A spread's ended spells as the journal holds them now, oldest first: each as it stands after
+     * any revision or restatement of its figures.
+     */
+    public List<Spell> spells(SpreadKey spread) {
+        List<Spell> out = new ArrayList<>();
+        try {
+            stream("SELECT spell_id, start_date, confirmed_date, confirmed_by, end_date, duration_days, observations, deepest_bp, "
+                    + "deepest_date, area_bp_days FROM spell WHERE spread_id = ? ORDER BY spell_id", s -> s.setString(1, spread.id()), rs -> {
+                        while (rs.next()) {
+                            Date confirmed = rs.getDate(3);
+                            out.add(new Spell(spread, rs.getLong(1), rs.getDate(2).toLocalDate(), confirmed == null ? null : confirmed.toLocalDate(),
+                                    rs.getString(4), rs.getDate(5).toLocalDate(), rs.getLong(6), rs.getInt(7), rs.getDouble(8),
+                                    rs.getDate(9).toLocalDate(), rs.getDouble(10)));
+                        }
+                    }, "the spells of " + spread.id());
+        } catch (IOException e) {
+            throw new UncheckedIOException(e); // the rows go to a list, which never throws it
+        }
+        return out;
     }
 
     /**

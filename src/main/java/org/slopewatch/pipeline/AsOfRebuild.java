@@ -5,6 +5,7 @@ import java.util.List;
 import org.slopewatch.curve.CurveBook;
 import org.slopewatch.journal.JournalReader;
 import org.slopewatch.monitor.SignalEngine;
+import org.slopewatch.monitor.Spell;
 import org.slopewatch.monitor.SpreadStatus;
 import org.slopewatch.monitor.SpreadTrack;
 import org.slopewatch.monitor.Watch;
@@ -21,8 +22,14 @@ import org.slopewatch.spread.SpreadKey;
  */
 public final class AsOfRebuild {
 
-    /** A spread's rebuilt status (null when it had no value yet) and how many quote messages went into it. */
-    public record Rebuilt(SpreadStatus status, long quotes) {
+    /**
+     * A spread's rebuilt status (null when it had no value yet), its ended spells (the engine holds
+     * every value, so all of them), and how many quote messages went into it.
+     */
+    public record Rebuilt(SpreadStatus status, List<Spell> endedSpells, long quotes) {
+        public Rebuilt {
+            endedSpells = List.copyOf(endedSpells);
+        }
     }
 
     private final JournalReader reader;
@@ -41,6 +48,6 @@ public final class AsOfRebuild {
             engine.onSnapshot(book.apply(q.curve(), q.date(), q.yieldsBp()), q.seq());
         });
         SpreadTrack track = engine.track(key);
-        return new Rebuilt(track == null ? null : SpreadStatus.of(track), count[0]);
+        return track == null ? new Rebuilt(null, List.of(), count[0]) : new Rebuilt(SpreadStatus.of(track), track.endedSpells(), count[0]);
     }
 }

@@ -95,6 +95,11 @@ final class ApiViews {
                           SpreadView spread) {
     }
 
+    /** A spread's ended spells as they stood at {@code as_of}, recomputed as {@link SpreadAsOfView} is. */
+    record SpellsAsOfView(Instant asOf, String policyHash, String recomputedUnder, long quotesReplayed, String method,
+                          List<SpellView> spells) {
+    }
+
     static Double finite(double v) {
         return Double.isFinite(v) ? v : null;
     }

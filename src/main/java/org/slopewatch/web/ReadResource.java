@@ -124,17 +124,51 @@ public class ReadResource {
         return ApiViews.SpreadView.of(s, policies.policy().probability());
     }
 
+    @GET
+    @Path("/spreads/{id}/spells")
+    @Operation(summary = "A spread's ended spells, oldest first, with their figures as they stand after any revision; with as_of, "
+            + "as they stood at that moment, rebuilt from the quotes recorded by then. The open spell is in the spread's status")
+    @APIResponse(responseCode = "200", description = "the ended spells; with as_of, wrapped with the moment and the rule sets",
+            content = @Content(mediaType = MediaType.APPLICATION_JSON,
+                    schema = @Schema(oneOf = {ApiViews.SpellView[].class, ApiViews.SpellsAsOfView.class})))
+    @APIResponse(responseCode = "400", description = "invalid-parameter: the id is not CURVE:SPREAD, or as_of is not an instant")
+    @APIResponse(responseCode = "404", description = "not-found: no such spread, or no value of it recorded by as_of")
+    public Object spells(@PathParam("id") String id, @QueryParam("as_of") String asOf) {
+        SpreadKey key = key(id);
+        Instant at = QueryParams.asOf(asOf);
+        if (at != null) {
+            AsOf a = rebuiltAsOf(key, at);
+            return new ApiViews.SpellsAsOfView(at, ruleSets.hash(at), a.recomputedUnder(), a.rebuilt().quotes(), a.method(key),
+                    a.rebuilt().endedSpells().stream().map(ApiViews.SpellView::of).toList());
+        }
+        if (pipeline.spread(key) == null) {
+            throw ProblemException.notFound("no spread " + Excerpt.of(id));
+        }
+        return journal.spells(key).stream().map(ApiViews.SpellView::of).toList();
+    }
+
     private ApiViews.SpreadAsOfView spreadAsOf(SpreadKey key, Instant at) {
+        AsOf a = rebuiltAsOf(key, at);
+        return new ApiViews.SpreadAsOfView(at, ruleSets.hash(at), a.recomputedUnder(), a.rebuilt().quotes(), a.method(key),
+                ApiViews.SpreadView.of(a.rebuilt().status(), policies.policy().probability()));
+    }
+
+    /** A spread rebuilt as of a moment, and the rule set in force now that it was rebuilt under. */
+    private record AsOf(String recomputedUnder, AsOfRebuild.Rebuilt rebuilt) {
+        String method(SpreadKey key) {
+            return "recomputed: the " + rebuilt.quotes() + " quote message(s) of " + key.curve() + " recorded at or before as_of, "
+                    + "replayed in recorded order under the rule set in force now (recomputed_under)";
+        }
+    }
+
+    private AsOf rebuiltAsOf(SpreadKey key, Instant at) {
         // the rules in force now are read before the replay, so the hash named is the one the replay ran under
         String now = ruleSets.current();
         AsOfRebuild.Rebuilt r = rebuild.spread(key, at, pipeline.watches());
         if (r.status() == null) {
             throw ProblemException.notFound("no value of " + key.id() + " recorded at or before " + at);
         }
-        return new ApiViews.SpreadAsOfView(at, ruleSets.hash(at), now, r.quotes(),
-                "recomputed: the " + r.quotes() + " quote message(s) of " + key.curve() + " recorded at or before as_of, replayed in "
-                        + "recorded order under the rule set in force now (recomputed_under)",
-                ApiViews.SpreadView.of(r.status(), policies.policy().probability()));
+        return new AsOf(now, r);
     }
 
     @GET
