@@ -129,13 +129,14 @@ final class BackfillCommand implements Callable<Integer> {
             Clock clock = Clock.systemUTC();
             // no alert stage: history is not news, and notices decided on it would reach the channels from the outbox
             // as the daemon holds memory by default, with checkpoints: the daemon then starts from them, not from every quote
-            QuotePipeline pipeline = new QuotePipeline(parsed.watches(), new JournalWriter(ds, clock), new JournalReader(ds),
+            JournalReader reader = new JournalReader(ds);
+            QuotePipeline pipeline = new QuotePipeline(parsed.watches(), new JournalWriter(ds, clock), reader,
                     PipelineListener.NONE, clock, QuotePipeline.Memory.defaults(new CurveCheckpoints(ds, clock)));
             pipeline.recover();
             // run again after it was stopped, or on a file overlapping one loaded before, it loads only what is new or changed
             List<QuoteMessage> toSend;
             try (ProgressBar bar = ProgressBar.forStderr("backfill: checking the journal", messages.size(), "snapshots")) {
-                toSend = StandingQuotes.notYetJournalled(messages, new JournalReader(ds), bar::update);
+                toSend = StandingQuotes.notYetJournalled(messages, reader, bar::update);
             }
             HistoryBackfill.Totals totals;
             try (ProgressBar bar = ProgressBar.forStderr("backfill: journal", toSend.size(), "snapshots")) {

@@ -35,7 +35,8 @@ public final class JournalEntries {
 
     /**
      * What the monitors concluded, kept in the order they reported it: a revision supersedes what
-     * was journalled before it, including earlier conclusions of the same step, and nothing after.
+     * was journalled before it, including earlier conclusions of the same step, and nothing after;
+     * a restatement writes over spells reported before it, in this step or earlier.
      */
     sealed interface Conclusion permits TransitionEntry, SpellEntry, RevisionEntry, RestatementEntry {
     }
